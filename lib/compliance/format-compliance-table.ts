@@ -1,0 +1,88 @@
+import type { ChannelCompliance, ComplianceResult } from "./result";
+
+function num(x: number | null): string {
+  if (x === null) return "—";
+  if (x === 0) return "0";
+  const magnitude = Math.abs(x);
+  if (magnitude >= 1e5 || magnitude < 1e-3) return x.toExponential(3);
+  return String(Number(x.toPrecision(4)));
+}
+
+function pct(x: number | null): string {
+  return x === null ? "—" : `${x.toFixed(1)} %`;
+}
+
+function table(headers: string[], rows: string[][]): string[] {
+  const widths = headers.map((header, i) => Math.max(header.length, ...rows.map((row) => (row[i] ?? "").length)));
+  const line = (cells: string[]): string =>
+    cells.map((cell, i) => (i === 0 ? cell.padEnd(widths[i] as number) : cell.padStart(widths[i] as number))).join("  ").trimEnd();
+  return [line(headers), widths.map((width) => "-".repeat(width)).join("  "), ...rows.map(line)];
+}
+
+function channelBlock(channel: ChannelCompliance): string[] {
+  const lines = [`channel ${channel.channel}: ${channel.verdict.toUpperCase()}`, `  band: ${channel.band.label ?? "(none)"} — ${channel.band.reason}`];
+  for (const note of channel.derived.notes) lines.push(`  ${note}`);
+  if (channel.rows.length > 0) {
+    lines.push(
+      ...table(
+        ["order", "measured", "limit", "unit", "% of limit", "verdict"],
+        channel.rows.map((row) => [String(row.order), num(row.measured), num(row.limit), row.unit, pct(row.percentOfLimit), row.verdict]),
+      ).map((line) => `  ${line}`),
+    );
+  }
+  if (channel.aggregates.length > 0) {
+    lines.push("");
+    lines.push(
+      ...table(
+        ["aggregate", "measured", "limit", "unit", "% of limit", "verdict"],
+        channel.aggregates.map((aggregate) => [
+          aggregate.role === "requirement" ? aggregate.name : `${aggregate.name} (allowance)`,
+          num(aggregate.measured),
+          num(aggregate.limit),
+          aggregate.unit,
+          pct(aggregate.percentOfLimit),
+          aggregate.verdict,
+        ]),
+      ).map((line) => `  ${line}`),
+    );
+  }
+  for (const condition of channel.conditions) lines.push(`  condition ${condition.id}: ${condition.verdict} — ${condition.reason}`);
+  const explained = [
+    ...channel.rows.filter((row) => row.verdict !== "pass" && row.reason).map((row) => `  h${row.order}: ${row.reason}`),
+    ...channel.aggregates.filter((aggregate) => aggregate.verdict !== "pass" && aggregate.reason).map((aggregate) => `  ${aggregate.name}: ${aggregate.reason}`),
+  ];
+  // One line per distinct reason keeps "above Nyquist" × 10 readable.
+  const seen = new Set<string>();
+  for (const line of explained) {
+    const key = line.replace(/^ {2}h\d+: /, "").replace(/order \d+/, "order n");
+    if (seen.has(key)) continue;
+    seen.add(key);
+    lines.push(line);
+  }
+  return lines;
+}
+
+/**
+ * Render an evaluation as a plain-text sheet for the CLI: a header with the limit set,
+ * revision and overall verdict, then per channel the band and a table
+ * order | measured | limit | unit | % of limit | verdict, the aggregates, and the reasons
+ * for every row that is not a plain pass. O(rows).
+ *
+ * @example
+ * console.log(formatComplianceTable(result))
+ * // IEC 61000-3-2 Class A (iec-61000-3-2-class-a), revision 1 — FAIL
+ * // channel I1: FAIL
+ * //   order  measured  limit  unit  % of limit  verdict
+ * //   3         2.5      2.3  A        108.7 %  fail …
+ */
+export function formatComplianceTable(result: ComplianceResult): string {
+  const lines = [
+    `${result.limitSet.name} (${result.limitSet.key}, ${result.limitSet.edition}), revision ${result.revision.number} — ${result.verdict.toUpperCase()}`,
+  ];
+  if (result.channels.length === 0) lines.push(`  ${result.band.reason}`);
+  for (const channel of result.channels) {
+    lines.push("", ...channelBlock(channel));
+  }
+  lines.push("", ...result.notes.map((note) => `note: ${note}`));
+  return lines.join("\n");
+}
