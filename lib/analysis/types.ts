@@ -39,6 +39,23 @@ export interface ChannelResult {
   pwhcA?: number;
   /** Per-window series for charts: one entry per window. */
   series?: { rms: number[]; thdPercent: number[]; fundamentalRms: number[] };
+  /** THD to order 40 and to order 50 (null when that order is above the resolvable order). */
+  thd40Percent?: number | null;
+  thd50Percent?: number | null;
+  /** THC and PWHC in % of Iref, when Iref is given. */
+  thcPercentOfIref?: number;
+  pwhcPercentOfIref?: number;
+  /** BS 7821 factor K with its parameters. */
+  factorK?: number;
+  factorKParameters?: { eddyLossRatio: number; exponent: number; maxOrder: number };
+  /** Largest |sample| over the analysed windows (A or V). */
+  peak?: number;
+  /** Scale factor applied to the values as read. */
+  scale?: number;
+  /** IEC 61000-4-7 groups and subgroups per order. */
+  groups?: HarmonicGroupValue[];
+  /** Per-window rms of each order: harmonicSeries[order - 1][window]; null above the resolvable order. */
+  harmonicSeries?: (number[] | null)[];
 }
 
 export interface PowerPhase {
@@ -49,6 +66,13 @@ export interface PowerPhase {
   displacementFactor: number;
   distortionFactor: number;
   truePowerFactor: number;
+  /**
+   * Angle of the voltage fundamental minus the current fundamental, degrees in (−180, 180]:
+   * positive when the current lags (inductive). displacementFactor = |cos| with the sign of this
+   * angle (+ lagging, − leading); |angle| > 90° means power flows towards the source.
+   */
+  displacementAngleDeg?: number;
+  phase?: string | null;
 }
 
 export interface AnalysisResult {
@@ -65,4 +89,73 @@ export interface AnalysisResult {
     total: { activePowerW: number; apparentPowerVA: number; truePowerFactor: number } | null;
   };
   warnings: string[];
+  /** Symmetrical components per order for each recognised three-phase set. */
+  sequence?: SequenceSet[];
+  /** Where the sample interval came from. */
+  sampleIntervalSource?: "time-column" | "preamble" | "option";
+}
+
+// ---------------------------------------------------------------------------------------------
+// Additions by the analysis engine (optional fields and option types; existing names unchanged).
+
+export type PhaseLabel = "a" | "b" | "c";
+
+/** Per-channel settings given by the user; keys of `AnalysisOptions.channels` are header texts or names. */
+export interface ChannelOverride {
+  quantity?: Quantity;
+  /**
+   * Multiplies the values as read (after the unit prefix: mV → V) to give A or V at the primary:
+   * CT ratio, probe factor, or A per V of a clamp.
+   */
+  scale?: number;
+  phase?: PhaseLabel | null;
+}
+
+export interface AnalysisOptions {
+  /** Nominal frequency; chosen from the measured fundamental when absent. */
+  frequencyHz?: 50 | 60;
+  /** Sample interval in seconds; overrides the time column and the preamble. */
+  sampleIntervalS?: number;
+  channels?: Record<string, ChannelOverride>;
+  /** Highest order reported (default 50, at most 100). */
+  maxOrder?: number;
+  /** Maximum demand load current IL (A) for TDD (IEEE 519). */
+  ilA?: number;
+  /** Reference current Iref (A) for THC/PWHC in % (IEC 61000-3-12). */
+  irefA?: number;
+  /** Upper order of THD (default 40; 50 for IEEE 519 / IEC 61000-4-30). */
+  thdMaxOrder?: 40 | 50;
+  /** BS 7821 factor K parameters: e = eddy-current loss / I²R loss at fundamental (default 0.1), exponent q (default 1.7). */
+  factorKEddyLossRatio?: number;
+  factorKExponent?: number;
+  /** Keep per-window rms of every order in `ChannelResult.harmonicSeries` (for charts). */
+  includeOrderSeries?: boolean;
+}
+
+/** IEC 61000-4-7 grouping of one order, aggregated over windows (r.m.s. mean). */
+export interface HarmonicGroupValue {
+  order: number;
+  groupRms: number | null;
+  subgroupRms: number | null;
+  /** Interharmonic group / centred subgroup between this order and the next. */
+  interharmonicGroupRms: number | null;
+  interharmonicSubgroupRms: number | null;
+}
+
+/** Symmetrical components of one order of a three-phase set (r.m.s. mean over windows). */
+export interface SequenceOrderValue {
+  order: number;
+  positiveRms: number | null;
+  negativeRms: number | null;
+  zeroRms: number | null;
+}
+
+export interface SequenceSet {
+  quantity: Quantity;
+  unit: string;
+  /** Channel names of phases a, b, c. */
+  channels: [string, string, string];
+  /** Negative / positive sequence of the fundamental, %. */
+  unbalancePercent: number;
+  orders: SequenceOrderValue[];
 }

@@ -1,0 +1,92 @@
+// Derives the sample interval from a time column and rejects time axes that are not a regular grid.
+import { AnalysisInputError } from "./errors";
+
+/** Result of fitting t_i = startS + i·intervalS. */
+export interface TimeAxisFit {
+  intervalS: number;
+  startS: number;
+  /** Largest |residual| of the fit in seconds. */
+  maxResidualS: number;
+}
+
+/**
+ * Least-squares fit of t_i = a + b·i over the whole time column. Printed time stamps are rounded,
+ * so neighbouring differences are noisy; the slope of the fit is the interval.
+ * The axis must increase (a decreasing stamp is "non-monotonic") and every step and every residual
+ * must stay within the jitter tolerance: ±50 % of the interval plus the printed resolution of the
+ * stamps (`resolutionS`), else "irregular" (a dropped sample makes a step of 2 intervals).
+ *
+ * Complexity O(n), two passes.
+ *
+ * @param timesS time stamps in seconds, one per data row.
+ * @param resolutionS the smallest step the printed stamps can show (0 when unknown).
+ * @param lineOfRow maps a row index to its 1-based line number in the file, for messages.
+ * @param column 1-based column of the time axis, for messages.
+ * @throws AnalysisInputError "non-monotonic-time" or "irregular-time".
+ * @example
+ * fitSampleInterval(Float64Array.from([0, 0.001, 0.002]), 0, (i) => i + 2, 1).intervalS // 0.001
+ */
+export function fitSampleInterval(
+  timesS: Float64Array,
+  resolutionS: number,
+  lineOfRow: (row: number) => number,
+  column: number,
+): TimeAxisFit {
+  const n = timesS.length;
+  if (n < 2) {
+    throw new AnalysisInputError("too-short", "record is shorter than one analysis window: it has fewer than two samples");
+  }
+  for (let i = 1; i < n; i++) {
+    if (timesS[i]! < timesS[i - 1]!) {
+      throw new AnalysisInputError(
+        "non-monotonic-time",
+        `time axis is not monotonic at line ${lineOfRow(i)}: ${timesS[i]} s follows ${timesS[i - 1]} s`,
+        { line: lineOfRow(i), column },
+      );
+    }
+  }
+  const meanIndex = (n - 1) / 2;
+  let meanTime = 0;
+  for (let i = 0; i < n; i++) meanTime += timesS[i]!;
+  meanTime /= n;
+  let sxy = 0;
+  let sxx = 0;
+  for (let i = 0; i < n; i++) {
+    const dx = i - meanIndex;
+    sxy += dx * (timesS[i]! - meanTime);
+    sxx += dx * dx;
+  }
+  const intervalS = sxy / sxx;
+  if (!(intervalS > 0)) {
+    throw new AnalysisInputError("irregular-time", `time axis does not advance: every time stamp from line ${lineOfRow(0)} on is ${timesS[0]} s`, {
+      line: lineOfRow(0),
+      column,
+    });
+  }
+  const startS = meanTime - intervalS * meanIndex;
+  const tolerance = 0.5 * intervalS + resolutionS;
+  const describe = `(tolerance ±50 % of the interval plus the stamps' printed resolution)`;
+  for (let i = 1; i < n; i++) {
+    const step = timesS[i]! - timesS[i - 1]!;
+    if (Math.abs(step - intervalS) > tolerance) {
+      throw new AnalysisInputError(
+        "irregular-time",
+        `irregular time axis at line ${lineOfRow(i)}: step of ${step.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${describe}`,
+        { line: lineOfRow(i), column },
+      );
+    }
+  }
+  let maxResidualS = 0;
+  for (let i = 0; i < n; i++) {
+    const residual = Math.abs(timesS[i]! - (startS + intervalS * i));
+    if (residual > tolerance) {
+      throw new AnalysisInputError(
+        "irregular-time",
+        `irregular time axis at line ${lineOfRow(i)}: time stamp ${timesS[i]} s is ${residual.toPrecision(3)} s off the regular grid of ${intervalS.toPrecision(4)} s ${describe}`,
+        { line: lineOfRow(i), column },
+      );
+    }
+    if (residual > maxResidualS) maxResidualS = residual;
+  }
+  return { intervalS, startS, maxResidualS };
+}

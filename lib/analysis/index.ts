@@ -1,0 +1,8 @@
+// Public API of the analysis engine (pure: no framework, database or storage imports).
+export { analyzeCsvFile, analyzeCsvText } from "./analyze-csv";
+export { analyzeSamples, type SampleCapture, type SampleChannel, type StageTimings } from "./analyze-samples";
+export { AnalysisInputError, isAnalysisInputError, type AnalysisErrorCode } from "./errors";
+export { estimateFundamental } from "./estimate-fundamental";
+export { importCsvFile, importCsvText, type ImportedCapture, type ImportedChannel } from "./import-csv";
+export { inspectCsv, type CsvPreview } from "./inspect-csv";
+export type * from "./types";

@@ -1,0 +1,31 @@
+// A growable Float64Array, so a capture of millions of rows is stored as numbers, not row objects.
+
+/**
+ * Appends numbers to a Float64Array that doubles when full; amortised O(1) per push.
+ * `initialCapacity` can come from an estimate of the row count to avoid regrowth.
+ *
+ * @example
+ * const b = new SampleBuffer(4); b.push(1.5); b.values() // Float64Array [1.5]
+ */
+export class SampleBuffer {
+  private data: Float64Array;
+  length = 0;
+
+  constructor(initialCapacity = 1024) {
+    this.data = new Float64Array(Math.max(16, Math.ceil(initialCapacity)));
+  }
+
+  push(value: number): void {
+    if (this.length === this.data.length) {
+      const grown = new Float64Array(this.data.length * 2);
+      grown.set(this.data);
+      this.data = grown;
+    }
+    this.data[this.length++] = value;
+  }
+
+  /** The stored values (a view; trimmed copy when the spare capacity is large). */
+  values(): Float64Array {
+    return this.length < this.data.length * 0.75 ? this.data.slice(0, this.length) : this.data.subarray(0, this.length);
+  }
+}
