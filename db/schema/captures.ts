@@ -1,0 +1,29 @@
+import { bigint, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { users } from "./auth";
+import { captureStatusEnum } from "./enums";
+import { sites } from "./sites";
+
+export const captures = pgTable("captures", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  siteId: uuid("site_id")
+    .notNull()
+    .references(() => sites.id, { onDelete: "restrict" }),
+  title: text("title").notNull(),
+  // Key of the original upload in the bucket; the object is never modified.
+  s3Key: text("s3_key").notNull(),
+  originalFilename: text("original_filename").notNull(),
+  sizeBytes: bigint("size_bytes", { mode: "number" }).notNull().default(0),
+  status: captureStatusEnum("status").notNull().default("uploading"),
+  // User-facing reason when status is "failed".
+  failureReason: text("failure_reason"),
+  // Channel mapping and evaluation context chosen by the technician.
+  mapping: jsonb("mapping").$type<Record<string, unknown>>(),
+  context: jsonb("context").$type<Record<string, unknown>>(),
+  capturedAt: timestamp("captured_at", { withTimezone: true }),
+  uploadedBy: text("uploaded_by").references(() => users.id),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export type Capture = typeof captures.$inferSelect;
+export type NewCapture = typeof captures.$inferInsert;

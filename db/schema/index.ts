@@ -1,0 +1,6 @@
+export * from "./enums";
+export * from "./auth";
+export * from "./sites";
+export * from "./captures";
+export * from "./audit";
+export * from "./limits";

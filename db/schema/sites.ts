@@ -1,0 +1,21 @@
+import { doublePrecision, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { users } from "./auth";
+
+// A site is where captures are taken: a facility's PCC or a test bench for equipment.
+export const sites = pgTable("sites", {
+  id: uuid("id").primaryKey().defaultRandom(),
+  name: text("name").notNull(),
+  address: text("address").notNull().default(""),
+  nominalVoltageV: doublePrecision("nominal_voltage_v").notNull(),
+  frequencyHz: doublePrecision("frequency_hz").notNull(),
+  // Maximum short-circuit current and maximum demand load current at the PCC (IEEE 519 terms).
+  iscA: doublePrecision("isc_a"),
+  ilA: doublePrecision("il_a"),
+  notes: text("notes").notNull().default(""),
+  createdBy: text("created_by").references(() => users.id),
+  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
+});
+
+export type Site = typeof sites.$inferSelect;
+export type NewSite = typeof sites.$inferInsert;

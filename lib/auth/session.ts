@@ -1,0 +1,57 @@
+import "server-only";
+import { cookies } from "next/headers";
+import { cache } from "react";
+import type { Session, User } from "lucia";
+import { AppError } from "@/lib/errors";
+import { lucia } from "./lucia";
+import { can, type Permission } from "./permissions";
+
+export type SessionUser = User;
+
+/** The signed-in user of this request, or null. Refreshes the cookie when lucia extends the session. */
+export const getCurrentSession = cache(async (): Promise<{ user: User; session: Session } | { user: null; session: null }> => {
+  const jar = await cookies();
+  const sessionId = jar.get(lucia.sessionCookieName)?.value ?? null;
+  if (!sessionId) return { user: null, session: null };
+  const result = await lucia.validateSession(sessionId);
+  try {
+    if (result.session?.fresh) {
+      const c = lucia.createSessionCookie(result.session.id);
+      jar.set(c.name, c.value, c.attributes);
+    }
+    if (!result.session) {
+      const c = lucia.createBlankSessionCookie();
+      jar.set(c.name, c.value, c.attributes);
+    }
+  } catch {
+    // Server components cannot set cookies; the next route handler or action will.
+  }
+  if (result.user && !result.user.active) return { user: null, session: null };
+  return result;
+});
+
+/**
+ * The one authorisation check: signed in, active, and the role holds the permission.
+ * Throws AppError("unauthorized" | "forbidden"); returns the user otherwise.
+ */
+export async function authorise(permission: Permission | null): Promise<User> {
+  const { user } = await getCurrentSession();
+  if (!user) throw new AppError("unauthorized", "Sign in to continue.");
+  if (permission && !can(user.role, permission)) {
+    throw new AppError("forbidden", "Your role does not allow this.");
+  }
+  return user;
+}
+
+export async function startSession(userId: string): Promise<void> {
+  const session = await lucia.createSession(userId, {});
+  const c = lucia.createSessionCookie(session.id);
+  (await cookies()).set(c.name, c.value, c.attributes);
+}
+
+export async function endSession(): Promise<void> {
+  const { session } = await getCurrentSession();
+  if (session) await lucia.invalidateSession(session.id);
+  const c = lucia.createBlankSessionCookie();
+  (await cookies()).set(c.name, c.value, c.attributes);
+}
