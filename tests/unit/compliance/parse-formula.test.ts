@@ -1,9 +1,9 @@
 import { describe, expect, test } from "vitest";
 import { evaluateFormula } from "@/lib/compliance/evaluate-formula";
-import { FormulaSyntaxError, FormulaVariableError, parseFormula } from "@/lib/compliance/parse-formula";
+import { FormulaSyntaxError, FormulaVariableError, parseFormula, type FormulaVariables } from "@/lib/compliance/parse-formula";
 
 describe("evaluateFormula — valid formulas", () => {
-  test.each([
+  test.each<[string, FormulaVariables, number, string]>([
     // formula, variables, expected, source of the expected value
     ["0.15*15/h", { h: 15 }, 0.15, "IEC 61000-3-2 Ed 5.0 Table 1 Class A formula, n = 15 (computed from formula)"],
     ["0.15*15/h", { h: 21 }, 0.10714, "IEC 61000-3-2 Ed 5.0 Table 1 Class A, n = 21 → 0.1071 A (computed from formula)"],
