@@ -319,6 +319,16 @@ async function test() {
   let failedRuns = 0;
   const totals = { passed: 0, failed: 0, skipped: 0 };
   try {
+    ensureNodeModules();
+    log("type-checking the whole tree (tsc --noEmit)…");
+    const tsc = process.env.SKIP_TYPECHECK
+      ? { status: 0 }
+      : spawnSync(path.join(root, "node_modules", ".bin", "tsc"), ["--noEmit"], { cwd: root, stdio: "inherit" });
+    if (tsc.status !== 0) {
+      failedRuns += 1;
+      totals.failed += 1;
+      throw new Error("the type check failed (see above)");
+    }
     const chromium = ensureChromium();
     const { env } = await bringUp({ dataDir, ports, fast: true });
     await serveApp(env, { quiet: true });

@@ -1,0 +1,56 @@
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, snap, url } from "../support/browser";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("platform in the browser", () => {
+  it("an admin signs in, creates a site (with a field error first) and signs out", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "admin");
+    await page.goto(url("/sites/new"));
+    await page.fill("#site-name", "Tamsin Reach Substation Feeder 2");
+    await page.fill("#site-nominalVoltageV", "not a number");
+    await page.click("button[type=submit]");
+    await expect(page.getByText("Nominal voltage must be a number").isVisible()).resolves.toBe(true);
+    await page.fill("#site-nominalVoltageV", "400");
+    await page.fill("#site-iscA", "12000");
+    await page.fill("#site-ilA", "400");
+    await page.click("button[type=submit]");
+    await page.waitForURL(/\/sites\/[0-9a-f-]{36}$/);
+    expect(await page.textContent("[data-testid=site-title]")).toBe("Tamsin Reach Substation Feeder 2");
+    expect(await page.textContent("main")).toContain("Isc/IL = 30.0");
+    await snap(page, "site-created");
+    await page.click("[data-testid=sign-out]");
+    await page.waitForURL(/\/sign-in$/);
+    await page.goto(url("/sites"));
+    expect(new URL(page.url()).pathname).toBe("/sign-in");
+    await page.close();
+  });
+
+  it("a viewer cannot reach admin pages and sees no admin navigation", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "viewer");
+    expect(await page.locator("nav a", { hasText: "Users" }).count()).toBe(0);
+    const res = await page.goto(url("/admin/users"));
+    expect(res?.status()).toBe(403);
+    expect(await page.isVisible("[data-testid=forbidden]")).toBe(true);
+    await page.close();
+  });
+
+  it("works at phone width", async () => {
+    const page = await browser.newPage({ viewport: { width: 375, height: 740 } });
+    await signInAs(page, "engineer");
+    await page.goto(url("/sites"));
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await snap(page, "sites-phone");
+    await page.close();
+  });
+});

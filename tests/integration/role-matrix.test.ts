@@ -1,0 +1,111 @@
+// Every protected route handler and page, called as each role and anonymously.
+// The expectations below are written out by hand from the product's role design, not derived
+// from lib/auth/permissions.ts, so a wrong entry there makes this test fail.
+import fs from "node:fs";
+import path from "node:path";
+import { beforeAll, describe, expect, it } from "vitest";
+import { Client, signedIn, type DemoRole } from "../support/http";
+
+type Who = DemoRole | "anonymous";
+const everyone: Who[] = ["admin", "engineer", "technician", "viewer", "anonymous"];
+
+interface RouteCase {
+  method: string;
+  path: string; // with :site / :user placeholders
+  allowed: DemoRole[];
+  body?: unknown;
+}
+
+const ALL: DemoRole[] = ["admin", "engineer", "technician", "viewer"];
+
+// Write bodies are deliberately invalid: an allowed caller gets 422 (validation runs after
+// authorisation) and nothing changes, a denied one gets 403, an anonymous one 401.
+const routes: RouteCase[] = [
+  { method: "GET", path: "/api/sites", allowed: ALL },
+  { method: "POST", path: "/api/sites", allowed: ["admin", "engineer", "technician"], body: {} },
+  { method: "GET", path: "/api/sites/:site", allowed: ALL },
+  { method: "PUT", path: "/api/sites/:site", allowed: ["admin", "engineer", "technician"], body: {} },
+  { method: "GET", path: "/api/users", allowed: ["admin"] },
+  { method: "POST", path: "/api/users", allowed: ["admin"], body: {} },
+  { method: "PATCH", path: "/api/users/:user", allowed: ["admin"], body: {} },
+  { method: "GET", path: "/api/dev/mailbox", allowed: ["admin"] },
+  { method: "POST", path: "/api/auth/sign-out", allowed: ALL },
+];
+
+// Routes that need no session by design.
+const publicRoutes = ["POST /api/auth/sign-in", "POST /api/invitations/accept"];
+
+const pages: { path: string; allowed: DemoRole[] }[] = [
+  { path: "/captures", allowed: ALL },
+  { path: "/sites", allowed: ALL },
+  { path: "/sites/new", allowed: ["admin", "engineer", "technician"] },
+  { path: "/sites/:site", allowed: ALL },
+  { path: "/admin/users", allowed: ["admin"] },
+  { path: "/dev/mailbox", allowed: ["admin"] },
+];
+
+function routeFiles(dir: string): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
+    const p = path.join(dir, e.name);
+    return e.isDirectory() ? routeFiles(p) : e.name === "route.ts" ? [p] : [];
+  });
+}
+
+let siteId = "";
+let userId = "";
+const clients = new Map<Who, Client>();
+
+beforeAll(async () => {
+  for (const role of ALL) clients.set(role, await signedIn(role));
+  clients.set("anonymous", new Client());
+  const admin = clients.get("admin")!;
+  const sites = (await (await admin.request("GET", "/api/sites")).json()) as { sites: { id: string }[] };
+  siteId = sites.sites[0]!.id;
+  const users = (await (await admin.request("GET", "/api/users")).json()) as { users: { id: string; email: string }[] };
+  userId = users.users.find((u) => u.email === "viewer@ordwise.test")!.id;
+});
+
+const fill = (p: string) => p.replace(":site", siteId).replace(":user", userId);
+
+describe("role matrix — route handlers", () => {
+  it("covers every exported method of every route handler", () => {
+    const root = path.resolve(__dirname, "../../app/api");
+    const found = routeFiles(root).flatMap((file) => {
+      const src = fs.readFileSync(file, "utf8");
+      const url = "/api/" + path.relative(root, path.dirname(file)).split(path.sep).join("/");
+      return [...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => `${m[1]} ${url}`);
+    });
+    const normalise = (s: string) => s.replace(/\[[^\]]+\]/g, ":param").replace(/:(site|user)\b/g, ":param");
+    const listed = [...routes.map((r) => `${r.method} ${r.path}`), ...publicRoutes].map(normalise).sort();
+    expect(found.map(normalise).sort()).toEqual(listed);
+  });
+
+  for (const route of routes) {
+    for (const who of everyone) {
+      const allowed = who !== "anonymous" && route.allowed.includes(who);
+      it(`${route.method} ${route.path} as ${who} → ${allowed ? "allowed" : "refused"}`, async () => {
+        // Sign-out ends the session it is called with, so it runs on a fresh one.
+        const client = route.path === "/api/auth/sign-out" && who !== "anonymous" ? await signedIn(who) : clients.get(who)!;
+        const res = await client.request(route.method, fill(route.path), route.body);
+        if (who === "anonymous") expect(res.status).toBe(401);
+        else if (!allowed) expect(res.status).toBe(403);
+        else expect([200, 201, 422]).toContain(res.status);
+      });
+    }
+  }
+});
+
+describe("role matrix — pages", () => {
+  for (const page of pages) {
+    for (const who of everyone) {
+      const allowed = who !== "anonymous" && page.allowed.includes(who);
+      it(`${page.path} as ${who} → ${who === "anonymous" ? "sign-in" : allowed ? "shown" : "403"}`, async () => {
+        const res = await clients.get(who)!.request("GET", fill(page.path));
+        if (who === "anonymous") {
+          expect(res.status).toBe(307);
+          expect(res.headers.get("location")).toContain("/sign-in");
+        } else expect(res.status).toBe(allowed ? 200 : 403);
+      });
+    }
+  }
+});
