@@ -8,7 +8,6 @@ import { interpolateBand } from "./interpolate-band";
 import {
   EvaluationContextSchema,
   LimitSetRevisionContentSchema,
-  orderMatchesParity,
   type AggregateRow,
   type Band,
   type Basis,
@@ -17,6 +16,7 @@ import {
   type LimitSetRevisionContentInput,
   type OrderRow,
 } from "./model";
+import { orderMatchesParity } from "./order-matches-parity";
 import { FormulaVariableError, type FormulaVariable } from "./parse-formula";
 import type {
   BandChoice,

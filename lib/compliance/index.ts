@@ -7,4 +7,5 @@ export { parseFormula, FormulaSyntaxError, FormulaVariableError, FORMULA_VARIABL
 export { selectBand, type BandSelection } from "./select-band";
 export { seedLimitSets, getSeedLimitSet, type SeedLimitSet } from "./seed";
 export * from "./model";
+export { orderMatchesParity } from "./order-matches-parity";
 export type * from "./result";

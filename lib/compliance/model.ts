@@ -2,6 +2,7 @@
 // LimitSetRevisionContentSchema (the database stores it as jsonb); everything the evaluator
 // needs — bands, rows, aggregates, boundary choices and rules — is data in that document.
 import { z } from "zod";
+import { orderMatchesParity } from "./order-matches-parity";
 import { FormulaSyntaxError, parseFormula, type FormulaVariable } from "./parse-formula";
 
 export const QuantitySchema = z.enum(["current", "voltage"]);
@@ -312,24 +313,3 @@ export type AggregateRowInput = z.input<typeof AggregateRowSchema>;
 export type RangeInput = z.input<typeof RangeSchema>;
 export type RulesInput = z.input<typeof RulesSchema>;
 export type EvaluationContext = z.infer<typeof EvaluationContextSchema>;
-
-/**
- * Whether harmonic order `h` belongs to a row's parity class.
- *
- * @example
- * orderMatchesParity(9, "non-triplen-odd") // false
- */
-export function orderMatchesParity(h: number, parity: Parity): boolean {
-  switch (parity) {
-    case "all":
-      return true;
-    case "odd":
-      return h % 2 === 1;
-    case "even":
-      return h % 2 === 0;
-    case "triplen":
-      return h % 2 === 1 && h % 3 === 0;
-    case "non-triplen-odd":
-      return h % 2 === 1 && h % 3 !== 0;
-  }
-}

@@ -56,7 +56,7 @@ function inRange(value: number, range: Range): boolean {
 }
 
 /** Values of the band criteria in this context (Isc/IL derived from iscA and ilA). */
-export function criterionValues(context: EvaluationContext): Partial<Record<Criterion, number | string>> {
+function criterionValues(context: EvaluationContext): Partial<Record<Criterion, number | string>> {
   return {
     iscOverIl: context.iscA !== undefined && context.ilA !== undefined ? context.iscA / context.ilA : undefined,
     busVoltageV: context.busVoltageV,

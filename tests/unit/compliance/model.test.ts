@@ -1,6 +1,7 @@
 // The limit-set schema rejects malformed revision content with messages an admin can act on.
 import { describe, expect, test } from "vitest";
-import { LimitSetRevisionContentSchema, orderMatchesParity, type LimitSetRevisionContentInput } from "@/lib/compliance/model";
+import { LimitSetRevisionContentSchema, type LimitSetRevisionContentInput } from "@/lib/compliance/model";
+import { orderMatchesParity } from "@/lib/compliance/order-matches-parity";
 import { describeRange } from "@/lib/compliance/select-band";
 
 function content(bands: LimitSetRevisionContentInput["bands"]): LimitSetRevisionContentInput {
