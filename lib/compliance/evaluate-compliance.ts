@@ -115,7 +115,7 @@ function rowLimit(row: OrderRow, h: number, env: ChannelEnv): Outcome<number> {
   if (!base.ok) return base;
   let value = base.value;
   const parts: string[] = [];
-  if (row.formula !== undefined) parts.push(`${row.formula} at h = ${h}${row.formula.includes("lambda") ? `, λ = ${env.lambda}` : ""}`);
+  if (row.formula !== undefined) parts.push(`${row.formula} at h = ${h}${row.formula.includes("lambda") && env.lambda !== undefined ? `, λ = ${fmt(env.lambda)}` : ""}`);
   if (row.basis === "mA/W") {
     if (P === undefined) return { ok: false, missing: VARIABLE_NEEDS.P };
     value = (base.value * P) / 1000;
