@@ -1,6 +1,6 @@
-import { bigint, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { bigint, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
-import { captureStatusEnum } from "./enums";
+import { captureStatusEnum, reviewStateEnum } from "./enums";
 import { sites } from "./sites";
 
 export const captures = pgTable("captures", {
@@ -14,6 +14,11 @@ export const captures = pgTable("captures", {
   originalFilename: text("original_filename").notNull(),
   sizeBytes: bigint("size_bytes", { mode: "number" }).notNull().default(0),
   status: captureStatusEnum("status").notNull().default("uploading"),
+  // 0–100 while the analysis runs.
+  progressPercent: integer("progress_percent").notNull().default(0),
+  reviewState: reviewStateEnum("review_state").notNull().default("draft"),
+  // Key of the limit set the capture is judged against by default.
+  limitSetKey: text("limit_set_key"),
   // User-facing reason when status is "failed".
   failureReason: text("failure_reason"),
   // Channel mapping and evaluation context chosen by the technician.

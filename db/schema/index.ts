@@ -4,3 +4,4 @@ export * from "./sites";
 export * from "./captures";
 export * from "./audit";
 export * from "./limits";
+export * from "./results";

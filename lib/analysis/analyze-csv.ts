@@ -3,7 +3,7 @@ import { analyzeSamples, type StageTimings } from "./analyze-samples";
 import { importCsvFile, importCsvText, type ImportedCapture } from "./import-csv";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 
-function analyzeImported(capture: ImportedCapture, options: AnalysisOptions, timings?: StageTimings): AnalysisResult {
+export function analyzeImported(capture: ImportedCapture, options: AnalysisOptions, timings?: StageTimings): AnalysisResult {
   // The importer has applied unit prefixes and scale factors already; pass on quantity and phase only.
   const { sampleIntervalS: _given, channels: overrides, ...rest } = options;
   void _given;

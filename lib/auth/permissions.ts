@@ -9,6 +9,7 @@ export const permissions = {
   "captures:read": ["admin", "engineer", "technician", "viewer"],
   "captures:upload": ["admin", "engineer", "technician"],
   "captures:review": ["admin", "engineer"],
+  "captures:share": ["admin", "engineer"],
   "limits:read": ["admin", "engineer", "technician", "viewer"],
   "limits:write": ["admin"],
   "users:manage": ["admin"],

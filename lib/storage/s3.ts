@@ -40,3 +40,10 @@ export async function headObject(key: string): Promise<{ sizeBytes: number } | n
 export function presignPut(key: string, contentType: string, expiresInS = 900): Promise<string> {
   return getSignedUrl(s3, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
 }
+
+/** The first `bytes` bytes of an object (for previews of large uploads). */
+export async function getObjectHead(key: string, bytes: number): Promise<Uint8Array> {
+  const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key, Range: `bytes=0-${bytes - 1}` }));
+  if (!res.Body) throw new Error(`object ${key} has no body`);
+  return res.Body.transformToByteArray();
+}

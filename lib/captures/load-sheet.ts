@@ -1,0 +1,64 @@
+import "server-only";
+import {
+  getCaptureById,
+  getEvaluation,
+  getUserContact,
+  latestAnalysis,
+  listEvaluations,
+  listReviewEvents,
+} from "@/db/queries/captures";
+import { getSiteById } from "@/db/queries/sites";
+import type { Role } from "@/lib/auth/permissions";
+import { AppError } from "@/lib/errors";
+
+/**
+ * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
+ * the CSV export and the share page all render from this.
+ * `role` limits what is visible (viewers see only approved captures).
+ */
+export async function loadSheet({ captureId, evaluationId, role }: { captureId: string; evaluationId?: string; role: Role }) {
+  const capture = await getCaptureById({ id: captureId, role });
+  const [site, analysis, evaluations, reviews, uploader] = await Promise.all([
+    getSiteById({ id: capture.siteId }),
+    latestAnalysis({ captureId }),
+    listEvaluations({ captureId }),
+    listReviewEvents({ captureId }),
+    getUserContact({ id: capture.uploadedBy }),
+  ]);
+  const evaluation = await getEvaluation({ captureId, evaluationId });
+  if (evaluationId && !evaluation) throw new AppError("not_found", "No such evaluation of this capture.");
+  const summary = evaluation ? evaluations.find((e) => e.id === evaluation.id) ?? null : null;
+  return {
+    capture,
+    site,
+    uploaderName: uploader?.name ?? null,
+    analysis: analysis ? { id: analysis.id, createdAt: analysis.createdAt, result: analysis.result } : null,
+    evaluation: evaluation && summary ? { ...summary, result: evaluation.result } : null,
+    evaluations,
+    reviews,
+  };
+}
+
+export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
+
+/** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
+export async function loadChartData({ captureId, role }: { captureId: string; role: Role }) {
+  await getCaptureById({ id: captureId, role });
+  const analysis = await latestAnalysis({ captureId });
+  if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
+  const r = analysis.result;
+  return {
+    fundamentalHz: r.fundamentalHz,
+    windowDurationS: r.window.cycles / r.fundamentalHz,
+    waveform: analysis.waveform,
+    channels: r.channels.map((c) => ({
+      name: c.name,
+      quantity: c.quantity,
+      unit: c.unit,
+      harmonics: c.harmonics.map((h) => ({ order: h.order, rms: h.rms, percentOfFundamental: h.percentOfFundamental })),
+      series: c.series ?? null,
+    })),
+  };
+}
+
+export type ChartData = Awaited<ReturnType<typeof loadChartData>>;

@@ -1,0 +1,38 @@
+import "server-only";
+import { getCaptureById, getCurrentRevision, setCaptureStatus, storeAnalysisResult } from "@/db/queries/captures";
+import { isAnalysisInputError } from "@/lib/analysis/errors";
+import { EvaluationContextSchema } from "@/lib/compliance/model";
+import { analyzeCaptureText, evaluateCapture } from "@/lib/pipeline/run-capture";
+import { getObjectBytes } from "@/lib/storage/s3";
+import { captureMappingSchema } from "@/lib/validations/capture";
+import { decodeText } from "./decode-text";
+
+/**
+ * Runs one capture from its stored original to a stored analysis and evaluation.
+ * Never throws: any failure ends as status "failed" with a reason a technician can act on,
+ * and the original upload stays in the bucket untouched.
+ */
+export async function processCapture({ captureId, actorId }: { captureId: string; actorId: string | null }): Promise<void> {
+  try {
+    const capture = await getCaptureById({ id: captureId, role: "admin" });
+    await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
+    const mapping = captureMappingSchema.parse(capture.mapping ?? {});
+    const context = EvaluationContextSchema.parse(capture.context ?? {});
+    if (!capture.limitSetKey) throw new Error("no limit set chosen");
+    const bytes = await getObjectBytes(capture.s3Key);
+    await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
+    const { analysis, waveform } = analyzeCaptureText(decodeText(bytes), mapping, context);
+    await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
+    const revision = await getCurrentRevision({ key: capture.limitSetKey });
+    const result = evaluateCapture(analysis, revision, context);
+    await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+  } catch (err) {
+    const reason = isAnalysisInputError(err)
+      ? err.message
+      : err instanceof Error && err.message === "no limit set chosen"
+        ? "Choose a limit set in the mapping form, then run the analysis again."
+        : "The analysis stopped on an internal error. The upload is kept; try again, and tell an admin if it repeats.";
+    if (!isAnalysisInputError(err)) console.error(err);
+    await setCaptureStatus({ id: captureId, status: "failed", failureReason: reason, progressPercent: 0 }).catch(() => undefined);
+  }
+}
