@@ -282,8 +282,8 @@ export async function importCsvFile(path: string, options: ImportOptions = {}): 
         try {
           collector.addRows(results.data);
         } catch (error) {
+          fail(error); // before abort(): abort() calls complete synchronously
           parser.abort();
-          fail(error);
         }
       },
       complete: () => {
