@@ -263,6 +263,7 @@ async function bringUp({ dataDir, ports, fast }) {
   startChild("s3rver + mail catcher", tsx(), ["scripts/services.ts"], env);
   await waitForPort(ports.s3, "s3rver");
   await waitForPort(ports.mailHttp, "the mail catcher");
+  run(tsx(), ["--conditions=react-server", "scripts/seed-demo.ts"], { env });
   return { env, appUrl };
 }
 

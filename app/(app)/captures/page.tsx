@@ -1,15 +1,126 @@
+import Link from "next/link";
+import { listCaptures } from "@/db/queries/captures";
+import { listSites } from "@/db/queries/sites";
 import { requirePage } from "@/lib/auth/page";
+import { can } from "@/lib/auth/permissions";
+import { captureListQuerySchema } from "@/lib/validations/capture";
 
 export const metadata = { title: "Captures" };
 
-export default async function CapturesPage() {
-  await requirePage("captures:read");
+const statusLabels: Record<string, string> = {
+  uploading: "Uploading",
+  uploaded: "Needs mapping",
+  queued: "Queued",
+  running: "Analysing",
+  done: "Analysed",
+  failed: "Failed",
+};
+const reviewLabels: Record<string, string> = { draft: "Draft", in_review: "In review", approved: "Approved", sent_back: "Sent back" };
+const verdictStyle: Record<string, string> = {
+  pass: "bg-pass-light text-pass",
+  fail: "bg-fail-light text-fail",
+  incomplete: "bg-caution-light text-caution",
+};
+const verdictText: Record<string, string> = { pass: "✓ Pass", fail: "✗ Fail", incomplete: "? Incomplete" };
+
+export default async function CapturesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const user = await requirePage("captures:read");
+  const raw = Object.fromEntries(Object.entries(await searchParams).filter(([, v]) => typeof v === "string" && v !== ""));
+  const parsed = captureListQuerySchema.safeParse(raw);
+  const query = parsed.success ? parsed.data : { page: 1 };
+  const [{ items, total, page, pages }, sites] = await Promise.all([listCaptures({ query, role: user.role }), listSites()]);
+  const pageHref = (p: number) => `/captures?${new URLSearchParams({ ...(raw as Record<string, string>), page: String(p) })}`;
+
   return (
     <div className="space-y-4">
-      <h1>Captures</h1>
-      <p className="panel text-sm text-ink-soft" data-testid="captures-empty">
-        No captures yet. Captures are registered against a site and analysed once uploaded.
-      </p>
+      <div className="flex flex-wrap items-center justify-between gap-3">
+        <h1>Captures</h1>
+        {can(user.role, "captures:upload") && (
+          <Link href="/captures/new" className="btn-primary" data-testid="new-capture">
+            New capture
+          </Link>
+        )}
+      </div>
+      {!parsed.success && <p className="text-sm text-fail">Some filters were not understood and were ignored.</p>}
+      <form className="panel grid gap-3 sm:grid-cols-5 sm:items-end" method="get" data-testid="capture-filters">
+        <div>
+          <label htmlFor="f-site" className="field-label">Site</label>
+          <select id="f-site" name="site" defaultValue={query.site ?? ""} className="field-input">
+            <option value="">All sites</option>
+            {sites.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
+          </select>
+        </div>
+        <div>
+          <label htmlFor="f-verdict" className="field-label">Verdict</label>
+          <select id="f-verdict" name="verdict" defaultValue={query.verdict ?? ""} className="field-input">
+            <option value="">Any</option>
+            <option value="pass">Pass</option>
+            <option value="fail">Fail</option>
+            <option value="incomplete">Incomplete</option>
+          </select>
+        </div>
+        <div>
+          <label htmlFor="f-status" className="field-label">Status</label>
+          <select id="f-status" name="status" defaultValue={query.status ?? ""} className="field-input">
+            <option value="">Any</option>
+            {Object.entries(statusLabels).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+          </select>
+        </div>
+        <div className="grid grid-cols-2 gap-2">
+          <div>
+            <label htmlFor="f-from" className="field-label">From</label>
+            <input id="f-from" name="from" type="date" defaultValue={query.from ?? ""} className="field-input" />
+          </div>
+          <div>
+            <label htmlFor="f-to" className="field-label">To</label>
+            <input id="f-to" name="to" type="date" defaultValue={query.to ?? ""} className="field-input" />
+          </div>
+        </div>
+        <div className="flex gap-2">
+          <button type="submit" className="btn-quiet">Filter</button>
+          <Link href="/captures" className="btn-quiet">Clear</Link>
+        </div>
+      </form>
+
+      {items.length === 0 ? (
+        <p className="panel text-sm text-ink-soft" data-testid="captures-empty">
+          No captures match. {can(user.role, "captures:upload") ? "Register one with “New capture”." : ""}
+        </p>
+      ) : (
+        <div className="panel overflow-x-auto p-0 sm:p-0">
+          <table className="table-base" data-testid="capture-table">
+            <thead>
+              <tr><th>Capture</th><th>Site</th><th>Status</th><th>Verdict</th><th>Review</th><th>Registered</th></tr>
+            </thead>
+            <tbody>
+              {items.map((c) => (
+                <tr key={c.id}>
+                  <td><Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link></td>
+                  <td className="text-ink-soft">{c.siteName}</td>
+                  <td>{statusLabels[c.status]}</td>
+                  <td>
+                    {c.verdict ? (
+                      <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[c.verdict] ?? ""}`}>{verdictText[c.verdict] ?? c.verdict}</span>
+                    ) : "—"}
+                  </td>
+                  <td>{reviewLabels[c.reviewState]}</td>
+                  <td className="whitespace-nowrap text-ink-soft">
+                    {c.createdAt.toISOString().slice(0, 10)}
+                    {c.uploadedByName ? ` · ${c.uploadedByName}` : ""}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </div>
+      )}
+      <nav className="flex items-center justify-between text-sm" aria-label="Pages">
+        <span className="text-ink-muted">{total} capture{total === 1 ? "" : "s"} · page {page} of {pages}</span>
+        <span className="flex gap-2">
+          {page > 1 && <Link className="btn-quiet py-1" href={pageHref(page - 1)}>Previous</Link>}
+          {page < pages && <Link className="btn-quiet py-1" href={pageHref(page + 1)}>Next</Link>}
+        </span>
+      </nav>
     </div>
   );
 }

@@ -1,0 +1,57 @@
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { getCaptureById, listLimitSetChoices } from "@/db/queries/captures";
+import { getSiteById } from "@/db/queries/sites";
+import { requirePage } from "@/lib/auth/page";
+import { AppError } from "@/lib/errors";
+import { captureMappingSchema } from "@/lib/validations/capture";
+import { EvaluationContextSchema } from "@/lib/compliance/model";
+import { MappingForm } from "./mapping-form";
+
+export const metadata = { title: "Map channels" };
+
+export default async function CaptureSetupPage({ params }: { params: Promise<{ id: string }> }) {
+  const user = await requirePage("captures:upload");
+  const { id } = await params;
+  if (!z.uuid().safeParse(id).success) notFound();
+  const capture = await getCaptureById({ id, role: user.role }).catch((err) => {
+    if (err instanceof AppError && err.code === "not_found") notFound();
+    throw err;
+  });
+  const [site, limitSets] = await Promise.all([getSiteById({ id: capture.siteId }), listLimitSetChoices()]);
+  const mapping = captureMappingSchema.safeParse(capture.mapping ?? {});
+  const context = EvaluationContextSchema.safeParse(capture.context ?? {});
+  // Prefill from the site: its PCC data and the usual limit set for it.
+  const siteDefaults = {
+    limitSetKey: site.iscA && site.ilA ? "ieee-519-2014-current" : "iec-61000-3-2-class-a",
+    context: {
+      ...(site.iscA ? { iscA: site.iscA } : {}),
+      ...(site.ilA ? { ilA: site.ilA } : {}),
+      busVoltageV: site.nominalVoltageV,
+      nominalVoltageV: site.nominalVoltageV > 250 ? Math.round(site.nominalVoltageV / Math.sqrt(3)) : site.nominalVoltageV,
+    },
+  };
+  return (
+    <div className="space-y-4">
+      <div>
+        <h1>Map channels — {capture.title}</h1>
+        <p className="text-sm text-ink-soft">
+          {site.name} · {capture.originalFilename} · {(capture.sizeBytes / 1024 / 1024).toFixed(2)} MB
+        </p>
+      </div>
+      {capture.status === "failed" && capture.failureReason && (
+        <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert" data-testid="failure-reason">
+          The last analysis failed: {capture.failureReason}
+        </p>
+      )}
+      <MappingForm
+        captureId={capture.id}
+        limitSets={limitSets}
+        initialMapping={mapping.success ? mapping.data : { channels: {} }}
+        initialLimitSetKey={capture.limitSetKey ?? siteDefaults.limitSetKey}
+        initialContext={capture.context && context.success ? context.data : siteDefaults.context}
+        siteFrequencyHz={site.frequencyHz}
+      />
+    </div>
+  );
+}
