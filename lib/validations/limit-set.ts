@@ -2,13 +2,16 @@
 // the SWR hooks. Revision content itself is LimitSetRevisionContentSchema (lib/compliance/model).
 import { z } from "zod";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
+import { AppError } from "@/lib/errors";
 
 export const limitSetKeySchema = z
   .string()
   .trim()
   .min(3, "Key needs at least 3 characters")
   .max(80, "Key is too long (max 80)")
-  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "Key must be kebab-case: lower-case letters, digits and single hyphens");
+  .regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "Key must be kebab-case: lower-case letters, digits and single hyphens")
+  // `/api/limit-sets/import` is a route of its own.
+  .refine((k) => k !== "import", "Key import is reserved");
 
 export const limitSetNameSchema = z.string().trim().min(2, "Name needs at least 2 characters").max(160, "Name is too long (max 160)");
 
@@ -135,4 +138,14 @@ export function labelledFieldErrors(error: z.ZodError, body: unknown, contentKey
 /** Every message of a field-error map, in path order, for a summary list. */
 export function allMessages(fieldErrors: Record<string, string[]>): string[] {
   return Object.values(fieldErrors).flat();
+}
+
+/**
+ * Parses a request body with `schema`; on failure throws a 422 AppError whose field errors name
+ * band, row and field (see labelledFieldErrors).
+ */
+export function parseLimitSetBody<T extends z.ZodType>(schema: T, body: unknown, contentKey = "content"): z.infer<T> {
+  const result = schema.safeParse(body);
+  if (result.success) return result.data;
+  throw new AppError("validation", "Some fields need attention.", labelledFieldErrors(result.error, body, contentKey));
 }
