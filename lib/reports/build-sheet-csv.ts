@@ -1,0 +1,52 @@
+import { formatWhen, summariseContext } from "./format";
+import { channelBlocks, type SheetReport } from "./sheet-report";
+
+function cell(value: string | number | null | undefined): string {
+  if (value === null || value === undefined) return "";
+  const text = typeof value === "number" ? (Number.isFinite(value) ? String(Number(value.toPrecision(8))) : "") : value;
+  // RFC 4180 quoting; a leading =, +, - or @ is prefixed so spreadsheets do not run it as a formula.
+  const safe = /^[=+\-@]/.test(text) && typeof value === "string" ? `'${text}` : text;
+  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+}
+
+const line = (cells: Array<string | number | null | undefined>) => cells.map(cell).join(",");
+
+/**
+ * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
+ * verdict), a blank line, then one row per channel and order with
+ * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, reason.
+ * Numbers keep eight significant figures (no display rounding). O(channels × orders).
+ *
+ * @example
+ * buildSheetCsv(sheet).split("\n")[0] // "Capture,Drive 3 after filter"
+ */
+export function buildSheetCsv(sheet: SheetReport): string {
+  const evaluation = sheet.evaluation;
+  if (!evaluation) throw new Error("the capture has no evaluation to export");
+  const r = evaluation.result;
+  const head: Array<Array<string | number | null>> = [
+    ["Capture", sheet.capture.title],
+    ["Capture id", sheet.capture.id],
+    ["Site", sheet.site.name],
+    ["File", sheet.capture.originalFilename],
+    ["Captured", sheet.capture.capturedAt ? formatWhen(sheet.capture.capturedAt) : "not given"],
+    ["Uploaded", `${formatWhen(sheet.capture.createdAt)}${sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}`],
+    ["Limit set", `${evaluation.limitSetName} (${evaluation.limitSetKey})`],
+    ["Standard", `${r.limitSet.standard}, ${r.limitSet.edition}`],
+    ["Revision", evaluation.revisionNumber],
+    ["Evaluation", `${evaluation.id} at ${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : ""}`],
+    ["Band", `${r.band.label ?? "none"}: ${r.band.reason}`],
+    ["Context", summariseContext(r.context)],
+    ["Overall verdict", r.verdict],
+  ];
+  const blocks = channelBlocks(r);
+  const lines = head.map(line);
+  lines.push("");
+  lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "reason"]));
+  for (const block of blocks) {
+    for (const row of block.rows) {
+      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, row.percentOfLimit, row.margin, row.verdict, row.reason ?? ""]));
+    }
+  }
+  return lines.join("\r\n") + "\r\n";
+}

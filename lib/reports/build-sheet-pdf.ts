@@ -1,0 +1,384 @@
+import "server-only";
+import PDFDocument from "pdfkit";
+import type { ChannelCompliance, ComplianceRow } from "@/lib/compliance/result";
+import {
+  describeContext,
+  formatMargin,
+  formatNumber,
+  formatOrders,
+  formatPercent,
+  formatWhen,
+  groupReasons,
+  reviewActionLabels,
+  reviewStateLabels,
+  verdictLabel,
+} from "./format";
+import { safetyText } from "./safety-text";
+import { channelBlocks, type SheetReport } from "./sheet-report";
+
+export interface SheetPdfOptions {
+  /** Deflate page streams (default true). Tests turn it off to read the text. */
+  compress?: boolean;
+  /** Print review comments (off for share links: comments are internal). Default true. */
+  includeComments?: boolean;
+  /** Printed in the footer; injected so tests are reproducible. */
+  generatedAt?: Date;
+}
+
+const colours = {
+  ink: "#1d2a3a",
+  soft: "#3c4b5e",
+  muted: "#6b788a",
+  line: "#ddd6ca",
+  copper: "#b4582a",
+  pass: "#1f7a4d",
+  passLight: "#dcefe4",
+  fail: "#b3261e",
+  failLight: "#f7dcd9",
+  caution: "#8a6100",
+  cautionLight: "#f8ecc9",
+  idle: "#5d6b7c",
+  idleLight: "#e6e9ee",
+};
+
+function verdictColours(verdict: string): { fg: string; bg: string } {
+  if (verdict === "pass") return { fg: colours.pass, bg: colours.passLight };
+  if (verdict === "fail") return { fg: colours.fail, bg: colours.failLight };
+  if (verdict === "incomplete") return { fg: colours.caution, bg: colours.cautionLight };
+  return { fg: colours.idle, bg: colours.idleLight };
+}
+
+// The 14 standard PDF fonts only cover WinAnsi; map the few symbols the evaluator's wording uses
+// and replace anything else rather than print a wrong glyph.
+const replacements: Record<string, string> = { "λ": "lambda", "≤": "<=", "≥": ">=", "≈": "~", "Σ": "sum", "√": "sqrt", "−": "-", "→": "->", "′": "'", "μ": "µ", "Ω": "ohm" };
+const winAnsiExtra = new Set("€‚ƒ„…†‡ˆ‰Š‹ŒŽ‘’“”•–—˜™š›œžŸ");
+function pdfSafe(text: string): string {
+  let out = "";
+  for (const ch of text) {
+    const code = ch.codePointAt(0) ?? 0;
+    if ((code >= 0x20 && code <= 0x7e) || (code >= 0xa0 && code <= 0xff) || winAnsiExtra.has(ch) || ch === "\n") out += ch;
+    else out += replacements[ch] ?? "?";
+  }
+  return out;
+}
+
+const margin = 40;
+const footerSpace = 36;
+
+/**
+ * The sheet as an A4 PDF: summary with the overall verdict, limit set with standard edition and
+ * revision, band and context, the safety caution, per channel the aggregates, a vector spectrum bar
+ * chart with limit marks and the per-order table, notes, and the sign-off history.
+ * Resolves to the whole file in memory (a sheet is a few pages). O(channels × orders).
+ *
+ * @example
+ * const pdf = await buildSheetPdf(await loadSheet({ captureId, role }));
+ * pdf.subarray(0, 4).toString() // "%PDF"
+ */
+export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {}): Promise<Buffer> {
+  const evaluation = sheet.evaluation;
+  if (!evaluation) throw new Error("the capture has no evaluation to report");
+  const result = evaluation.result;
+  const generatedAt = options.generatedAt ?? new Date();
+  const doc = new PDFDocument({
+    size: "A4",
+    margin,
+    compress: options.compress ?? true,
+    bufferPages: true,
+    info: { Title: pdfSafe(`Harmonic emission sheet — ${sheet.capture.title}`), Author: "Ordwise", Subject: pdfSafe(evaluation.limitSetName) },
+  });
+  const chunks: Buffer[] = [];
+  const done = new Promise<Buffer>((resolve, reject) => {
+    doc.on("data", (chunk: Buffer) => chunks.push(chunk));
+    doc.on("end", () => resolve(Buffer.concat(chunks)));
+    doc.on("error", reject);
+  });
+
+  const width = doc.page.width - 2 * margin;
+  const bottom = () => doc.page.height - margin - footerSpace;
+  const ensure = (height: number) => {
+    if (doc.y + height > bottom()) {
+      doc.addPage();
+      doc.y = margin;
+    }
+  };
+  const text = (s: string, opts: PDFKit.Mixins.TextOptions = {}) => doc.text(pdfSafe(s), margin, doc.y, { width, ...opts });
+  const heading = (s: string) => {
+    ensure(40);
+    doc.moveDown(0.6);
+    doc.font("Helvetica-Bold").fontSize(11).fillColor(colours.ink);
+    text(s);
+    const y = doc.y + 2;
+    doc.moveTo(margin, y).lineTo(margin + width, y).lineWidth(0.5).strokeColor(colours.line).stroke();
+    doc.y = y + 5;
+    doc.font("Helvetica").fontSize(9).fillColor(colours.ink);
+  };
+  const keyValues = (pairs: Array<[string, string]>) => {
+    const keyWidth = 120;
+    for (const [k, v] of pairs) {
+      doc.font("Helvetica").fontSize(9);
+      const h = Math.max(doc.heightOfString(pdfSafe(v), { width: width - keyWidth }), 11);
+      ensure(h + 2);
+      const y = doc.y;
+      doc.fillColor(colours.muted).text(pdfSafe(k), margin, y, { width: keyWidth - 8 });
+      doc.fillColor(colours.ink).text(pdfSafe(v), margin + keyWidth, y, { width: width - keyWidth });
+      doc.y = y + h + 2;
+    }
+    doc.x = margin;
+  };
+
+  // --- summary -------------------------------------------------------------------------------
+  doc.rect(margin, margin, 9, 9).fill(colours.copper);
+  doc.font("Helvetica").fontSize(9).fillColor(colours.muted).text("Ordwise · harmonic emission sheet", margin + 14, margin, { width: width - 14 });
+  doc.y = margin + 16;
+  doc.font("Helvetica-Bold").fontSize(16).fillColor(colours.ink);
+  text(sheet.capture.title);
+  doc.font("Helvetica").fontSize(9.5).fillColor(colours.soft);
+  text(`${sheet.site.name} · ${formatNumber(sheet.site.nominalVoltageV)} V · ${sheet.site.frequencyHz} Hz`);
+  doc.moveDown(0.5);
+
+  const verdict = result.verdict;
+  const vc = verdictColours(verdict);
+  const boxY = doc.y;
+  doc.rect(margin, boxY, width, 26).fill(vc.bg);
+  doc.font("Helvetica-Bold").fontSize(12).fillColor(vc.fg).text(`Overall verdict: ${verdictLabel(verdict).toUpperCase()}`, margin + 10, boxY + 8, { width: width - 20 });
+  doc.y = boxY + 34;
+
+  keyValues([
+    ["File", sheet.capture.originalFilename],
+    ["Captured", sheet.capture.capturedAt ? formatWhen(sheet.capture.capturedAt) : "not given"],
+    ["Uploaded", `${formatWhen(sheet.capture.createdAt)}${sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}`],
+    ["Limit set", `${evaluation.limitSetName} (${evaluation.limitSetKey})`],
+    ["Standard and edition", `${result.limitSet.standard}, ${result.limitSet.edition}`],
+    ["Scope", result.limitSet.scope],
+    ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
+    ["Evaluated", `${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : " (automatic, after analysis)"}`],
+    ["Band", `${result.band.label ?? "none chosen"} — ${result.band.reason}`],
+    ["Sign-off state", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState],
+  ]);
+
+  heading("Evaluation context");
+  const context = describeContext(result.context);
+  if (context.length > 0) keyValues(context);
+  else text("No context values were given.", { continued: false });
+
+  // Safety caution near the top so it is read with the verdict.
+  ensure(50);
+  doc.moveDown(0.6);
+  const cautionY = doc.y;
+  doc.font("Helvetica").fontSize(8.5);
+  const cautionH = doc.heightOfString(pdfSafe(safetyText), { width: width - 20 }) + 16;
+  doc.rect(margin, cautionY, width, cautionH).fill(colours.cautionLight);
+  doc.fillColor(colours.caution).font("Helvetica-Bold").text("Caution", margin + 10, cautionY + 6, { width: width - 20 });
+  doc.font("Helvetica").fillColor(colours.ink).text(pdfSafe(safetyText), margin + 10, doc.y + 1, { width: width - 20 });
+  doc.y = cautionY + cautionH + 14;
+
+  // --- per channel ---------------------------------------------------------------------------
+  const blocks = channelBlocks(result);
+  if (blocks.length > 1) {
+    heading("Channels");
+    keyValues(blocks.map((b) => [b.channel, `${verdictLabel(b.verdict)} — band ${b.band.label ?? "none"}`]));
+  }
+  blocks.forEach((block, index) => {
+    heading(`Channel ${block.channel}: ${verdictLabel(block.verdict)}`);
+    if (blocks.length > 1) keyValues([["Band", `${block.band.label ?? "none chosen"} — ${block.band.reason}`]]);
+    for (const note of block.derived.notes) text(note);
+    if (block.aggregates.length > 0) aggregateTable(block);
+    if (index === 0 && block.rows.some((r) => r.order >= 2)) spectrumChart(block.rows);
+    orderTable(block.rows);
+    const reasons = groupReasons(block.rows);
+    if (reasons.length > 0) {
+      doc.moveDown(0.4);
+      doc.font("Helvetica").fontSize(8).fillColor(colours.soft);
+      for (const { orders, reason } of reasons) {
+        ensure(20);
+        text(`Order ${formatOrders(orders)}: ${reason}`);
+      }
+    }
+    for (const c of block.conditions) {
+      ensure(20);
+      doc.font("Helvetica").fontSize(8).fillColor(colours.soft);
+      text(`Condition ${c.id} (${c.verdict === "pass" ? "holds" : "not evaluated"}): ${c.text} — ${c.reason}`);
+    }
+  });
+
+  if (result.notes.length > 0) {
+    heading("Notes");
+    doc.font("Helvetica").fontSize(8.5).fillColor(colours.soft);
+    for (const note of result.notes) {
+      ensure(20);
+      text(`• ${note}`);
+    }
+  }
+
+  heading("Sign-off");
+  keyValues([["State", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState]]);
+  if (sheet.reviews.length === 0) text("No review actions yet.");
+  for (const r of sheet.reviews) {
+    const who = r.actorName ?? "unknown";
+    const comment = options.includeComments === false || !r.comment ? "" : ` — "${r.comment}"`;
+    keyValues([[formatWhen(r.createdAt), `${reviewActionLabels[r.action] ?? r.action} by ${who}${comment}`]]);
+  }
+
+  // --- footer on every page --------------------------------------------------------------------
+  const range = doc.bufferedPageRange();
+  for (let i = range.start; i < range.start + range.count; i += 1) {
+    doc.switchToPage(i);
+    const savedBottom = doc.page.margins.bottom;
+    doc.page.margins.bottom = 0;
+    const y = doc.page.height - margin - 12;
+    doc.moveTo(margin, y - 4).lineTo(margin + width, y - 4).lineWidth(0.5).strokeColor(colours.line).stroke();
+    doc.font("Helvetica").fontSize(7).fillColor(colours.muted);
+    doc.text(
+      pdfSafe(`${sheet.capture.title} · ${evaluation.limitSetKey} revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)} · page ${i - range.start + 1} of ${range.count}`),
+      margin,
+      y,
+      { width, lineBreak: false },
+    );
+    doc.page.margins.bottom = savedBottom;
+  }
+  doc.end();
+  return done;
+
+  // --- pieces --------------------------------------------------------------------------------
+  function tableRow(cells: Array<{ text: string; width: number; align?: "left" | "right"; colour?: string; bold?: boolean }>, y: number, size = 8.5) {
+    let x = margin;
+    for (const c of cells) {
+      doc.font(c.bold ? "Helvetica-Bold" : "Helvetica").fontSize(size).fillColor(c.colour ?? colours.ink);
+      doc.text(pdfSafe(c.text), x + 3, y, { width: c.width - 6, align: c.align ?? "left", lineBreak: false, ellipsis: true, height: size + 3 });
+      x += c.width;
+    }
+  }
+
+  function aggregateTable(block: Pick<ChannelCompliance, "aggregates">) {
+    const widths = [95, 80, 80, 50, 70, 140];
+    const head = ["Aggregate", "Measured", "Limit", "Unit", "% of limit", "Verdict"];
+    ensure(30);
+    doc.moveDown(0.3);
+    let y = doc.y;
+    tableRow(head.map((h, i) => ({ text: h, width: widths[i] as number, align: i > 0 && i < 5 && i !== 3 ? "right" : "left", colour: colours.muted, bold: true })), y, 7.5);
+    y += 12;
+    for (const a of block.aggregates) {
+      if (y + 12 > bottom()) {
+        doc.addPage();
+        y = margin;
+      }
+      const v = verdictColours(a.verdict);
+      tableRow(
+        [
+          { text: a.role === "allowance-condition" ? `${a.name} (allowance)` : a.name, width: widths[0]!, bold: true },
+          { text: formatNumber(a.measured), width: widths[1]!, align: "right" },
+          { text: formatNumber(a.limit), width: widths[2]!, align: "right" },
+          { text: a.unit, width: widths[3]! },
+          { text: formatPercent(a.percentOfLimit), width: widths[4]!, align: "right" },
+          { text: verdictLabel(a.verdict), width: widths[5]!, colour: v.fg, bold: a.verdict === "fail" },
+        ],
+        y,
+      );
+      y += 12;
+    }
+    doc.y = y + 4;
+    doc.x = margin;
+  }
+
+  function orderTable(rows: ComplianceRow[]) {
+    const widths = [45, 80, 80, 50, 70, 75, 115];
+    const head = ["Order", "Measured", "Limit", "Unit", "% of limit", "Margin", "Verdict"];
+    const right = new Set([1, 2, 4, 5]);
+    const drawHead = (y: number) => {
+      doc.rect(margin, y - 2, width, 12).fill(colours.idleLight);
+      tableRow(head.map((h, i) => ({ text: h, width: widths[i] as number, align: right.has(i) ? "right" : "left", colour: colours.soft, bold: true })), y, 7.5);
+      return y + 13;
+    };
+    ensure(40);
+    doc.moveDown(0.3);
+    let y = drawHead(doc.y);
+    for (const row of rows) {
+      if (y + 11 > bottom()) {
+        doc.addPage();
+        y = drawHead(margin);
+      }
+      const v = verdictColours(row.verdict);
+      if (row.verdict === "fail") doc.rect(margin, y - 2, width, 11).fill(colours.failLight);
+      tableRow(
+        [
+          { text: `h${row.order}`, width: widths[0]!, bold: true },
+          { text: formatNumber(row.measured), width: widths[1]!, align: "right" },
+          { text: formatNumber(row.limit), width: widths[2]!, align: "right" },
+          { text: row.unit, width: widths[3]! },
+          { text: formatPercent(row.percentOfLimit), width: widths[4]!, align: "right" },
+          { text: formatMargin(row.margin), width: widths[5]!, align: "right" },
+          { text: verdictLabel(row.verdict), width: widths[6]!, colour: v.fg, bold: row.verdict === "fail" },
+        ],
+        y,
+        8,
+      );
+      y += 11;
+    }
+    doc.y = y + 2;
+    doc.x = margin;
+  }
+
+  function spectrumChart(allRows: ComplianceRow[]) {
+    const rows = allRows.filter((r) => r.order >= 2);
+    const units = new Set(rows.filter((r) => r.limit !== null || r.measured !== null).map((r) => r.unit));
+    // Mixed units cannot share an axis; then plot percent of limit with the limit at 100 %.
+    const asPercent = units.size !== 1;
+    const unit = asPercent ? "% of limit" : [...units][0]!;
+    const measured = (r: ComplianceRow) => (asPercent ? r.percentOfLimit : r.measured);
+    const limit = (r: ComplianceRow) => (asPercent ? (r.limit !== null ? 100 : null) : r.limit);
+    const peak = Math.max(...rows.flatMap((r) => [measured(r) ?? 0, limit(r) ?? 0]), 1e-9);
+    const tick = niceCeiling(peak / 4);
+    const ticks = Math.ceil(peak / tick - 1e-9);
+    const top = tick * ticks;
+    const chartH = 150;
+    ensure(chartH + 50);
+    doc.moveDown(0.4);
+    doc.font("Helvetica-Bold").fontSize(8.5).fillColor(colours.ink);
+    text(`Spectrum (${unit}): bars measured, marks limit`);
+    const y0 = doc.y + 6;
+    const left = margin + 38;
+    const plotW = width - 42;
+    const base = y0 + chartH;
+    const yOf = (v: number) => base - (Math.min(v, top) / top) * chartH;
+    // grid and y labels
+    doc.font("Helvetica").fontSize(7);
+    for (let k = 0; k <= ticks; k += 1) {
+      const v = tick * k;
+      const y = yOf(v);
+      doc.moveTo(left, y).lineTo(left + plotW, y).lineWidth(0.3).strokeColor(colours.line).stroke();
+      doc.fillColor(colours.muted).text(formatNumber(v), margin, y - 3, { width: 34, align: "right", lineBreak: false });
+    }
+    const first = rows[0]!.order;
+    const last = rows[rows.length - 1]!.order;
+    const slot = plotW / (last - first + 1);
+    for (const r of rows) {
+      const cx = left + (r.order - first + 0.5) * slot;
+      const m = measured(r);
+      if (m !== null && m > 0) {
+        const h = base - yOf(m);
+        doc.rect(cx - slot * 0.32, base - h, slot * 0.64, h).fill(r.verdict === "fail" ? colours.fail : colours.soft);
+      }
+      const l = limit(r);
+      if (l !== null) {
+        const y = yOf(l);
+        doc.moveTo(cx - slot * 0.48, y).lineTo(cx + slot * 0.48, y).lineWidth(1.4).strokeColor(colours.copper).stroke();
+      }
+      if (r.order === first || r.order % 5 === 0) {
+        doc.fillColor(colours.muted).text(String(r.order), cx - 10, base + 3, { width: 20, align: "center", lineBreak: false });
+      }
+    }
+    doc.moveTo(left, base).lineTo(left + plotW, base).lineWidth(0.6).strokeColor(colours.soft).stroke();
+    doc.y = base + 16;
+    doc.x = margin;
+    doc.font("Helvetica").fontSize(7).fillColor(colours.muted);
+    text("Harmonic order. Red bars exceed their limit; copper marks are the limits; values above the top of the axis are clipped.");
+  }
+}
+
+/** 1, 2, 2.5 or 5 × 10^k at or above x, for chart axes. */
+function niceCeiling(x: number): number {
+  const power = 10 ** Math.floor(Math.log10(x));
+  for (const step of [1, 2, 2.5, 5, 10]) if (step * power >= x) return step * power;
+  return 10 * power;
+}

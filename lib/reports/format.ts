@@ -1,0 +1,140 @@
+// Number, verdict and context wording shared by the sheet page, the share page, the PDF and the CSV,
+// so every rendering of a sheet says the same thing in the same words.
+import type { EvaluationContext } from "@/lib/compliance/model";
+import type { AggregateVerdict, ComplianceRow, OverallVerdict, RowVerdict } from "@/lib/compliance/result";
+
+export type AnyVerdict = RowVerdict | AggregateVerdict | OverallVerdict;
+
+export const verdictLabels: Record<AnyVerdict, string> = {
+  pass: "Pass",
+  fail: "Fail",
+  "below-threshold": "Below threshold",
+  "not-evaluated": "Not evaluated",
+  incomplete: "Incomplete",
+};
+
+/** Label of a verdict string from the database (unknown values are shown as they are). */
+export function verdictLabel(verdict: string): string {
+  return (verdictLabels as Record<string, string>)[verdict] ?? verdict;
+}
+
+export const reviewStateLabels: Record<string, string> = {
+  draft: "Draft — not yet submitted",
+  in_review: "In review",
+  approved: "Approved",
+  sent_back: "Sent back",
+};
+
+export const reviewActionLabels: Record<string, string> = {
+  submitted: "Submitted for review",
+  approved: "Approved",
+  sent_back: "Sent back",
+  comment: "Comment",
+};
+
+/**
+ * A measured value or limit for display: about four significant figures, no exponent for the
+ * magnitudes met in harmonic work (mA to kA), "—" when absent.
+ *
+ * @example formatNumber(2.30000001) // "2.3"
+ */
+export function formatNumber(x: number | null | undefined): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return "—";
+  if (x === 0) return "0";
+  const magnitude = Math.abs(x);
+  if (magnitude >= 1e6 || magnitude < 1e-4) return x.toExponential(3);
+  if (magnitude >= 1000) return x.toFixed(0);
+  return String(Number(x.toPrecision(4)));
+}
+
+/** Percent of limit with one decimal, "—" when absent. */
+export function formatPercent(x: number | null | undefined): string {
+  return x === null || x === undefined || !Number.isFinite(x) ? "—" : `${x.toFixed(1)} %`;
+}
+
+/** Margin with an explicit sign: positive is headroom, negative is the excess. */
+export function formatMargin(x: number | null | undefined): string {
+  if (x === null || x === undefined || !Number.isFinite(x)) return "—";
+  return x > 0 ? `+${formatNumber(x)}` : formatNumber(x);
+}
+
+/** UTC date and time to the minute, the same on the server, in the browser and in the PDF. */
+export function formatWhen(d: Date | string | null | undefined): string {
+  if (!d) return "—";
+  const date = typeof d === "string" ? new Date(d) : d;
+  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+const phaseConfigLabels: Record<string, string> = {
+  "single-phase": "single-phase",
+  "balanced-three-phase": "balanced three-phase",
+  other: "other",
+};
+
+/**
+ * The context values an evaluation used, as label/value pairs in a fixed order, for headers and
+ * history lists. Absent values are left out.
+ *
+ * @example describeContext({ iscA: 8200, ilA: 260 }) // [["Isc", "8200 A"], ["IL", "260 A"], ["Isc/IL", "31.5"]]
+ */
+export function describeContext(context: EvaluationContext | Record<string, unknown>): Array<[string, string]> {
+  const c = context as EvaluationContext;
+  const out: Array<[string, string]> = [];
+  if (c.iscA !== undefined) out.push(["Isc", `${formatNumber(c.iscA)} A`]);
+  if (c.ilA !== undefined) out.push(["IL", `${formatNumber(c.ilA)} A`]);
+  if (c.iscA !== undefined && c.ilA !== undefined) out.push(["Isc/IL", (c.iscA / c.ilA).toFixed(1)]);
+  if (c.irefA !== undefined) out.push(["Iref", `${formatNumber(c.irefA)} A`]);
+  if (c.rsce !== undefined) out.push(["Rsce", formatNumber(c.rsce)]);
+  if (c.ratedPowerW !== undefined) out.push(["Rated power", `${formatNumber(c.ratedPowerW)} W`]);
+  if (c.lambda !== undefined) out.push(["Power factor (lambda)", formatNumber(c.lambda)]);
+  if (c.busVoltageV !== undefined) out.push(["Bus voltage", `${formatNumber(c.busVoltageV)} V`]);
+  if (c.nominalVoltageV !== undefined) out.push(["Nominal voltage", `${formatNumber(c.nominalVoltageV)} V`]);
+  if (c.phaseConfig !== undefined) out.push(["Phase configuration", phaseConfigLabels[c.phaseConfig] ?? c.phaseConfig]);
+  if (c.isGenerator) out.push(["Generator", "yes"]);
+  if (c.interpolate === false) out.push(["Rsce interpolation", "off"]);
+  if (c.assertedConditions && c.assertedConditions.length > 0) out.push(["Asserted conditions", c.assertedConditions.join(", ")]);
+  return out;
+}
+
+/** One-line context summary, e.g. "Isc 8200 A · IL 260 A · Isc/IL 31.5"; "no context values" when empty. */
+export function summariseContext(context: EvaluationContext | Record<string, unknown>): string {
+  const parts = describeContext(context).map(([k, v]) => `${k} ${v}`);
+  return parts.length > 0 ? parts.join(" · ") : "no context values";
+}
+
+/**
+ * Rows that are not a plain pass/fail, grouped by their reason so ten "above Nyquist" rows read as
+ * one line: [[orders], reason].
+ */
+export function groupReasons(rows: ComplianceRow[]): Array<{ orders: number[]; reason: string }> {
+  const groups = new Map<string, number[]>();
+  for (const row of rows) {
+    if (!row.reason || row.verdict === "pass") continue;
+    const list = groups.get(row.reason) ?? [];
+    list.push(row.order);
+    groups.set(row.reason, list);
+  }
+  return [...groups.entries()].map(([reason, orders]) => ({ orders, reason }));
+}
+
+/** "3, 5, 7–11" style list of orders (consecutive odd or all orders collapse into ranges). */
+export function formatOrders(orders: number[]): string {
+  const sorted = [...orders].sort((a, b) => a - b);
+  const parts: string[] = [];
+  let i = 0;
+  while (i < sorted.length) {
+    let j = i;
+    const step = sorted[i + 1] !== undefined ? (sorted[i + 1] as number) - (sorted[i] as number) : 0;
+    if (step === 1 || step === 2) {
+      while (j + 1 < sorted.length && (sorted[j + 1] as number) - (sorted[j] as number) === step) j += 1;
+    }
+    if (j - i >= 2) {
+      parts.push(`${sorted[i]}–${sorted[j]}${step === 2 ? ((sorted[i] as number) % 2 === 1 ? " odd" : " even") : ""}`);
+      i = j + 1;
+    } else {
+      parts.push(String(sorted[i]));
+      i += 1;
+    }
+  }
+  return parts.join(", ");
+}

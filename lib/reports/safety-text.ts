@@ -1,0 +1,5 @@
+// The caution printed on every rendering of a sheet. Same words as app/_components/safety-note.tsx.
+export const safetyText =
+  "Ordwise results support, and do not replace, the judgement of a qualified engineer. Local electrical codes, " +
+  "the utility's interconnection requirements and licensed practice take precedence. Work on energised " +
+  "equipment only under your site's safety rules.";

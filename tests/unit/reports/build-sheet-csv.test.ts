@@ -1,0 +1,53 @@
+import { describe, expect, test } from "vitest";
+import { buildSheetCsv } from "@/lib/reports/build-sheet-csv";
+import { makeSheet } from "./make-sheet";
+
+// Class A limits from IEC 61000-3-2 Table 1: h3 2.30 A, h5 1.14 A, h7 0.77 A.
+const sheet = makeSheet("iec-61000-3-2-class-a", {
+  channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 5: 1.0, 7: 0.5 } }],
+});
+const csv = buildSheetCsv(sheet);
+const lines = csv.trimEnd().split("\r\n");
+const headerAt = lines.indexOf("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,reason");
+const rows = lines.slice(headerAt + 1).map((l) => l.split(","));
+
+describe("sheet CSV", () => {
+  test("header block names the capture, limit set and revision", () => {
+    expect(lines[0]).toBe("Capture,\"Bench B kettle, run 2\"");
+    expect(csv).toContain("Limit set,IEC 61000-3-2 Class A");
+    expect(csv).toContain("(iec-61000-3-2-class-a)");
+    expect(csv).toContain("Revision,1\r\n");
+    expect(csv).toContain("Overall verdict,fail");
+    expect(headerAt).toBeGreaterThan(0);
+    expect(lines[headerAt - 1]).toBe("");
+  });
+
+  test("one row per order with measured, limit, percent, margin and verdict (Table 1, from hand calculation)", () => {
+    expect(rows.length).toBe(sheet.evaluation!.result.rows.length);
+    expect(rows.map((r) => Number(r[1]))).toEqual(sheet.evaluation!.result.rows.map((r) => r.order));
+    const h3 = rows.find((r) => r[1] === "3")!;
+    expect(h3.slice(0, 5)).toEqual(["I (A)", "3", "2.5", "2.3", "A"]);
+    expect(Number(h3[5])).toBeCloseTo(108.69565, 4); // 2.5 / 2.3
+    expect(Number(h3[6])).toBeCloseTo(-0.2, 9);
+    expect(h3[7]).toBe("fail");
+    const h5 = rows.find((r) => r[1] === "5")!;
+    expect(h5[7]).toBe("pass");
+    expect(Number(h5[5])).toBeCloseTo(87.719, 2); // 1.0 / 1.14
+  });
+
+  test("below-threshold rows carry their reason, quoted", () => {
+    // h9 measured 0: disregarded under the 0.6 % / 5 mA rule of IEC 61000-3-2 (clause 6.2.3.4).
+    const raw = lines.slice(headerAt + 1).find((l) => l.startsWith("I (A),9,"))!;
+    expect(raw).toContain("below-threshold");
+    expect(raw).toMatch(/,"[^"]*disregarded[^"]*"$/);
+  });
+
+  test("refuses a sheet without an evaluation", () => {
+    expect(() => buildSheetCsv({ ...sheet, evaluation: null })).toThrow("no evaluation");
+  });
+
+  test("a text starting with = is not run as a spreadsheet formula", () => {
+    const csv2 = buildSheetCsv({ ...sheet, capture: { ...sheet.capture, title: "=HYPERLINK(1)" } });
+    expect(csv2.split("\r\n")[0]).toBe("Capture,'=HYPERLINK(1)");
+  });
+});
