@@ -13,6 +13,9 @@ const subjects = { approved: "approved", sent_back: "sent back for changes" } as
 export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
+    if (!can(user.role, "captures:upload") && !can(user.role, "captures:review")) {
+      throw new AppError("forbidden", "Your role does not allow this.");
+    }
     const { action, comment } = reviewActionSchema.parse(await readJson(req));
     // Submitting and commenting belong to whoever uploads; the verdicts are the engineer's.
     const needed = action === "approved" || action === "sent_back" ? "captures:review" : "captures:upload";

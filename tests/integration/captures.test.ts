@@ -1,0 +1,109 @@
+import { readFileSync } from "node:fs";
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { analyses, captures, evaluations, limitSetRevisions, limitSets } from "@/db/schema";
+import { getObjectBytes } from "@/lib/storage/s3";
+import { Client, signedIn } from "../support/http";
+
+let tech: Client;
+let engineer: Client;
+let siteId: string;
+
+beforeAll(async () => {
+  tech = await signedIn("technician");
+  engineer = await signedIn("engineer");
+  const sites = (await (await tech.request("GET", "/api/sites")).json()) as { sites: { id: string; name: string }[] };
+  siteId = sites.sites.find((s) => s.name.startsWith("Bench B"))!.id;
+});
+
+async function upload(file: string, title: string): Promise<string> {
+  const bytes = readFileSync(file);
+  const res = await tech.request("POST", "/api/captures", { siteId, title, filename: file.split("/").pop(), sizeBytes: bytes.length });
+  expect(res.status).toBe(201);
+  const { capture, uploadUrl } = (await res.json()) as { capture: { id: string }; uploadUrl: string };
+  // The browser's path: a PUT straight to the bucket through the presigned URL.
+  const put = await fetch(uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } });
+  expect(put.status).toBe(200);
+  return capture.id;
+}
+
+async function analyse(id: string, limitSetKey = "iec-61000-3-2-class-a"): Promise<{ status: string; failureReason: string | null }> {
+  expect((await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey, context: { nominalVoltageV: 230 } })).status).toBe(200);
+  expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+  const deadline = Date.now() + 30_000;
+  while (Date.now() < deadline) {
+    const { capture } = (await (await tech.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string; failureReason: string | null } };
+    if (capture.status === "done" || capture.status === "failed") return capture;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error("analysis did not finish within 30 s");
+}
+
+describe("capture workflow against PostgreSQL and s3rver", () => {
+  it("uploads through the presigned URL, previews, analyses and pins the evaluation to the current revision", async () => {
+    const file = "fixtures/single-phase-50hz.csv";
+    const id = await upload(file, `Integration single phase ${Date.now()}`);
+    const confirmed = await tech.request("POST", `/api/captures/${id}/uploaded`);
+    expect(confirmed.status).toBe(200);
+    const preview = (await confirmed.json()) as { preview: { columns: { name: string; role: string; quantity: string | null }[] } };
+    const channels = preview.preview.columns.filter((c) => c.role === "channel");
+    expect(channels.map((c) => c.quantity)).toEqual(["voltage", "current"]);
+
+    const done = await analyse(id);
+    expect(done).toMatchObject({ status: "done", failureReason: null });
+
+    const [stored] = await db.select().from(analyses).where(eq(analyses.captureId, id));
+    // A channel keeps its header text as its name (the analysis JSON of the product design).
+    expect(stored?.result.channels.map((c) => c.name)).toEqual(["V (V)", "I (A)"]);
+    expect(stored?.result.nominalHz).toBe(50);
+    const [evaluation] = await db.select().from(evaluations).where(eq(evaluations.captureId, id));
+    const [current] = await db
+      .select({ id: limitSetRevisions.id })
+      .from(limitSets)
+      .innerJoin(limitSetRevisions, eq(limitSetRevisions.id, limitSets.currentRevisionId))
+      .where(eq(limitSets.key, "iec-61000-3-2-class-a"));
+    expect(evaluation?.limitSetRevisionId).toBe(current!.id);
+    expect(evaluation?.result.rows.find((r) => r.order === 3)).toBeDefined();
+
+    // The original object is byte-identical to the file on disk.
+    const [row] = await db.select().from(captures).where(eq(captures.id, id));
+    expect(Buffer.from(await getObjectBytes(row!.s3Key)).equals(readFileSync(file))).toBe(true);
+
+    // An engineer re-judges in another context: a second evaluation, the first one kept.
+    const again = await engineer.request("POST", `/api/captures/${id}/evaluations`, { limitSetKey: "iec-61000-3-2-class-d", context: { ratedPowerW: 300 } });
+    expect(again.status).toBe(201);
+    const list = (await (await engineer.request("GET", `/api/captures/${id}/evaluations`)).json()) as { evaluations: { limitSetKey: string }[] };
+    expect(list.evaluations.map((e) => e.limitSetKey)).toEqual(["iec-61000-3-2-class-d", "iec-61000-3-2-class-a"]);
+  });
+
+  it("ends a broken CSV as failed with the reason and the line, and keeps the upload", async () => {
+    const file = "fixtures/error-non-numeric.csv";
+    const id = await upload(file, `Integration broken ${Date.now()}`);
+    expect((await tech.request("POST", `/api/captures/${id}/uploaded`)).status).toBe(200);
+    const done = await analyse(id);
+    expect(done.status).toBe("failed");
+    expect(done.failureReason).toMatch(/line \d+/);
+    expect(done.failureReason).toMatch(/not a number/);
+    const [row] = await db.select().from(captures).where(eq(captures.id, id));
+    expect(Buffer.from(await getObjectBytes(row!.s3Key)).equals(readFileSync(file))).toBe(true);
+    // The technician can fix the mapping and run again: the capture is not stuck.
+    expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+  });
+
+  it("refuses files over the size cap and files that are not CSV exports, naming the problem", async () => {
+    const big = await tech.request("POST", "/api/captures", { siteId, title: "Too big", filename: "big.csv", sizeBytes: 300 * 1024 * 1024 });
+    expect(big.status).toBe(422);
+    expect(JSON.stringify(await big.json())).toContain("200 MB");
+    const pdf = await tech.request("POST", "/api/captures", { siteId, title: "Wrong type", filename: "scope.pdf", sizeBytes: 1000 });
+    expect(pdf.status).toBe(422);
+    expect(JSON.stringify(await pdf.json())).toContain(".csv");
+  });
+
+  it("shows viewers only signed-off captures", async () => {
+    const viewer = await signedIn("viewer");
+    const list = (await (await viewer.request("GET", "/api/captures")).json()) as { items: { reviewState: string }[] };
+    expect(list.items.length).toBeGreaterThan(0);
+    expect(list.items.every((c) => c.reviewState === "approved")).toBe(true);
+  });
+});
