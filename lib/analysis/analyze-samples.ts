@@ -8,7 +8,7 @@ import { computeIndices } from "./indices";
 import { pairPhases } from "./pair-phases";
 import { findOverride } from "./plan-columns";
 import { pairPower } from "./power";
-import { applyResample, planResample, KERNEL_HALF_WIDTH, type ResamplePlan } from "./resample";
+import { applyResample, kernelHalfWidth, planResample, PASSBAND_FRACTION, type ResamplePlan } from "./resample";
 import { sequenceComponents, type Phasor } from "./sequence";
 import type {
   AnalysisOptions,
@@ -50,8 +50,6 @@ export interface StageTimings {
 
 /** Longest window allowed to extend past the record, as a fraction of a window (IEC 61000-4-7 sync tolerance is ±0.03 %). */
 const WINDOW_FIT_TOLERANCE = 1e-3;
-/** Orders are evaluated up to this fraction of the Nyquist frequency: the interpolator's flat passband. */
-const PASSBAND_FRACTION = 0.8;
 /** Windows are resampled to at most this many points (decimating longer ones with an anti-alias kernel). */
 const MAX_POINTS = 4096;
 const DEFAULT_MAX_ORDER = 50;
@@ -230,18 +228,18 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   while (points < windowSamples && points < MAX_POINTS) points *= 2;
   const maxOrder = options.maxOrder ?? DEFAULT_MAX_ORDER;
   const orders = Math.max(maxOrder, 50);
-  const outputNyquistOrder = points / (2 * cycles);
-  const resolvableOrder = Math.min(
-    orders,
-    Math.floor((PASSBAND_FRACTION * sampleRateHz) / (2 * fundamentalHz)),
-    Math.floor(PASSBAND_FRACTION * outputNyquistOrder),
-  );
+  const step = windowSamples / points;
+  const halfWidth = kernelHalfWidth(step);
+  const passband = PASSBAND_FRACTION[halfWidth]!;
+  // The interpolator's cutoff is the lower of the source and output Nyquist frequencies (in orders).
+  const cutoffOrder = Math.min(sampleRateHz / (2 * fundamentalHz), points / (2 * cycles));
+  const resolvableOrder = Math.min(orders, Math.floor(passband * cutoffOrder));
   if (resolvableOrder < 1) {
     throw new AnalysisInputError("sample-rate-too-low", `sampling rate of ${sampleRateHz.toPrecision(4)} Hz cannot resolve the fundamental`);
   }
   if (resolvableOrder < maxOrder) {
     warnings.push(
-      `sampling rate ${sampleRateHz.toPrecision(4)} Hz resolves orders up to ${resolvableOrder} only (80 % of Nyquist); orders ${resolvableOrder + 1}–${maxOrder} are not evaluated`,
+      `sampling rate ${sampleRateHz.toPrecision(4)} Hz resolves orders up to ${resolvableOrder} only (${100 * passband} % of Nyquist); orders ${resolvableOrder + 1}–${maxOrder} are not evaluated`,
     );
   }
   const thdMaxOrder = options.thdMaxOrder ?? 40;
@@ -276,8 +274,7 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   const pairProduct = pairs.map(() => ({ re: 0, im: 0 }));
   const sequenceSq = sets.map(() => ({ pos: new Float64Array(stride), neg: new Float64Array(stride), zero: new Float64Array(stride) }));
 
-  const step = windowSamples / points;
-  const padding = Math.ceil(KERNEL_HALF_WIDTH * Math.max(1, step)) + 2;
+  const padding = Math.ceil(halfWidth * Math.max(1, step)) + 2;
   const span = Math.ceil(windowSamples) + 2 * padding + 2;
   const scratch = new Float64Array(span);
   const period = Math.round(windowSamples);

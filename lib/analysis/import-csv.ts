@@ -37,6 +37,7 @@ export interface ImportedCapture {
 export type ImportOptions = Pick<AnalysisOptions, "sampleIntervalS" | "channels">;
 
 const HEAD_BYTES = 256 * 1024;
+const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
 
 /** Collects papaparse rows into buffers and checks them; shared by the text and the stream path. */
 class RowCollector {
@@ -52,6 +53,16 @@ class RowCollector {
   private readonly gaps: { row: number; lines: number }[] = [];
   private firstTimeText = "";
   private lastTimeText = "";
+  /** Where the last fast-path row is, so its time text is only cut out once, at the end. */
+  private lastBlock: string | null = null;
+  private lastLineStart = 0;
+  private lastLineEnd = 0;
+  private readonly delimiterCode: number;
+  private readonly decimalCode: number;
+  private readonly channelSlots: Int32Array;
+  private readonly timeSlot: number;
+  private readonly timeToBase: number;
+  private readonly rowValues: Float64Array;
   rows = 0;
 
   constructor(
@@ -66,6 +77,12 @@ class RowCollector {
     this.channelColumns = columns.filter((c) => c.role === "channel");
     this.buffers = this.channelColumns.map(() => new SampleBuffer(expectedRows));
     this.times = this.timeColumn ? new SampleBuffer(expectedRows) : null;
+    this.delimiterCode = layout.delimiter.charCodeAt(0);
+    this.decimalCode = layout.decimalComma ? 44 : 46;
+    this.channelSlots = Int32Array.from(this.channelColumns.map((c) => c.index));
+    this.timeSlot = this.timeColumn?.index ?? 0;
+    this.timeToBase = this.timeColumn?.toBase ?? 1;
+    this.rowValues = new Float64Array(layout.columnCount);
   }
 
   lineOfRow = (row: number): number => {
@@ -104,6 +121,7 @@ class RowCollector {
         times.push(t * timeColumn.toBase);
         if (this.rows === 0) this.firstTimeText = cell;
         this.lastTimeText = cell;
+        this.lastBlock = null;
       }
       for (let c = 0; c < channelColumns.length; c++) {
         const plan = channelColumns[c]!;
@@ -116,7 +134,122 @@ class RowCollector {
     }
   }
 
+  /**
+   * Fast path for plain numeric text (no quotes): scans complete lines of `block` straight from
+   * character codes into the buffers, without per-row arrays or substrings. Any line it cannot
+   * read exactly (whitespace, unusual number forms, wrong field count, text) goes through
+   * {@link addRows} so the checks and messages are identical.
+   */
+  addPlainLines(block: string): void {
+    const { columnCount, delimiterCode, decimalCode, buffers, times, channelSlots, timeSlot, timeToBase } = this;
+    const values = this.rowValues;
+    const length = block.length;
+    let pos = 0;
+    while (pos < length) {
+      let end = block.indexOf("\n", pos);
+      if (end < 0) end = length;
+      let lineEnd = end;
+      if (lineEnd > pos && block.charCodeAt(lineEnd - 1) === 13) lineEnd--;
+      const lineStart = pos;
+      pos = end + 1;
+      if (this.lineNo + 1 < this.starts) {
+        this.lineNo++;
+        continue;
+      }
+      if (lineEnd === lineStart) {
+        this.addRows([[""]]);
+        continue;
+      }
+      // Parse up to columnCount fields with the exact fast path (integer mantissa / power of ten).
+      let field = 0;
+      let i = lineStart;
+      let ok = true;
+      while (field < columnCount) {
+        let negative = false;
+        let c = block.charCodeAt(i);
+        if (c === 45 || c === 43) {
+          negative = c === 45;
+          c = block.charCodeAt(++i);
+        }
+        let mantissa = 0;
+        let digits = 0;
+        let scale = 0;
+        while (c >= 48 && c <= 57) {
+          mantissa = mantissa * 10 + (c - 48);
+          digits++;
+          c = block.charCodeAt(++i);
+        }
+        if (c === decimalCode) {
+          c = block.charCodeAt(++i);
+          while (c >= 48 && c <= 57) {
+            mantissa = mantissa * 10 + (c - 48);
+            digits++;
+            scale--;
+            c = block.charCodeAt(++i);
+          }
+        }
+        if (digits === 0 || digits > 15) {
+          ok = false;
+          break;
+        }
+        if (c === 101 || c === 69) {
+          c = block.charCodeAt(++i);
+          let expNegative = false;
+          if (c === 45 || c === 43) {
+            expNegative = c === 45;
+            c = block.charCodeAt(++i);
+          }
+          let exponent = 0;
+          let expDigits = 0;
+          while (c >= 48 && c <= 57 && expDigits < 4) {
+            exponent = exponent * 10 + (c - 48);
+            expDigits++;
+            c = block.charCodeAt(++i);
+          }
+          if (expDigits === 0) {
+            ok = false;
+            break;
+          }
+          scale += expNegative ? -exponent : exponent;
+        }
+        if (scale < -22 || scale > 22) {
+          ok = false;
+          break;
+        }
+        // One correctly rounded operation on exact operands: the same double as Number(text).
+        const magnitude = scale < 0 ? mantissa / POW10[-scale]! : mantissa * POW10[scale]!;
+        values[field++] = negative ? -magnitude : magnitude;
+        if (i >= lineEnd) break;
+        if (c !== delimiterCode) {
+          ok = false;
+          break;
+        }
+        i++;
+      }
+      // Trailing fields beyond the columns must be empty delimiters only (as addRows accepts any extra).
+      if (!ok || field < columnCount) {
+        this.addRows([block.slice(lineStart, lineEnd).split(this.layout.delimiter)]);
+        continue;
+      }
+      this.lineNo++;
+      if (times) {
+        const t = values[timeSlot]! * timeToBase;
+        times.push(t);
+        if (this.rows === 0) this.firstTimeText = block.slice(lineStart, lineEnd).split(this.layout.delimiter)[timeSlot] ?? "";
+        this.lastLineStart = lineStart;
+        this.lastLineEnd = lineEnd;
+        this.lastBlock = block;
+      }
+      for (let c = 0; c < channelSlots.length; c++) buffers[c]!.push(values[channelSlots[c]!]!);
+      this.rows++;
+    }
+  }
+
   finish(options: ImportOptions): ImportedCapture {
+    if (this.lastBlock !== null) {
+      this.lastTimeText = this.lastBlock.slice(this.lastLineStart, this.lastLineEnd).split(this.layout.delimiter)[this.timeSlot] ?? "";
+      this.lastBlock = null;
+    }
     const warnings: string[] = [];
     for (const plan of this.columns) if (plan.note) warnings.push(plan.note);
     if (this.rows === 0) {
@@ -193,6 +326,50 @@ function printedResolution(cell: string): number {
   return 10 ** (Number(match[2] ?? 0) - (match[1]?.length ?? 0));
 }
 
+/**
+ * Streams a file whose head is plain (no quotes): complete lines of each 1 MB chunk go through the
+ * fast scanner; a chunk that does contain quotes goes through papaparse, which handles quoting.
+ */
+async function readPlain(path: string, collector: RowCollector): Promise<void> {
+  const stream = createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
+  let partial = "";
+  let first = true;
+  const consume = (block: string): void => {
+    if (block.includes('"')) {
+      const rows = Papa.parse<string[]>(block, { delimiter: collector.layout.delimiter, newline: "\n" }).data;
+      // papaparse yields a last empty row for the final newline of the block; addRows counts it as a line otherwise.
+      if (block.endsWith("\n")) rows.pop();
+      collector.addRows(rows.map((r) => r.map((f) => f.replace(/\r$/, ""))));
+    } else {
+      collector.addPlainLines(block);
+    }
+  };
+  try {
+    for await (const chunk of stream as AsyncIterable<string>) {
+      let text = partial + chunk;
+      if (first && text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+      first = false;
+      const cut = text.lastIndexOf("\n");
+      if (cut < 0) {
+        partial = text;
+        continue;
+      }
+      partial = text.slice(cut + 1);
+      consume(text.slice(0, cut + 1));
+    }
+  } catch (error) {
+    stream.destroy();
+    if (error instanceof AnalysisInputError) throw error;
+    throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: ${error instanceof Error ? error.message : String(error)}`);
+  }
+  if (partial.length > 0) consume(partial);
+}
+
+/** Plain numeric text (no quotes, \n or \r\n line ends) can take the fast path. */
+function isPlain(layout: CsvLayout, text: string): boolean {
+  return layout.newline !== "\r" && !text.includes('"');
+}
+
 function checkOverrides(options: ImportOptions): void {
   for (const [name, override] of Object.entries(options.channels ?? {})) {
     if (override.scale !== undefined && (!Number.isFinite(override.scale) || override.scale === 0)) {
@@ -216,6 +393,10 @@ export function importCsvText(text: string, options: ImportOptions = {}): Import
   const layout = detectLayout(text, true);
   const collector = new RowCollector(layout, planColumns(layout, options.channels), 1024);
   const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+  if (isPlain(layout, body)) {
+    collector.addPlainLines(body);
+    return collector.finish(options);
+  }
   Papa.parse<string[]>(body, {
     delimiter: layout.delimiter,
     newline: layout.newline,
@@ -263,6 +444,10 @@ export async function importCsvFile(path: string, options: ImportOptions = {}): 
   const bytesPerRow = sampleLines.length > 0 ? sampleLines.reduce((sum, l) => sum + l.length + layout.newline.length, 0) / sampleLines.length : 64;
   const collector = new RowCollector(layout, planColumns(layout, options.channels), (size / bytesPerRow) * 1.02 + 16);
 
+  if (layout.newline !== "\r" && !head.includes('"')) {
+    await readPlain(path, collector);
+    return collector.finish(options);
+  }
   await new Promise<void>((resolve, reject) => {
     const stream = createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
     let failed = false;

@@ -3,12 +3,19 @@
 // window is decimated. Linear interpolation would lose 12–41 % at orders 25–50 at 128 samples
 // per cycle; this kernel stays within 0.01 % there.
 
-/** Half-width of the kernel in (output-rate) samples: 32 taps when upsampling. */
+/**
+ * Half-width of the kernel: 16 (32 taps, flat to 80 % of Nyquist) when upsampling, where the
+ * highest orders can sit close to the source Nyquist frequency; 8 when decimating, where the
+ * orders of interest are far below the output Nyquist frequency (flat to 65 % of it).
+ */
 export const KERNEL_HALF_WIDTH = 16;
+export const DECIMATION_HALF_WIDTH = 8;
+/** Fraction of the cutoff up to which the passband is flat within ±0.01 %, per half-width. */
+export const PASSBAND_FRACTION: Record<number, number> = { 16: 0.8, 8: 0.65 };
 const KAISER_BETA = 8;
 const TABLE_STEPS_PER_SAMPLE = 512;
 
-let table: Float64Array | null = null;
+const tables = new Map<number, Float64Array>();
 
 function besselI0(x: number): number {
   let sum = 1;
@@ -21,20 +28,26 @@ function besselI0(x: number): number {
   return sum;
 }
 
+/** Half-width used for a given step (source samples per output point). */
+export function kernelHalfWidth(stepSamples: number): number {
+  return stepSamples > 1 ? DECIMATION_HALF_WIDTH : KERNEL_HALF_WIDTH;
+}
+
 /** h(u − K) for u = 0..2K in steps of 1/TABLE_STEPS_PER_SAMPLE (plus one guard entry). */
-function kernelTable(): Float64Array {
-  if (table) return table;
-  const size = 2 * KERNEL_HALF_WIDTH * TABLE_STEPS_PER_SAMPLE + 2;
+function kernelTable(halfWidth: number): Float64Array {
+  const cached = tables.get(halfWidth);
+  if (cached) return cached;
+  const size = 2 * halfWidth * TABLE_STEPS_PER_SAMPLE + 2;
   const values = new Float64Array(size);
   const norm = besselI0(KAISER_BETA);
   for (let i = 0; i < size - 1; i++) {
-    const d = i / TABLE_STEPS_PER_SAMPLE - KERNEL_HALF_WIDTH;
-    const r = d / KERNEL_HALF_WIDTH;
+    const d = i / TABLE_STEPS_PER_SAMPLE - halfWidth;
+    const r = d / halfWidth;
     const window = Math.abs(r) >= 1 ? 0 : besselI0(KAISER_BETA * Math.sqrt(1 - r * r)) / norm;
     const sinc = d === 0 ? 1 : Math.sin(Math.PI * d) / (Math.PI * d);
     values[i] = sinc * window;
   }
-  table = values;
+  tables.set(halfWidth, values);
   return values;
 }
 
@@ -52,26 +65,27 @@ export interface ResamplePlan {
  * Computes resampling coefficients for output points at source positions
  * `startIndex + m·stepSamples`, m = 0..points−1. When `stepSamples` > 1 (decimation) the sinc is
  * stretched so its cutoff is the output Nyquist frequency (anti-aliasing); otherwise the cutoff is
- * the source Nyquist frequency. The passband is flat (±0.01 %) to about 80 % of the cutoff.
+ * the source Nyquist frequency. The passband is flat (±0.01 %) to {@link PASSBAND_FRACTION} of the cutoff.
  * The plan is shared by all channels of a window.
  *
- * Complexity O(points × taps), taps = 2·⌈16·max(1, stepSamples)⌉.
+ * Complexity O(points × taps), taps = 32 when upsampling, 2·⌈8·stepSamples⌉ when decimating.
  *
  * @param reuse a previous plan of the same shape whose arrays may be overwritten.
  * @example
  * const plan = planResample(20.3, 1280 / 2048, 2048); applyResample(plan, source, out);
  */
 export function planResample(startIndex: number, stepSamples: number, points: number, reuse?: ResamplePlan): ResamplePlan {
-  const values = kernelTable();
+  const halfWidth = kernelHalfWidth(stepSamples);
+  const values = kernelTable(halfWidth);
   const stretch = Math.max(1, stepSamples);
-  const taps = 2 * Math.ceil(KERNEL_HALF_WIDTH * stretch);
+  const taps = 2 * Math.ceil(halfWidth * stretch);
   const plan =
     reuse && reuse.points === points && reuse.taps === taps
       ? reuse
       : { points, taps, firstIndex: new Int32Array(points), coefficients: new Float64Array(points * taps) };
   const { firstIndex, coefficients } = plan;
   const invStretch = 1 / stretch;
-  const maxU = 2 * KERNEL_HALF_WIDTH * TABLE_STEPS_PER_SAMPLE;
+  const maxU = 2 * halfWidth * TABLE_STEPS_PER_SAMPLE;
   for (let m = 0; m < points; m++) {
     const x = startIndex + m * stepSamples;
     const base = Math.floor(x);
@@ -80,7 +94,7 @@ export function planResample(startIndex: number, stepSamples: number, points: nu
     const offset = m * taps;
     for (let t = 0; t < taps; t++) {
       const d = x - (first + t);
-      const u = (d * invStretch + KERNEL_HALF_WIDTH) * TABLE_STEPS_PER_SAMPLE;
+      const u = (d * invStretch + halfWidth) * TABLE_STEPS_PER_SAMPLE;
       if (u <= 0 || u >= maxU) {
         coefficients[offset + t] = 0;
         continue;

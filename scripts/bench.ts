@@ -1,0 +1,104 @@
+// Benchmarks of the analysis engine. Run: npm run bench [-- CASE_NAME]
+// Each case prepares its input (cached in the git-ignored bench/out/) and runs once, printing
+// wall time, throughput, peak RSS and where the time goes. Add cases to BENCH_CASES.
+import { createWriteStream, existsSync, mkdirSync, statSync } from "node:fs";
+import { dirname, join } from "node:path";
+import { fileURLToPath } from "node:url";
+import { analyzeCsvFile } from "../lib/analysis/analyze-csv";
+import type { StageTimings } from "../lib/analysis/analyze-samples";
+
+const outDir = join(dirname(fileURLToPath(import.meta.url)), "..", "bench", "out");
+
+interface BenchCase {
+  name: string;
+  description: string;
+  /** Creates the input if missing; returns its path. */
+  prepare: () => Promise<string>;
+  run: (path: string) => Promise<{ timings: StageTimings; summary: string }>;
+  targets: { wallS: number; rssMB: number };
+}
+
+/** Writes a 4-channel (Va, Ia, Vb, Ib) 25.6 kS/s capture of `seconds` with a time column. */
+async function writeCapture(path: string, seconds: number): Promise<void> {
+  mkdirSync(dirname(path), { recursive: true });
+  const rate = 25_600;
+  const f = 50.03;
+  const rows = Math.round(seconds * rate);
+  const out = createWriteStream(path);
+  const w = 2 * Math.PI * f;
+  const b = (-2 * Math.PI) / 3;
+  let chunk = "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n";
+  for (let k = 0; k < rows; k++) {
+    const t = k / rate;
+    const va = 325 * Math.cos(w * t) + 8 * Math.cos(5 * w * t + 0.2);
+    const vb = 325 * Math.cos(w * t + b) + 8 * Math.cos(5 * (w * t + b) + 0.2);
+    const ia = 14 * Math.cos(w * t - 0.5) + 4 * Math.cos(3 * w * t + 0.4) + 2.5 * Math.cos(5 * w * t - 1) + 0.3 * Math.cos(37 * w * t);
+    const ib = 14 * Math.cos(w * t + b - 0.5) + 4 * Math.cos(3 * (w * t + b) + 0.4) + 2.5 * Math.cos(5 * (w * t + b) - 1);
+    chunk += `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
+    if (chunk.length > 1 << 20) {
+      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
+      chunk = "";
+    }
+  }
+  out.write(chunk);
+  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+}
+
+export const BENCH_CASES: BenchCase[] = [
+  {
+    name: "csv-60s-4ch-25k6",
+    description: "60 s, 4 channels (Va, Ia, Vb, Ib), 25.6 kS/s, time column: CSV file → result via the streaming path",
+    prepare: async () => {
+      const path = join(outDir, "capture-60s-4ch-25k6.csv");
+      if (!existsSync(path)) await writeCapture(path, 60);
+      return path;
+    },
+    run: async (path) => {
+      const timings: StageTimings = {};
+      const result = await analyzeCsvFile(path, {}, timings);
+      const ia = result.channels.find((c) => c.name.startsWith("Ia"));
+      return {
+        timings,
+        summary: `${result.window.count} windows × ${result.window.points} points, f = ${result.fundamentalHz.toFixed(4)} Hz, Ia THD ${ia?.thdPercent.toFixed(2)} %`,
+      };
+    },
+    targets: { wallS: 3, rssMB: 500 },
+  },
+];
+
+async function main(): Promise<void> {
+  const only = process.argv[2];
+  let failed = false;
+  for (const bench of BENCH_CASES.filter((c) => !only || c.name === only)) {
+    const path = await bench.prepare();
+    const sizeMB = statSync(path).size / 1e6;
+    let peakRss = process.memoryUsage().rss;
+    const sampler = setInterval(() => {
+      peakRss = Math.max(peakRss, process.memoryUsage().rss);
+    }, 10);
+    const started = performance.now();
+    const { timings, summary } = await bench.run(path);
+    const wallS = (performance.now() - started) / 1000;
+    clearInterval(sampler);
+    peakRss = Math.max(peakRss, process.memoryUsage().rss);
+    const rssMB = peakRss / 1e6;
+    const ms = (v: number | undefined): string => `${((v ?? 0) / 1000).toFixed(3)} s`;
+    const rest = wallS * 1000 - (timings.importMs ?? 0) - (timings.windowsMs ?? 0);
+    console.log(`${bench.name}: ${bench.description}`);
+    console.log(`  input        ${sizeMB.toFixed(1)} MB  (${summary})`);
+    console.log(`  wall time    ${wallS.toFixed(3)} s   (${(sizeMB / wallS).toFixed(1)} MB/s of CSV)   target < ${bench.targets.wallS} s`);
+    console.log(`  peak RSS     ${rssMB.toFixed(0)} MB   target < ${bench.targets.rssMB} MB (sampled every 10 ms)`);
+    console.log(`  parse/import ${ms(timings.importMs)}`);
+    console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
+    console.log(
+      `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}, aggregation ${ms(timings.aggregateMs)})`,
+    );
+    if (wallS > bench.targets.wallS || rssMB > bench.targets.rssMB) failed = true;
+  }
+  if (failed) {
+    console.log("some targets missed");
+    process.exitCode = 1;
+  }
+}
+
+await main();
