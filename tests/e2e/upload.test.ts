@@ -1,0 +1,69 @@
+import path from "node:path";
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { signedIn } from "../support/http";
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launchBrowser();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("a technician uploads a capture in the browser", () => {
+  it("picks a CSV, watches the upload, maps the channels and gets an analysed capture", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "technician");
+    await page.goto(url("/captures"));
+    await page.click("[data-testid=new-capture]");
+    await page.waitForURL(/\/captures\/new$/);
+    const site = await page.locator("#cap-site option", { hasText: "Bench B" }).getAttribute("value");
+    await page.selectOption("#cap-site", site!);
+    await page.setInputFiles("[data-testid=file-input]", path.resolve("fixtures/demo/bench-b-desktop-psu.csv"));
+    expect(await page.inputValue("#cap-title")).toBe("bench-b-desktop-psu");
+    await page.fill("#cap-title", `Browser upload PSU ${Date.now()}`);
+    await snap(page, "upload-form");
+    await page.click("button[type=submit]");
+    await page.waitForURL(/\/captures\/[0-9a-f-]{36}\/setup$/);
+
+    // The preview shows the file's first lines and the detected channels.
+    await page.waitForSelector("[data-testid=channel-table]");
+    expect(await page.textContent("[data-testid=preview-lines]")).toContain("Time (s);U (V);I (A)");
+    expect(await page.inputValue('select[aria-label^="Quantity of U"]')).toBe("voltage");
+    expect(await page.inputValue('select[aria-label^="Quantity of I"]')).toBe("current");
+    await page.selectOption("#m-limits", "iec-61000-3-2-class-d");
+    await page.fill("#ctx-ratedPowerW", "abc");
+    await page.click("[data-testid=run-analysis]");
+    await expect(page.isVisible("text=Some fields need attention.")).resolves.toBe(true);
+    await page.fill("#ctx-ratedPowerW", "180");
+    await snap(page, "mapping-form");
+    await page.click("[data-testid=run-analysis]");
+    await page.waitForURL(/\/captures\/[0-9a-f-]{36}$/);
+    const id = new URL(page.url()).pathname.split("/")[2]!;
+
+    const api = await signedIn("technician");
+    const deadline = Date.now() + 30_000;
+    let status = "";
+    while (Date.now() < deadline && status !== "done" && status !== "failed") {
+      status = ((await (await api.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string } }).capture.status;
+      await new Promise((r) => setTimeout(r, 250));
+    }
+    expect(status).toBe("done");
+    await page.reload();
+    await snap(page, "sheet-after-upload");
+    await page.close();
+  });
+
+  it("the captures list filters by verdict on the server", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "engineer");
+    await page.goto(url("/captures?verdict=fail"));
+    const rows = page.locator("[data-testid=capture-table] tbody tr");
+    expect(await rows.count()).toBeGreaterThan(0);
+    for (const text of await rows.allTextContents()) expect(text).toContain("Fail");
+    await snap(page, "captures-failing");
+    await page.close();
+  });
+});
