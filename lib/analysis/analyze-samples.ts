@@ -233,7 +233,8 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   const passband = PASSBAND_FRACTION[halfWidth]!;
   // The interpolator's cutoff is the lower of the source and output Nyquist frequencies (in orders).
   const cutoffOrder = Math.min(sampleRateHz / (2 * fundamentalHz), points / (2 * cycles));
-  const resolvableOrder = Math.min(orders, Math.floor(passband * cutoffOrder));
+  // 0.1 % slack so an order sitting exactly on the passband edge at nominal frequency is not lost to a few mHz.
+  const resolvableOrder = Math.min(orders, Math.floor(passband * cutoffOrder * 1.001));
   if (resolvableOrder < 1) {
     throw new AnalysisInputError("sample-rate-too-low", `sampling rate of ${sampleRateHz.toPrecision(4)} Hz cannot resolve the fundamental`);
   }

@@ -1,0 +1,45 @@
+// Test signal helpers: time-domain waveforms sampled point by point, and a seeded PRNG.
+
+/** Seeded PRNG (mulberry32): reproducible random tests. */
+export function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+/** Samples `fn(θ)` (θ = 2π·f·t, radians) at `rateHz` for `seconds`. */
+export function sample(fn: (theta: number) => number, frequencyHz: number, rateHz: number, seconds: number): Float64Array {
+  const n = Math.round(seconds * rateHz);
+  const out = new Float64Array(n);
+  for (let k = 0; k < n; k++) out[k] = fn((2 * Math.PI * frequencyHz * k) / rateHz);
+  return out;
+}
+
+/** Angle reduced to [0, 2π) with exact results at the sample points of coherent sampling. */
+function wrap(theta: number): number {
+  const t = theta % (2 * Math.PI);
+  return t < 0 ? t + 2 * Math.PI : t;
+}
+
+/**
+ * Quasi-square wave of height `id` at sample `k` of `perCycle` samples per cycle: +id within β/2 of
+ * 90°, −id within β/2 of 270°, 0 elsewhere, and the mid value exactly on an edge (where the Fourier
+ * series converges). β = 180° is the square wave. Integer sample positions make edges exact.
+ */
+export function quasiSquareAt(k: number, perCycle: number, betaDeg: number, id = 1): number {
+  const pos = ((k % perCycle) + perCycle) % perCycle;
+  const deg = (pos * 360) / perCycle;
+  const half = betaDeg / 2;
+  const level = (centre: number): number => {
+    const raw = Math.abs(deg - centre) % 360;
+    const d = Math.min(raw, 360 - raw);
+    if (Math.abs(d - half) < 1e-9) return 0.5;
+    return d < half ? 1 : 0;
+  };
+  return id * (level(90) - level(270));
+}
