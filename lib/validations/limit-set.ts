@@ -127,7 +127,8 @@ export function labelledFieldErrors(error: z.ZodError, body: unknown, contentKey
   for (const issue of error.issues) {
     const inContent = contentKey === "" || issue.path[0] === contentKey;
     const inner = contentKey && inContent ? issue.path.slice(1) : issue.path;
-    const where = inContent ? describeContentPath(content, inner) : issue.path.map(String).join(".");
+    // Outside the content (reason, key, name) the message already says which field it is about.
+    const where = inContent ? describeContentPath(content, inner) : "";
     const message = plainMessage({ ...issue, path: inner } as z.core.$ZodIssue, inContent ? content : body);
     const key = issue.path.map(String).join(".") || "_";
     (out[key] ??= []).push(where ? `${where}: ${message}` : message);

@@ -1,0 +1,35 @@
+import Link from "next/link";
+import { getRevisionByKeyAndNumber } from "@/db/queries/limit-sets";
+import { requirePage } from "@/lib/auth/page";
+import { can } from "@/lib/auth/permissions";
+import type { LimitSetSummaryDto } from "@/lib/swr/use-limit-sets";
+import { LimitSetHeader } from "../../../_components/limit-set-header";
+import { loadOr404, revisionNumberOr404, toWire } from "../../../_components/load-limit-set";
+import { RevisionTable } from "../../../_components/revision-table";
+
+// An old (or the current) revision, read-only: revisions never change once saved.
+export default async function LimitSetRevisionPage({ params }: { params: Promise<{ key: string; number: string }> }) {
+  const user = await requirePage("limits:read");
+  const { key, number } = await params;
+  const n = revisionNumberOr404(number);
+  const { limitSet, revision } = await loadOr404(key, (k) => getRevisionByKeyAndNumber({ key: k, number: n }));
+  const isCurrent = revision.number === limitSet.currentRevisionNumber;
+  return (
+    <div className="space-y-4">
+      <LimitSetHeader limitSet={toWire<LimitSetSummaryDto>(limitSet)} canWrite={can(user.role, "limits:write")} current="old" />
+      <p className={`rounded px-3 py-2 text-sm ${isCurrent ? "bg-pass-light" : "bg-caution-light"}`} data-testid="revision-banner">
+        Revision <span data-testid="revision-number">{revision.number}</span> · {revision.createdAt.toLocaleString("en-GB")}
+        {revision.authorName ? ` · ${revision.authorName}` : ""} · “{revision.reason}” —{" "}
+        {isCurrent ? (
+          "this is the current revision."
+        ) : (
+          <>
+            read-only; revision {limitSet.currentRevisionNumber} is current.{" "}
+            <Link href={`/limits/${limitSet.key}/revisions`} className="underline">See what changed</Link>
+          </>
+        )}
+      </p>
+      <RevisionTable content={revision.content} />
+    </div>
+  );
+}
