@@ -12,20 +12,6 @@ export function mulberry32(seed: number): () => number {
   };
 }
 
-/** Samples `fn(θ)` (θ = 2π·f·t, radians) at `rateHz` for `seconds`. */
-export function sample(fn: (theta: number) => number, frequencyHz: number, rateHz: number, seconds: number): Float64Array {
-  const n = Math.round(seconds * rateHz);
-  const out = new Float64Array(n);
-  for (let k = 0; k < n; k++) out[k] = fn((2 * Math.PI * frequencyHz * k) / rateHz);
-  return out;
-}
-
-/** Angle reduced to [0, 2π) with exact results at the sample points of coherent sampling. */
-function wrap(theta: number): number {
-  const t = theta % (2 * Math.PI);
-  return t < 0 ? t + 2 * Math.PI : t;
-}
-
 /**
  * Quasi-square wave of height `id` at sample `k` of `perCycle` samples per cycle: +id within β/2 of
  * 90°, −id within β/2 of 270°, 0 elsewhere, and the mid value exactly on an edge (where the Fourier
