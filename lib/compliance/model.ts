@@ -184,19 +184,66 @@ export const PohcAllowanceRuleSchema = z.object({
   source: SourceSchema,
 });
 
-/** Reserved for statistical/time rules (1.5 s smoothing, percentiles, multipliers); not applied yet. */
-export const TimeRuleSchema = z.object({
-  statistic: z.enum(["mean", "max", "smoothed-max", "percentile"]),
-  percentile: z.number().min(0).max(100).optional(),
+/**
+ * IEC 61000-3-2 Class A relaxation of the 150 % rule (from memory): every 1.5 s smoothed value may
+ * reach `multiplier` × the limit (200 %) if the excursions above the rule's own multiplier last
+ * less than `maxExcursionFraction` of the observation period or `maxExcursionS` in aggregate,
+ * whichever is smaller, and the observation-period average is below `averageBelowFraction` × the
+ * limit. Data, off unless `enabled`.
+ */
+export const TimeRuleRelaxationSchema = z.object({
+  enabled: z.boolean(),
   multiplier: z.number().positive(),
-  /** Length of the values the statistic is taken over, e.g. 3 (very short) or 600 (short). */
-  intervalS: z.number().positive().optional(),
-  /** Accumulation period, e.g. 86400 (daily) or 604800 (weekly). */
-  accumulationS: z.number().positive().optional(),
-  appliesTo: z.enum(["orders", "aggregates", "all"]).default("all"),
-  note: z.string().optional(),
-  source: SourceSchema.optional(),
+  maxExcursionFraction: z.number().min(0).max(1),
+  maxExcursionS: z.number().nonnegative(),
+  averageBelowFraction: z.number().positive(),
+  source: SourceSchema,
 });
+
+/** Which values a time rule takes its statistic over (seconds; see TimeRuleSchema.intervalS). */
+export const TimeRuleIntervalSchema = z.union([z.literal(0), z.literal(1.5), z.literal(3), z.literal(600)]);
+
+/**
+ * A statistical / time rule of a standard, applied to time series of per-order and aggregate
+ * values (10/12-cycle windows of an analysis, or the values of an interval log):
+ * statistic(values of `intervalS` over each accumulation period) compared with
+ * `multiplier` × the band's limit.
+ *
+ * `intervalS`: 0 = the 10/12-cycle window values; 1.5 = the window values after the IEC 61000-4-7
+ * 1.5 s smoothing filter; 3 = 150/180-cycle (very short) values; 600 = 10-minute (short) values.
+ * `accumulationS`: consecutive periods from the record start (86400 daily, 604800 weekly); the
+ * worst period decides; absent = the whole observation period. `minimumDurationS`: shortest record
+ * the rule is evaluated on — shorter gives `not-evaluated` naming this minimum; a record shorter
+ * than `accumulationS` but at least this long is evaluated over what it has, with a note.
+ */
+export const TimeRuleSchema = z
+  .object({
+    id: z.string().regex(/^[a-z0-9]+(?:-[a-z0-9]+)*$/, "time rule id must be kebab-case"),
+    label: z.string().min(1),
+    statistic: z.enum(["mean", "max", "percentile"]),
+    /** Required for `percentile` (nearest-rank definition). */
+    percentile: z.number().min(0).max(100).optional(),
+    intervalS: TimeRuleIntervalSchema,
+    multiplier: z.number().positive(),
+    accumulationS: z.number().positive().optional(),
+    minimumDurationS: z.number().nonnegative().default(0),
+    appliesTo: z.enum(["orders", "aggregates", "all"]).default("all"),
+    /** Restrict the rule to these aggregates (default: every aggregate of the band). */
+    aggregates: z.array(AggregateNameSchema).optional(),
+    /** Overrides rules.comparison for this rule (e.g. IEEE 519 "shall be less than"). */
+    passAtLimit: z.boolean().optional(),
+    /** Apply rules.pohcAllowance to this rule's statistic (IEC 61000-3-2 odd orders 21–39). */
+    pohcAllowance: z.boolean().optional(),
+    relaxation: TimeRuleRelaxationSchema.optional(),
+    note: z.string().optional(),
+    source: SourceSchema.optional(),
+  })
+  .refine((rule) => (rule.statistic === "percentile") === (rule.percentile !== undefined), {
+    message: "a percentile time rule needs `percentile`, and only a percentile rule may have one",
+  })
+  .refine((rule) => rule.relaxation === undefined || rule.statistic === "max", {
+    message: "only a max time rule may have a relaxation",
+  });
 
 export const RulesSchema = z.object({
   /** How a measured value exactly at the limit is judged. */
@@ -223,6 +270,20 @@ export const LimitSetRevisionContentSchema = z
     rules: RulesSchema.default({ comparison: { passAtLimit: true, source: "measured ≤ limit passes" } }),
   })
   .superRefine((content, ctx) => {
+    const ruleIds = new Set<string>();
+    (content.rules.timeRules ?? []).forEach((rule, ruleIndex) => {
+      if (ruleIds.has(rule.id)) {
+        ctx.addIssue({ code: "custom", message: `duplicate time rule id "${rule.id}"`, path: ["rules", "timeRules", ruleIndex, "id"] });
+      }
+      ruleIds.add(rule.id);
+      if (rule.pohcAllowance && !content.rules.pohcAllowance) {
+        ctx.addIssue({
+          code: "custom",
+          message: `time rule "${rule.id}" uses the POHC allowance but rules.pohcAllowance is not set`,
+          path: ["rules", "timeRules", ruleIndex, "pohcAllowance"],
+        });
+      }
+    });
     const labels = new Set<string>();
     content.bands.forEach((band, bandIndex) => {
       if (labels.has(band.label)) {
@@ -303,6 +364,8 @@ export type ThresholdRule = z.infer<typeof ThresholdRuleSchema>;
 export type InterpolationRule = z.infer<typeof InterpolationRuleSchema>;
 export type PohcAllowanceRule = z.infer<typeof PohcAllowanceRuleSchema>;
 export type TimeRule = z.infer<typeof TimeRuleSchema>;
+export type TimeRuleInput = z.input<typeof TimeRuleSchema>;
+export type TimeRuleRelaxation = z.infer<typeof TimeRuleRelaxationSchema>;
 export type Rules = z.infer<typeof RulesSchema>;
 export type LimitSetRevisionContent = z.infer<typeof LimitSetRevisionContentSchema>;
 /** Shapes as written by hand (defaults not yet applied), e.g. in the seed files. */

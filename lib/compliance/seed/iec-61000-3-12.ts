@@ -137,7 +137,30 @@ export const iec61000312: LimitSetRevisionContentInput = {
       defaultOn: true,
       source: `${ED} Tables 2–4 — linear interpolation between successive Rsce values is permitted (secondary source; Table 4 from memory)`,
     },
-    timeRules: [],
+    timeRules: [
+      {
+        id: "smoothed-average",
+        label: "Average of 1.5 s smoothed values ≤ 100 % of the limit",
+        statistic: "mean",
+        intervalS: 1.5,
+        multiplier: 1,
+        // One time constant as the shortest evaluable record (Ordwise choice, as for IEC 61000-3-2).
+        minimumDurationS: 1.5,
+        appliesTo: "all",
+        note: "Orders, THC and PWHC are judged on the observation-period average of their 1.5 s smoothed values (Ordwise reading).",
+        source: `${ED} time aspects as IEC 61000-3-2: average of the 1.5 s smoothed values ≤ limit (from memory)`,
+      },
+      {
+        id: "smoothed-max",
+        label: "Every 1.5 s smoothed value ≤ 150 % of the limit",
+        statistic: "max",
+        intervalS: 1.5,
+        multiplier: 1.5,
+        minimumDurationS: 1.5,
+        appliesTo: "orders",
+        source: `${ED} time aspects as IEC 61000-3-2: each 1.5 s smoothed value ≤ 150 % of the limit (from memory)`,
+      },
+    ],
   },
 };
 

@@ -1,7 +1,7 @@
 // IEC 61000-3-2 (equipment ≤ 16 A per phase) — Classes A, B, C, D as limit-set revisions.
 // Values from /work/shared/reference/standards.md §1; each row group cites its source and the
 // reference's marker: "(C)" confirmed, "from memory" (M), "computed from formula" (X).
-import type { AggregateRowInput, LimitSetRevisionContentInput, OrderRowInput, RulesInput } from "../model";
+import type { AggregateRowInput, LimitSetRevisionContentInput, OrderRowInput, RulesInput, TimeRuleInput } from "../model";
 
 const STANDARD = "IEC 61000-3-2";
 const EDITION = "Ed 5.0 (2018) + AMD1 (2020), i.e. Ed 5.1";
@@ -27,14 +27,65 @@ const rules: RulesInput = {
     parity: "odd",
     factor: 1.5,
     aggregate: "POHC",
-    source: `${ED} clause 7 — for odd orders 21–39 the average may exceed the individual limit by 50 % provided the measured POHC does not exceed the POHC computed from the limits (from memory); the accompanying "every 1.5 s smoothed value ≤ 150 %" check needs time series and is not applied here`,
+    source: `${ED} clause 7 — for odd orders 21–39 the average may exceed the individual limit by 50 % provided the measured POHC does not exceed the POHC computed from the limits and every 1.5 s smoothed value stays ≤ 150 % of its limit (from memory); without per-window series only the POHC condition is checked`,
   },
-  // Time rules (1.5 s smoothing, 150 %/200 % excursions) are reserved for a later revision.
-  timeRules: [],
+  timeRules: iec6100032TimeRules({ pohcAllowance: true, relaxation: false }),
 };
 
+/**
+ * The time aspects of IEC 61000-3-2 (reference §1.8): per order, the arithmetic average of the
+ * 1.5 s smoothed values over the observation period ≤ the limit, and every 1.5 s smoothed value
+ * ≤ 150 % of the limit; Class A may use the 200 % relaxation (data, off by default).
+ */
+export function iec6100032TimeRules(options: { pohcAllowance: boolean; relaxation: boolean; edition?: string }): TimeRuleInput[] {
+  const ed = options.edition ?? ED;
+  // One time constant of record as the shortest evaluable observation (Ordwise choice; the
+  // standard sets the observation period by the equipment's cycle and repeatability — from memory).
+  const minimumDurationS = 1.5;
+  return [
+    {
+      id: "smoothed-average",
+      label: "Average of 1.5 s smoothed values ≤ 100 % of the limit",
+      statistic: "mean",
+      intervalS: 1.5,
+      multiplier: 1,
+      minimumDurationS,
+      // Aggregates too: the POHC allowance condition is judged on the averaged values (Ordwise reading).
+      appliesTo: "all",
+      ...(options.pohcAllowance ? { pohcAllowance: true } : {}),
+      note: "Observation period = the whole record; 1.5 s smoothing per IEC 61000-4-7 (τ = 1.5 s).",
+      source: `${ed} clause 6.2 — arithmetic average of the 1.5 s smoothed r.m.s. values over the observation period (confirmed) ≤ 100 % of the limit ("≤" wording from memory)`,
+    },
+    {
+      id: "smoothed-max",
+      label: "Every 1.5 s smoothed value ≤ 150 % of the limit",
+      statistic: "max",
+      intervalS: 1.5,
+      multiplier: 1.5,
+      minimumDurationS,
+      appliesTo: "orders",
+      ...(options.relaxation
+        ? {
+            relaxation: {
+              enabled: false,
+              multiplier: 2,
+              maxExcursionFraction: 0.1,
+              maxExcursionS: 600,
+              averageBelowFraction: 0.9,
+              source: `${ed} clause 6.2 — Class A only: ≤ 200 % if excursions above 150 % last < 10 % of the observation period or 10 min in aggregate, whichever is smaller, and the average is < 90 % of the limit (from memory); off unless a revision enables it`,
+            },
+          }
+        : {}),
+      source: `${ed} clause 6.2 — each 1.5 s smoothed r.m.s. value ≤ 150 % of the applicable limit (from memory)`,
+    },
+  ];
+}
+
 // No POHC allowance is listed for Class C in our reference.
-const { pohcAllowance: _unusedForClassC, ...classCRules } = rules;
+const { pohcAllowance: _unusedForClassC, ...classCShared } = rules;
+const classCRules: RulesInput = { ...classCShared, timeRules: iec6100032TimeRules({ pohcAllowance: false, relaxation: false }) };
+// Only Class A may use the 200 % relaxation (from memory) — present as data, disabled.
+const classARules: RulesInput = { ...rules, timeRules: iec6100032TimeRules({ pohcAllowance: true, relaxation: true }) };
 
 // IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A maximum permissible harmonic current, amperes.
 // Fixed rows n = 2…13 (C); formula rows 0.15·15/n (odd 15–39) and 0.23·8/n (even 8–40) (C).
@@ -101,7 +152,7 @@ export const iec6100032ClassA: LimitSetRevisionContentInput = {
       source: TABLE_1,
     },
   ],
-  rules,
+  rules: classARules,
 };
 
 export const iec6100032ClassB: LimitSetRevisionContentInput = {

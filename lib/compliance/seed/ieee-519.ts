@@ -1,6 +1,6 @@
 // IEEE 519 — current distortion limits (Tables 2, 3, 4; 2014 and 2022 editions) and voltage
 // distortion limits (Table 1). Values from /work/shared/reference/standards.md §3.
-import type { AggregateRowInput, BandInput, LimitSetRevisionContentInput, OrderRowInput, RangeInput } from "../model";
+import type { AggregateRowInput, BandInput, LimitSetRevisionContentInput, OrderRowInput, RangeInput, TimeRuleInput } from "../model";
 
 // The printed tables head the rows "< 20", "20 < 50", "50 < 100", … without assigning a value
 // exactly at a bound. Ordwise's choice, stated in the data and quoted by the evaluator:
@@ -139,6 +139,61 @@ function currentTables(edition: string): CurrentTable[] {
   ];
 }
 
+const DAY_S = 86_400;
+const WEEK_S = 604_800;
+
+/**
+ * IEEE 519 statistical evaluation of currents (2014 §5.2; reference §3.4, multipliers from memory):
+ * daily 99th percentile of 3 s values < 2.0 ×, weekly 99th percentile of 10 min values < 1.5 ×,
+ * weekly 95th percentile of 10 min values < 1.0 × the Table 2–4 values; per order (% of IL) and TDD.
+ * Minimum record: one complete 3 s value / one complete 10-minute interval (Ordwise choice); a
+ * shorter record than a day / week is evaluated over what it has, with a note.
+ */
+function currentTimeRules(edition: string, editionNote: string): TimeRuleInput[] {
+  const clause = `${edition} §5.2 (statistical evaluation)${editionNote}`;
+  return [
+    {
+      id: "daily-p99-very-short",
+      label: "Daily 99th percentile of 3 s values < 2.0 × limit",
+      statistic: "percentile",
+      percentile: 99,
+      intervalS: 3,
+      multiplier: 2.0,
+      accumulationS: DAY_S,
+      minimumDurationS: 3,
+      appliesTo: "all",
+      passAtLimit: false,
+      source: `${clause} — very short time (3 s) values accumulated over 24 h: 99th percentile < 2.0 × Table 2–4 limits (from memory)`,
+    },
+    {
+      id: "weekly-p99-short",
+      label: "Weekly 99th percentile of 10 min values < 1.5 × limit",
+      statistic: "percentile",
+      percentile: 99,
+      intervalS: 600,
+      multiplier: 1.5,
+      accumulationS: WEEK_S,
+      minimumDurationS: 600,
+      appliesTo: "all",
+      passAtLimit: false,
+      source: `${clause} — short time (10 min) values accumulated over 7 days: 99th percentile < 1.5 × Table 2–4 limits (from memory)`,
+    },
+    {
+      id: "weekly-p95-short",
+      label: "Weekly 95th percentile of 10 min values < 1.0 × limit",
+      statistic: "percentile",
+      percentile: 95,
+      intervalS: 600,
+      multiplier: 1.0,
+      accumulationS: WEEK_S,
+      minimumDurationS: 600,
+      appliesTo: "all",
+      passAtLimit: false,
+      source: `${clause} — short time (10 min) values accumulated over 7 days: 95th percentile < 1.0 × Table 2–4 limits (from memory)`,
+    },
+  ];
+}
+
 const CURRENT_APPLIES_TO =
   "Current at the point of common coupling (PCC) of a user's installation, in % of IL (maximum demand load " +
   "current, fundamental, at the PCC). Context needed: bus voltage, Isc and IL. Power-generation equipment is " +
@@ -171,8 +226,7 @@ export const ieee5192014Current: LimitSetRevisionContentInput = {
       passAtLimit: true,
       source: "IEEE Std 519-2014 Tables 2–4 give maximum values: measured ≤ limit passes (Ordwise reading, from memory)",
     },
-    // Percentile/multiplier rules of §5.2 (daily 99th × 2.0, weekly 99th × 1.5, weekly 95th × 1.0) go here later.
-    timeRules: [],
+    timeRules: currentTimeRules("IEEE Std 519-2014", ""),
   },
 };
 
@@ -193,7 +247,8 @@ export const ieee5192022Current: LimitSetRevisionContentInput = {
       passAtLimit: true,
       source: "IEEE Std 519-2022 Tables 2–4 give maximum values: measured ≤ limit passes (Ordwise reading, from memory)",
     },
-    timeRules: [],
+    // Our reference documents the 2014 scheme; that 2022 keeps it is from memory.
+    timeRules: currentTimeRules("IEEE Std 519-2022", " — same scheme as 2014, from memory"),
   },
 };
 
@@ -248,8 +303,36 @@ export const ieee5192014Voltage: LimitSetRevisionContentInput = {
       passAtLimit: true,
       source: "IEEE Std 519-2014 Table 1 gives maximum values: measured ≤ limit passes (Ordwise reading, from memory)",
     },
-    // Daily 99th percentile of 3 s values < 1.5 × Table 1; weekly 95th of 10 min values < 1.0 × (confirmed) — later.
-    timeRules: [],
+    timeRules: [
+      {
+        id: "daily-p99-very-short",
+        label: "Daily 99th percentile of 3 s values < 1.5 × limit",
+        statistic: "percentile",
+        percentile: 99,
+        intervalS: 3,
+        multiplier: 1.5,
+        accumulationS: DAY_S,
+        // One complete 3 s value (Ordwise choice).
+        minimumDurationS: 3,
+        appliesTo: "all",
+        passAtLimit: false,
+        source: "IEEE Std 519-2014 Table 1 statistics — daily 99th percentile of very short time (3 s) values < 1.5 × Table 1 values (confirmed)",
+      },
+      {
+        id: "weekly-p95-short",
+        label: "Weekly 95th percentile of 10 min values < 1.0 × limit",
+        statistic: "percentile",
+        percentile: 95,
+        intervalS: 600,
+        multiplier: 1.0,
+        accumulationS: WEEK_S,
+        // One complete 10-minute interval (Ordwise choice).
+        minimumDurationS: 600,
+        appliesTo: "all",
+        passAtLimit: false,
+        source: "IEEE Std 519-2014 Table 1 statistics — weekly 95th percentile of short time (10 min) values < 1.0 × Table 1 values (confirmed; the 99th percentile of short time values is not used for voltage)",
+      },
+    ],
   },
 };
 
