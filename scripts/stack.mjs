@@ -274,6 +274,7 @@ async function serveApp(env, { dev = false, quiet = false } = {}) {
   }
   const args = dev ? ["dev", "-H", "127.0.0.1", "-p", env.PORT] : ["start", "-H", "127.0.0.1", "-p", env.PORT];
   startChild("the web app", next(), args, { ...env, NODE_ENV: dev ? "development" : "production" }, { quiet });
+  startChild("the analysis worker", tsx(), ["--conditions=react-server", "scripts/worker.ts"], { ...env, NODE_ENV: "production" }, { quiet });
   await waitForPort(Number(env.PORT), "the web app", 120_000);
 }
 
@@ -316,6 +317,8 @@ async function start(dev) {
 
 async function test() {
   const dataDir = fs.mkdtempSync(path.join(os.tmpdir(), "ordwise-test-"));
+  const distDir = `.next-test/${path.basename(dataDir)}`;
+  process.env.NEXT_DIST_DIR = distDir;
   const ports = { pg: await freePort(), s3: await freePort(), smtp: await freePort(), mailHttp: await freePort(), app: await freePort() };
   let failedRuns = 0;
   const totals = { passed: 0, failed: 0, skipped: 0 };
@@ -360,6 +363,7 @@ async function test() {
   stopping = true;
   killChildren();
   stopPostgres();
+  fs.rmSync(path.join(root, distDir), { recursive: true, force: true });
   if (!process.env.KEEP_TEST_DATA) fs.rmSync(dataDir, { recursive: true, force: true });
   process.exit(failedRuns === 0 && totals.failed === 0 ? 0 : 1);
 }

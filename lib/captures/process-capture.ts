@@ -7,12 +7,26 @@ import { getObjectBytes } from "@/lib/storage/s3";
 import { captureMappingSchema } from "@/lib/validations/capture";
 import { decodeText } from "./decode-text";
 
+const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
+
 /**
  * Runs one capture from its stored original to a stored analysis and evaluation.
- * Never throws: any failure ends as status "failed" with a reason a technician can act on,
- * and the original upload stays in the bucket untouched.
+ * A problem with the file or the mapping ends as status "failed" with a reason a technician can
+ * act on. An internal error is rethrown while `finalAttempt` is false (the queue retries the job)
+ * and recorded as "failed" on the final attempt. The original upload stays in the bucket untouched.
  */
-export async function processCapture({ captureId, actorId }: { captureId: string; actorId: string | null }): Promise<void> {
+export async function processCapture({
+  captureId,
+  actorId,
+  finalAttempt = true,
+  beforeStore,
+}: {
+  captureId: string;
+  actorId: string | null;
+  finalAttempt?: boolean;
+  /** Called between the computation and the write (lets tests interrupt a run). */
+  beforeStore?: () => Promise<void>;
+}): Promise<void> {
   try {
     const capture = await getCaptureById({ id: captureId, role: "admin" });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
@@ -25,14 +39,22 @@ export async function processCapture({ captureId, actorId }: { captureId: string
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     const result = evaluateCapture(analysis, revision, context);
+    await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
   } catch (err) {
+    const expected = isAnalysisInputError(err) || (err instanceof Error && err.message === "no limit set chosen");
+    if (!expected) {
+      console.error(err);
+      if (!finalAttempt) {
+        await setCaptureStatus({ id: captureId, status: "queued", progressPercent: 0, failureReason: null }).catch(() => undefined);
+        throw err;
+      }
+    }
     const reason = isAnalysisInputError(err)
       ? err.message
-      : err instanceof Error && err.message === "no limit set chosen"
+      : expected
         ? "Choose a limit set in the mapping form, then run the analysis again."
-        : "The analysis stopped on an internal error. The upload is kept; try again, and tell an admin if it repeats.";
-    if (!isAnalysisInputError(err)) console.error(err);
+        : internalReason;
     await setCaptureStatus({ id: captureId, status: "failed", failureReason: reason, progressPercent: 0 }).catch(() => undefined);
   }
 }

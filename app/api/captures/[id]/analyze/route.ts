@@ -1,11 +1,11 @@
-import { after, NextResponse } from "next/server";
+import { NextResponse } from "next/server";
 import { getCaptureById, setCaptureStatus } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
-import { processCapture } from "@/lib/captures/process-capture";
+import { enqueueAnalysis } from "@/lib/jobs/queue";
 import { AppError } from "@/lib/errors";
 
-// POST /api/captures/:id/analyze — queue the analysis; status and progress are read from GET /api/captures/:id
+// POST /api/captures/:id/analyze — put the analysis on the job queue; status and progress are read from GET /api/captures/:id
 export const POST = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
@@ -14,8 +14,8 @@ export const POST = withAuth<{ id: string }>(
     if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is already running.");
     if (!capture.limitSetKey) throw new AppError("conflict", "Save the mapping and choose a limit set first.");
     await setCaptureStatus({ id, status: "queued", progressPercent: 0, failureReason: null });
-    after(() => processCapture({ captureId: id, actorId: user.id }));
-    return NextResponse.json({ status: "queued" }, { status: 202 });
+    const jobId = await enqueueAnalysis({ captureId: id, actorId: user.id });
+    return NextResponse.json({ status: "queued", jobId }, { status: 202 });
   },
   { permission: "captures:upload" },
 );

@@ -1,0 +1,75 @@
+import { spawn, type ChildProcess } from "node:child_process";
+import { readFileSync } from "node:fs";
+import path from "node:path";
+import { eq } from "drizzle-orm";
+import PgBoss from "pg-boss";
+import { afterAll, describe, expect, it } from "vitest";
+import { db, sql } from "@/db/client";
+import { captures } from "@/db/schema";
+import { signedIn } from "../support/http";
+
+// A queue of its own, so the worker that `npm test` runs beside the app never takes these jobs.
+const queue = `analyze-capture-killtest-${Date.now()}`;
+const workers: ChildProcess[] = [];
+
+function startWorker(extraEnv: Record<string, string>): ChildProcess {
+  const child = spawn(path.resolve("node_modules/.bin/tsx"), ["--conditions=react-server", "scripts/worker.ts"], {
+    env: { ...process.env, JOB_QUEUE: queue, JOB_EXPIRE_S: "2", JOB_MAINTENANCE_S: "1", ...extraEnv },
+    stdio: "ignore",
+  });
+  workers.push(child);
+  return child;
+}
+
+async function waitFor<T>(what: string, probe: () => Promise<T | null>, timeoutMs = 45_000): Promise<T> {
+  const deadline = Date.now() + timeoutMs;
+  while (Date.now() < deadline) {
+    const v = await probe();
+    if (v !== null) return v;
+    await new Promise((r) => setTimeout(r, 200));
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+afterAll(() => {
+  for (const w of workers) if (w.exitCode === null) w.kill("SIGKILL");
+});
+
+describe("analysis jobs in the PostgreSQL-backed queue", () => {
+  it("retries a job whose worker was killed mid-run, and the retry completes", async () => {
+    const tech = await signedIn("technician");
+    const sites = (await (await tech.request("GET", "/api/sites")).json()) as { sites: { id: string; name: string }[] };
+    const siteId = sites.sites.find((s) => s.name.startsWith("Bench B"))!.id;
+    const bytes = readFileSync("fixtures/demo/bench-b-heater-controller.csv");
+    const reg = (await (
+      await tech.request("POST", "/api/captures", { siteId, title: `Killed worker ${Date.now()}`, filename: "heater.csv", sizeBytes: bytes.length })
+    ).json()) as { capture: { id: string }; uploadUrl: string };
+    await fetch(reg.uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } });
+    expect((await tech.request("POST", `/api/captures/${reg.capture.id}/uploaded`)).status).toBe(200);
+    await tech.request("PUT", `/api/captures/${reg.capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} });
+
+    // The first worker pauses after computing and before storing: kill it there.
+    const first = startWorker({ ORDWISE_TEST_PAUSE_BEFORE_STORE_MS: "120000" });
+    const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss", supervise: false, schedule: false });
+    await boss.start();
+    await boss.createQueue(queue, { name: queue, retryLimit: 1, retryDelay: 1, expireInSeconds: 2 });
+    const jobId = await boss.send(queue, { captureId: reg.capture.id, actorId: null }, { retryLimit: 1, retryDelay: 1, expireInSeconds: 2 });
+    expect(jobId).toBeTruthy();
+
+    await waitFor("the first run to reach 80 %", async () => {
+      const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
+      return c?.status === "running" && c.progressPercent >= 80 ? c : null;
+    });
+    first.kill("SIGKILL");
+
+    startWorker({});
+    const done = await waitFor("the retried job to finish", async () => {
+      const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
+      return c?.status === "done" || c?.status === "failed" ? c : null;
+    });
+    expect(done.status).toBe("done");
+    const [job] = await sql`select state, retry_count from pgboss.job where id = ${jobId!}`;
+    expect(job).toMatchObject({ state: "completed", retry_count: 1 });
+    await boss.stop({ graceful: false });
+  });
+});
