@@ -105,7 +105,11 @@ export function describeContentPath(content: unknown, path: readonly PathPart[])
 }
 
 function plainMessage(issue: z.core.$ZodIssue, content: unknown): string {
-  if (issue.code === "invalid_type") return `must be ${issue.expected === "number" ? "a number" : `a ${issue.expected}`}`;
+  // zod's default wording ("Invalid input: expected number, received NaN") reads poorly in a form.
+  if (issue.code === "invalid_type" && issue.message.startsWith("Invalid input")) return `must be ${issue.expected === "number" ? "a number" : `a ${issue.expected}`}`;
+  // The model counts rows from 0; the editor shows them from 1 and already names the band.
+  const overlap = /^order (\d+) is covered by rows (\d+) and (\d+) of band /.exec(issue.message);
+  if (overlap) return `order ${overlap[1]} is also covered by row ${Number(overlap[2]) + 1}`;
   // A formula's syntax error quotes the formula; the location already says which one.
   const formula = issue.path.reduce<unknown>((v, p) => at(v, p), content);
   if (typeof formula === "string") {

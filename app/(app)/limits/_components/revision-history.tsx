@@ -4,6 +4,7 @@ import Link from "next/link";
 import type { RevisionChange } from "@/lib/compliance/diff-revisions";
 import { useLimitSetRevisions, type LimitSetSummaryDto, type RevisionHistoryEntryDto } from "@/lib/swr/use-limit-sets";
 import { LimitSetHeader } from "./limit-set-header";
+import { formatWhen } from "./format-when";
 
 const kindStyle: Record<RevisionChange["kind"], string> = {
   changed: "bg-caution-light text-caution",
@@ -61,7 +62,7 @@ export function RevisionHistory({
                 {r.current && <span className="ml-2 rounded bg-pass-light px-1.5 py-0.5 text-xs text-pass">current</span>}
               </p>
               <p className="text-xs text-ink-muted">
-                {new Date(r.createdAt).toLocaleString("en-GB")}
+                {formatWhen(r.createdAt)}
                 {r.authorName ? ` · ${r.authorName}` : ""}
               </p>
             </div>

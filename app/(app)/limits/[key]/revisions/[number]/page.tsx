@@ -6,6 +6,7 @@ import type { LimitSetSummaryDto } from "@/lib/swr/use-limit-sets";
 import { LimitSetHeader } from "../../../_components/limit-set-header";
 import { loadOr404, revisionNumberOr404, toWire } from "../../../_components/load-limit-set";
 import { RevisionTable } from "../../../_components/revision-table";
+import { formatWhen } from "../../../_components/format-when";
 
 // An old (or the current) revision, read-only: revisions never change once saved.
 export default async function LimitSetRevisionPage({ params }: { params: Promise<{ key: string; number: string }> }) {
@@ -18,7 +19,7 @@ export default async function LimitSetRevisionPage({ params }: { params: Promise
     <div className="space-y-4">
       <LimitSetHeader limitSet={toWire<LimitSetSummaryDto>(limitSet)} canWrite={can(user.role, "limits:write")} current="old" />
       <p className={`rounded px-3 py-2 text-sm ${isCurrent ? "bg-pass-light" : "bg-caution-light"}`} data-testid="revision-banner">
-        Revision <span data-testid="revision-number">{revision.number}</span> · {revision.createdAt.toLocaleString("en-GB")}
+        Revision <span data-testid="revision-number">{revision.number}</span> · {formatWhen(revision.createdAt)}
         {revision.authorName ? ` · ${revision.authorName}` : ""} · “{revision.reason}” —{" "}
         {isCurrent ? (
           "this is the current revision."
