@@ -50,6 +50,15 @@ const routes: RouteCase[] = [
   { method: "DELETE", path: "/api/captures/:capture/shares/:missing", allowed: REVIEW },
   { method: "GET", path: "/api/captures/:capture/report", allowed: ALL },
   { method: "GET", path: "/api/captures/:capture/sheet-csv", allowed: ALL },
+  // Limit sets: :missing is a well-formed key of no set, so an allowed caller gets 404 or 422 and nothing changes.
+  { method: "GET", path: "/api/limit-sets", allowed: ALL },
+  { method: "GET", path: "/api/limit-sets/:missing", allowed: ALL },
+  { method: "PUT", path: "/api/limit-sets/:missing", allowed: ["admin"], body: {} },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions", allowed: ALL },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing", allowed: ALL },
+  { method: "POST", path: "/api/limit-sets/:missing/clone", allowed: ["admin"], body: {} },
+  { method: "GET", path: "/api/limit-sets/:missing/export", allowed: ALL },
+  { method: "POST", path: "/api/limit-sets/import", allowed: ["admin"], body: {} },
 ];
 
 // Routes that need no session by design.
@@ -66,6 +75,11 @@ const pages: { path: string; allowed: DemoRole[] }[] = [
   { path: "/captures/:capture/setup", allowed: UPLOAD },
   { path: "/captures/:capture", allowed: ALL },
   { path: "/captures/compare?a=:capture", allowed: ALL },
+  { path: "/limits", allowed: ALL },
+  { path: "/limits/iec-61000-3-2-class-a", allowed: ALL },
+  { path: "/limits/iec-61000-3-2-class-a/edit", allowed: ["admin"] },
+  { path: "/limits/iec-61000-3-2-class-a/revisions", allowed: ALL },
+  { path: "/limits/iec-61000-3-2-class-a/revisions/1", allowed: ALL },
 ];
 
 function routeFiles(dir: string): string[] {
