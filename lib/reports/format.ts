@@ -110,11 +110,18 @@ export function groupReasons(rows: ComplianceRow[]): Array<{ orders: number[]; r
   const groups = new Map<string, number[]>();
   for (const row of rows) {
     if (!row.reason || row.verdict === "pass") continue;
-    const list = groups.get(row.reason) ?? [];
+    const reason = generalReason(row.reason);
+    const list = groups.get(reason) ?? [];
     list.push(row.order);
-    groups.set(row.reason, list);
+    groups.set(reason, list);
   }
   return [...groups.entries()].map(([reason, orders]) => ({ orders, reason }));
+}
+
+// Threshold reasons start with the row's own value ("0.0012 A < 0.0627 A, …"); without it the
+// reason is the same for every disregarded order and reads once.
+function generalReason(reason: string): string {
+  return reason.replace(/^-?[\d.]+(?:e[-+]?\d+)?\s*(A|V|%\w*)\s*<\s*/, "below ");
 }
 
 /** "3, 5, 7–11" style list of orders (consecutive odd or all orders collapse into ranges). */

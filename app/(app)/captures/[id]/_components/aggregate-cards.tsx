@@ -1,0 +1,30 @@
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import type { ComplianceAggregate } from "@/lib/compliance/result";
+import { formatNumber, formatPercent } from "@/lib/reports/format";
+
+/** THD, TDD, THC… of one channel, each with measured, limit, % of limit and verdict. */
+export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate[] }) {
+  if (aggregates.length === 0) return null;
+  return (
+    <section aria-label="Aggregates" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" data-testid="aggregates">
+      {aggregates.map((a) => (
+        <div key={a.name} className={`panel min-w-0 ${a.verdict === "fail" ? "border-fail/50" : ""}`} data-testid={`aggregate-${a.name}`}>
+          <div className="flex items-start justify-between gap-2">
+            <h3 className="text-sm font-semibold">
+              {a.name}
+              {a.role === "allowance-condition" && <span className="ml-1 text-xs font-normal text-ink-muted">(allowance check)</span>}
+            </h3>
+            <VerdictBadge verdict={a.verdict} />
+          </div>
+          <p className="mt-2 text-2xl font-semibold tabular-nums">
+            {formatNumber(a.measured)} <span className="text-sm font-normal text-ink-muted">{a.unit}</span>
+          </p>
+          <p className="text-sm text-ink-soft tabular-nums">
+            limit {formatNumber(a.limit)} {a.unit} · {formatPercent(a.percentOfLimit)} of limit
+          </p>
+          {a.reason && <p className="mt-1 text-xs text-ink-muted">{a.reason}</p>}
+        </div>
+      ))}
+    </section>
+  );
+}

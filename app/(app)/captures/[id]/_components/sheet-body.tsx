@@ -1,0 +1,144 @@
+"use client";
+
+import { useMemo, useState } from "react";
+import { SpectrumChart, type SpectrumMode } from "@/app/_components/charts/spectrum-chart";
+import { TrendChart } from "@/app/_components/charts/trend-chart";
+import { WaveformChart } from "@/app/_components/charts/waveform-chart";
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
+import { formatOrders, groupReasons } from "@/lib/reports/format";
+import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
+import { AggregateCards } from "./aggregate-cards";
+import { OrderTable } from "./order-table";
+
+function channelsOf(result: ComplianceResult): ChannelCompliance[] {
+  if (result.channels.length > 0) return result.channels;
+  return [{ channel: result.channel ?? "—", phase: null, band: result.band, rows: result.rows, aggregates: result.aggregates, conditions: result.conditions, verdict: result.verdict, derived: { notes: [] } }];
+}
+
+/**
+ * The interactive part of a sheet: channel/phase selector, aggregates, charts and the per-order
+ * table of the chosen channel. Used by the signed-in sheet and the read-only share page.
+ */
+export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; chartsUrl: string }) {
+  const channels = useMemo(() => channelsOf(result), [result]);
+  const [selected, setSelected] = useState(channels[0]?.channel ?? "");
+  const channel = channels.find((c) => c.channel === selected) ?? channels[0]!;
+  const reasons = groupReasons(channel.rows);
+  return (
+    <div className="space-y-4" data-testid="sheet-body">
+      {channels.length > 1 && (
+        <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Channel" data-testid="channel-select">
+          <span className="text-sm text-ink-soft">Channel</span>
+          {channels.map((c) => (
+            <button
+              key={c.channel}
+              type="button"
+              onClick={() => setSelected(c.channel)}
+              aria-pressed={c.channel === channel.channel}
+              data-testid={`channel-${c.channel}`}
+              className={`inline-flex items-center gap-2 rounded-md border px-2.5 py-1.5 text-sm ${c.channel === channel.channel ? "border-copper bg-copper-light font-semibold" : "border-line bg-paper-raised hover:bg-paper-sunk"}`}
+            >
+              {c.channel}
+              {c.phase ? <span className="text-ink-muted">phase {c.phase.toUpperCase()}</span> : null}
+              <VerdictBadge verdict={c.verdict} testId={`channel-verdict-${c.channel}`} />
+            </button>
+          ))}
+        </div>
+      )}
+      {channels.length > 1 && (
+        <p className="text-sm text-ink-soft" data-testid="channel-band">
+          Band for {channel.channel}: <strong>{channel.band.label ?? "none chosen"}</strong> — {channel.band.reason}
+        </p>
+      )}
+      {channel.derived.notes.length > 0 && (
+        <ul className="list-disc pl-5 text-sm text-ink-soft">
+          {channel.derived.notes.map((n) => <li key={n}>{n}</li>)}
+        </ul>
+      )}
+
+      <AggregateCards aggregates={channel.aggregates} />
+
+      <SheetCharts chartsUrl={chartsUrl} channel={channel} ilA={result.context.ilA} />
+
+      <section className="panel p-0 sm:p-0" aria-labelledby="orders-heading">
+        <OrderTable key={channel.channel} rows={channel.rows} channelName={channel.channel} />
+      </section>
+
+      {reasons.length > 0 && (
+        <section className="panel text-sm" data-testid="row-reasons">
+          <h2 className="mb-2">Why some orders are not a plain pass or fail</h2>
+          <ul className="space-y-1.5 text-ink-soft">
+            {reasons.map(({ orders, reason }) => (
+              <li key={reason}>
+                <span className="font-medium text-ink">Order {formatOrders(orders)}:</span> {reason}
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+      {channel.conditions.length > 0 && (
+        <section className="panel text-sm" data-testid="conditions">
+          <h2 className="mb-2">Conditions of the band</h2>
+          <ul className="space-y-1.5">
+            {channel.conditions.map((c) => (
+              <li key={c.id}>
+                <VerdictBadge verdict={c.verdict} /> <span className="font-medium">{c.text}</span>
+                <span className="block text-ink-soft">{c.reason}</span>
+              </li>
+            ))}
+          </ul>
+        </section>
+      )}
+    </div>
+  );
+}
+
+function SheetCharts({ chartsUrl, channel, ilA }: { chartsUrl: string; channel: ChannelCompliance; ilA?: number }) {
+  const { data, error, isLoading } = useCaptureCharts(chartsUrl);
+  const [mode, setMode] = useState<SpectrumMode>("amperes");
+  const chartChannel = data?.channels.find((c) => c.name === channel.channel) ?? data?.channels[0];
+  return (
+    <section className="grid gap-4 lg:grid-cols-2" aria-label="Charts" data-testid="sheet-charts">
+      <div className="panel min-w-0 lg:col-span-2">
+        <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
+          <h2>Spectrum of {chartChannel?.name ?? channel.channel} with limits</h2>
+          <div className="flex gap-1 text-xs" role="group" aria-label="Spectrum units">
+            {(["amperes", "percent"] as const).map((m) => (
+              <button
+                key={m}
+                type="button"
+                aria-pressed={mode === m}
+                onClick={() => setMode(m)}
+                data-testid={`spectrum-mode-${m}`}
+                className={`rounded border px-2 py-1 ${mode === m ? "border-copper bg-copper-light font-semibold" : "border-line"}`}
+              >
+                {m === "amperes" ? (chartChannel?.unit === "V" ? "volts" : "amperes") : "% of fundamental"}
+              </button>
+            ))}
+          </div>
+        </div>
+        {error ? (
+          <p className="text-sm text-fail">Charts could not be loaded: {error.message}</p>
+        ) : isLoading || !data || !chartChannel ? (
+          <div className="h-60 animate-pulse rounded bg-paper-sunk" aria-label="Loading chart" />
+        ) : (
+          <SpectrumChart channel={chartChannel} rows={channel.rows} mode={mode} />
+        )}
+        <p className="mt-1 text-xs text-ink-muted">Bars: measured r.m.s. per order (red where over the limit). Copper marks: the limit of this evaluation.</p>
+      </div>
+      <div className="panel min-w-0">
+        <h2 className="mb-2">Waveform</h2>
+        {data ? <WaveformChart data={data} /> : <div className="h-52 animate-pulse rounded bg-paper-sunk" />}
+      </div>
+      <div className="panel min-w-0">
+        <h2 className="mb-2">{ilA !== undefined ? "THD and TDD" : "THD"} over the windows</h2>
+        {data && chartChannel ? (
+          <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
+        ) : (
+          <div className="h-44 animate-pulse rounded bg-paper-sunk" />
+        )}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,93 @@
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import type { Sheet } from "@/lib/captures/load-sheet";
+import { describeContext, formatWhen, reviewStateLabels } from "@/lib/reports/format";
+
+/** Who, what, when and against which limits: the top of every sheet (signed-in and shared). */
+export function SheetHeader({ sheet }: { sheet: Sheet }) {
+  const { capture, site, evaluation } = sheet;
+  if (!evaluation) return null;
+  const result = evaluation.result;
+  const context = describeContext(result.context);
+  return (
+    <section className="panel space-y-4" data-testid="sheet-header">
+      <div className="flex flex-wrap items-start justify-between gap-3">
+        <div className="min-w-0">
+          <p className="text-sm text-ink-soft" data-testid="sheet-site">{site.name}</p>
+          <h1 className="break-words" data-testid="sheet-title">{capture.title}</h1>
+          <p className="mt-1 text-sm text-ink-soft">
+            Captured {capture.capturedAt ? formatWhen(capture.capturedAt) : "(time not given)"} · uploaded {formatWhen(capture.createdAt)}
+            {sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""} · {capture.originalFilename}
+          </p>
+        </div>
+        <div className="flex flex-col items-start gap-1 sm:items-end">
+          <span className="text-xs uppercase tracking-wide text-ink-muted">Overall verdict</span>
+          <VerdictBadge verdict={result.verdict} size="lg" testId="sheet-verdict" />
+          <span className="text-xs text-ink-muted" data-testid="review-state-chip">Sign-off: {reviewStateLabels[capture.reviewState] ?? capture.reviewState}</span>
+        </div>
+      </div>
+      <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2 lg:grid-cols-3">
+        <div>
+          <dt className="text-xs uppercase tracking-wide text-ink-muted">Limit set</dt>
+          <dd data-testid="sheet-limit-set">
+            <span className="font-medium">{evaluation.limitSetName}</span> <code className="text-xs text-ink-soft">{evaluation.limitSetKey}</code>
+            <span className="block text-ink-soft">
+              {result.limitSet.standard}, {result.limitSet.edition} · <span data-testid="sheet-revision">revision {evaluation.revisionNumber}</span>
+            </span>
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs uppercase tracking-wide text-ink-muted">Band</dt>
+          <dd data-testid="sheet-band">
+            <span className="font-medium">{result.band.label ?? "none chosen"}</span>
+            <span className="block text-ink-soft">{result.band.reason}</span>
+            {result.band.options && result.band.options.length > 0 && (
+              <span className="mt-1 flex flex-wrap gap-1">
+                {result.band.options.map((o) => (
+                  <span key={o.label} className="inline-flex items-center gap-1 text-xs">
+                    {o.label} <VerdictBadge verdict={o.verdict} />
+                  </span>
+                ))}
+              </span>
+            )}
+          </dd>
+        </div>
+        <div>
+          <dt className="text-xs uppercase tracking-wide text-ink-muted">Context</dt>
+          <dd data-testid="sheet-context">
+            {context.length === 0 ? (
+              <span className="text-ink-soft">No context values given.</span>
+            ) : (
+              <ul>
+                {context.map(([k, v]) => (
+                  <li key={k}>
+                    <span className="text-ink-soft">{k}</span> {v}
+                  </li>
+                ))}
+              </ul>
+            )}
+          </dd>
+        </div>
+        <div className="sm:col-span-2 lg:col-span-3">
+          <dt className="text-xs uppercase tracking-wide text-ink-muted">Evaluated</dt>
+          <dd className="text-ink-soft">
+            {formatWhen(evaluation.createdAt)} {evaluation.createdByName ? `by ${evaluation.createdByName}` : "automatically after the analysis"}
+            {result.channel ? ` · worst channel ${result.channel}` : ""}
+          </dd>
+        </div>
+      </dl>
+    </section>
+  );
+}
+
+/** The evaluator's rules and caveats for this evaluation. */
+export function SheetNotes({ notes }: { notes: string[] }) {
+  if (notes.length === 0) return null;
+  return (
+    <section className="panel text-sm" data-testid="sheet-notes">
+      <h2 className="mb-2">Notes</h2>
+      <ul className="list-disc space-y-1 pl-5 text-ink-soft">
+        {notes.map((n) => <li key={n}>{n}</li>)}
+      </ul>
+    </section>
+  );
+}

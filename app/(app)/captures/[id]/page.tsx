@@ -1,0 +1,179 @@
+import Link from "next/link";
+import { notFound } from "next/navigation";
+import { z } from "zod";
+import { SafetyNote } from "@/app/_components/safety-note";
+import { VerdictBadge } from "@/app/_components/verdict-badge";
+import { getEvaluation, listCaptures, listLimitSetChoices } from "@/db/queries/captures";
+import { requirePage } from "@/lib/auth/page";
+import { can } from "@/lib/auth/permissions";
+import { loadSheet } from "@/lib/captures/load-sheet";
+import { EvaluationContextSchema } from "@/lib/compliance/model";
+import { AppError } from "@/lib/errors";
+import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { CaptureProgress } from "./_components/capture-progress";
+import { ContextForm } from "./_components/context-form";
+import { EvaluationHistory } from "./_components/evaluation-history";
+import { ReviewPanel } from "./_components/review-panel";
+import { SharePanel } from "./_components/share-panel";
+import { SheetBody } from "./_components/sheet-body";
+import { SheetHeader, SheetNotes } from "./_components/sheet-header";
+
+export const metadata = { title: "Sheet" };
+
+export default async function CaptureSheetPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ id: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
+  const user = await requirePage("captures:read");
+  const { id } = await params;
+  const query = await searchParams;
+  if (!z.uuid().safeParse(id).success) notFound();
+  const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
+  const sheet = await loadSheet({ captureId: id, evaluationId: requested, role: user.role }).catch((err) => {
+    if (err instanceof AppError && err.code === "not_found") notFound();
+    throw err;
+  });
+  const { capture, evaluation } = sheet;
+
+  if (capture.status !== "done" || !evaluation) {
+    return (
+      <div className="max-w-2xl space-y-4">
+        <div>
+          <p className="text-sm text-ink-soft">{sheet.site.name}</p>
+          <h1 data-testid="sheet-title">{capture.title}</h1>
+          <p className="text-sm text-ink-soft">
+            {capture.originalFilename} · registered {formatWhen(capture.createdAt)}
+            {sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}
+          </p>
+        </div>
+        <CaptureProgress
+          initial={{
+            capture: {
+              id: capture.id,
+              status: capture.status,
+              progressPercent: capture.progressPercent,
+              failureReason: capture.failureReason,
+              updatedAt: capture.updatedAt.toISOString(),
+            },
+          }}
+          canFix={can(user.role, "captures:upload")}
+        />
+        <SafetyNote />
+      </div>
+    );
+  }
+
+  const latestId = sheet.evaluations[0]?.id ?? null;
+  const canReview = can(user.role, "captures:review");
+  const canShare = can(user.role, "captures:share");
+  const [limitSets, siblings] = await Promise.all([
+    canReview ? listLimitSetChoices() : Promise.resolve([]),
+    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, role: user.role }),
+  ]);
+  const others = siblings.items.filter((c) => c.id !== capture.id);
+  const evalQuery = evaluation.id !== latestId ? `?evaluation=${evaluation.id}` : "";
+  const context = EvaluationContextSchema.safeParse(evaluation.context);
+  // The evaluation made just before the shown one, to show the two side by side.
+  const shownIndex = sheet.evaluations.findIndex((e) => e.id === evaluation.id);
+  const previousSummary = shownIndex >= 0 ? sheet.evaluations[shownIndex + 1] : undefined;
+  const previous = previousSummary ? await getEvaluation({ captureId: capture.id, evaluationId: previousSummary.id }) : null;
+
+  return (
+    <div className="space-y-4">
+      <nav className="text-sm text-ink-soft" aria-label="Breadcrumb">
+        <Link href="/captures" className="hover:text-copper">Captures</Link> / <span>{capture.title}</span>
+      </nav>
+      {evaluation.id !== latestId && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="older-evaluation">
+          You are looking at an earlier evaluation ({formatWhen(evaluation.createdAt)}).{" "}
+          <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the latest</Link>
+        </p>
+      )}
+      <SheetHeader sheet={sheet} />
+      {previous && previousSummary && (
+        <section className="panel grid gap-3 text-sm sm:grid-cols-2" data-testid="evaluation-pair">
+          {[
+            { title: "This evaluation", summary: evaluation, result: evaluation.result, href: null },
+            { title: "The one before", summary: previousSummary, result: previous.result, href: `/captures/${capture.id}?evaluation=${previousSummary.id}` },
+          ].map((side) => {
+            const failing = side.result.rows.filter((r) => r.verdict === "fail").map((r) => `h${r.order}`);
+            return (
+              <div key={side.title} className="min-w-0">
+                <p className="text-xs uppercase tracking-wide text-ink-muted">{side.title}</p>
+                <p className="flex flex-wrap items-center gap-2">
+                  <VerdictBadge verdict={side.result.verdict} />
+                  {side.href ? (
+                    <Link href={side.href} className="font-medium hover:text-copper">{side.summary.limitSetName} · rev {side.summary.revisionNumber}</Link>
+                  ) : (
+                    <span className="font-medium">{side.summary.limitSetName} · rev {side.summary.revisionNumber}</span>
+                  )}
+                </p>
+                <p className="text-ink-soft">{summariseContext(side.result.context)}</p>
+                <p className="text-ink-soft">Band: {side.result.band.label ?? "none"} · {failing.length === 0 ? "no order over its limit" : `over the limit: ${failing.join(", ")}`}</p>
+              </div>
+            );
+          })}
+        </section>
+      )}
+      <SafetyNote />
+
+      <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
+        <div className="min-w-0 space-y-4">
+          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts`} />
+          <SheetNotes notes={evaluation.result.notes} />
+        </div>
+
+        <aside className="min-w-0 space-y-4">
+          <ReviewPanel
+            captureId={capture.id}
+            reviewState={capture.reviewState}
+            events={sheet.reviews.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}
+            canSubmit={can(user.role, "captures:upload")}
+            canDecide={canReview}
+          />
+          <section className="panel space-y-2" data-testid="downloads">
+            <h2>Report</h2>
+            <div className="flex flex-wrap gap-2">
+              <a href={`/api/captures/${capture.id}/report${evalQuery}`} className="btn-quiet" data-testid="download-pdf">PDF report</a>
+              <a href={`/api/captures/${capture.id}/sheet-csv${evalQuery}`} className="btn-quiet" data-testid="download-csv">Sheet as CSV</a>
+            </div>
+          </section>
+          {canShare && <SharePanel captureId={capture.id} />}
+          {others.length > 0 && (
+            <section className="panel" data-testid="compare-panel">
+              <h2 className="mb-2">Compare with…</h2>
+              <form action="/captures/compare" method="get" className="space-y-2">
+                <input type="hidden" name="a" value={capture.id} />
+                <label htmlFor="compare-b" className="field-label">Another capture of this site</label>
+                <select id="compare-b" name="b" className="field-input" data-testid="compare-select">
+                  {others.map((c) => (
+                    <option key={c.id} value={c.id}>
+                      {c.title} ({c.createdAt.toISOString().slice(0, 10)})
+                    </option>
+                  ))}
+                </select>
+                <button type="submit" className="btn-quiet w-full" data-testid="compare-go">Compare</button>
+              </form>
+            </section>
+          )}
+          {canReview && (
+            <section className="panel" data-testid="context-panel">
+              <h2 className="mb-2">Change the context</h2>
+              <ContextForm
+                captureId={capture.id}
+                limitSets={limitSets}
+                initialKey={evaluation.limitSetKey}
+                initialContext={context.success ? context.data : {}}
+                conditions={evaluation.result.conditions.map((c) => ({ id: c.id, text: c.text }))}
+              />
+            </section>
+          )}
+          <EvaluationHistory captureId={capture.id} evaluations={sheet.evaluations} currentId={evaluation.id} />
+        </aside>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,65 @@
+import type { Metadata } from "next";
+import { notFound } from "next/navigation";
+import { SafetyNote } from "@/app/_components/safety-note";
+import { AppError } from "@/lib/errors";
+import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
+import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
+import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
+import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
+
+export const metadata: Metadata = { title: "Shared sheet", robots: { index: false, follow: false } };
+
+/** A read-only sheet opened with a share link: no session, no actions, no way into the rest of the app. */
+export default async function SharedSheetPage({ params }: { params: Promise<{ token: string }> }) {
+  const { token } = await params;
+  const sheet = await loadSharedSheet({ token }).catch((err) => {
+    if (err instanceof AppError && err.code === "not_found") notFound();
+    throw err;
+  });
+  const evaluation = sheet.evaluation;
+  if (!evaluation) notFound();
+  const signOffs = sheet.reviews.filter((r) => r.action !== "comment");
+  return (
+    <div className="flex min-h-screen flex-col">
+      <header className="border-b border-line bg-ink text-paper">
+        <div className="mx-auto flex max-w-6xl flex-wrap items-center gap-3 px-4 py-3">
+          <span className="flex items-center gap-2 text-lg font-semibold tracking-tight">
+            <span aria-hidden className="inline-block h-4 w-4 rounded-sm bg-copper" />
+            Ordwise
+          </span>
+          <span className="text-sm text-paper/80">Shared, read-only sheet</span>
+          <a href={`/api/shared/${token}/report`} className="ml-auto rounded-md bg-copper px-3 py-1.5 text-sm font-medium text-white hover:bg-copper-dark" data-testid="shared-pdf">
+            Download PDF
+          </a>
+        </div>
+      </header>
+      <main className="mx-auto w-full max-w-6xl flex-1 space-y-4 px-4 py-6" data-testid="shared-sheet">
+        <SheetHeader sheet={sheet} />
+        <div className="rounded-md border border-caution/30 bg-caution-light/50 px-3 py-2">
+          <SafetyNote />
+        </div>
+        <SheetBody result={evaluation.result} chartsUrl={`/api/shared/${token}/charts`} />
+        <SheetNotes notes={evaluation.result.notes} />
+        <section className="panel text-sm" data-testid="shared-signoff">
+          <h2 className="mb-2">Sign-off</h2>
+          {signOffs.length === 0 ? (
+            <p className="text-ink-soft">Not yet reviewed.</p>
+          ) : (
+            <ul className="space-y-1">
+              {signOffs.map((r) => (
+                <li key={r.id}>
+                  {reviewActionLabels[r.action] ?? r.action} by {r.actorName ?? "unknown"} <span className="text-ink-muted">· {formatWhen(r.createdAt)}</span>
+                </li>
+              ))}
+            </ul>
+          )}
+        </section>
+      </main>
+      <footer className="border-t border-line">
+        <div className="mx-auto max-w-6xl px-4 py-3">
+          <SafetyNote compact />
+        </div>
+      </footer>
+    </div>
+  );
+}

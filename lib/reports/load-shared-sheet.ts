@@ -1,0 +1,34 @@
+import "server-only";
+import { z } from "zod";
+import { findSharedCapture } from "@/db/queries/captures";
+import { hashToken } from "@/db/queries/users";
+import { loadChartData, loadSheet } from "@/lib/captures/load-sheet";
+import { AppError } from "@/lib/errors";
+
+// Share tokens are 20 random bytes in lower-case base32 (32 characters).
+const tokenSchema = z.string().regex(/^[a-z2-7]{16,64}$/);
+
+const gone = () => new AppError("not_found", "This link is no longer valid.");
+
+/** The capture id a share token opens; not_found when unknown, revoked or expired. */
+async function sharedCaptureId(token: string): Promise<string> {
+  if (!tokenSchema.safeParse(token).success) throw gone();
+  const capture = await findSharedCapture({ tokenHash: hashToken(token) });
+  if (!capture || capture.status !== "done") throw gone();
+  return capture.id;
+}
+
+/**
+ * The sheet a share link shows: the capture's newest evaluation. The token itself is the
+ * authorisation, so the capture is read with a reviewer's visibility (not a viewer's filter).
+ */
+export async function loadSharedSheet({ token }: { token: string }) {
+  const captureId = await sharedCaptureId(token);
+  return loadSheet({ captureId, role: "engineer" });
+}
+
+/** Chart data for a share link, with the same check as the sheet. */
+export async function loadSharedChartData({ token }: { token: string }) {
+  const captureId = await sharedCaptureId(token);
+  return loadChartData({ captureId, role: "engineer" });
+}

@@ -1,0 +1,24 @@
+"use client";
+
+import useSWR from "swr";
+import type { Quantity } from "@/lib/analysis/types";
+import { fetcher } from "./fetcher";
+
+/** GET /api/captures/:id/charts (or the share link's charts route) as the client receives it. */
+export interface ChartDataDto {
+  fundamentalHz: number;
+  windowDurationS: number;
+  waveform: { timeS: number[]; channels: { name: string; unit?: string; values: number[] }[] } | null;
+  channels: {
+    name: string;
+    quantity: Quantity;
+    unit: string;
+    harmonics: { order: number; rms: number | null; percentOfFundamental: number | null }[];
+    series: { rms: number[]; thdPercent: number[]; fundamentalRms: number[] } | null;
+  }[];
+}
+
+/** Chart data from `url`: `/api/captures/:id/charts` when signed in, `/api/shared/:token/charts` on a share link. */
+export function useCaptureCharts(url: string | null) {
+  return useSWR<ChartDataDto>(url, fetcher, { revalidateOnFocus: false });
+}
