@@ -128,7 +128,10 @@ function RulesList({ rules }: { rules: Rules }) {
     items.push(["POHC allowance", `${p.parity} orders ${p.from}–${p.to} × ${p.factor} if ${p.aggregate} passes — ${p.source}`]);
   }
   for (const t of rules.timeRules ?? []) {
-    items.push(["Time rule", `${t.statistic}${t.percentile !== undefined ? ` p${t.percentile}` : ""} × ${t.multiplier} (${t.appliesTo})${t.note ? ` — ${t.note}` : ""}`]);
+    const statistic = t.statistic === "percentile" ? `${t.percentile}th percentile` : t.statistic;
+    const values = t.intervalS === 0 ? "window values" : `${t.intervalS} s values`;
+    const period = t.accumulationS ? ` per ${t.accumulationS / 3600} h` : "";
+    items.push([t.label, `${statistic} of ${values}${period} ≤ ${t.multiplier} × limit (${t.appliesTo})${t.source ? ` — ${t.source}` : ""}`]);
   }
   return (
     <dl className="space-y-2 text-sm" data-testid="rules">
