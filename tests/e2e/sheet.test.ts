@@ -283,6 +283,35 @@ describe("the pass/fail sheet", () => {
     await page.close();
   });
 
+  it("a failed analysis shows its reason and, to an uploader, the way back to the mapping", async () => {
+    const tech = await signedIn("technician");
+    const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));
+    const csv = "Time (s),I (A)\n0,1\n0.001,2\n0.002,1\n";
+    const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+      await tech.request("POST", "/api/captures", { siteId: sites[0]!.id, title: `Sheet test too short ${stamp}`, filename: "x.csv", sizeBytes: csv.length }),
+    );
+    await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv });
+    await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
+    await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
+    await json(await tech.request("POST", `/api/captures/${capture.id}/analyze`));
+
+    // Opened while queued or running, the page polls and shows the failure once it settles.
+    const page = await browser.newPage();
+    await signInAs(page, "technician");
+    await page.goto(url(`/captures/${capture.id}`));
+    await page.waitForSelector("[data-testid=failure-reason]", { timeout: 30_000 });
+    expect((await page.textContent("[data-testid=failure-reason]"))!.length).toBeGreaterThan(20);
+    expect(await page.getAttribute("[data-testid=fix-mapping]", "href")).toBe(`/captures/${capture.id}/setup`);
+    await snapAt(page, "sheet-failed", "body");
+    await page.close();
+
+    const viewerPage = await browser.newPage();
+    await signInAs(viewerPage, "engineer");
+    await viewerPage.goto(url(`/captures/${capture.id}`));
+    expect(await viewerPage.isVisible("[data-testid=failure-reason]")).toBe(true);
+    await viewerPage.close();
+  });
+
   it("a capture still being set up shows its status instead of a sheet", async () => {
     const tech = await signedIn("technician");
     const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));

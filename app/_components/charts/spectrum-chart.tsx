@@ -72,7 +72,7 @@ export function SpectrumChart({ channel, rows, mode }: { channel: ChartDataDto["
         { label: "limit", stroke: "#b4582a", width: 2.5, paths: limitMarks, points: { show: false }, value: (_u, v) => fmt(v) },
       ],
       axes: [
-        { ...axisStyle, label: "harmonic order", incrs: [1, 2, 5, 10] },
+        { ...axisStyle, label: "harmonic order", incrs: [1, 2, 5, 10, 20, 25, 50] },
         { ...axisStyle, label: unit, size: 56 },
       ],
       cursor: { drag: { x: false, y: false }, points: { show: false } },
