@@ -3,7 +3,9 @@
 // pass. Missing information never turns into a pass.
 import type { AnalysisResult, ChannelResult, HarmonicValue } from "../analysis/types";
 import { approxEqual } from "./approx-equal";
+import { formatDurationS, type TimeSeriesTiming } from "./derive-rule-values";
 import { evaluateFormula } from "./evaluate-formula";
+import { evaluateTimeRule, type TimeRuleOutcome } from "./evaluate-time-rule";
 import { interpolateBand } from "./interpolate-band";
 import {
   EvaluationContextSchema,
@@ -15,6 +17,7 @@ import {
   type LimitSetRevisionContent,
   type LimitSetRevisionContentInput,
   type OrderRow,
+  type TimeRule,
 } from "./model";
 import { orderMatchesParity } from "./order-matches-parity";
 import { FormulaVariableError, type FormulaVariable } from "./parse-formula";
@@ -26,6 +29,9 @@ import type {
   ComplianceRow,
   ConditionResult,
   OverallVerdict,
+  RowRuleResult,
+  TimeBasis,
+  TimeRuleSummary,
 } from "./result";
 import { selectBand } from "./select-band";
 
@@ -40,6 +46,37 @@ export interface EvaluateComplianceInput {
     content: LimitSetRevisionContent | LimitSetRevisionContentInput;
   };
   context: EvaluationContext;
+  /** Start of the first window, ms since the epoch: 10-minute values then align to the clock (else to the record start). */
+  recordStartMs?: number;
+  /** Time series that replace the analysis's window series — interval logs (see evaluateIntervalLog). */
+  timeSeries?: TimeSeriesInput;
+}
+
+/** Per-channel value series on one time base, e.g. the rows of an interval log. */
+export interface TimeSeriesInput {
+  source: "interval-log";
+  /** Duration of one value, s (e.g. 600 for 10-minute values). */
+  valueS: number;
+  /** Start of each value, s since the epoch. */
+  startsS: Float64Array;
+  /** Keyed by channel name; values in A or V per order (order 1 = fundamental), THD in %. */
+  channels: Record<string, { orders: Map<number, Float64Array>; thdPercent?: Float64Array }>;
+  /** How the record is named in reasons, e.g. "the interval log". */
+  noun: string;
+}
+
+/** Time-rule facts of one channel; null when the revision has no time rules. */
+interface ChannelTime {
+  rules: TimeRule[];
+  /** Null when there is no series (`unavailable` says why). */
+  timing: TimeSeriesTiming | null;
+  unavailable?: string;
+  /** Analysis captures: the capture-mean comparison stands in for rules that cannot be evaluated. */
+  snapshotFallback: boolean;
+  orderSeries: (h: number) => Float64Array | null;
+  fundamental: Float64Array | null;
+  thdPercent: Float64Array | null;
+  basis: TimeBasis;
 }
 
 const VARIABLE_NEEDS: Record<FormulaVariable, string> = {
@@ -59,6 +96,10 @@ interface ChannelEnv {
   lambda?: number;
   irefA?: number;
   notes: string[];
+  time: ChannelTime | null;
+  /** How the source is named in "not in …" reasons. */
+  noun: string;
+  windowCount: number;
 }
 
 type Outcome<T> = { ok: true; value: T; text?: string } | { ok: false; missing: string };
@@ -155,10 +196,11 @@ function missingHarmonic(h: number, env: ChannelEnv): string | null {
   if (h > env.maxResolvableOrder || (harmonic && harmonic.rms === null)) {
     return `order ${h} is above Nyquist (highest resolvable order ${env.maxResolvableOrder})`;
   }
+  if (env.noun !== "the analysis") return `order ${h} is not in ${env.noun}`;
   return `order ${h} is not in the analysis (orders analysed up to ${env.analysedUpTo})`;
 }
 
-function evaluateRow(row: OrderRow, h: number, env: ChannelEnv): ComplianceRow {
+function snapshotRow(row: OrderRow, h: number, env: ChannelEnv): ComplianceRow {
   const unit = unitOf(row.basis);
   const base = { order: h, unit, basis: row.basis, limitSource: row.source };
   const limit = rowLimit(row, h, env);
@@ -242,7 +284,7 @@ function aggregateLimit(aggregate: AggregateRow, band: Band, env: ChannelEnv): O
   return { ok: true, value, text: `${fmt(base.value)} mA/W × ${P} W = ${fmt(value)} A` };
 }
 
-function evaluateAggregate(aggregate: AggregateRow, band: Band, env: ChannelEnv): ComplianceAggregate {
+function snapshotAggregate(aggregate: AggregateRow, band: Band, env: ChannelEnv): ComplianceAggregate {
   const unit = unitOf(aggregate.basis);
   const base = { name: aggregate.name, unit, basis: aggregate.basis, role: aggregate.role, limitSource: aggregate.source };
   const limit = aggregateLimit(aggregate, band, env);
@@ -271,6 +313,268 @@ function evaluateAggregate(aggregate: AggregateRow, band: Band, env: ChannelEnv)
   }
   const reason = withRole(detail);
   return { ...shown, verdict, ...(reason ? { reason } : {}) };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Time rules (rules.timeRules): statistics of per-window or per-interval series against
+// table limit × multiplier. The snapshot functions above give the table limit and the
+// capture-mean comparison; the functions below add each rule's judgement and pick the decider.
+
+/** One order's or aggregate's snapshot result and its time-rule outcomes (null: no rule applies). */
+interface Parts<T> {
+  snapshot: T;
+  outcomes: TimeRuleOutcome[] | null;
+}
+
+/** A series in the channel's unit converted to the basis's unit, value by value. */
+function seriesToBasis(values: Float64Array, basis: Basis, env: ChannelEnv): Outcome<Float64Array> {
+  const fundamental = env.time?.fundamental;
+  if ((basis === "%I1" || basis === "%V1") && fundamental && fundamental.length === values.length) {
+    // Per value against its own fundamental (Class C % of I1; IEEE 519 voltage THD in % of V1).
+    const out = new Float64Array(values.length);
+    for (let k = 0; k < values.length; k++) out[k] = fundamental[k]! > 0 ? (values[k]! / fundamental[k]!) * 100 : 0;
+    return { ok: true, value: out };
+  }
+  const factor = toBasis(1, basis, env);
+  if (!factor.ok) return factor;
+  const out = new Float64Array(values.length);
+  for (let k = 0; k < values.length; k++) out[k] = values[k]! * factor.value;
+  return { ok: true, value: out };
+}
+
+function rulesFor(env: ChannelEnv, target: "orders" | "aggregates", name?: string): TimeRule[] {
+  if (!env.time) return [];
+  return env.time.rules.filter(
+    (rule) => (rule.appliesTo === "all" || rule.appliesTo === target) && (target === "orders" || !rule.aggregates || rule.aggregates.includes(name as AggregateRow["name"])),
+  );
+}
+
+function notEvaluatedOutcome(rule: TimeRule, tableLimit: number | null, unit: string, reason: string, dataReason?: string): TimeRuleOutcome {
+  return {
+    rule: rule.id,
+    label: rule.label,
+    statistic: "",
+    measured: null,
+    limit: tableLimit === null ? null : tableLimit * rule.multiplier,
+    tableLimit,
+    multiplier: rule.multiplier,
+    unit,
+    percentOfLimit: null,
+    verdict: "not-evaluated",
+    reason: reason.startsWith("not evaluated") ? reason : `not evaluated: ${reason}`,
+    ...(rule.source ? { source: rule.source } : {}),
+    valueCount: 0,
+    periodCount: 0,
+    ...(dataReason ? { dataReason } : {}),
+  };
+}
+
+/** Apply the rules to a series (channel unit) for a row or aggregate whose snapshot gave `snapshot`. */
+function ruleOutcomes(
+  rules: TimeRule[],
+  snapshot: { limit: number | null; unit: string; basis: Basis; verdict: string; reason?: string },
+  series: Outcome<Float64Array> | null,
+  env: ChannelEnv,
+): TimeRuleOutcome[] {
+  const time = env.time as ChannelTime;
+  return rules.map((rule) => {
+    if (!time.timing) return notEvaluatedOutcome(rule, snapshot.limit, snapshot.unit, time.unavailable ?? "no time series", time.unavailable);
+    if (snapshot.verdict === "not-evaluated" && snapshot.limit === null) {
+      return notEvaluatedOutcome(rule, null, snapshot.unit, snapshot.reason ?? "no limit");
+    }
+    if (series === null) return notEvaluatedOutcome(rule, snapshot.limit, snapshot.unit, snapshot.reason ?? "no series for this row");
+    if (!series.ok) return notEvaluatedOutcome(rule, snapshot.limit, snapshot.unit, `${series.missing} not given`);
+    const converted = seriesToBasis(series.value, snapshot.basis, env);
+    if (!converted.ok) return notEvaluatedOutcome(rule, snapshot.limit, snapshot.unit, `${converted.missing} not given`);
+    return evaluateTimeRule(rule, converted.value, time.timing, snapshot.limit, snapshot.unit, env.content.rules.comparison.passAtLimit);
+  });
+}
+
+function orderParts(row: OrderRow, h: number, env: ChannelEnv): Parts<ComplianceRow> {
+  const snapshot = snapshotRow(row, h, env);
+  const rules = rulesFor(env, "orders");
+  if (rules.length === 0) return { snapshot, outcomes: null };
+  const missing = missingHarmonic(h, env);
+  const raw = env.time?.orderSeries(h) ?? null;
+  const series: Outcome<Float64Array> | null = missing || !raw ? null : { ok: true, value: raw };
+  return { snapshot, outcomes: ruleOutcomes(rules, snapshot, series, env) };
+}
+
+/** Per-value sqrt(Σ w_h·X_h²) of an aggregate, or the logged THD where orders are missing. */
+function aggregateSeries(aggregate: AggregateRow, env: ChannelEnv): { values: Float64Array | null; unavailable: number[]; note?: string } {
+  const time = env.time as ChannelTime;
+  const count = time.timing?.startsS.length ?? 0;
+  const sum = new Float64Array(count);
+  const unavailable: number[] = [];
+  for (const h of expandOrders(aggregate)) {
+    const values = missingHarmonic(h, env) ? null : time.orderSeries(h);
+    if (!values) {
+      unavailable.push(h);
+      continue;
+    }
+    const w = aggregate.weighting === "order" ? h : 1;
+    for (let k = 0; k < count; k++) sum[k] = sum[k]! + w * values[k]! * values[k]!;
+  }
+  if (unavailable.length > 0 && time.thdPercent && time.fundamental && (aggregate.name === "THD" || aggregate.name === "TDD") && aggregate.weighting === "none") {
+    // Interval logs often carry THD but not every order: distortion = THD × fundamental.
+    const values = new Float64Array(count);
+    for (let k = 0; k < count; k++) values[k] = (time.thdPercent[k]! / 100) * time.fundamental[k]!;
+    return { values, unavailable: [], note: `from the logged THD column × fundamental (the logger's order range; orders ${describeOrders(unavailable)} not logged individually)` };
+  }
+  for (let k = 0; k < count; k++) sum[k] = Math.sqrt(sum[k]!);
+  return { values: count > 0 ? sum : null, unavailable };
+}
+
+function aggregateParts(aggregate: AggregateRow, band: Band, env: ChannelEnv): Parts<ComplianceAggregate> {
+  const snapshot = snapshotAggregate(aggregate, band, env);
+  const rules = rulesFor(env, "aggregates", aggregate.name);
+  if (rules.length === 0) return { snapshot, outcomes: null };
+  if (!env.time?.timing) return { snapshot, outcomes: ruleOutcomes(rules, snapshot, null, env) };
+  const { values, unavailable, note } = aggregateSeries(aggregate, env);
+  const outcomes = ruleOutcomes(rules, snapshot, values ? { ok: true, value: values } : null, env).map((outcome) => {
+    if (note && outcome.verdict !== "not-evaluated") return { ...outcome, reason: [outcome.reason, note].filter(Boolean).join("; ") };
+    if (unavailable.length === 0 || outcome.verdict === "not-evaluated") return outcome;
+    const gap = `orders ${describeOrders(unavailable)} unavailable (above Nyquist or not in ${env.noun})`;
+    // A partial sum only grows with the missing orders: exceeding already is a fail.
+    if (outcome.verdict === "fail") return { ...outcome, reason: `${gap}; the partial value already exceeds the limit` };
+    return { ...outcome, verdict: "not-evaluated" as const, reason: `not evaluated: ${gap}; the partial value cannot show compliance` };
+  });
+  return { snapshot, outcomes };
+}
+
+function toRowRule(outcome: TimeRuleOutcome): RowRuleResult {
+  const { dataReason: _internal, ...rest } = outcome;
+  return rest;
+}
+
+function snapshotRule(snapshot: ComplianceRow | ComplianceAggregate, windows: number): RowRuleResult {
+  return {
+    rule: "snapshot",
+    label: "Capture r.m.s. mean ≤ limit",
+    statistic: `r.m.s. mean over the capture's ${windows} window(s)`,
+    measured: snapshot.measured,
+    limit: snapshot.limit,
+    tableLimit: snapshot.limit,
+    multiplier: 1,
+    unit: snapshot.unit,
+    percentOfLimit: snapshot.percentOfLimit,
+    verdict: snapshot.verdict === "below-threshold" ? "pass" : snapshot.verdict,
+    ...(snapshot.reason ? { reason: snapshot.reason } : {}),
+  };
+}
+
+/**
+ * The row's verdict from its rules: any failing rule fails it (the one furthest over its limit
+ * decides); otherwise all evaluated rules pass (the one closest to its limit decides). Rules that
+ * cannot be evaluated are listed; for analysis captures the snapshot comparison stands in.
+ */
+function combineParts<T extends ComplianceRow | ComplianceAggregate>(parts: Parts<T>, env: ChannelEnv, windows: number): T {
+  const { snapshot, outcomes } = parts;
+  if (!outcomes) return snapshot;
+  const rowRules = outcomes.map(toRowRule);
+  if (snapshot.verdict === "below-threshold") return { ...snapshot, rowRules, decidedBy: "threshold" };
+  const considered: RowRuleResult[] = rowRules.filter((result) => result.verdict !== "not-evaluated");
+  const fallback = (env.time as ChannelTime).snapshotFallback;
+  if (considered.length < rowRules.length && fallback) {
+    const stand = snapshotRule(snapshot, windows);
+    rowRules.push(stand);
+    if (stand.verdict !== "not-evaluated") considered.push(stand);
+  }
+  if (considered.length === 0) {
+    if (fallback) return { ...snapshot, rowRules, decidedBy: "snapshot" };
+    const reasons = [...new Set(rowRules.map((result) => (result.reason ?? "").replace(/^not evaluated: /, "")))].filter(Boolean);
+    const reason = snapshot.verdict === "not-evaluated" && snapshot.reason ? snapshot.reason : `not evaluated: ${reasons.join("; ")}`;
+    return { ...snapshot, percentOfLimit: null, margin: null, verdict: "not-evaluated", reason, rowRules };
+  }
+  const failing = considered.filter((result) => result.verdict === "fail");
+  const pool = failing.length > 0 ? failing : considered;
+  const decider = pool.reduce((best, result) => ((result.percentOfLimit ?? -Infinity) > (best.percentOfLimit ?? -Infinity) ? result : best));
+  const skipped = rowRules.filter((result) => result.verdict === "not-evaluated" && result.rule !== "snapshot").map((result) => result.rule);
+  const skippedText = skipped.length > 0 ? `not evaluated: ${skipped.join(", ")} (see rowRules)` : undefined;
+  if (decider.rule === "snapshot") {
+    const reason = [snapshot.reason, skippedText].filter(Boolean).join("; ");
+    return { ...snapshot, rowRules, decidedBy: "snapshot", ...(reason ? { reason } : {}) };
+  }
+  const measured = decider.measured as number;
+  const limit = decider.limit as number;
+  const tableLimitText = decider.tableLimit !== null ? fmt(decider.tableLimit) : "?";
+  const decidedText = `decided by "${decider.label}": ${decider.statistic} = ${fmt(measured)} ${decider.unit} vs ${limit === (decider.tableLimit ?? 0) * decider.multiplier ? `${decider.multiplier} × ${tableLimitText}` : "allowance"} = ${fmt(limit)} ${decider.unit}`;
+  const reason = [decidedText, decider.reason, snapshot.verdict !== "not-evaluated" ? snapshot.reason : undefined, skippedText].filter(Boolean).join("; ");
+  return {
+    ...snapshot,
+    measured,
+    limit,
+    percentOfLimit: decider.percentOfLimit,
+    margin: limit - measured,
+    verdict: failing.length > 0 ? "fail" : "pass",
+    reason,
+    rowRules,
+    decidedBy: decider.rule,
+  };
+}
+
+/**
+ * IEC 61000-3-2 POHC allowance on the time rules (from memory): an odd order 21–39 whose
+ * smoothed average exceeds its limit passes if the average is within factor × the limit, the
+ * measured POHC (itself judged by its time rules) passes, and every other rule of the order
+ * (every 1.5 s smoothed value ≤ 150 %) passes.
+ */
+function applyTimePohcAllowance(rows: Parts<ComplianceRow>[], aggregates: ComplianceAggregate[], env: ChannelEnv): void {
+  const allowance = env.content.rules.pohcAllowance;
+  if (!allowance || !env.time) return;
+  const pohc = aggregates.find((aggregate) => aggregate.name === allowance.aggregate);
+  const allowing = new Set(env.time.rules.filter((rule) => rule.pohcAllowance).map((rule) => rule.id));
+  for (const parts of rows) {
+    const h = parts.snapshot.order;
+    if (!parts.outcomes || h < allowance.from || h > allowance.to || !orderMatchesParity(h, allowance.parity)) continue;
+    parts.outcomes = parts.outcomes.map((outcome, index, all) => {
+      if (!allowing.has(outcome.rule) || outcome.verdict !== "fail" || outcome.measured === null || outcome.tableLimit === null) return outcome;
+      const allowedLimit = outcome.tableLimit * allowance.factor;
+      if (judge(outcome.measured, allowedLimit, true) === "fail") return outcome;
+      const text = `exceeds the limit but is within ${allowance.factor * 100} % of it`;
+      const others = all.filter((_, other) => other !== index);
+      const othersFail = others.filter((other) => other.verdict !== "pass").map((other) => other.rule);
+      if (othersFail.length > 0) return { ...outcome, reason: `${text}, but ${othersFail.join(", ")} did not pass, so the ${allowance.aggregate} allowance does not apply` };
+      if (pohc?.verdict === "pass") {
+        return {
+          ...outcome,
+          verdict: "pass" as const,
+          limit: allowedLimit,
+          percentOfLimit: (outcome.measured / allowedLimit) * 100,
+          reason: `${text}; ${allowance.aggregate} ${fmt(pohc.measured as number)} A ≤ ${fmt(pohc.limit as number)} A and every other rule passes: allowance applies (${allowance.source})`,
+        };
+      }
+      if (pohc?.verdict === "not-evaluated") {
+        return { ...outcome, verdict: "not-evaluated" as const, reason: `not evaluated: ${text}; the ${allowance.aggregate} allowance could not be checked (${pohc.reason ?? ""})` };
+      }
+      return { ...outcome, reason: `${text} but ${allowance.aggregate} exceeds its limit, so the allowance does not apply` };
+    });
+  }
+}
+
+/** Per rule: applied or not on this channel, from the chosen band's rows and aggregates. */
+function summarizeTimeRules(rows: ComplianceRow[], aggregates: ComplianceAggregate[], env: ChannelEnv): TimeRuleSummary[] | undefined {
+  if (!env.time) return undefined;
+  const results = [...rows, ...aggregates].flatMap((row) => row.rowRules ?? []);
+  return env.time.rules.map((rule): TimeRuleSummary => {
+    const mine = results.filter((result) => result.rule === rule.id);
+    const evaluated = mine.filter((result) => result.verdict !== "not-evaluated");
+    const notes = evaluated.map((result) => result.reason).find((reason) => reason?.includes("accumulates") || reason?.includes("periods from"));
+    const firstReason = mine.find((result) => result.verdict === "not-evaluated")?.reason?.replace(/^not evaluated: /, "");
+    const reason = evaluated.length > 0 ? notes?.split("; ").find((part) => part.includes("accumulates") || part.includes("periods from")) : firstReason ?? env.time?.unavailable ?? "no rows or aggregates it applies to";
+    return {
+      rule: rule.id,
+      label: rule.label,
+      multiplier: rule.multiplier,
+      status: evaluated.length > 0 ? "applied" : "not-evaluated",
+      ...(reason ? { reason } : {}),
+      valueCount: Math.max(0, ...evaluated.map((result) => result.valueCount ?? 0)),
+      periodCount: Math.max(0, ...evaluated.map((result) => result.periodCount ?? 0)),
+      failures: [...rows, ...aggregates].filter((row) => row.decidedBy === rule.id && row.verdict === "fail").length +
+        [...rows, ...aggregates].filter((row) => row.decidedBy !== rule.id && row.rowRules?.some((result) => result.rule === rule.id && result.verdict === "fail")).length,
+      ...(rule.source ? { source: rule.source } : {}),
+    };
+  });
 }
 
 function evaluateConditions(band: Band, context: EvaluationContext): ConditionResult[] {
@@ -307,7 +611,9 @@ function applyPohcAllowance(rows: ComplianceRow[], aggregates: ComplianceAggrega
   const pohc = aggregates.find((aggregate) => aggregate.name === rule.aggregate);
   return rows.map((row) => {
     const inRange = row.order >= rule.from && row.order <= rule.to && orderMatchesParity(row.order, rule.parity);
-    if (!inRange || row.verdict !== "fail" || row.measured === null || row.limit === null) return row;
+    // Rows decided by a time rule had the allowance applied there (applyTimePohcAllowance).
+    const byTimeRule = row.decidedBy !== undefined && row.decidedBy !== "snapshot";
+    if (!inRange || byTimeRule || row.verdict !== "fail" || row.measured === null || row.limit === null) return row;
     const withinFactor = judge(row.measured, row.limit * rule.factor, true) === "pass";
     if (!withinFactor) return row;
     const allowance = `exceeds the limit but is within ${rule.factor * 100} % of it`;
@@ -342,9 +648,11 @@ function evaluateBand(band: Band, env: ChannelEnv): BandEvaluation {
   }
   const entries = used.orderRows.flatMap((row) => expandOrders(row).map((h) => ({ h, row })));
   entries.sort((a, b) => a.h - b.h);
-  const aggregates = used.aggregates.map((aggregate) => evaluateAggregate(aggregate, used, env));
+  const aggregates = used.aggregates.map((aggregate) => combineParts(aggregateParts(aggregate, used, env), env, env.windowCount));
+  const rowParts = entries.map(({ h, row }) => orderParts(row, h, env));
+  applyTimePohcAllowance(rowParts, aggregates, env);
   const rows = applyPohcAllowance(
-    entries.map(({ h, row }) => evaluateRow(row, h, env)),
+    rowParts.map((parts) => combineParts(parts, env, env.windowCount)),
     aggregates,
     env,
   );
@@ -408,7 +716,88 @@ function worstPercent(rows: ComplianceRow[], aggregates: ComplianceAggregate[]):
   return Math.max(-Infinity, ...values.filter((value): value is number => value !== null));
 }
 
-function channelEnv(analysis: AnalysisResult, channel: ChannelResult, content: LimitSetRevisionContent, context: EvaluationContext): ChannelEnv {
+/** The time base and series of one channel for the revision's time rules; null when it has none. */
+function channelTime(analysis: AnalysisResult, channel: ChannelResult, content: LimitSetRevisionContent, input: EvaluateComplianceInput): ChannelTime | null {
+  const rules = content.rules.timeRules ?? [];
+  if (rules.length === 0) return null;
+  const cache = new Map<number, Float64Array | null>();
+  const logged = input.timeSeries;
+  if (logged) {
+    const series = logged.channels[channel.name];
+    const startsS = logged.startsS;
+    const n = startsS.length;
+    const durationS = n > 0 ? startsS[n - 1]! + logged.valueS - startsS[0]! : 0;
+    return {
+      rules,
+      timing: n > 0 ? { source: "interval-log", valueS: logged.valueS, startsS, clockKnown: true, plans: {} } : null,
+      unavailable: n > 0 ? undefined : `${logged.noun} has no rows`,
+      snapshotFallback: false,
+      orderSeries: (h) => series?.orders.get(h) ?? null,
+      fundamental: series?.orders.get(1) ?? null,
+      thdPercent: series?.thdPercent ?? null,
+      basis: {
+        source: "interval-log",
+        valueS: logged.valueS,
+        valueCount: n,
+        durationS,
+        startMs: n > 0 ? startsS[0]! * 1000 : null,
+        snapshotFallback: false,
+        coverage: "none",
+      },
+    };
+  }
+  const windowS = analysis.window.cycles / analysis.fundamentalHz;
+  const series = channel.harmonicSeries;
+  const count = series?.find((values) => values !== null)?.length ?? 0;
+  const startMs = input.recordStartMs ?? null;
+  const basis: TimeBasis = {
+    source: series && count > 0 ? "windows" : "none",
+    valueS: windowS,
+    valueCount: count,
+    durationS: count * windowS,
+    startMs,
+    snapshotFallback: true,
+    coverage: "none",
+  };
+  if (!series || count === 0) {
+    return {
+      rules,
+      timing: null,
+      unavailable: "the analysis has no per-window order series (analyse with includeOrderSeries: true); the capture r.m.s. mean is compared instead",
+      snapshotFallback: true,
+      orderSeries: () => null,
+      fundamental: null,
+      thdPercent: null,
+      basis,
+    };
+  }
+  const offsetS = startMs === null ? 0 : startMs / 1000;
+  const startsS = Float64Array.from({ length: count }, (_, k) => offsetS + k * windowS);
+  const orderSeries = (h: number): Float64Array | null => {
+    if (!cache.has(h)) {
+      const values = series[h - 1];
+      cache.set(h, values && values.length === count ? Float64Array.from(values) : null);
+    }
+    return cache.get(h) ?? null;
+  };
+  return {
+    rules,
+    timing: { source: "windows", valueS: windowS, startsS, clockKnown: startMs !== null, plans: {} },
+    snapshotFallback: true,
+    orderSeries,
+    fundamental: orderSeries(1),
+    thdPercent: null,
+    basis,
+  };
+}
+
+function channelEnv(
+  analysis: AnalysisResult,
+  channel: ChannelResult,
+  content: LimitSetRevisionContent,
+  context: EvaluationContext,
+  input: EvaluateComplianceInput,
+): ChannelEnv {
   const harmonics = new Map(channel.harmonics.map((harmonic) => [harmonic.order, harmonic]));
   const notes: string[] = [];
   const usesBasis = (basis: Basis): boolean =>
@@ -441,20 +830,47 @@ function channelEnv(analysis: AnalysisResult, channel: ChannelResult, content: L
     lambda,
     irefA,
     notes,
+    time: channelTime(analysis, channel, content, input),
+    noun: input.timeSeries?.noun ?? "the analysis",
+    windowCount: analysis.window.count,
   };
 }
 
-function evaluateChannel(analysis: AnalysisResult, channel: ChannelResult, content: LimitSetRevisionContent, context: EvaluationContext): ChannelCompliance {
-  const env = channelEnv(analysis, channel, content, context);
+function evaluateChannel(
+  analysis: AnalysisResult,
+  channel: ChannelResult,
+  content: LimitSetRevisionContent,
+  context: EvaluationContext,
+  input: EvaluateComplianceInput,
+): ChannelCompliance & { timeBasis?: TimeBasis } {
+  const env = channelEnv(analysis, channel, content, context, input);
+  const timeBasis = env.time?.basis;
   const derived = { irefA: env.irefA, lambda: env.lambda, notes: env.notes };
   const selection = selectBand(content, context);
   const common = { channel: channel.name, phase: channel.phase, derived };
+  const unchosenTimeRules = (reason: string): { timeRules?: TimeRuleSummary[]; timeBasis?: TimeBasis } =>
+    env.time
+      ? {
+          timeRules: env.time.rules.map((rule) => ({
+            rule: rule.id,
+            label: rule.label,
+            multiplier: rule.multiplier,
+            status: "not-evaluated" as const,
+            reason,
+            valueCount: 0,
+            periodCount: 0,
+            failures: 0,
+            ...(rule.source ? { source: rule.source } : {}),
+          })),
+          timeBasis,
+        }
+      : {};
   if (selection.status === "no-band") {
-    return { ...common, band: { label: null, reason: selection.reason }, rows: [], aggregates: [], conditions: [], verdict: "incomplete" };
+    return { ...common, band: { label: null, reason: selection.reason }, rows: [], aggregates: [], conditions: [], verdict: "incomplete", ...unchosenTimeRules(selection.reason) };
   }
   if (selection.status === "missing-context") {
     const { rows, aggregates } = unchosenRows(selection.candidates, `not evaluated: ${selection.reason}`, env);
-    return { ...common, band: { label: null, reason: selection.reason }, rows, aggregates, conditions: [], verdict: "incomplete" };
+    return { ...common, band: { label: null, reason: selection.reason }, rows, aggregates, conditions: [], verdict: "incomplete", ...unchosenTimeRules(selection.reason) };
   }
   const evaluations = selection.bands.map((band) => evaluateBand(band, env));
   // Alternatives: the first passing option wins; otherwise an incomplete one; all failing → fail.
@@ -472,7 +888,14 @@ function evaluateChannel(analysis: AnalysisResult, channel: ChannelResult, conte
     reason: reasonParts.filter(Boolean).join(" — "),
     ...(evaluations.length > 1 ? { options: evaluations.map((evaluation) => ({ label: evaluation.label, verdict: evaluation.verdict })) } : {}),
   };
-  return { ...common, band, rows: chosen.rows, aggregates: chosen.aggregates, conditions: chosen.conditions, verdict: chosen.verdict };
+  const timeRules = summarizeTimeRules(chosen.rows, chosen.aggregates, env);
+  const timeExtras: { timeRules?: TimeRuleSummary[]; timeBasis?: TimeBasis } = {};
+  if (timeRules && timeBasis) {
+    const applied = timeRules.filter((rule) => rule.status === "applied").length;
+    timeExtras.timeRules = timeRules;
+    timeExtras.timeBasis = { ...timeBasis, coverage: applied === 0 ? "none" : applied === timeRules.length ? "all" : "partial" };
+  }
+  return { ...common, band, rows: chosen.rows, aggregates: chosen.aggregates, conditions: chosen.conditions, verdict: chosen.verdict, ...timeExtras };
 }
 
 /**
@@ -517,13 +940,16 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
   if (threshold) {
     notes.push(`currents below max(${threshold.percentOfInputCurrent} % of the input current, ${threshold.minimumA * 1000} mA) are disregarded (${threshold.source})`);
   }
-  notes.push(
-    `measured values are the analysis's per-order r.m.s. values over ${analysis.window.count} window(s); time rules (1.5 s smoothing, 150 % excursions, percentiles) are not applied${
-      timeRules && timeRules.length > 0 ? " although this revision lists some" : ""
-    }`,
-  );
+  if (!timeRules || timeRules.length === 0) {
+    notes.push(
+      `measured values are the analysis's per-order r.m.s. values over ${analysis.window.count} window(s); this revision has no time rules (1.5 s smoothing, 150 % excursions, percentiles)`,
+    );
+  }
 
-  const results = channels.map((channel) => evaluateChannel(analysis, channel, content, context));
+  const evaluated = channels.map((channel) => evaluateChannel(analysis, channel, content, context, input));
+  const timeBasis = evaluated[0]?.timeBasis;
+  const results: ChannelCompliance[] = evaluated.map(({ timeBasis: _basis, ...channel }) => channel);
+  if (timeRules && timeRules.length > 0 && timeBasis) notes.push(timeRulesNote(timeRules, timeBasis, evaluated[0]?.timeRules));
   results.sort(
     (a, b) =>
       VERDICT_RANK[b.verdict] - VERDICT_RANK[a.verdict] || worstPercent(b.rows, b.aggregates) - worstPercent(a.rows, a.aggregates),
@@ -536,6 +962,7 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
     edition: content.edition,
     scope: content.scope,
   };
+  const timeFields = timeBasis ? { timeRules: worst?.timeRules, timeBasis } : {};
   if (!worst) {
     return {
       limitSet,
@@ -563,5 +990,23 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
     verdict: worst.verdict,
     channels: results,
     notes,
+    ...timeFields,
   };
+}
+
+/** One note saying what the time rules were evaluated on and which were not. */
+function timeRulesNote(rules: TimeRule[], basis: TimeBasis, summary: TimeRuleSummary[] | undefined): string {
+  const on =
+    basis.source === "none"
+      ? "no per-window series"
+      : `${basis.valueCount} ${basis.source === "windows" ? "10/12-cycle window" : `${formatDurationS(basis.valueS ?? 0)} interval-log`} value(s) over ${formatDurationS(basis.durationS)}${
+          basis.startMs === null ? " (10-minute values counted from the record start: no start time given)" : " (10-minute values aligned to the clock)"
+        }`;
+  const skipped = (summary ?? []).filter((rule) => rule.status === "not-evaluated");
+  const fallback = basis.snapshotFallback
+    ? "; where a time rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
+    : "";
+  return `time rules ${rules.map((rule) => rule.id).join(", ")} evaluated on ${on}${
+    skipped.length > 0 ? `; not evaluated: ${skipped.map((rule) => `${rule.rule} (${rule.reason ?? "no data"})`).join("; ")}` : ""
+  }${fallback}`;
 }

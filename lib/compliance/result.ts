@@ -13,6 +13,66 @@ export type AggregateVerdict = "pass" | "fail" | "not-evaluated";
  */
 export type OverallVerdict = "pass" | "fail" | "incomplete";
 
+/**
+ * One rule's judgement of one order or aggregate: a time rule of the revision
+ * (`rules.timeRules`, e.g. "daily-p99-very-short") or `snapshot` — the capture's r.m.s. mean
+ * compared with 1.0 × the limit, which stands in when time rules cannot all be evaluated.
+ */
+export interface RowRuleResult {
+  /** Time-rule id, or "snapshot". */
+  rule: string;
+  label: string;
+  /** What was measured, e.g. "99th percentile of 3 s values (worst 24 h period)". */
+  statistic: string;
+  /** The statistic, in `unit`. */
+  measured: number | null;
+  /** Limit applied = table limit × multiplier (× an allowance factor where one applied). */
+  limit: number | null;
+  tableLimit: number | null;
+  multiplier: number;
+  unit: string;
+  percentOfLimit: number | null;
+  verdict: "pass" | "fail" | "not-evaluated";
+  reason?: string;
+  source?: string;
+  /** Values the statistic was taken over, and the accumulation periods (time rules only). */
+  valueCount?: number;
+  periodCount?: number;
+}
+
+/** How one time rule fared on one channel: applied or not, and on what data. */
+export interface TimeRuleSummary {
+  rule: string;
+  label: string;
+  multiplier: number;
+  /** `applied`: evaluated for at least one row or aggregate; `not-evaluated`: for none. */
+  status: "applied" | "not-evaluated";
+  /** Why not evaluated (e.g. the minimum record length), or notes on a partial period. */
+  reason?: string;
+  /** Values the statistic was taken over (per order), and the accumulation periods used. */
+  valueCount: number;
+  periodCount: number;
+  /** Rows and aggregates this rule failed. */
+  failures: number;
+  source?: string;
+}
+
+/** The time base the time rules were evaluated on. */
+export interface TimeBasis {
+  source: "windows" | "interval-log" | "none";
+  /** Duration of one value, s (≈ 0.2 for 10/12-cycle windows; 600 for a 10-minute log). */
+  valueS: number | null;
+  valueCount: number;
+  /** Record length, s (first value start to last value end). */
+  durationS: number;
+  /** Start of the record, ms since the epoch, when known (10-minute values then align to the clock). */
+  startMs: number | null;
+  /** Whether rules that cannot be evaluated fall back to the snapshot comparison. */
+  snapshotFallback: boolean;
+  /** `all`: every time rule was applied; `partial`: some were not; `none`: none (snapshot only). */
+  coverage: "all" | "partial" | "none";
+}
+
 /** One harmonic order. `measured`, `limit` and `margin` are in `unit`. */
 export interface ComplianceRow {
   order: number;
@@ -27,6 +87,14 @@ export interface ComplianceRow {
   verdict: RowVerdict;
   reason?: string;
   limitSource?: string;
+  /**
+   * Each applicable rule's judgement when the revision has time rules. When time rules decided,
+   * `measured`, `limit`, `percentOfLimit` and `margin` above are those of the deciding rule
+   * (its statistic against table limit × multiplier).
+   */
+  rowRules?: RowRuleResult[];
+  /** Id of the rule that decided the verdict ("snapshot" for the capture-mean comparison). */
+  decidedBy?: string;
 }
 
 export interface ComplianceAggregate {
@@ -42,6 +110,8 @@ export interface ComplianceAggregate {
   role: "requirement" | "allowance-condition";
   reason?: string;
   limitSource?: string;
+  rowRules?: RowRuleResult[];
+  decidedBy?: string;
 }
 
 export interface ConditionResult {
@@ -69,6 +139,8 @@ export interface ChannelCompliance {
   verdict: OverallVerdict;
   /** Values derived for this channel when the context did not give them (Iref, λ). */
   derived: { irefA?: number; lambda?: number; notes: string[] };
+  /** Per time rule of the revision: applied or not and why (absent when the revision has none). */
+  timeRules?: TimeRuleSummary[];
 }
 
 export interface ComplianceResult {
@@ -86,4 +158,8 @@ export interface ComplianceResult {
   channels: ChannelCompliance[];
   /** Rules applied and caveats (comparison rule, threshold, time rules not applied, …). */
   notes: string[];
+  /** The worst channel's time-rule summary (absent when the revision has no time rules). */
+  timeRules?: TimeRuleSummary[];
+  /** What the time rules were evaluated on (absent when the revision has no time rules). */
+  timeBasis?: TimeBasis;
 }
