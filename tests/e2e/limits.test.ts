@@ -87,7 +87,7 @@ describe("limit tables in the browser", () => {
     await page.close();
   });
 
-  it("an admin's JSON edit is checked by the same schema, with the error path shown", async () => {
+  it("an admin's JSON edit is checked by the same schema, with the error path shown; the form fits a phone", async () => {
     const page = await browser.newPage();
     await signInAs(page, "admin");
     await page.goto(url(`/limits/${key}/edit`));
@@ -100,6 +100,14 @@ describe("limit tables in the browser", () => {
     await expect(page.locator("[data-testid=json-errors]").textContent()).resolves.toContain("JSON:");
     await snap(page, "limits-json-errors");
     await page.close();
+
+    const phone = await browser.newPage({ viewport: { width: 375, height: 740 } });
+    await signInAs(phone, "admin");
+    await phone.goto(url(`/limits/${key}/edit`));
+    await phone.locator("[data-testid=b0-r1-value]").waitFor();
+    expect(await overflowPx(phone)).toBeLessThanOrEqual(0);
+    await snap(phone, "limits-edit-phone");
+    await phone.close();
   });
 
   it("an engineer sees the changed value but no edit button, and the editor is 403", async () => {

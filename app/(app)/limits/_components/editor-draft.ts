@@ -153,8 +153,10 @@ function rangeOf(d: RangeDraft): Record<string, unknown> | undefined {
 
 /** Working copy → revision content as plain JSON, still to be validated by the schema. */
 export function fromDraft(draft: ContentDraft): unknown {
+  // Meta, then bands, then rules: the order a person reads the JSON in.
+  const { rules, ...meta } = draft.extra;
   return {
-    ...draft.extra,
+    ...meta,
     bands: draft.bands.map((band) => {
       const applicability: Record<string, unknown> = {};
       for (const k of rangeKeys) {
@@ -188,5 +190,6 @@ export function fromDraft(draft: ContentDraft): unknown {
         })),
       };
     }),
+    rules,
   };
 }
