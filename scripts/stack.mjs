@@ -270,7 +270,12 @@ async function bringUp({ dataDir, ports, fast }) {
 async function serveApp(env, { dev = false, quiet = false } = {}) {
   if (!dev) {
     log("building the app (next build)…");
+    // next build adds its dist dir's type folders to tsconfig.json; a test build's temporary
+    // dir must not end up there, so the file is put back as it was.
+    const tsconfigPath = path.join(root, "tsconfig.json");
+    const tsconfig = fs.readFileSync(tsconfigPath, "utf8");
     run(next(), ["build"], { env: { ...env, NODE_ENV: "production" }, stdio: quiet ? ["ignore", "ignore", "inherit"] : "inherit" });
+    if (process.env.NEXT_DIST_DIR) fs.writeFileSync(tsconfigPath, tsconfig);
   }
   const args = dev ? ["dev", "-H", "127.0.0.1", "-p", env.PORT] : ["start", "-H", "127.0.0.1", "-p", env.PORT];
   startChild("the web app", next(), args, { ...env, NODE_ENV: dev ? "development" : "production" }, { quiet });

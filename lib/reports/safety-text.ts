@@ -1,4 +1,4 @@
-// The caution printed on every rendering of a sheet. Same words as app/_components/safety-note.tsx.
+// The caution shown on every page and printed on every rendering of a sheet (one text for both).
 export const safetyText =
   "Ordwise results support, and do not replace, the judgement of a qualified engineer. Local electrical codes, " +
   "the utility's interconnection requirements and licensed practice take precedence. Work on energised " +
