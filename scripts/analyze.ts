@@ -7,6 +7,10 @@ import { pathToFileURL } from "node:url";
 import { parseArgs, type ParseArgsConfig } from "node:util";
 import { analyzeCsvFile } from "../lib/analysis/analyze-csv";
 import { isAnalysisInputError } from "../lib/analysis/errors";
+import { evaluateCompliance, type EvaluateComplianceInput } from "../lib/compliance/evaluate-compliance";
+import { formatComplianceTable } from "../lib/compliance/format-compliance-table";
+import { EvaluationContextSchema, LimitSetRevisionContentSchema, type EvaluationContext } from "../lib/compliance/model";
+import { getSeedLimitSet, seedLimitSets } from "../lib/compliance/seed";
 import type { AnalysisOptions, AnalysisResult, ChannelOverride, ChannelResult } from "../lib/analysis/types";
 
 /** Flags understood by the analysis CLI (exported so other commands can extend them). */
@@ -20,6 +24,13 @@ export const ANALYZE_ARG_OPTIONS = {
   il: { type: "string" },
   iref: { type: "string" },
   "thd-order": { type: "string" },
+  limits: { type: "string" },
+  isc: { type: "string" },
+  rsce: { type: "string" },
+  "rated-power": { type: "string" },
+  "nominal-voltage": { type: "string" },
+  "bus-voltage": { type: "string" },
+  "phase-config": { type: "string" },
   help: { type: "boolean", default: false },
 } satisfies ParseArgsConfig["options"];
 
@@ -35,7 +46,7 @@ export interface AnalyzeArgs {
 }
 
 export const USAGE =
-  "usage: npm run analyze -- FILE [--json] [--frequency 50|60] [--interval SECONDS] [--channel NAME=current|voltage] [--scale NAME=FACTOR] [--max-order N] [--il A] [--iref A] [--thd-order 40|50]";
+  "usage: npm run analyze -- FILE [--json] [--frequency 50|60] [--interval SECONDS] [--channel NAME=current|voltage] [--scale NAME=FACTOR] [--max-order N] [--il A] [--iref A] [--thd-order 40|50] [--limits KEY [--isc A] [--rsce N] [--rated-power W] [--nominal-voltage V] [--bus-voltage V] [--phase-config single-phase|balanced-three-phase|other]]";
 
 function positiveNumber(flag: string, text: string): number {
   const value = Number(text);
@@ -99,6 +110,10 @@ export function parseAnalyzeArgs(argv: string[], extra: ParseArgsConfig["options
     channels[name] = { ...channels[name], scale };
   }
   if (Object.keys(channels).length > 0) options.channels = channels;
+  if (str("limits") === undefined) {
+    const stray = ["isc", "rsce", "rated-power", "nominal-voltage", "bus-voltage", "phase-config"].find((k) => str(k) !== undefined);
+    if (stray) throw new UsageError(`--${stray} only makes sense with --limits KEY`);
+  }
   return { file, json: Boolean(values.json), options, values };
 }
 
@@ -173,12 +188,64 @@ export function formatAnalysis(r: AnalysisResult): string {
   return parts.join("\n\n");
 }
 
+/** The evaluation context from the limit flags. */
+function limitContext(args: AnalyzeArgs): EvaluationContext {
+  const str = (key: string) => args.values[key] as string | undefined;
+  const num = (key: string) => (str(key) === undefined ? undefined : positiveNumber(key, str(key)!));
+  const phase = str("phase-config");
+  if (phase !== undefined && !["single-phase", "balanced-three-phase", "other"].includes(phase)) {
+    throw new UsageError(`--phase-config must be single-phase, balanced-three-phase or other, got "${phase}"`);
+  }
+  return EvaluationContextSchema.parse({
+    iscA: num("isc"),
+    ilA: args.options.ilA,
+    irefA: args.options.irefA,
+    rsce: num("rsce"),
+    ratedPowerW: num("rated-power"),
+    nominalVoltageV: num("nominal-voltage"),
+    busVoltageV: num("bus-voltage"),
+    phaseConfig: phase,
+  });
+}
+
+/**
+ * The current revision of a limit set: from PostgreSQL when DATABASE_URL is set (the tables
+ * admins maintain), otherwise from the seed files the database is seeded from.
+ */
+async function loadLimitSet(key: string): Promise<EvaluateComplianceInput["limitSet"]> {
+  const url = process.env.DATABASE_URL;
+  if (url) {
+    const { default: postgres } = await import("postgres");
+    const sql = postgres(url, { max: 1, onnotice: () => undefined });
+    try {
+      const [row] = await sql<{ name: string; id: string; number: number; content: unknown }[]>`
+        select s.name, r.id, r.number, r.content from limit_sets s join limit_set_revisions r on r.id = s.current_revision_id where s.key = ${key}`;
+      if (row) return { key, name: row.name, revision: { id: row.id, number: row.number }, content: LimitSetRevisionContentSchema.parse(row.content) };
+    } finally {
+      await sql.end();
+    }
+  }
+  const seed = getSeedLimitSet(key);
+  if (!seed) throw new UsageError(`unknown limit set "${key}"; known keys: ${seedLimitSets.map((s) => s.key).join(", ")}`);
+  return { key, name: seed.name, revision: { id: `seed:${key}`, number: 1 }, content: seed.content };
+}
+
 /** Runs the CLI; returns the exit code. */
 export async function main(argv: string[]): Promise<number> {
   try {
     const args = parseAnalyzeArgs(argv);
+    const limits = args.values.limits as string | undefined;
+    const context = limits ? limitContext(args) : null;
     const result = await buildAnalysis(args.file, args.options);
-    process.stdout.write(args.json ? `${JSON.stringify(result)}\n` : `${formatAnalysis(result)}\n`);
+    if (!limits || !context) {
+      process.stdout.write(args.json ? `${JSON.stringify(result)}\n` : `${formatAnalysis(result)}\n`);
+      return 0;
+    }
+    const limitSet = await loadLimitSet(limits);
+    const compliance = evaluateCompliance({ analysis: result, limitSet, context });
+    process.stdout.write(
+      args.json ? `${JSON.stringify({ ...result, compliance })}\n` : `${formatAnalysis(result)}\n\n${formatComplianceTable(compliance)}\n`,
+    );
     return 0;
   } catch (error) {
     if (error instanceof UsageError || isAnalysisInputError(error)) {
