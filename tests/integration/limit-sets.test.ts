@@ -247,3 +247,10 @@ describe("clone, export and import", () => {
     expect((await admin.request("GET", `/api/limit-sets/${key}`)).status).toBe(404);
   });
 });
+
+describe("revisions below the application", () => {
+  it("the database refuses to change a stored revision", async () => {
+    const { sql } = await import("@/db/client");
+    await expect(sql`update limit_set_revisions set reason = reason where number = 1`).rejects.toThrow(/immutable/);
+  });
+});
