@@ -77,7 +77,9 @@ export function suggestIntervalMapping(headers: string[]): IntervalMappingSugges
     const suggestion: IntervalColumnSuggestion = { column: header, role: "value", use: false, missing: [] };
     const channel = CHANNEL.exec(text);
     if (channel) {
-      suggestion.channel = `${channel[1]!.toUpperCase()}${channel[2]!.length === 1 || /^L/i.test(channel[2]!) ? channel[2]!.toUpperCase() : channel[2]!.toLowerCase()}`;
+      // Phase letters lower case (Ia, Vab), numbers and L/N upper case (I1, IL2, IN).
+      const suffix = /^[abc]{1,2}$/i.test(channel[2]!) ? channel[2]!.toLowerCase() : channel[2]!.toUpperCase();
+      suggestion.channel = `${channel[1]!.toUpperCase()}${suffix}`;
       suggestion.quantity = channel[1]!.toUpperCase() === "I" ? "current" : "voltage";
     } else {
       const phase = PHASE_ONLY.exec(text);
