@@ -1,7 +1,7 @@
 // Benchmarks of the analysis engine. Run: npm run bench [-- CASE_NAME]
 // Each case prepares its input (cached in the git-ignored bench/out/) and runs once, printing
 // wall time, throughput, peak RSS and where the time goes. Add cases to BENCH_CASES.
-import { createWriteStream, existsSync, mkdirSync, statSync } from "node:fs";
+import { createWriteStream, existsSync, mkdirSync, statSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { analyzeCsvFile } from "../lib/analysis/analyze-csv";
@@ -63,6 +63,48 @@ export const BENCH_CASES: BenchCase[] = [
       };
     },
     targets: { wallS: 3, rssMB: 500 },
+  },
+  {
+    name: "interval-log-week-3ch",
+    description: "a week of 10-minute values (1,008 rows), 3 current channels × orders 1–50 + THD + r.m.s.: import + IEEE 519 percentile evaluation",
+    prepare: async () => {
+      const path = join(outDir, "interval-week-3ch-50.csv");
+      if (!existsSync(path)) {
+        mkdirSync(dirname(path), { recursive: true });
+        const channels = ["I1", "I2", "I3"];
+        const headers = ["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])];
+        const lines = [headers.join(",")];
+        const start = Date.UTC(2024, 2, 4);
+        for (let k = 0; k < 1008; k++) {
+          const cells = [new Date(start + k * 600_000).toISOString()];
+          for (let c = 0; c < channels.length; c++) {
+            const i1 = 60 + 30 * Math.sin((2 * Math.PI * k) / 144) + c;
+            const orders = Array.from({ length: 49 }, (_, i) => ((i + 2) % 2 === 1 ? i1 / (i + 2) : i1 / (20 * (i + 2))) * (0.9 + 0.2 * ((k * 7 + i) % 10) / 10));
+            const distortion = Math.sqrt(orders.reduce((sum, v) => sum + v * v, 0));
+            cells.push(i1.toFixed(3), ...orders.map((v) => v.toFixed(4)), ((distortion / i1) * 100).toFixed(3), Math.hypot(i1, distortion).toFixed(3));
+          }
+          lines.push(cells.join(","));
+        }
+        writeFileSync(path, `${lines.join("\n")}\n`);
+      }
+      return path;
+    },
+    run: async (path) => {
+      const { readFileSync } = await import("node:fs");
+      const { inspectIntervalLog, importIntervalLog, evaluateIntervalLog } = await import("../lib/intervals");
+      const { getSeedLimitSet } = await import("../lib/compliance/seed");
+      const text = readFileSync(path, "utf8");
+      const started = performance.now();
+      const log = importIntervalLog(text, inspectIntervalLog(text).suggestion.mapping!);
+      const importMs = performance.now() - started;
+      const set = getSeedLimitSet("ieee-519-2014-current")!;
+      const result = evaluateIntervalLog(log, { key: set.key, name: set.name, revision: { id: "bench", number: 1 }, content: set.content }, { iscA: 10_000, ilA: 100, busVoltageV: 480 });
+      return {
+        timings: { importMs },
+        summary: `${log.timestampsMs.length} rows × ${log.channels.length} channels, verdict ${result.verdict}, evaluation ${(performance.now() - started - importMs).toFixed(0)} ms`,
+      };
+    },
+    targets: { wallS: 2, rssMB: 500 },
   },
 ];
 
