@@ -15,20 +15,20 @@ const workers: ChildProcess[] = [];
 function startWorker(extraEnv: Record<string, string>): ChildProcess {
   const child = spawn(path.resolve("node_modules/.bin/tsx"), ["--conditions=react-server", "scripts/worker.ts"], {
     env: { ...process.env, JOB_QUEUE: queue, JOB_EXPIRE_S: "2", JOB_MAINTENANCE_S: "1", ...extraEnv },
-    stdio: "ignore",
+    stdio: ["ignore", "ignore", "inherit"],
   });
   workers.push(child);
   return child;
 }
 
-async function waitFor<T>(what: string, probe: () => Promise<T | null>, timeoutMs = 45_000): Promise<T> {
+async function waitFor<T>(what: string, probe: () => Promise<T | null>, timeoutMs = 45_000, explain?: () => Promise<string>): Promise<T> {
   const deadline = Date.now() + timeoutMs;
   while (Date.now() < deadline) {
     const v = await probe();
     if (v !== null) return v;
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`timed out waiting for ${what}`);
+  throw new Error(`timed out waiting for ${what}${explain ? `: ${await explain()}` : ""}`);
 }
 
 afterAll(() => {
@@ -63,10 +63,15 @@ describe("analysis jobs in the PostgreSQL-backed queue", () => {
     first.kill("SIGKILL");
 
     startWorker({});
-    const done = await waitFor("the retried job to finish", async () => {
-      const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
-      return c?.status === "done" || c?.status === "failed" ? c : null;
-    });
+    const done = await waitFor(
+      "the retried job to finish",
+      async () => {
+        const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
+        return c?.status === "done" || c?.status === "failed" ? c : null;
+      },
+      90_000,
+      async () => JSON.stringify(await sql`select state, retry_count, started_on, start_after from pgboss.job where id = ${jobId!}`),
+    );
     expect(done.status).toBe("done");
     const [job] = await sql`select state, retry_count from pgboss.job where id = ${jobId!}`;
     expect(job).toMatchObject({ state: "completed", retry_count: 1 });
