@@ -28,7 +28,7 @@ for (const demo of demoCaptures) {
   if (!site) continue;
   const bytes = readFileSync(path.join("fixtures", "demo", demo.file));
   const capture = await registerCapture({
-    input: { siteId: site.id, title: demo.title, filename: demo.file, sizeBytes: bytes.length },
+    input: { siteId: site.id, kind: "waveform", title: demo.title, filename: demo.file, sizeBytes: bytes.length },
     actorId: technician,
   });
   await putObject(capture.s3Key, bytes, "text/csv");

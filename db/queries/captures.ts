@@ -19,8 +19,9 @@ import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/complianc
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
+import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import type { Waveform } from "@/lib/pipeline/run-capture";
-import type { CaptureListQuery, CaptureSetup, RegisterCaptureInput } from "@/lib/validations/capture";
+import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
 
 export const capturesPerPage = 20;
@@ -41,6 +42,7 @@ export async function registerCapture({ input, actorId }: { input: RegisterCaptu
         id,
         siteId: input.siteId,
         title: input.title,
+        kind: input.kind,
         originalFilename: input.filename,
         sizeBytes: input.sizeBytes,
         s3Key: `captures/${id}/original`,
@@ -103,6 +105,23 @@ export async function saveCaptureSetup({ id, setup, actorId }: { id: string; set
   });
 }
 
+/** Saves an interval log's column mapping, limit set and context, and remembers the mapping on its site. */
+export async function saveIntervalSetup({ id, setup, actorId }: { id: string; setup: IntervalSetup; actorId: string }): Promise<Capture> {
+  return db.transaction(async (tx) => {
+    const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
+    if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
+    const [capture] = await tx
+      .update(captures)
+      .set({ mapping: { intervalMapping: setup.intervalMapping }, context: setup.context, limitSetKey: setup.limitSetKey, updatedAt: new Date() })
+      .where(and(eq(captures.id, id), eq(captures.kind, "interval-log")))
+      .returning();
+    if (!capture) throw new AppError("not_found", "No such interval log.");
+    await tx.update(sites).set({ intervalMapping: setup.intervalMapping }).where(eq(sites.id, capture.siteId));
+    await insertAuditEvent(tx, { actorId, action: "capture.interval_setup", entityType: "capture", entityId: id, details: { limitSetKey: setup.limitSetKey } });
+    return capture;
+  });
+}
+
 /** The current revision of a limit set, with its content validated. */
 export async function getCurrentRevision({ key }: { key: string }): Promise<{
   key: string;
@@ -129,17 +148,19 @@ export async function storeAnalysisResult({
   captureId,
   analysis,
   waveform,
+  trends,
   evaluation,
   actorId,
 }: {
   captureId: string;
   analysis: AnalysisResult;
-  waveform: Waveform;
+  waveform: Waveform | null;
+  trends?: IntervalTrend[];
   evaluation: { revisionId: string; context: EvaluationContext; result: ComplianceResult };
   actorId: string | null;
 }): Promise<{ analysisId: string; evaluationId: string }> {
   return db.transaction(async (tx) => {
-    const [a] = await tx.insert(analyses).values({ captureId, result: analysis, waveform, createdBy: actorId }).returning({ id: analyses.id });
+    const [a] = await tx.insert(analyses).values({ captureId, result: analysis, waveform, trends: trends ?? null, createdBy: actorId }).returning({ id: analyses.id });
     const [e] = await tx
       .insert(evaluations)
       .values({

@@ -1,6 +1,6 @@
 import { bigint, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
-import { captureStatusEnum, reviewStateEnum } from "./enums";
+import { captureKindEnum, captureStatusEnum, reviewStateEnum } from "./enums";
 import { sites } from "./sites";
 
 export const captures = pgTable("captures", {
@@ -9,6 +9,8 @@ export const captures = pgTable("captures", {
     .notNull()
     .references(() => sites.id, { onDelete: "restrict" }),
   title: text("title").notNull(),
+  // A waveform record (scope/analyser samples) or an interval log (per-interval values from a logger).
+  kind: captureKindEnum("kind").notNull().default("waveform"),
   // Key of the original upload in the bucket; the object is never modified.
   s3Key: text("s3_key").notNull(),
   originalFilename: text("original_filename").notNull(),

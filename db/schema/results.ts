@@ -1,6 +1,7 @@
 import { index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import { users } from "./auth";
 import { captures } from "./captures";
 import { reviewActionEnum } from "./enums";
@@ -17,6 +18,8 @@ export const analyses = pgTable(
     // The whole engine result including the per-window series for the charts.
     result: jsonb("result").$type<AnalysisResult>().notNull(),
     // A few cycles of each channel's samples for the waveform chart.
+    // Interval logs: per-channel trend series with their limits (lib/intervals).
+    trends: jsonb("trends").$type<IntervalTrend[]>(),
     waveform: jsonb("waveform").$type<{ timeS: number[]; channels: { name: string; values: number[] }[] }>(),
     createdBy: text("created_by").references(() => users.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -1,4 +1,4 @@
-import { doublePrecision, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
 
 // A site is where captures are taken: a facility's PCC or a test bench for equipment.
@@ -12,6 +12,8 @@ export const sites = pgTable("sites", {
   iscA: doublePrecision("isc_a"),
   ilA: doublePrecision("il_a"),
   notes: text("notes").notNull().default(""),
+  // The column mapping last used for this site's interval logs, offered again for the next one.
+  intervalMapping: jsonb("interval_mapping").$type<Record<string, unknown>>(),
   createdBy: text("created_by").references(() => users.id),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),

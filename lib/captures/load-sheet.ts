@@ -10,6 +10,7 @@ import {
 import { getSiteById } from "@/db/queries/sites";
 import type { Role } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
+import { decimateSeries } from "@/lib/reports/decimate-series";
 
 /**
  * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
@@ -44,20 +45,28 @@ export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 /** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
 export async function loadChartData({ captureId, role }: { captureId: string; role: Role }) {
   await getCaptureById({ id: captureId, role });
-  const analysis = await latestAnalysis({ captureId });
+  const [analysis, evaluation] = await Promise.all([latestAnalysis({ captureId }), getEvaluation({ captureId })]);
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
   const r = analysis.result;
+  const windowDurationS = r.window.cycles / r.fundamentalHz;
+  // Per-order trends only for the orders the latest evaluation judged, so the payload stays small.
+  const judged = new Map<string, number[]>();
+  for (const c of evaluation?.result.channels ?? []) judged.set(c.channel, c.rows.filter((row) => row.limit !== null).map((row) => row.order));
   return {
     fundamentalHz: r.fundamentalHz,
-    windowDurationS: r.window.cycles / r.fundamentalHz,
+    windowDurationS,
     waveform: analysis.waveform,
-    channels: r.channels.map((c) => ({
-      name: c.name,
-      quantity: c.quantity,
-      unit: c.unit,
-      harmonics: c.harmonics.map((h) => ({ order: h.order, rms: h.rms, percentOfFundamental: h.percentOfFundamental })),
-      series: c.series ?? null,
-    })),
+    channels: r.channels.map((c) => {
+      const orders = judged.get(c.name) ?? [];
+      return {
+        name: c.name,
+        quantity: c.quantity,
+        unit: c.unit,
+        harmonics: c.harmonics.map((h) => ({ order: h.order, rms: h.rms, percentOfFundamental: h.percentOfFundamental })),
+        series: c.series ?? null,
+        harmonicSeries: c.harmonicSeries && orders.length > 0 ? decimateSeries(c.harmonicSeries, orders, windowDurationS) : null,
+      };
+    }),
   };
 }
 

@@ -4,7 +4,10 @@ import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { analyzeCaptureText, evaluateCapture } from "@/lib/pipeline/run-capture";
 import { getObjectBytes } from "@/lib/storage/s3";
-import { captureMappingSchema } from "@/lib/validations/capture";
+import { getSiteById } from "@/db/queries/sites";
+import { IntervalLogError } from "@/lib/intervals/errors";
+import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
+import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
 import { decodeText } from "./decode-text";
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
@@ -30,19 +33,28 @@ export async function processCapture({
   try {
     const capture = await getCaptureById({ id: captureId, role: "admin" });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
-    const mapping = captureMappingSchema.parse(capture.mapping ?? {});
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
     const bytes = await getObjectBytes(capture.s3Key);
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
+    const revision = await getCurrentRevision({ key: capture.limitSetKey });
+    if (capture.kind === "interval-log") {
+      const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
+      const site = await getSiteById({ id: capture.siteId });
+      const { analysis, trends, result } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
+      await beforeStore?.();
+      await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+      return;
+    }
+    const mapping = captureMappingSchema.parse(capture.mapping ?? {});
     const { analysis, waveform } = analyzeCaptureText(decodeText(bytes), mapping, context);
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
-    const revision = await getCurrentRevision({ key: capture.limitSetKey });
     const result = evaluateCapture(analysis, revision, context);
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
   } catch (err) {
-    const expected = isAnalysisInputError(err) || (err instanceof Error && err.message === "no limit set chosen");
+    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError;
+    const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");
     if (!expected) {
       console.error(err);
       if (!finalAttempt) {
@@ -50,7 +62,7 @@ export async function processCapture({
         throw err;
       }
     }
-    const reason = isAnalysisInputError(err)
+    const reason = fileProblem
       ? err.message
       : expected
         ? "Choose a limit set in the mapping form, then run the analysis again."

@@ -1,5 +1,6 @@
 import { z } from "zod";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
+import { IntervalMappingSchema } from "@/lib/intervals/types";
 
 export const maxUploadBytes = 200 * 1024 * 1024;
 
@@ -8,6 +9,7 @@ const optionalNumber = (schema: z.ZodNumber) =>
 
 export const registerCaptureSchema = z.object({
   siteId: z.uuid("Choose a site"),
+  kind: z.enum(["waveform", "interval-log"]).default("waveform"),
   title: z.string().trim().min(2, "Title needs at least 2 characters").max(160, "Title is too long (max 160)"),
   filename: z
     .string()
@@ -44,6 +46,15 @@ export const captureSetupSchema = z.object({
   context: EvaluationContextSchema,
 });
 
+/** An interval log's mapping as stored on the capture (and remembered on its site). */
+export const intervalSetupMappingSchema = z.object({ intervalMapping: IntervalMappingSchema });
+
+export const intervalSetupSchema = z.object({
+  intervalMapping: IntervalMappingSchema,
+  limitSetKey: z.string().min(1, "Choose a limit set"),
+  context: EvaluationContextSchema,
+});
+
 export const reevaluateSchema = z.object({
   limitSetKey: z.string().min(1, "Choose a limit set"),
   context: EvaluationContextSchema,
@@ -76,5 +87,6 @@ export const captureListQuerySchema = z.object({
 export type RegisterCaptureInput = z.infer<typeof registerCaptureSchema>;
 export type CaptureMapping = z.infer<typeof captureMappingSchema>;
 export type CaptureSetup = z.infer<typeof captureSetupSchema>;
+export type IntervalSetup = z.infer<typeof intervalSetupSchema>;
 export type ReviewActionInput = z.infer<typeof reviewActionSchema>;
 export type CaptureListQuery = z.infer<typeof captureListQuerySchema>;

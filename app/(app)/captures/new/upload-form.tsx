@@ -34,6 +34,7 @@ export function UploadForm({ sites, defaultSiteId, maxBytes }: Props) {
   const [file, setFile] = useState<File | null>(null);
   const [siteId, setSiteId] = useState(defaultSiteId ?? sites[0]?.id ?? "");
   const [title, setTitle] = useState("");
+  const [kind, setKind] = useState<"waveform" | "interval-log">("waveform");
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [message, setMessage] = useState<string | null>(null);
   const [phase, setPhase] = useState<Phase>({ kind: "idle" });
@@ -50,7 +51,7 @@ export function UploadForm({ sites, defaultSiteId, maxBytes }: Props) {
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     setMessage(null);
-    const parsed = registerCaptureSchema.safeParse({ siteId, title, filename: file?.name ?? "", sizeBytes: file?.size ?? 0 });
+    const parsed = registerCaptureSchema.safeParse({ siteId, kind, title, filename: file?.name ?? "", sizeBytes: file?.size ?? 0 });
     if (!file) return setErrors({ filename: ["Choose a CSV file"] });
     if (!parsed.success) return setErrors(fieldErrorsOf(parsed.error));
     setErrors({});
@@ -79,6 +80,19 @@ export function UploadForm({ sites, defaultSiteId, maxBytes }: Props) {
         </select>
         {errors.siteId?.map((m) => <p key={m} className="field-error">{m}</p>)}
       </div>
+      <fieldset>
+        <legend className="field-label">The file holds</legend>
+        <div className="mt-1 flex flex-wrap gap-4 text-sm">
+          <label className="flex items-center gap-2">
+            <input type="radio" name="kind" value="waveform" checked={kind === "waveform"} onChange={() => setKind("waveform")} disabled={busy} />
+            Waveform samples (scope or analyser record)
+          </label>
+          <label className="flex items-center gap-2">
+            <input type="radio" name="kind" value="interval-log" checked={kind === "interval-log"} onChange={() => setKind("interval-log")} disabled={busy} data-testid="kind-interval-log" />
+            Interval values (logger export: timestamp + per-order values)
+          </label>
+        </div>
+      </fieldset>
       <div
         onDragOver={(e) => {
           e.preventDefault();

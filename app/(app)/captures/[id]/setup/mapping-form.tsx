@@ -7,6 +7,7 @@ import { fieldErrorsOf } from "@/lib/errors";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { usePreview } from "@/lib/swr/use-preview";
 import { captureSetupSchema, type CaptureMapping } from "@/lib/validations/capture";
+import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
 
 interface Props {
   captureId: string;
@@ -28,18 +29,6 @@ interface ChannelRow {
   note: string | null;
 }
 
-const contextFields: { key: keyof EvaluationContext; label: string; hint: string }[] = [
-  { key: "iscA", label: "Isc (A)", hint: "maximum short-circuit current at the PCC" },
-  { key: "ilA", label: "IL (A)", hint: "maximum demand load current" },
-  { key: "irefA", label: "Iref (A)", hint: "IEC 61000-3-12; blank = measured r.m.s." },
-  { key: "rsce", label: "Rsce", hint: "short-circuit ratio, IEC 61000-3-12" },
-  { key: "ratedPowerW", label: "Rated power (W)", hint: "IEC 61000-3-2 Class C/D" },
-  { key: "lambda", label: "λ (power factor)", hint: "Class C; blank = measured" },
-  { key: "nominalVoltageV", label: "Nominal voltage of V channels (V)", hint: "line-to-neutral as measured" },
-  { key: "busVoltageV", label: "Bus voltage at PCC (V)", hint: "line-to-line; picks the IEEE 519 table" },
-];
-
-const numberOrUndefined = (s: string) => (s.trim() === "" ? undefined : Number(s.replace(",", ".")));
 
 export function MappingForm({ captureId, limitSets, initialMapping, initialLimitSetKey, initialContext, siteFrequencyHz }: Props) {
   const router = useRouter();
@@ -48,12 +37,7 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
   const [sampleInterval, setSampleInterval] = useState(initialMapping.sampleIntervalS?.toString() ?? "");
   const [frequency, setFrequency] = useState(initialMapping.frequencyHz?.toString() ?? String(siteFrequencyHz));
   const [thdMaxOrder, setThdMaxOrder] = useState(String(initialMapping.thdMaxOrder ?? 50));
-  const [limitSetKey, setLimitSetKey] = useState(initialLimitSetKey);
-  const [context, setContext] = useState<Record<string, string>>(
-    Object.fromEntries(contextFields.map((f) => [f.key, initialContext[f.key] != null ? String(initialContext[f.key]) : ""])),
-  );
-  const [phaseConfig, setPhaseConfig] = useState(initialContext.phaseConfig ?? "");
-  const [isGenerator, setIsGenerator] = useState(initialContext.isGenerator ?? false);
+  const contextState = useContextState(initialLimitSetKey, initialContext);
   const [errors, setErrors] = useState<Record<string, string[]>>({});
   const [message, setMessage] = useState<string | null>(null);
   const [busy, setBusy] = useState(false);
@@ -93,12 +77,7 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
         frequencyHz: frequency ? Number(frequency) : undefined,
         thdMaxOrder: Number(thdMaxOrder),
       },
-      limitSetKey,
-      context: {
-        ...Object.fromEntries(contextFields.map((f) => [f.key, numberOrUndefined(context[f.key] ?? "")])),
-        ...(phaseConfig ? { phaseConfig } : {}),
-        ...(isGenerator ? { isGenerator: true } : {}),
-      },
+      ...contextState.payload(),
     };
     const parsed = captureSetupSchema.safeParse(payload);
     if (!parsed.success) {
@@ -220,39 +199,7 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
         </section>
       )}
 
-      <section className="panel space-y-3">
-        <h2>Limit set and context</h2>
-        <div>
-          <label htmlFor="m-limits" className="field-label">Limit set</label>
-          <select id="m-limits" className="field-input" value={limitSetKey} onChange={(e) => setLimitSetKey(e.target.value)}>
-            {limitSets.map((l) => <option key={l.key} value={l.key}>{l.name} ({l.key})</option>)}
-          </select>
-          {err("limitSetKey")}
-        </div>
-        <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
-          {contextFields.map((f) => (
-            <div key={f.key}>
-              <label htmlFor={`ctx-${f.key}`} className="field-label">{f.label}</label>
-              <input id={`ctx-${f.key}`} inputMode="decimal" className="field-input" value={context[f.key] ?? ""} onChange={(e) => setContext((c) => ({ ...c, [f.key]: e.target.value }))} />
-              <p className="mt-0.5 text-2xs text-ink-muted">{f.hint}</p>
-              {err(`context.${f.key}`)}
-            </div>
-          ))}
-          <div>
-            <label htmlFor="ctx-phase" className="field-label">Phase configuration</label>
-            <select id="ctx-phase" className="field-input" value={phaseConfig} onChange={(e) => setPhaseConfig(e.target.value as typeof phaseConfig)}>
-              <option value="">Not stated</option>
-              <option value="single-phase">Single-phase</option>
-              <option value="balanced-three-phase">Balanced three-phase</option>
-              <option value="other">Other</option>
-            </select>
-          </div>
-          <label className="flex items-center gap-2 self-end text-sm">
-            <input type="checkbox" checked={isGenerator} onChange={(e) => setIsGenerator(e.target.checked)} />
-            Power-generation equipment (IEEE 519 note c)
-          </label>
-        </div>
-      </section>
+      <ContextSection state={contextState} limitSets={limitSets} errors={errors} />
 
       {message && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{message}</p>}
       <button type="submit" className="btn-primary" disabled={busy || !data} data-testid="run-analysis">

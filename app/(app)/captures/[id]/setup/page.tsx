@@ -4,7 +4,9 @@ import { getCaptureById, listLimitSetChoices } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
 import { requirePage } from "@/lib/auth/page";
 import { AppError } from "@/lib/errors";
-import { captureMappingSchema } from "@/lib/validations/capture";
+import { IntervalMappingSchema } from "@/lib/intervals/types";
+import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
+import { IntervalMappingForm } from "./interval-mapping-form";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { MappingForm } from "./mapping-form";
 
@@ -21,6 +23,9 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
   const [site, limitSets] = await Promise.all([getSiteById({ id: capture.siteId }), listLimitSetChoices()]);
   const mapping = captureMappingSchema.safeParse(capture.mapping ?? {});
   const context = EvaluationContextSchema.safeParse(capture.context ?? {});
+  const stored = intervalSetupMappingSchema.safeParse(capture.mapping ?? {});
+  const remembered = IntervalMappingSchema.safeParse(site.intervalMapping ?? null);
+  const savedInterval = stored.success ? stored.data.intervalMapping : remembered.success ? remembered.data : null;
   // Prefill from the site: its PCC data and the usual limit set for it.
   const siteDefaults = {
     limitSetKey: site.iscA && site.ilA ? "ieee-519-2014-current" : "iec-61000-3-2-class-a",
@@ -34,7 +39,7 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
   return (
     <div className="space-y-4">
       <div>
-        <h1>Map channels — {capture.title}</h1>
+        <h1>{capture.kind === "interval-log" ? "Map columns" : "Map channels"} — {capture.title}</h1>
         <p className="text-sm text-ink-soft">
           {site.name} · {capture.originalFilename} · {(capture.sizeBytes / 1024 / 1024).toFixed(2)} MB
         </p>
@@ -44,6 +49,15 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
           The last analysis failed: {capture.failureReason}
         </p>
       )}
+      {capture.kind === "interval-log" ? (
+        <IntervalMappingForm
+          captureId={capture.id}
+          limitSets={limitSets}
+          savedMapping={savedInterval}
+          initialLimitSetKey={capture.limitSetKey ?? siteDefaults.limitSetKey}
+          initialContext={capture.context && context.success ? context.data : siteDefaults.context}
+        />
+      ) : (
       <MappingForm
         captureId={capture.id}
         limitSets={limitSets}
@@ -52,6 +66,7 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
         initialContext={capture.context && context.success ? context.data : siteDefaults.context}
         siteFrequencyHz={site.frequencyHz}
       />
+      )}
     </div>
   );
 }
