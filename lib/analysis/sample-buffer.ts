@@ -24,6 +24,19 @@ export class SampleBuffer {
     this.data[this.length++] = value;
   }
 
+  /** Appends the first `count` values of `source` (one copy; grows by doubling). */
+  append(source: Float64Array, count: number): void {
+    if (this.length + count > this.data.length) {
+      let capacity = this.data.length * 2;
+      while (capacity < this.length + count) capacity *= 2;
+      const grown = new Float64Array(capacity);
+      grown.set(this.data.subarray(0, this.length));
+      this.data = grown;
+    }
+    this.data.set(source.subarray(0, count), this.length);
+    this.length += count;
+  }
+
   /** The stored values (a view; trimmed copy when the spare capacity is large). */
   values(): Float64Array {
     return this.length < this.data.length * 0.75 ? this.data.slice(0, this.length) : this.data.subarray(0, this.length);
