@@ -6,10 +6,12 @@ import { readFileSync } from "node:fs";
 import path from "node:path";
 import { eq } from "drizzle-orm";
 import { db, sql } from "@/db/client";
-import { recordReview, registerCapture, saveCaptureSetup, setCaptureStatus } from "@/db/queries/captures";
+import { recordReview, registerCapture, saveCaptureSetup, saveIntervalSetup, setCaptureStatus } from "@/db/queries/captures";
 import { captures, sites, users } from "@/db/schema";
 import { demoCaptures } from "@/db/seed/demo-captures";
 import { processCapture } from "@/lib/captures/process-capture";
+import { inspectIntervalLog } from "@/lib/intervals/inspect-interval-log";
+import { IntervalMappingSchema } from "@/lib/intervals/types";
 import { putObject } from "@/lib/storage/s3";
 
 async function userId(email: string): Promise<string> {
@@ -26,14 +28,22 @@ for (const demo of demoCaptures) {
   if (exists) continue;
   const [site] = await db.select({ id: sites.id }).from(sites).where(eq(sites.name, demo.siteName));
   if (!site) continue;
-  const bytes = readFileSync(path.join("fixtures", "demo", demo.file));
+  const bytes = readFileSync(path.join("fixtures", demo.file));
+  const kind = demo.kind ?? "waveform";
   const capture = await registerCapture({
-    input: { siteId: site.id, kind: "waveform", title: demo.title, filename: demo.file, sizeBytes: bytes.length },
+    input: { siteId: site.id, kind, title: demo.title, filename: path.basename(demo.file), sizeBytes: bytes.length },
     actorId: technician,
   });
   await putObject(capture.s3Key, bytes, "text/csv");
   await setCaptureStatus({ id: capture.id, status: "uploaded", sizeBytes: bytes.length });
-  await saveCaptureSetup({ id: capture.id, setup: { mapping: demo.mapping, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician });
+  if (kind === "interval-log") {
+    const suggested = inspectIntervalLog(bytes.toString("utf8")).suggestion.mapping;
+    if (!suggested) throw new Error(`no column mapping could be suggested for ${demo.file}`);
+    const intervalMapping = IntervalMappingSchema.parse(suggested);
+    await saveIntervalSetup({ id: capture.id, setup: { intervalMapping, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician });
+  } else {
+    await saveCaptureSetup({ id: capture.id, setup: { mapping: demo.mapping ?? { channels: {} }, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician });
+  }
   await processCapture({ captureId: capture.id, actorId: technician });
   const [done] = await db.select({ status: captures.status, reason: captures.failureReason }).from(captures).where(eq(captures.id, capture.id));
   if (done?.status !== "done") throw new Error(`demo capture "${demo.title}" did not analyse: ${done?.reason}`);

@@ -4,11 +4,14 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import type { CaptureMapping } from "@/lib/validations/capture";
 
 export interface DemoCapture {
+  /** Under fixtures/. */
   file: string;
+  kind?: "waveform" | "interval-log";
   siteName: string;
   title: string;
   limitSetKey: string;
-  mapping: CaptureMapping;
+  /** Waveforms: the channel mapping. Interval logs: null = the suggested column mapping. */
+  mapping: CaptureMapping | null;
   context: EvaluationContext;
   /** Signed off by the demo engineer, so the viewer has something to read. */
   approve?: string;
@@ -16,7 +19,7 @@ export interface DemoCapture {
 
 export const demoCaptures: DemoCapture[] = [
   {
-    file: "quillbrook-drives-before-filter.csv",
+    file: "demo/quillbrook-drives-before-filter.csv",
     siteName: "Quillbrook Cold Store — PCC 11 kV",
     title: "Compressor drives at full load — before filter",
     limitSetKey: "ieee-519-2014-current",
@@ -24,7 +27,7 @@ export const demoCaptures: DemoCapture[] = [
     context: { iscA: 8200, ilA: 260, busVoltageV: 11000, nominalVoltageV: 6351 },
   },
   {
-    file: "quillbrook-drives-after-filter.csv",
+    file: "demo/quillbrook-drives-after-filter.csv",
     siteName: "Quillbrook Cold Store — PCC 11 kV",
     title: "Compressor drives at full load — after filter",
     limitSetKey: "ieee-519-2014-current",
@@ -33,7 +36,7 @@ export const demoCaptures: DemoCapture[] = [
     approve: "Filter brings every order and TDD inside the 20–50 band limits. Approved for the utility submission.",
   },
   {
-    file: "bench-b-desktop-psu.csv",
+    file: "demo/bench-b-desktop-psu.csv",
     siteName: "Bench B — product compliance lab",
     title: "Desktop power supply, 180 W rated",
     limitSetKey: "iec-61000-3-2-class-d",
@@ -41,12 +44,23 @@ export const demoCaptures: DemoCapture[] = [
     context: { ratedPowerW: 180, nominalVoltageV: 230, phaseConfig: "single-phase" },
   },
   {
-    file: "bench-b-heater-controller.csv",
+    file: "demo/bench-b-heater-controller.csv",
     siteName: "Bench B — product compliance lab",
     title: "Heater controller, 1.8 kW",
     limitSetKey: "iec-61000-3-2-class-a",
     mapping: { channels: {}, thdMaxOrder: 40 },
     context: { nominalVoltageV: 230, phaseConfig: "single-phase" },
     approve: "Class A, all orders within limits.",
+  },
+
+  {
+    file: "intervals/week-10min-3ch.csv",
+    kind: "interval-log",
+    siteName: "Harrowgate Water Pumping Station No. 3",
+    title: "Drive 2 feeder, one week of 10-minute values",
+    limitSetKey: "ieee-519-2014-current",
+    mapping: null,
+    // Logged on the drive-2 feeder; IL and Isc are the feeder values the utility agreed to for this check.
+    context: { iscA: 2400, ilA: 60, busVoltageV: 480 },
   },
 ];

@@ -39,6 +39,9 @@ const routes: RouteCase[] = [
   { method: "POST", path: "/api/captures/:capture/uploaded", allowed: UPLOAD },
   { method: "GET", path: "/api/captures/:capture/preview", allowed: UPLOAD },
   { method: "PUT", path: "/api/captures/:capture/setup", allowed: UPLOAD, body: {} },
+  // :capture is a waveform record: an allowed caller is told so (409), nothing else happens.
+  { method: "GET", path: "/api/captures/:capture/interval-preview", allowed: UPLOAD },
+  { method: "PUT", path: "/api/captures/:capture/interval-setup", allowed: UPLOAD, body: {} },
   // An allowed caller would start a real run, so this one goes to a capture that does not exist (404).
   { method: "POST", path: "/api/captures/:missing/analyze", allowed: UPLOAD },
   { method: "GET", path: "/api/captures/:capture/charts", allowed: ALL },

@@ -1,0 +1,95 @@
+import { readFileSync } from "node:fs";
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { analyses, evaluations, sites } from "@/db/schema";
+import { Client, signedIn } from "../support/http";
+
+let tech: Client;
+let siteId: string;
+
+beforeAll(async () => {
+  tech = await signedIn("technician");
+  const list = (await (await tech.request("GET", "/api/sites")).json()) as { sites: { id: string; name: string }[] };
+  siteId = list.sites.find((s) => s.name.startsWith("Harrowgate"))!.id;
+});
+
+async function uploadLog(file: string): Promise<string> {
+  const bytes = readFileSync(file);
+  const res = await tech.request("POST", "/api/captures", { siteId, kind: "interval-log", title: `Log ${Date.now()}`, filename: "log.csv", sizeBytes: bytes.length });
+  expect(res.status).toBe(201);
+  const { capture, uploadUrl } = (await res.json()) as { capture: { id: string }; uploadUrl: string };
+  expect((await fetch(uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } })).status).toBe(200);
+  expect((await tech.request("POST", `/api/captures/${capture.id}/uploaded`)).status).toBe(200);
+  return capture.id;
+}
+
+async function evaluate(id: string): Promise<{ status: string; failureReason: string | null }> {
+  expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+  const deadline = Date.now() + 60_000;
+  while (Date.now() < deadline) {
+    const { capture } = (await (await tech.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string; failureReason: string | null } };
+    if (capture.status === "done" || capture.status === "failed") return capture;
+    await new Promise((r) => setTimeout(r, 250));
+  }
+  throw new Error("the interval log was not evaluated within 60 s");
+}
+
+describe("interval logs through the queue", () => {
+  it("suggests a mapping, remembers it for the site, and judges a week with the IEEE 519 percentile rules", async () => {
+    const id = await uploadLog("fixtures/intervals/week-10min-3ch.csv");
+    const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as {
+      preview: { suggestion: { mapping: { timestamp: { column: string }; columns: { column: string; order?: number }[] } } };
+    };
+    const mapping = preview.preview.suggestion.mapping;
+    expect(mapping.timestamp.column).toBe("Timestamp");
+    // The "max" columns are not averages and are left out of the suggestion.
+    expect(mapping.columns.some((c) => c.column.includes(" max "))).toBe(false);
+
+    const setup = await tech.request("PUT", `/api/captures/${id}/interval-setup`, {
+      intervalMapping: mapping,
+      limitSetKey: "ieee-519-2014-current",
+      context: { iscA: 2400, ilA: 60, busVoltageV: 480 },
+    });
+    expect(setup.status).toBe(200);
+    const [site] = await db.select().from(sites).where(eq(sites.id, siteId));
+    expect(site?.intervalMapping).toEqual(expect.objectContaining({ timestamp: expect.objectContaining({ column: "Timestamp" }) }));
+
+    const done = await evaluate(id);
+    expect(done).toMatchObject({ status: "done", failureReason: null });
+    const [evaluation] = await db.select().from(evaluations).where(eq(evaluations.captureId, id));
+    const rules = evaluation!.result.timeRules?.map((r) => r.label) ?? [];
+    expect(rules.length).toBeGreaterThan(0);
+    // A week of 10-minute rows: 1,008 values; the 95th-percentile rule over them decides order 5.
+    const h5 = evaluation!.result.rows.find((r) => r.order === 5)!;
+    expect(h5.rowRules?.some((r) => r.verdict !== "not-evaluated")).toBe(true);
+    const [analysis] = await db.select().from(analyses).where(eq(analyses.captureId, id));
+    expect(analysis?.trends?.[0]?.timestampsMs.length).toBe(1008);
+  });
+
+  it("ends a log with a malformed row as failed, naming the line", async () => {
+    const id = await uploadLog("fixtures/intervals/error-malformed-row.csv");
+    const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as {
+      preview: { suggestion: { mapping: unknown } };
+    };
+    await tech.request("PUT", `/api/captures/${id}/interval-setup`, {
+      intervalMapping: preview.preview.suggestion.mapping,
+      limitSetKey: "ieee-519-2014-current",
+      context: { iscA: 2400, ilA: 60, busVoltageV: 480 },
+    });
+    const done = await evaluate(id);
+    expect(done.status).toBe("failed");
+    expect(done.failureReason).toMatch(/line \d+/);
+  });
+
+  it("refuses an interval mapping that names no columns, with a field error", async () => {
+    const id = await uploadLog("fixtures/intervals/week-10min-3ch.csv");
+    const res = await tech.request("PUT", `/api/captures/${id}/interval-setup`, {
+      intervalMapping: { timestamp: { column: "Timestamp" }, columns: [] },
+      limitSetKey: "ieee-519-2014-current",
+      context: {},
+    });
+    expect(res.status).toBe(422);
+    expect(JSON.stringify(await res.json())).toContain("intervalMapping.columns");
+  });
+});
