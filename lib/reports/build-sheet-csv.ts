@@ -1,5 +1,6 @@
 import { formatWhen, summariseContext } from "./format";
 import { channelBlocks, type SheetReport } from "./sheet-report";
+import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
 
 function cell(value: string | number | null | undefined): string {
   if (value === null || value === undefined) return "";
@@ -13,8 +14,10 @@ const line = (cells: Array<string | number | null | undefined>) => cells.map(cel
 
 /**
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
- * verdict), a blank line, then one row per channel and order with
- * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, reason.
+ * verdict, time rules and their basis), a blank line, then one row per channel and order with
+ * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (rule id),
+ * decided_by_label, table_limit (before a rule's multiplier), reason. When a time rule decided a
+ * row, measured/limit/percent/margin are that rule's statistic and limit × multiplier.
  * Numbers keep eight significant figures (no display rounding). O(channels × orders).
  *
  * @example
@@ -39,13 +42,18 @@ export function buildSheetCsv(sheet: SheetReport): string {
     ["Context", summariseContext(r.context)],
     ["Overall verdict", r.verdict],
   ];
+  if (r.timeBasis) head.push(...describeTimeBasis(r.timeBasis).map(([k, v]): [string, string] => [`Time basis: ${k.toLowerCase()}`, v]));
+  for (const rule of r.timeRules ?? []) {
+    const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${rule.reason ?? "no reason given"}`;
+    head.push([`Time rule ${rule.rule}`, `${rule.label} (limit × ${rule.multiplier}) — ${status}`]);
+  }
   const blocks = channelBlocks(r);
   const lines = head.map(line);
   lines.push("");
-  lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "reason"]));
+  lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
   for (const block of blocks) {
     for (const row of block.rows) {
-      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, row.percentOfLimit, row.margin, row.verdict, row.reason ?? ""]));
+      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, row.percentOfLimit, row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
     }
   }
   return lines.join("\r\n") + "\r\n";

@@ -15,6 +15,7 @@ import {
 } from "./format";
 import { safetyText } from "./safety-text";
 import { channelBlocks, type SheetReport } from "./sheet-report";
+import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
 export interface SheetPdfOptions {
   /** Deflate page streams (default true). Tests turn it off to read the text. */
@@ -67,8 +68,10 @@ const footerSpace = 36;
 
 /**
  * The sheet as an A4 PDF: summary with the overall verdict, limit set with standard edition and
- * revision, band and context, the safety caution, per channel the aggregates, a vector spectrum bar
- * chart with limit marks and the per-order table, notes, and the sign-off history.
+ * revision, band and context, the time rules (applied or why not, and the record they used), the
+ * safety caution, per channel the aggregates, a vector spectrum bar chart with limit marks and the
+ * per-order table (with the table limit and the rule that decided each verdict), notes, and the
+ * sign-off history.
  * Resolves to the whole file in memory (a sheet is a few pages). O(channels × orders).
  *
  * @example
@@ -157,10 +160,29 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["Sign-off state", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState],
   ]);
 
+  const blocks = channelBlocks(result);
   heading("Evaluation context");
   const context = describeContext(result.context);
   if (context.length > 0) keyValues(context);
   else text("No context values were given.", { continued: false });
+
+  if (result.timeRules && result.timeRules.length > 0) {
+    heading("Time rules");
+    doc.font("Helvetica").fontSize(8.5).fillColor(colours.soft);
+    text(
+      `Each order is judged by every rule below (measured statistic against table limit × multiplier); the worst decides its verdict${result.channel ? ` — shown for channel ${result.channel}` : ""}.`,
+    );
+    doc.moveDown(0.3);
+    if (result.timeBasis) keyValues(describeTimeBasis(result.timeBasis));
+    const worst = blocks[0];
+    for (const rule of timeRuleLines(result.timeRules, worst?.rows ?? result.rows, worst?.aggregates ?? result.aggregates)) {
+      const status =
+        rule.status === "applied"
+          ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.reason ? `; ${rule.reason}` : ""}`
+          : `NOT EVALUATED: ${rule.reason ?? "no reason given"}`;
+      keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}. ${status}`]]);
+    }
+  }
 
   // Safety caution near the top so it is read with the verdict.
   ensure(50);
@@ -174,7 +196,6 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   doc.y = cautionY + cautionH + 14;
 
   // --- per channel ---------------------------------------------------------------------------
-  const blocks = channelBlocks(result);
   if (blocks.length > 1) {
     heading("Channels");
     keyValues(blocks.map((b) => [b.channel, `${verdictLabel(b.verdict)} — band ${b.band.label ?? "none"}`]));
@@ -251,8 +272,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   }
 
   function aggregateTable(block: Pick<ChannelCompliance, "aggregates">) {
-    const widths = [95, 80, 80, 50, 70, 140];
-    const head = ["Aggregate", "Measured", "Limit", "Unit", "% of limit", "Verdict"];
+    const widths = [90, 70, 70, 45, 60, 80, 100];
+    const head = ["Aggregate", "Measured", "Limit", "Unit", "% of limit", "Verdict", "Decided by"];
     ensure(30);
     doc.moveDown(0.3);
     let y = doc.y;
@@ -272,6 +293,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: a.unit, width: widths[3]! },
           { text: formatPercent(a.percentOfLimit), width: widths[4]!, align: "right" },
           { text: verdictLabel(a.verdict), width: widths[5]!, colour: v.fg, bold: a.verdict === "fail" },
+          { text: decidedByLabel(a) || "—", width: widths[6]!, colour: colours.soft },
         ],
         y,
       );
@@ -282,9 +304,10 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   }
 
   function orderTable(rows: ComplianceRow[]) {
-    const widths = [45, 80, 80, 50, 70, 75, 115];
-    const head = ["Order", "Measured", "Limit", "Unit", "% of limit", "Margin", "Verdict"];
-    const right = new Set([1, 2, 4, 5]);
+    // Table limit: before a time rule's multiplier; Decided by: the rule whose result is shown.
+    const widths = [34, 56, 56, 56, 34, 54, 54, 68, 103];
+    const head = ["Order", "Measured", "Limit", "Table limit", "Unit", "% of limit", "Margin", "Verdict", "Decided by"];
+    const right = new Set([1, 2, 3, 5, 6]);
     const drawHead = (y: number) => {
       doc.rect(margin, y - 2, width, 12).fill(colours.idleLight);
       tableRow(head.map((h, i) => ({ text: h, width: widths[i] as number, align: right.has(i) ? "right" : "left", colour: colours.soft, bold: true })), y, 7.5);
@@ -305,10 +328,12 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: `h${row.order}`, width: widths[0]!, bold: true },
           { text: formatNumber(row.measured), width: widths[1]!, align: "right" },
           { text: formatNumber(row.limit), width: widths[2]!, align: "right" },
-          { text: row.unit, width: widths[3]! },
-          { text: formatPercent(row.percentOfLimit), width: widths[4]!, align: "right" },
-          { text: formatMargin(row.margin), width: widths[5]!, align: "right" },
-          { text: verdictLabel(row.verdict), width: widths[6]!, colour: v.fg, bold: row.verdict === "fail" },
+          { text: formatNumber(tableLimitOf(row)), width: widths[3]!, align: "right", colour: colours.soft },
+          { text: row.unit, width: widths[4]! },
+          { text: formatPercent(row.percentOfLimit), width: widths[5]!, align: "right" },
+          { text: formatMargin(row.margin), width: widths[6]!, align: "right" },
+          { text: verdictLabel(row.verdict), width: widths[7]!, colour: v.fg, bold: row.verdict === "fail" },
+          { text: decidedByLabel(row) || "—", width: widths[8]!, colour: colours.soft },
         ],
         y,
         8,

@@ -2,6 +2,7 @@
 
 import useSWR from "swr";
 import type { Quantity } from "@/lib/analysis/types";
+import type { DecimatedSeries } from "@/lib/reports/decimate-series";
 import { fetcher } from "./fetcher";
 
 /** GET /api/captures/:id/charts (or the share link's charts route) as the client receives it. */
@@ -15,6 +16,8 @@ export interface ChartDataDto {
     unit: string;
     harmonics: { order: number; rms: number | null; percentOfFundamental: number | null }[];
     series: { rms: number[]; thdPercent: number[]; fundamentalRms: number[] } | null;
+    /** Per-order window series of the judged orders, at most 600 points each (absent from older servers). */
+    harmonicSeries?: DecimatedSeries | null;
   }[];
 }
 

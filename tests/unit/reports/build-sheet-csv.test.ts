@@ -8,7 +8,8 @@ const sheet = makeSheet("iec-61000-3-2-class-a", {
 });
 const csv = buildSheetCsv(sheet);
 const lines = csv.trimEnd().split("\r\n");
-const headerAt = lines.indexOf("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,reason");
+const HEADER = "channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason";
+const headerAt = lines.indexOf(HEADER);
 const rows = lines.slice(headerAt + 1).map((l) => l.split(","));
 
 describe("sheet CSV", () => {
@@ -33,6 +34,35 @@ describe("sheet CSV", () => {
     const h5 = rows.find((r) => r[1] === "5")!;
     expect(h5[7]).toBe("pass");
     expect(Number(h5[5])).toBeCloseTo(87.719, 2); // 1.0 / 1.14
+  });
+
+  test("without per-window series the capture mean decides and the table limit equals the limit", () => {
+    const h3 = rows.find((r) => r[1] === "3")!;
+    expect(h3.slice(8, 11)).toEqual(["snapshot", "capture mean", "2.3"]);
+    expect(csv).toMatch(/Time rule smoothed-average,"?Average of 1\.5 s smoothed values[^\r\n]*not evaluated: /);
+    expect(csv).toContain("Time basis: coverage,no time rule applied");
+  });
+
+  test("a time rule that decides names itself, and a multiplied limit keeps the table limit beside it (IEC 61000-3-2 Table 1, clause 6.2)", () => {
+    // 10 windows of 0.2 s = 2 s ≥ the 1.5 s minimum. h3 steady 2.5 A: average 2.5 > 2.30 A fails.
+    // h7 0.3 A with one 3.0 A window: smoothed peak 0.3 + 2.7/α (α = 8.011) = 0.637 A against
+    // 1.5 × 0.77 = 1.155 A (55 %) is closer to its limit than the average 0.334 A / 0.77 A (43 %).
+    const timed = makeSheet("iec-61000-3-2-class-a", { channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 5: 1.0, 7: 0.33 } }] }, {}, {
+      "I (A)": { 3: Array(10).fill(2.5), 7: [...Array(9).fill(0.3), 3.0] },
+    });
+    const text = buildSheetCsv(timed).trimEnd().split("\r\n");
+    const body = text.slice(text.indexOf(HEADER) + 1).map((l) => l.split(","));
+    const h3 = body.find((r) => r[1] === "3")!;
+    expect(h3[7]).toBe("fail");
+    expect(h3.slice(8, 11)).toEqual(["smoothed-average", "mean 1.5 s smoothed", "2.3"]);
+    const h7 = body.find((r) => r[1] === "7")!;
+    expect(h7[7]).toBe("pass");
+    expect(h7[8]).toBe("smoothed-max");
+    expect(h7[9]).toBe("max 1.5 s smoothed ×1.5");
+    expect(Number(h7[3])).toBeCloseTo(1.155, 9);
+    expect(Number(h7[10])).toBeCloseTo(0.77, 9);
+    expect(Number(h7[2])).toBeCloseTo(0.637, 3);
+    expect(text).toContain("Time basis: coverage,every time rule applied; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit");
   });
 
   test("below-threshold rows carry their reason, quoted", () => {

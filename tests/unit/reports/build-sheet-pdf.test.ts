@@ -20,12 +20,31 @@ describe("sheet PDF", () => {
     const lines = text.split("\n");
     const h3 = lines.indexOf("h3");
     expect(h3).toBeGreaterThan(0);
-    expect(lines.slice(h3, h3 + 7)).toEqual(["h3", "2.5", "2.3", "A", "108.7 %", "-0.2", "Fail"]);
+    // columns: order, measured, limit, table limit, unit, % of limit, margin, verdict, decided by
+    expect(lines.slice(h3, h3 + 9)).toEqual(["h3", "2.5", "2.3", "2.3", "A", "108.7 %", "-0.2", "Fail", "capture mean"]);
+    expect(text).toContain("Table limit");
+    expect(text).toContain("Decided by");
+    // Without per-window series the smoothed rules cannot be applied; the PDF says why.
+    expect(text).toContain("Time rules");
+    expect(text).toMatch(/NOT EVALUATED: the analysis has no per-window order series/);
     expect(text).toContain("Below threshold");
     expect(text).toContain("qualified engineer");
     expect(text).toContain("Approved by Teodor Vance");
     expect(text).toContain("h3 excess confirmed");
     expect(text).toContain("page 1 of");
+  });
+
+  test("a time-rule-decided row prints its rule and the table limit under the multiplied one (IEC 61000-3-2 Table 1, clause 6.2)", async () => {
+    const timed = makeSheet("iec-61000-3-2-class-a", { channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 5: 1.0, 7: 0.33 } }] }, {}, {
+      "I (A)": { 3: Array(10).fill(2.5), 7: [...Array(9).fill(0.3), 3.0] },
+    });
+    const lines = pdfText(await buildSheetPdf(timed, { compress: false })).split("\n");
+    const h7 = lines.indexOf("h7");
+    // 0.637 A smoothed peak against 1.5 × 0.77 A = 1.155 A (hand calculation, α = 8.011).
+    expect(lines.slice(h7, h7 + 9)).toEqual(["h7", "0.637", "1.155", "0.77", "A", "55.2 %", "+0.518", "Pass", "max 1.5 s smoothed ×1.5"]);
+    const h3 = lines.indexOf("h3");
+    expect(lines[h3 + 8]).toBe("mean 1.5 s smoothed");
+    expect(lines.join("\n")).toContain("applied over 10 values");
   });
 
   test("leaves review comments out when asked (share links)", async () => {

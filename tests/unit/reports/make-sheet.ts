@@ -1,11 +1,13 @@
 // A loaded sheet built by hand around a real evaluation, for the report builder tests.
+import type { AnalysisResult } from "@/lib/analysis/types";
 import { complianceForCli } from "@/lib/compliance/compliance-for-cli";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { SheetReport } from "@/lib/reports/sheet-report";
 import { makeAnalysis, type AnalysisSpec } from "../compliance/make-analysis";
 
-export function makeSheet(key: string, spec: AnalysisSpec, context: EvaluationContext = {}): SheetReport {
-  const result = complianceForCli(makeAnalysis(spec), key, context).compliance;
+/** `series`: per channel name, per-window r.m.s. by order (all channels get the same number of windows). */
+export function makeSheet(key: string, spec: AnalysisSpec, context: EvaluationContext = {}, series?: Record<string, Record<number, number[]>>): SheetReport {
+  const result = complianceForCli(withSeries(makeAnalysis(spec), series), key, context).compliance;
   return {
     capture: {
       id: "00000000-0000-4000-8000-000000000001",
@@ -31,5 +33,19 @@ export function makeSheet(key: string, spec: AnalysisSpec, context: EvaluationCo
       { action: "submitted", comment: "", createdAt: new Date("2026-03-02T10:05:00Z"), actorName: "Priya Okonkwo-Hale" },
       { action: "approved", comment: "h3 excess confirmed, filter ordered", createdAt: new Date("2026-03-02T11:00:00Z"), actorName: "Teodor Vance" },
     ],
+  };
+}
+
+/** Adds per-window order series (orders not given stay at their capture value in every window). */
+function withSeries(analysis: AnalysisResult, series?: Record<string, Record<number, number[]>>): AnalysisResult {
+  if (!series) return analysis;
+  const count = Math.max(...Object.values(series).flatMap((byOrder) => Object.values(byOrder).map((v) => v.length)));
+  return {
+    ...analysis,
+    window: { ...analysis.window, count },
+    channels: analysis.channels.map((c) => ({
+      ...c,
+      harmonicSeries: c.harmonics.map((h) => series[c.name]?.[h.order] ?? (h.rms === null ? null : Array.from({ length: count }, () => h.rms as number))),
+    })),
   };
 }

@@ -1,12 +1,14 @@
 "use client";
 
-import { useMemo, useState } from "react";
+import { Fragment, useMemo, useState } from "react";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { formatMargin, formatNumber, formatPercent } from "@/lib/reports/format";
+import { decidedByLabel, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 type SortKey = "order" | "measured" | "limit" | "percentOfLimit" | "margin" | "verdict";
-const columns: Array<{ key: SortKey | null; label: string; numeric?: boolean }> = [
+type Column = { key: SortKey | null; label: string; numeric?: boolean; rules?: boolean };
+const allColumns: Column[] = [
   { key: "order", label: "Order" },
   { key: "measured", label: "Measured", numeric: true },
   { key: "limit", label: "Limit", numeric: true },
@@ -14,6 +16,8 @@ const columns: Array<{ key: SortKey | null; label: string; numeric?: boolean }> 
   { key: "percentOfLimit", label: "% of limit", numeric: true },
   { key: "margin", label: "Margin", numeric: true },
   { key: "verdict", label: "Verdict" },
+  { key: null, label: "Decided by", rules: true },
+  { key: null, label: "Rules", rules: true },
 ];
 // Worst first when sorting by verdict ascending.
 const verdictRank: Record<string, number> = { fail: 0, "not-evaluated": 1, pass: 2, "below-threshold": 3 };
@@ -29,9 +33,23 @@ function compare(a: ComplianceRow, b: ComplianceRow, key: SortKey): number {
   return x - y || a.order - b.order;
 }
 
-/** The per-order table of one channel: sortable by column, failing orders first on request, hideable non-evaluated rows. */
+/**
+ * The per-order table of one channel: sortable by column, failing orders first on request, hideable
+ * non-evaluated rows. With time rules, each row names the rule that decided it, shows the table limit
+ * beside a multiplied one, and opens to every rule's result for that order.
+ */
 export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; channelName: string }) {
   const [sort, setSort] = useState<{ key: SortKey; dir: 1 | -1 }>({ key: "order", dir: 1 });
+  const [open, setOpen] = useState<Set<number>>(() => new Set());
+  const hasRules = rows.some((r) => r.rowRules && r.rowRules.length > 0);
+  const columns = hasRules ? allColumns : allColumns.filter((c) => !c.rules);
+  const toggleOpen = (order: number) =>
+    setOpen((current) => {
+      const next = new Set(current);
+      if (next.has(order)) next.delete(order);
+      else next.add(order);
+      return next;
+    });
   const [failingFirst, setFailingFirst] = useState(false);
   const [evaluatedOnly, setEvaluatedOnly] = useState(false);
   const failing = rows.filter((r) => r.verdict === "fail").length;
@@ -68,7 +86,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
         </label>
       </div>
       <div className="overflow-x-auto">
-        <table className="table-base min-w-[40rem]" data-testid="order-table">
+        <table className={`table-base ${hasRules ? "min-w-[54rem]" : "min-w-[40rem]"}`} data-testid="order-table">
           <thead>
             <tr>
               {columns.map((c) => (
@@ -90,33 +108,118 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
             </tr>
           </thead>
           <tbody className="tabular-nums">
-            {shown.map((r) => (
-              <tr key={r.order} data-testid={`order-row-${r.order}`} data-verdict={r.verdict} className={r.verdict === "fail" ? "bg-fail-light/60" : undefined}>
-                <td className="font-semibold">h{r.order}</td>
-                <td className="text-right">{formatNumber(r.measured)}</td>
-                <td className="text-right">{formatNumber(r.limit)}</td>
-                <td className="text-ink-soft">{r.unit}</td>
-                <td className={`text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
-                <td className="text-right">{formatMargin(r.margin)}</td>
-                <td>
-                  <VerdictBadge verdict={r.verdict} />
-                  {r.reason && r.verdict !== "pass" && (
-                    <details className="mt-1 max-w-xs text-xs text-ink-soft">
-                      <summary className="cursor-pointer select-none text-ink-muted">why</summary>
-                      <span data-testid={`reason-${r.order}`}>{r.reason}</span>
-                    </details>
+            {shown.map((r) => {
+              const tableLimit = tableLimitIfDifferent(r);
+              const expanded = open.has(r.order);
+              return (
+                <Fragment key={r.order}>
+                  <tr data-testid={`order-row-${r.order}`} data-verdict={r.verdict} data-decided-by={r.decidedBy} className={r.verdict === "fail" ? "bg-fail-light/60" : undefined}>
+                    <td className="font-semibold">h{r.order}</td>
+                    <td className="text-right">{formatNumber(r.measured)}</td>
+                    <td className="text-right">
+                      {formatNumber(r.limit)}
+                      {tableLimit !== null && (
+                        <span className="block text-xs text-ink-muted" data-testid={`table-limit-${r.order}`}>
+                          table {formatNumber(tableLimit)}
+                        </span>
+                      )}
+                    </td>
+                    <td className="text-ink-soft">{r.unit}</td>
+                    <td className={`text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
+                    <td className="text-right">{formatMargin(r.margin)}</td>
+                    <td>
+                      <VerdictBadge verdict={r.verdict} />
+                      {r.reason && r.verdict !== "pass" && (
+                        <details className="mt-1 max-w-xs text-xs text-ink-soft">
+                          <summary className="cursor-pointer select-none text-ink-muted">why</summary>
+                          <span data-testid={`reason-${r.order}`}>{r.reason}</span>
+                        </details>
+                      )}
+                    </td>
+                    {hasRules && (
+                      <td className="whitespace-nowrap text-ink-soft" data-testid={`decided-by-${r.order}`}>
+                        {decidedByLabel(r) || "—"}
+                      </td>
+                    )}
+                    {hasRules && (
+                      <td>
+                        {r.rowRules && r.rowRules.length > 0 ? (
+                          <button
+                            type="button"
+                            onClick={() => toggleOpen(r.order)}
+                            aria-expanded={expanded}
+                            aria-controls={`rules-${channelName}-${r.order}`}
+                            className="inline-flex items-center gap-1 whitespace-nowrap text-xs text-ink-soft hover:text-copper"
+                            data-testid={`rules-toggle-${r.order}`}
+                          >
+                            <span aria-hidden>{expanded ? "▾" : "▸"}</span>
+                            {r.rowRules.length} rule{r.rowRules.length === 1 ? "" : "s"}
+                          </button>
+                        ) : (
+                          <span className="text-ink-muted">—</span>
+                        )}
+                      </td>
+                    )}
+                  </tr>
+                  {hasRules && expanded && r.rowRules && (
+                    <tr id={`rules-${channelName}-${r.order}`} className="bg-paper-sunk/60" data-testid={`rules-detail-${r.order}`}>
+                      <td colSpan={columns.length} className="py-2">
+                        <RuleResults row={r} />
+                      </td>
+                    </tr>
                   )}
-                </td>
-              </tr>
-            ))}
+                </Fragment>
+              );
+            })}
             {shown.length === 0 && (
               <tr>
-                <td colSpan={7} className="py-6 text-center text-ink-muted">No rows to show with these filters.</td>
+                <td colSpan={columns.length} className="py-6 text-center text-ink-muted">No rows to show with these filters.</td>
               </tr>
             )}
           </tbody>
         </table>
       </div>
+    </div>
+  );
+}
+
+/** Every rule's judgement of one order: statistic, limit × multiplier, % of limit, verdict and reason. */
+function RuleResults({ row }: { row: ComplianceRow }) {
+  return (
+    <div className="space-y-1.5 text-xs">
+      <p className="text-ink-muted">
+        Rules for h{row.order}
+        {row.decidedBy ? ` — decided by ${decidedByLabel(row)}` : ""}. Limits in {row.unit}; a multiplied limit shows the table limit in brackets.
+      </p>
+      <ul className="space-y-1.5">
+        {(row.rowRules ?? []).map((result) => (
+          <li
+            key={result.rule}
+            className={`rounded border px-2 py-1.5 ${result.rule === row.decidedBy ? "border-copper/60 bg-paper-raised" : "border-line bg-paper-raised/70"}`}
+            data-testid={`rule-result-${result.rule}`}
+            data-verdict={result.verdict}
+          >
+            <div className="flex flex-wrap items-center gap-x-3 gap-y-1">
+              <VerdictBadge verdict={result.verdict} />
+              <span className="font-medium text-ink">{result.label}</span>
+              {result.rule === row.decidedBy && <span className="text-copper">decides</span>}
+            </div>
+            <div className="mt-0.5 grid gap-x-4 text-ink-soft sm:grid-cols-[minmax(0,2fr)_repeat(3,minmax(0,1fr))]">
+              <span>{result.statistic || "—"}</span>
+              <span>measured {formatNumber(result.measured)} {result.unit}</span>
+              <span>limit {formatRuleLimit(result)} {result.unit}</span>
+              <span>{formatPercent(result.percentOfLimit)} of limit</span>
+            </div>
+            {result.reason && <p className="mt-0.5 text-ink-muted">{result.reason}</p>}
+            {result.valueCount !== undefined && result.valueCount > 0 && (
+              <p className="text-ink-muted">
+                over {result.valueCount} value{result.valueCount === 1 ? "" : "s"}
+                {result.periodCount ? ` in ${result.periodCount} period${result.periodCount === 1 ? "" : "s"}` : ""}
+              </p>
+            )}
+          </li>
+        ))}
+      </ul>
     </div>
   );
 }

@@ -1,19 +1,22 @@
 "use client";
 
 import { useMemo, useState } from "react";
+import { OrderTrendChart } from "@/app/_components/charts/order-trend-chart";
 import { SpectrumChart, type SpectrumMode } from "@/app/_components/charts/spectrum-chart";
 import { TrendChart } from "@/app/_components/charts/trend-chart";
 import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { formatOrders, groupReasons } from "@/lib/reports/format";
+import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
 import { OrderTable } from "./order-table";
+import { TimeRulesPanel } from "./time-rules-panel";
 
 function channelsOf(result: ComplianceResult): ChannelCompliance[] {
   if (result.channels.length > 0) return result.channels;
-  return [{ channel: result.channel ?? "—", phase: null, band: result.band, rows: result.rows, aggregates: result.aggregates, conditions: result.conditions, verdict: result.verdict, derived: { notes: [] } }];
+  return [{ channel: result.channel ?? "—", phase: null, band: result.band, rows: result.rows, aggregates: result.aggregates, conditions: result.conditions, verdict: result.verdict, derived: { notes: [] }, ...(result.timeRules ? { timeRules: result.timeRules } : {}) }];
 }
 
 /**
@@ -25,6 +28,7 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
   const [selected, setSelected] = useState(channels[0]?.channel ?? "");
   const channel = channels.find((c) => c.channel === selected) ?? channels[0]!;
   const reasons = groupReasons(channel.rows);
+  const rules = useMemo(() => timeRuleLines(channel.timeRules, channel.rows, channel.aggregates), [channel]);
   return (
     <div className="space-y-4" data-testid="sheet-body">
       {channels.length > 1 && (
@@ -59,7 +63,9 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
 
       <AggregateCards aggregates={channel.aggregates} />
 
-      <SheetCharts chartsUrl={chartsUrl} channel={channel} ilA={result.context.ilA} />
+      <SheetCharts chartsUrl={chartsUrl} channel={channel} result={result} smoothing={rules.some((r) => r.interval === "1.5 s smoothed")} />
+
+      <TimeRulesPanel key={`rules-${channel.channel}`} rules={rules} basis={result.timeBasis} channelName={channel.channel} />
 
       <section className="panel p-0 sm:p-0" aria-labelledby="orders-heading">
         <OrderTable key={channel.channel} rows={channel.rows} channelName={channel.channel} />
@@ -94,10 +100,20 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
   );
 }
 
-function SheetCharts({ chartsUrl, channel, ilA }: { chartsUrl: string; channel: ChannelCompliance; ilA?: number }) {
+function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult; smoothing: boolean }) {
+  const ilA = result.context.ilA;
   const { data, error, isLoading } = useCaptureCharts(chartsUrl);
   const [mode, setMode] = useState<SpectrumMode>("amperes");
   const chartChannel = data?.channels.find((c) => c.name === channel.channel) ?? data?.channels[0];
+  const orderSeries = chartChannel?.name === channel.channel ? chartChannel.harmonicSeries ?? null : null;
+  const trendRows = useMemo(() => {
+    const available = new Set(orderSeries?.orders.map((o) => o.order) ?? []);
+    return channel.rows.filter((r) => r.limit !== null && available.has(r.order));
+  }, [channel.rows, orderSeries]);
+  // Start with the order closest to (or furthest over) its limit.
+  const worst = trendRows.reduce<(typeof trendRows)[number] | undefined>((best, r) => ((r.percentOfLimit ?? -1) > (best?.percentOfLimit ?? -1) ? r : best), undefined);
+  const [chosenOrder, setChosenOrder] = useState<number | null>(null);
+  const trendRow = trendRows.find((r) => r.order === chosenOrder) ?? worst;
   return (
     <section className="grid gap-4 lg:grid-cols-2" aria-label="Charts" data-testid="sheet-charts">
       <div className="panel min-w-0 lg:col-span-2">
@@ -137,6 +153,52 @@ function SheetCharts({ chartsUrl, channel, ilA }: { chartsUrl: string; channel: 
           <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
         ) : (
           <div className="h-44 animate-pulse rounded bg-paper-sunk" />
+        )}
+      </div>
+      <div className="panel min-w-0 lg:col-span-2" data-testid="order-trend">
+        <div className="mb-2 flex flex-wrap items-center justify-between gap-2">
+          <h2>Order over the record with its limits</h2>
+          {trendRows.length > 0 && trendRow && (
+            <label className="flex items-center gap-2 text-sm">
+              <span className="text-ink-soft">Order</span>
+              <select
+                className="field-input w-auto py-1"
+                value={trendRow.order}
+                onChange={(e) => setChosenOrder(Number(e.target.value))}
+                data-testid="order-trend-select"
+              >
+                {trendRows.map((r) => (
+                  <option key={r.order} value={r.order}>
+                    h{r.order} · {r.verdict === "fail" ? "fail" : r.verdict === "pass" ? "pass" : r.verdict.replace("-", " ")}
+                  </option>
+                ))}
+              </select>
+            </label>
+          )}
+        </div>
+        {error ? (
+          <p className="text-sm text-fail">Charts could not be loaded: {error.message}</p>
+        ) : !data ? (
+          <div className="h-48 animate-pulse rounded bg-paper-sunk" />
+        ) : !orderSeries || !trendRow ? (
+          <p className="text-sm text-ink-muted">No per-window order values were kept for this channel, so no order trend can be drawn.</p>
+        ) : (
+          <>
+            <OrderTrendChart
+              series={orderSeries}
+              row={trendRow}
+              windowDurationS={data.windowDurationS}
+              context={result.context}
+              irefA={channel.derived.irefA}
+              showSmoothed={smoothing}
+            />
+            <p className="mt-1 text-xs text-ink-muted" data-testid="order-trend-caption">
+              h{trendRow.order}: {orderSeries.windowCount} window value{orderSeries.windowCount === 1 ? "" : "s"}
+              {orderSeries.windowsPerPoint > 1 ? ` drawn as ${orderSeries.orders[0]?.rms.length ?? 0} points (largest of each ${orderSeries.windowsPerPoint} windows)` : ""}
+              {smoothing ? "; the 1.5 s smoothed line is the IEC 61000-4-7 filter over every window" : ""}. Solid copper: table limit; dashed red: limit × a rule's multiplier.
+              {trendRow.decidedBy ? ` Verdict ${trendRow.verdict} decided by ${decidedByLabel(trendRow)}.` : ""}
+            </p>
+          </>
         )}
       </div>
     </section>

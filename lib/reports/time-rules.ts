@@ -1,0 +1,147 @@
+// Time-rule wording shared by the sheet, the share page, the PDF and the CSV: which rule decided a
+// verdict, what each rule measures, and what the rules were evaluated on.
+import type { ComplianceAggregate, ComplianceRow, RowRuleResult, TimeBasis, TimeRuleSummary } from "@/lib/compliance/result";
+import { formatNumber } from "./format";
+
+/** A rule of the revision as the time-rules panel lists it. */
+export interface TimeRuleLine extends TimeRuleSummary {
+  /** What the rule takes, e.g. "99th percentile (nearest rank) of 3 s values per 24 h period (worst period)"; "" when unknown. */
+  statistic: string;
+  /** The values the statistic is taken over, e.g. "1.5 s smoothed", "3 s", "10 min". */
+  interval: string | null;
+  /** Accumulation period, e.g. "24 h", or "whole record". */
+  accumulation: string | null;
+}
+
+// The evaluator writes the statistic as "<what> of <values> values <over …>" (describeTimeRuleStatistic).
+const STATISTIC_PATTERN = /^(.+?) of (.+?) values(?: (?:per (.+?) period.*|over the observation period))?$/;
+
+/** Pieces of an evaluator statistic text: the kind ("average", "99th percentile"), values and period. */
+export function parseStatistic(statistic: string): { what: string; interval: string; accumulation: string } | null {
+  const m = STATISTIC_PATTERN.exec(statistic.trim());
+  if (!m) return null;
+  return { what: m[1]!.replace(/ \(nearest rank\)$/, ""), interval: m[2]!.replace(/^10\/12-cycle window$/, "window"), accumulation: m[3] ?? "whole record" };
+}
+
+/**
+ * The channel's time rules with the statistic each one takes (read from the first row result that
+ * carries it), for the panel and the PDF. Empty when the revision has no time rules.
+ *
+ * @example timeRuleLines(channel.timeRules, channel.rows, channel.aggregates)[0].interval // "1.5 s smoothed"
+ */
+export function timeRuleLines(summaries: TimeRuleSummary[] | undefined, rows: ComplianceRow[], aggregates: ComplianceAggregate[] = []): TimeRuleLine[] {
+  if (!summaries) return [];
+  const results = [...rows, ...aggregates].flatMap((r) => r.rowRules ?? []);
+  return summaries.map((summary) => {
+    const statistic = results.find((r) => r.rule === summary.rule && r.statistic)?.statistic ?? "";
+    const parsed = parseStatistic(statistic);
+    return { ...summary, statistic, interval: parsed?.interval ?? null, accumulation: parsed?.accumulation ?? null };
+  });
+}
+
+/** "×1.5" — the multiplier as printed next to a limit. */
+export function formatMultiplier(multiplier: number): string {
+  return `×${Number(multiplier.toPrecision(4))}`;
+}
+
+const WHAT_SHORT: Array<[RegExp, (m: RegExpExecArray) => string]> = [
+  [/^average$/, () => "mean"],
+  [/^maximum$/, () => "max"],
+  [/^(\d+(?:\.\d+)?)(?:st|nd|rd|th) percentile$/, (m) => `p${m[1]}`],
+];
+
+/**
+ * A short name of a rule for the "decided by" column, built from what the evaluator measured:
+ * "mean 1.5 s smoothed", "max 1.5 s smoothed ×1.5", "p99 3 s / 24 h ×2", "capture mean", "threshold".
+ *
+ * @example shortRuleLabel({ rule: "smoothed-max", statistic: "maximum of 1.5 s smoothed values over the observation period", multiplier: 1.5, label: "…" }) // "max 1.5 s smoothed ×1.5"
+ */
+export function shortRuleLabel(rule: Pick<RowRuleResult, "rule" | "statistic" | "multiplier" | "label"> | undefined, id?: string): string {
+  const ruleId = rule?.rule ?? id;
+  if (ruleId === "snapshot") return "capture mean";
+  if (ruleId === "threshold") return "threshold";
+  if (!rule) return ruleId ?? "—";
+  const parsed = parseStatistic(rule.statistic);
+  if (!parsed) return rule.label || rule.rule;
+  let what = parsed.what;
+  for (const [re, short] of WHAT_SHORT) {
+    const m = re.exec(what);
+    if (m) {
+      what = short(m);
+      break;
+    }
+  }
+  const period = parsed.accumulation === "whole record" ? "" : ` / ${parsed.accumulation}`;
+  const times = rule.multiplier === 1 ? "" : ` ${formatMultiplier(rule.multiplier)}`;
+  return `${what} ${parsed.interval}${period}${times}`;
+}
+
+/** The result of the rule that decided a row or aggregate, when it decided by a rule. */
+export function decidingRule(row: Pick<ComplianceRow, "decidedBy" | "rowRules">): RowRuleResult | undefined {
+  if (!row.decidedBy || row.decidedBy === "threshold") return undefined;
+  return row.rowRules?.find((r) => r.rule === row.decidedBy);
+}
+
+/** "decided by" text of a row: the short rule name, or "" when the revision has no time rules. */
+export function decidedByLabel(row: Pick<ComplianceRow, "decidedBy" | "rowRules">): string {
+  if (!row.decidedBy) return "";
+  return shortRuleLabel(decidingRule(row), row.decidedBy);
+}
+
+/**
+ * The table limit of a row (before a rule's multiplier or an allowance), or null when it equals the
+ * applied limit or is unknown — the sheet shows it only where the two differ.
+ */
+export function tableLimitIfDifferent(row: Pick<ComplianceRow, "limit" | "decidedBy" | "rowRules">): number | null {
+  const decider = decidingRule(row);
+  const table = decider?.tableLimit ?? null;
+  if (table === null || row.limit === null) return null;
+  return Math.abs(table - row.limit) <= 1e-9 * Math.max(Math.abs(table), Math.abs(row.limit)) ? null : table;
+}
+
+/** The table limit of a row: the deciding rule's, else the applied limit (snapshot rows use the table limit as is). */
+export function tableLimitOf(row: Pick<ComplianceRow, "limit" | "decidedBy" | "rowRules">): number | null {
+  return decidingRule(row)?.tableLimit ?? row.limit;
+}
+
+function formatDuration(seconds: number): string {
+  if (seconds >= 86_400) return `${Number((seconds / 86_400).toPrecision(3))} days`;
+  if (seconds >= 3600) return `${Number((seconds / 3600).toPrecision(3))} h`;
+  if (seconds >= 60) return `${Number((seconds / 60).toPrecision(3))} min`;
+  return `${Number(seconds.toPrecision(3))} s`;
+}
+
+const COVERAGE: Record<TimeBasis["coverage"], string> = {
+  all: "every time rule applied",
+  partial: "some time rules applied",
+  none: "no time rule applied",
+};
+
+/**
+ * What the time rules were evaluated on, as label/value pairs:
+ * [["Record", "0.4 s of 10/12-cycle windows"], ["Values", "2 × 0.2 s"], ["Coverage", "…"]].
+ */
+export function describeTimeBasis(basis: TimeBasis): Array<[string, string]> {
+  const source = basis.source === "windows" ? "10/12-cycle analysis windows" : basis.source === "interval-log" ? "interval log" : "no per-value series";
+  const out: Array<[string, string]> = [["Record", `${formatDuration(basis.durationS)} of ${source}`]];
+  out.push(["Values", basis.valueS !== null ? `${basis.valueCount} × ${formatDuration(basis.valueS)}` : String(basis.valueCount)]);
+  if (basis.startMs !== null) out.push(["Starts", `${new Date(basis.startMs).toISOString().slice(0, 16).replace("T", " ")} UTC`]);
+  const fallback = basis.snapshotFallback
+    ? "; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
+    : "; a rule that cannot be evaluated leaves its rows not evaluated";
+  out.push(["Coverage", `${COVERAGE[basis.coverage]}${fallback}`]);
+  return out;
+}
+
+/** A rule result's limit as "0.918 (0.612 ×1.5)", or just the limit when the multiplier is 1. */
+export function formatRuleLimit(result: Pick<RowRuleResult, "limit" | "tableLimit" | "multiplier">): string {
+  if (result.limit === null) return "—";
+  if (result.tableLimit === null) return formatNumber(result.limit);
+  const scaled = result.tableLimit * result.multiplier;
+  const plain = Math.abs(result.limit - scaled) <= 1e-9 * Math.max(Math.abs(scaled), 1e-12);
+  if (plain && result.multiplier === 1) return formatNumber(result.limit);
+  // An allowance (POHC, 200 % relaxation) raised the limit beyond table × multiplier.
+  return plain
+    ? `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} ${formatMultiplier(result.multiplier)})`
+    : `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} with an allowance)`;
+}

@@ -1,0 +1,81 @@
+import { describe, expect, test } from "vitest";
+import { decimateSeries } from "@/lib/reports/decimate-series";
+import { decidedByLabel, describeTimeBasis, formatRuleLimit, parseStatistic, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
+import { makeSheet } from "./make-sheet";
+
+describe("time-rule wording", () => {
+  test.each([
+    // Statistic texts as the evaluator writes them (describeTimeRuleStatistic).
+    ["average of 1.5 s smoothed values over the observation period", 1, "mean 1.5 s smoothed"],
+    ["maximum of 1.5 s smoothed values over the observation period", 1.5, "max 1.5 s smoothed ×1.5"],
+    ["99th percentile (nearest rank) of 3 s values per 24 h period (worst period)", 2, "p99 3 s / 24 h ×2"],
+    ["95th percentile (nearest rank) of 10 min values per 7 days period (worst period)", 1, "p95 10 min / 7 days"],
+    ["average of 10/12-cycle window values over the observation period", 1, "mean window"],
+  ])("%s ×%d → %s", (statistic, multiplier, expected) => {
+    expect(shortRuleLabel({ rule: "r", statistic, multiplier, label: "Rule" })).toBe(expected);
+  });
+
+  test("snapshot and threshold deciders have fixed names; an unknown statistic falls back to the label", () => {
+    expect(shortRuleLabel(undefined, "snapshot")).toBe("capture mean");
+    expect(shortRuleLabel(undefined, "threshold")).toBe("threshold");
+    expect(shortRuleLabel({ rule: "x", statistic: "", multiplier: 1, label: "Custom rule" })).toBe("Custom rule");
+    expect(parseStatistic("99th percentile (nearest rank) of 3 s values per 24 h period (worst period)")).toEqual({ what: "99th percentile", interval: "3 s", accumulation: "24 h" });
+  });
+
+  test("a limit shows its table limit and multiplier, or the allowance that raised it", () => {
+    expect(formatRuleLimit({ limit: 1.155, tableLimit: 0.77, multiplier: 1.5 })).toBe("1.155 (0.77 ×1.5)");
+    expect(formatRuleLimit({ limit: 2.3, tableLimit: 2.3, multiplier: 1 })).toBe("2.3");
+    // POHC allowance: 1.5 × the limit for odd 21–39 (IEC 61000-3-2 clause 6.2, from memory).
+    expect(formatRuleLimit({ limit: 0.1607, tableLimit: 0.1071, multiplier: 1 })).toBe("0.1607 (0.1071 with an allowance)");
+  });
+});
+
+describe("rows decided by time rules (IEC 61000-3-2 Class A Table 1, clause 6.2)", () => {
+  const sheet = makeSheet("iec-61000-3-2-class-a", { channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 5: 1.0, 7: 0.33 } }] }, {}, {
+    "I (A)": { 3: Array(10).fill(2.5), 7: [...Array(9).fill(0.3), 3.0] },
+  });
+  const result = sheet.evaluation!.result;
+  const row = (h: number) => result.rows.find((r) => r.order === h)!;
+
+  test("decided-by and table limit where it differs from the applied limit", () => {
+    expect(decidedByLabel(row(3))).toBe("mean 1.5 s smoothed");
+    expect(tableLimitIfDifferent(row(3))).toBeNull();
+    expect(decidedByLabel(row(7))).toBe("max 1.5 s smoothed ×1.5");
+    expect(tableLimitIfDifferent(row(7))).toBeCloseTo(0.77, 12);
+    expect(decidedByLabel(row(9))).toBe("threshold");
+  });
+
+  test("the panel lines carry the statistic, values and accumulation of each rule", () => {
+    const lines = timeRuleLines(result.timeRules, result.rows, result.aggregates);
+    expect(lines.map((l) => [l.rule, l.status, l.interval, l.accumulation, l.valueCount])).toEqual([
+      ["smoothed-average", "applied", "1.5 s smoothed", "whole record", 10],
+      ["smoothed-max", "applied", "1.5 s smoothed", "whole record", 10],
+    ]);
+    expect(describeTimeBasis(result.timeBasis!)).toEqual([
+      ["Record", "2 s of 10/12-cycle analysis windows"],
+      ["Values", "10 × 0.2 s"],
+      ["Coverage", "every time rule applied; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"],
+    ]);
+  });
+});
+
+describe("decimateSeries", () => {
+  test("keeps every window when there are few, and smooths over all of them", () => {
+    const d = decimateSeries([[10, 10, 10], [1, 1, 1]], [2], 0.2);
+    expect(d.windowsPerPoint).toBe(1);
+    expect(d.orders[0]!.rms).toEqual([1, 1, 1]);
+    expect(d.orders[0]!.smoothed).toEqual([1, 1, 1]); // first-value start: a steady input stays steady
+    expect(d.fundamental).toEqual([10, 10, 10]);
+  });
+
+  test("groups long series to at most maxPoints, keeping the largest value of each group (common practice for envelopes)", () => {
+    const n = 1300;
+    const h3 = Array.from({ length: n }, (_, k) => (k === 777 ? 5 : 1));
+    const d = decimateSeries([Array(n).fill(10), null, h3], [3, 5], 0.2, 600);
+    expect(d.windowsPerPoint).toBe(3);
+    expect(d.orders.map((o) => o.order)).toEqual([3]); // order 5 has no series
+    expect(d.orders[0]!.rms.length).toBe(Math.ceil(n / 3));
+    expect(Math.max(...d.orders[0]!.rms)).toBe(5);
+    expect(d.windowCount).toBe(n);
+  });
+});
