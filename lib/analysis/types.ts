@@ -93,6 +93,8 @@ export interface AnalysisResult {
   sequence?: SequenceSet[];
   /** Where the sample interval came from. */
   sampleIntervalSource?: "time-column" | "preamble" | "option";
+  /** First cycles of each channel, when `options.keepWaveformCycles` was given to the file path. */
+  waveform?: WaveformExcerpt;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -130,6 +132,23 @@ export interface AnalysisOptions {
   factorKExponent?: number;
   /** Keep per-window rms of every order in `ChannelResult.harmonicSeries` (for charts). */
   includeOrderSeries?: boolean;
+  /**
+   * The fundamental is re-measured per segment of this many samples (default 2^18 ≈ 10 s at
+   * 25.6 kS/s; the last segment takes the remainder, so records under two segments use one
+   * estimate); windows stay whole cycles of their segment's fundamental. At least 4096.
+   */
+  frequencySegmentSamples?: number;
+  /**
+   * Return the first N cycles of every channel (≤ 600 points per channel, evenly decimated) as
+   * `AnalysisResult.waveform`, for a waveform chart. Used by the file (streaming) path.
+   */
+  keepWaveformCycles?: number;
+}
+
+/** The first cycles of each channel, for a chart: time from the first sample, values in A or V. */
+export interface WaveformExcerpt {
+  timeS: number[];
+  channels: { name: string; unit: string; values: number[] }[];
 }
 
 /** IEC 61000-4-7 grouping of one order, aggregated over windows (r.m.s. mean). */

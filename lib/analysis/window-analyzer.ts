@@ -1,0 +1,432 @@
+// Per-window analysis and the whole-capture aggregation, fed one window at a time: the in-memory
+// path hands it windows cut from arrays, the streaming path windows cut from a ring buffer.
+import { summarizeWindows } from "./aggregate";
+import { getFft } from "./get-fft";
+import { computeIndices } from "./indices";
+import { pairPhases } from "./pair-phases";
+import { pairPower } from "./power";
+import { applyResample, planResample, type ResamplePlan } from "./resample";
+import { sequenceComponents } from "./sequence";
+import type { AnalysisOptions, ChannelResult, HarmonicGroupValue, HarmonicValue, PhaseLabel, PowerPhase, Quantity, SequenceSet } from "./types";
+
+const DC_WARNING_FRACTION = 0.02;
+
+/** Where a window's samples come from. */
+export interface WindowSource {
+  /**
+   * Writes samples `first .. first + span − 1` of channel `channel` (in A or V, scale applied) into
+   * `target`. Indices before the record's start or past its end are folded back by `period`
+   * samples (the window spans whole cycles), the way the in-memory path always did.
+   */
+  copyWindow(channel: number, first: number, span: number, period: number, target: Float64Array): void;
+}
+
+/** Shape of the windows, fixed for a capture. */
+export interface WindowShape {
+  /** Cycles per window: 10 at 50 Hz, 12 at 60 Hz. */
+  cycles: number;
+  /** Points each window is resampled to (a power of two). */
+  points: number;
+  /** Orders stored per window (≥ 50). */
+  orders: number;
+  maxOrder: number;
+  resolvableOrder: number;
+  thdMaxOrder: number;
+  /** Samples copied before a window's first sample for the interpolator. */
+  padding: number;
+  /** Samples copied per window (window + both paddings). */
+  span: number;
+}
+
+export interface AnalyzerChannel {
+  name: string;
+  quantity: Quantity;
+  phase: PhaseLabel | null;
+  scale: number;
+}
+
+interface ChannelState extends AnalyzerChannel {
+  points: Float64Array;
+  spectrum: Float64Array;
+  /** Per window × order (0..orders) r.m.s.; order 0 holds the signed DC. */
+  orderRms: Float64Array;
+  phasorSumRe: Float64Array;
+  phasorSumIm: Float64Array;
+  /** Sums of squares over windows of group, subgroup, interharmonic group and subgroup per order. */
+  groupSq: Float64Array;
+  subgroupSq: Float64Array;
+  interGroupSq: Float64Array;
+  interSubgroupSq: Float64Array;
+  windowRms: Float64Array;
+  windowThd: Float64Array;
+  windowPeak: Float64Array;
+  windowRe: Float64Array;
+  windowIm: Float64Array;
+}
+
+/** What {@link WindowAnalyzer.finish} returns: the channel results, power and sequence sets. */
+export interface WindowAggregate {
+  channels: ChannelResult[];
+  power: { phases: PowerPhase[]; total: { activePowerW: number; apparentPowerVA: number; truePowerFactor: number } | null };
+  sequence: SequenceSet[];
+}
+
+function grow(values: Float64Array, length: number): Float64Array {
+  if (values.length >= length) return values;
+  const grown = new Float64Array(Math.max(length, 2 * values.length));
+  grown.set(values);
+  return grown;
+}
+
+/**
+ * Analyses consecutive windows of a capture and aggregates them: resample each window to 2^k
+ * points with a band-limited kernel (harmonic h on bin cycles·h), FFT, per-order r.m.s. and
+ * phase, IEC 61000-4-7 groups/subgroups, power and sequence sums; then r.m.s. mean, maximum and
+ * 95th percentile over windows. Keeps only per-window numbers (≈ 51 per channel per window), so
+ * memory grows with the window count, not with the samples.
+ *
+ * Complexity per window O(points·taps + points·log points) per channel.
+ *
+ * @example
+ * const analyzer = new WindowAnalyzer(channels, 0, shape, 300);
+ * analyzer.addWindow(0, 1280, 1280 + 2 * shape.padding, source);
+ * const { channels: results } = analyzer.finish(options, warnings);
+ */
+export class WindowAnalyzer {
+  /** Windows added so far. */
+  count = 0;
+  private readonly channels: ChannelState[];
+  private readonly stride: number;
+  private readonly fft: ReturnType<typeof getFft>;
+  private readonly scratch: Float64Array;
+  private plan: ResamplePlan | undefined;
+  private readonly pairs: ReturnType<typeof pairPhases>["pairs"];
+  private readonly sets: ReturnType<typeof pairPhases>["sets"];
+  private readonly pairActive: Float64Array;
+  private readonly pairProduct: { re: number; im: number }[];
+  private readonly sequenceSq: { pos: Float64Array; neg: Float64Array; zero: Float64Array }[];
+
+  /**
+   * @param reference index of the channel whose fundamental phase is the zero of all phases.
+   * @param recordSamples samples in the record (windows' peaks stop at its end).
+   * @param expectedWindows initial capacity of the per-window arrays (they grow when needed).
+   */
+  constructor(
+    channels: AnalyzerChannel[],
+    private readonly reference: number,
+    private readonly shape: WindowShape,
+    private readonly recordSamples: number,
+    expectedWindows: number,
+  ) {
+    const { points, orders } = shape;
+    const stride = orders + 1;
+    const capacity = Math.max(1, Math.ceil(expectedWindows));
+    this.stride = stride;
+    this.fft = getFft(points);
+    this.scratch = new Float64Array(shape.span);
+    this.channels = channels.map((c) => ({
+      ...c,
+      points: new Float64Array(points),
+      spectrum: new Float64Array(2 * points),
+      orderRms: new Float64Array(capacity * stride),
+      phasorSumRe: new Float64Array(stride),
+      phasorSumIm: new Float64Array(stride),
+      groupSq: new Float64Array(stride),
+      subgroupSq: new Float64Array(stride),
+      interGroupSq: new Float64Array(stride),
+      interSubgroupSq: new Float64Array(stride),
+      windowRms: new Float64Array(capacity),
+      windowThd: new Float64Array(capacity),
+      windowPeak: new Float64Array(capacity),
+      windowRe: new Float64Array(stride),
+      windowIm: new Float64Array(stride),
+    }));
+    const { pairs, sets } = pairPhases(this.channels);
+    this.pairs = pairs;
+    this.sets = sets;
+    this.pairActive = new Float64Array(pairs.length);
+    this.pairProduct = pairs.map(() => ({ re: 0, im: 0 }));
+    this.sequenceSq = sets.map(() => ({ pos: new Float64Array(stride), neg: new Float64Array(stride), zero: new Float64Array(stride) }));
+  }
+
+  private reserve(windows: number): void {
+    for (const ch of this.channels) {
+      if (ch.windowRms.length >= windows) continue;
+      ch.orderRms = grow(ch.orderRms, windows * this.stride);
+      ch.windowRms = grow(ch.windowRms, windows);
+      ch.windowThd = grow(ch.windowThd, windows);
+      ch.windowPeak = grow(ch.windowPeak, windows);
+    }
+  }
+
+  /**
+   * Analyses one window of `windowSamples` samples (fractional) starting at sample `start`
+   * (fractional), reading its samples from `source`.
+   *
+   * Complexity O(channels · (points·taps + points·log points)).
+   */
+  addWindow(start: number, windowSamples: number, source: WindowSource): void {
+    const { channels, fft, scratch, reference, pairs, sets, pairActive, pairProduct, sequenceSq, stride } = this;
+    const { cycles, points, resolvableOrder, thdMaxOrder, padding, span } = this.shape;
+    const n = this.recordSamples;
+    const binScale = Math.SQRT2 / points;
+    const halfPoints = points / 2;
+    const binSq = (spectrum: Float64Array, k: number): number =>
+      k <= 0 || k >= halfPoints ? 0 : (spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2) * binScale * binScale;
+    const first = Math.floor(start) - padding;
+    const plan = planResample(start - first, windowSamples / points, points, this.plan);
+    this.plan = plan;
+    const period = Math.round(windowSamples);
+    const w = this.count;
+    this.reserve(w + 1);
+    const windowFirst = Math.floor(start);
+    const windowEnd = Math.min(n, Math.floor(start + windowSamples));
+    let referenceAngle = 0;
+    for (let ci = 0; ci < channels.length; ci++) {
+      const ch = channels[ci]!;
+      // The window with padding; beyond the record the source continues it periodically (it spans whole cycles).
+      source.copyWindow(ci, first, span, period, scratch);
+      let peak = 0;
+      for (let j = windowFirst; j < windowEnd; j++) {
+        const v = Math.abs(scratch[j - first]!);
+        if (v > peak) peak = v;
+      }
+      applyResample(plan, scratch, ch.points);
+      let sumSquares = 0;
+      for (let m = 0; m < points; m++) sumSquares += ch.points[m]! ** 2;
+      const windowRms = Math.sqrt(sumSquares / points);
+      fft.realTransform(ch.spectrum, ch.points);
+      const spec = ch.spectrum;
+      const base = w * stride;
+      ch.orderRms[base] = spec[0]! / points;
+      ch.windowRe[0] = spec[0]! / points;
+      ch.windowIm[0] = 0;
+      for (let h = 1; h <= resolvableOrder; h++) {
+        const k = cycles * h;
+        const re = spec[2 * k]! * binScale;
+        const im = spec[2 * k + 1]! * binScale;
+        ch.windowRe[h] = re;
+        ch.windowIm[h] = im;
+        ch.orderRms[base + h] = Math.hypot(re, im);
+        // IEC 61000-4-7 §4.2 (reference sheet, from memory): group = bins k±(N/2−1) plus half of k±N/2.
+        const halfCycles = cycles / 2;
+        let group = 0.5 * (binSq(spec, k - halfCycles) + binSq(spec, k + halfCycles));
+        for (let i = -halfCycles + 1; i < halfCycles; i++) group += binSq(spec, k + i);
+        ch.groupSq[h]! += group;
+        ch.subgroupSq[h]! += binSq(spec, k - 1) + binSq(spec, k) + binSq(spec, k + 1);
+        let inter = 0;
+        let interSub = 0;
+        for (let i = 1; i < cycles; i++) {
+          const sq = binSq(spec, k + i);
+          inter += sq;
+          if (i >= 2 && i <= cycles - 2) interSub += sq;
+        }
+        ch.interGroupSq[h]! += inter;
+        ch.interSubgroupSq[h]! += interSub;
+      }
+      ch.windowRms[w] = windowRms;
+      ch.windowPeak[w] = peak;
+      let harmonicSq = 0;
+      for (let h = 2; h <= Math.min(thdMaxOrder, resolvableOrder); h++) harmonicSq += ch.orderRms[base + h]! ** 2;
+      const fundamental = ch.orderRms[base + 1]!;
+      ch.windowThd[w] = fundamental > 0 ? (100 * Math.sqrt(harmonicSq)) / fundamental : 0;
+      if (ci === reference) referenceAngle = Math.atan2(ch.windowIm[1]!, ch.windowRe[1]!);
+    }
+    // Phases relative to the reference fundamental: rotate order h by −h·φ_ref.
+    for (const ch of channels) {
+      for (let h = 1; h <= resolvableOrder; h++) {
+        const c = Math.cos(-h * referenceAngle);
+        const s = Math.sin(-h * referenceAngle);
+        ch.phasorSumRe[h]! += ch.windowRe[h]! * c - ch.windowIm[h]! * s;
+        ch.phasorSumIm[h]! += ch.windowRe[h]! * s + ch.windowIm[h]! * c;
+      }
+    }
+    for (let p = 0; p < pairs.length; p++) {
+      const v = channels[pairs[p]!.voltage]!;
+      const i = channels[pairs[p]!.current]!;
+      let sum = 0;
+      for (let m = 0; m < points; m++) sum += v.points[m]! * i.points[m]!;
+      pairActive[p]! += sum / points;
+      // V1·conj(I1)
+      pairProduct[p]!.re += v.windowRe[1]! * i.windowRe[1]! + v.windowIm[1]! * i.windowIm[1]!;
+      pairProduct[p]!.im += v.windowIm[1]! * i.windowRe[1]! - v.windowRe[1]! * i.windowIm[1]!;
+    }
+    for (let s = 0; s < sets.length; s++) {
+      const [a, b, c] = [channels[sets[s]!.a]!, channels[sets[s]!.b]!, channels[sets[s]!.c]!];
+      const acc = sequenceSq[s]!;
+      for (let h = 1; h <= resolvableOrder; h++) {
+        const seq = sequenceComponents(
+          { re: a.windowRe[h]!, im: a.windowIm[h]! },
+          { re: b.windowRe[h]!, im: b.windowIm[h]! },
+          { re: c.windowRe[h]!, im: c.windowIm[h]! },
+        );
+        acc.pos[h]! += seq.positive.re ** 2 + seq.positive.im ** 2;
+        acc.neg[h]! += seq.negative.re ** 2 + seq.negative.im ** 2;
+        acc.zero[h]! += seq.zero.re ** 2 + seq.zero.im ** 2;
+      }
+    }
+    this.count = w + 1;
+  }
+
+  /**
+   * Aggregates the windows added so far into channel results (r.m.s. mean, maximum, 95th
+   * percentile per order; indices; per-window series), power per phase pair and sequence sets.
+   * Pushes DC-offset warnings onto `warnings`.
+   *
+   * Complexity O(channels · orders · W log W) for the percentiles.
+   */
+  finish(options: AnalysisOptions, warnings: string[]): WindowAggregate {
+    const { channels, stride, pairs, sets, pairActive, pairProduct, sequenceSq } = this;
+    const { orders, maxOrder, resolvableOrder, thdMaxOrder } = this.shape;
+    const windowCount = this.count;
+  const eddyLossRatio = options.factorKEddyLossRatio ?? 0.1;
+  const exponent = options.factorKExponent ?? 1.7;
+  const meanRoot = (sumSq: number): number => Math.sqrt(sumSq / windowCount);
+  const results: ChannelResult[] = channels.map((ch) => {
+    const unit = ch.quantity === "current" ? "A" : "V";
+    const aggregated = new Float64Array(stride);
+    const harmonics: HarmonicValue[] = [];
+    for (let h = 1; h <= orders; h++) {
+      if (h > resolvableOrder) {
+        if (h <= maxOrder) harmonics.push({ order: h, rms: null, phaseDeg: null, percentOfFundamental: null, max: null, p95: null });
+        continue;
+      }
+      const summary = summarizeWindows(ch.orderRms, h, stride, windowCount);
+      aggregated[h] = summary.rmsMean;
+      if (h <= maxOrder) {
+        harmonics.push({
+          order: h,
+          rms: summary.rmsMean,
+          phaseDeg: (Math.atan2(ch.phasorSumIm[h]!, ch.phasorSumRe[h]!) * 180) / Math.PI,
+          percentOfFundamental: 0,
+          max: summary.max,
+          p95: summary.p95,
+        });
+      }
+    }
+    const fundamentalRms = aggregated[1]!;
+    for (const value of harmonics) {
+      if (value.rms !== null) value.percentOfFundamental = fundamentalRms > 0 ? (100 * value.rms) / fundamentalRms : 0;
+    }
+    const indices = computeIndices(aggregated, {
+      resolvableOrder,
+      thdMaxOrder,
+      eddyLossRatio,
+      exponent,
+      ...(ch.quantity === "current" && options.ilA !== undefined ? { ilA: options.ilA } : {}),
+      ...(ch.quantity === "current" && options.irefA !== undefined ? { irefA: options.irefA } : {}),
+    });
+    let dcSum = 0;
+    let crestSum = 0;
+    let sumSquares = 0;
+    let peak = 0;
+    for (let w = 0; w < windowCount; w++) {
+      dcSum += ch.orderRms[w * stride]!;
+      const rms = ch.windowRms[w]!;
+      sumSquares += rms * rms;
+      crestSum += rms > 0 ? ch.windowPeak[w]! / rms : 0;
+      if (ch.windowPeak[w]! > peak) peak = ch.windowPeak[w]!;
+    }
+    const rms = meanRoot(sumSquares);
+    const dc = dcSum / windowCount;
+    if (Math.abs(dc) > DC_WARNING_FRACTION * fundamentalRms) {
+      warnings.push(`channel ${ch.name}: DC offset of ${dc.toPrecision(3)} ${unit} (${((100 * Math.abs(dc)) / fundamentalRms).toFixed(1)} % of the fundamental)`);
+    }
+    const groups: HarmonicGroupValue[] = [];
+    for (let h = 1; h <= maxOrder; h++) {
+      const ok = h <= resolvableOrder;
+      groups.push({
+        order: h,
+        groupRms: ok ? meanRoot(ch.groupSq[h]!) : null,
+        subgroupRms: ok ? meanRoot(ch.subgroupSq[h]!) : null,
+        interharmonicGroupRms: ok ? meanRoot(ch.interGroupSq[h]!) : null,
+        interharmonicSubgroupRms: ok ? meanRoot(ch.interSubgroupSq[h]!) : null,
+      });
+    }
+    const result: ChannelResult = {
+      name: ch.name,
+      quantity: ch.quantity,
+      unit,
+      phase: ch.phase,
+      rms,
+      dc,
+      fundamentalRms,
+      thdPercent: indices.thdPercent,
+      thdMaxOrder: indices.thdMaxOrder,
+      crestFactor: crestSum / windowCount,
+      kFactor: indices.kFactor,
+      harmonics,
+      thd40Percent: indices.thd40Percent,
+      thd50Percent: indices.thd50Percent,
+      factorK: indices.factorK,
+      factorKParameters: { eddyLossRatio, exponent, maxOrder: indices.kMaxOrder },
+      peak,
+      scale: ch.scale,
+      groups,
+      series: {
+        rms: Array.from(ch.windowRms.subarray(0, windowCount)),
+        thdPercent: Array.from(ch.windowThd.subarray(0, windowCount)),
+        fundamentalRms: Array.from({ length: windowCount }, (_, w) => ch.orderRms[w * stride + 1]!),
+      },
+    };
+    if (indices.pwhdPercent !== null) result.pwhdPercent = indices.pwhdPercent;
+    if (ch.quantity === "current") {
+      result.thcA = indices.thcA;
+      if (indices.pwhcA !== null) result.pwhcA = indices.pwhcA;
+      if (indices.tddPercent !== undefined) result.tddPercent = indices.tddPercent;
+      if (indices.thcPercentOfIref !== undefined) result.thcPercentOfIref = indices.thcPercentOfIref;
+      if (indices.pwhcPercentOfIref !== undefined) result.pwhcPercentOfIref = indices.pwhcPercentOfIref;
+    }
+    if (options.includeOrderSeries) {
+      result.harmonicSeries = Array.from({ length: maxOrder }, (_, i) =>
+        i + 1 > resolvableOrder ? null : Array.from({ length: windowCount }, (_, w) => ch.orderRms[w * stride + i + 1]!),
+      );
+    }
+    return result;
+  });
+
+  const phases: PowerPhase[] = pairs.map((pair, p) => {
+    const v = results[pair.voltage]!;
+    const i = results[pair.current]!;
+    const power = pairPower({
+      activePowerW: pairActive[p]! / windowCount,
+      voltageRms: v.rms,
+      currentRms: i.rms,
+      currentFundamentalRms: i.fundamentalRms,
+      fundamentalProduct: pairProduct[p]!,
+    });
+    return { voltage: v.name, current: i.name, phase: pair.phase, ...power };
+  });
+  let total: WindowAggregate["power"]["total"] = null;
+  if (phases.length >= 2) {
+    const activePowerW = phases.reduce((s, p) => s + p.activePowerW, 0);
+    const apparentPowerVA = phases.reduce((s, p) => s + p.apparentPowerVA, 0);
+    total = { activePowerW, apparentPowerVA, truePowerFactor: apparentPowerVA > 0 ? activePowerW / apparentPowerVA : 0 };
+  }
+
+  const sequence: SequenceSet[] = sets.map((set, s) => {
+    const acc = sequenceSq[s]!;
+    const orderValues = [];
+    for (let h = 1; h <= maxOrder; h++) {
+      const ok = h <= resolvableOrder;
+      orderValues.push({
+        order: h,
+        positiveRms: ok ? meanRoot(acc.pos[h]!) : null,
+        negativeRms: ok ? meanRoot(acc.neg[h]!) : null,
+        zeroRms: ok ? meanRoot(acc.zero[h]!) : null,
+      });
+    }
+    const positive = meanRoot(acc.pos[1]!);
+    return {
+      quantity: set.quantity,
+      unit: set.quantity === "current" ? "A" : "V",
+      channels: [results[set.a]!.name, results[set.b]!.name, results[set.c]!.name],
+      unbalancePercent: positive > 0 ? (100 * meanRoot(acc.neg[1]!)) / positive : 0,
+      orders: orderValues,
+    };
+  });
+
+
+    return { channels: results, power: { phases, total }, sequence };
+  }
+}
