@@ -193,11 +193,12 @@ function expandOrders(row: { from: number; to: number; parity: OrderRow["parity"
 function missingHarmonic(h: number, env: ChannelEnv): string | null {
   const harmonic = env.harmonics.get(h);
   if (harmonic && harmonic.rms !== null) return null;
+  // The reasons name no order (the row does), so the sheet can list each distinct reason once.
   if (h > env.maxResolvableOrder || (harmonic && harmonic.rms === null)) {
-    return `order ${h} is above Nyquist (highest resolvable order ${env.maxResolvableOrder})`;
+    return `above Nyquist (highest resolvable order ${env.maxResolvableOrder})`;
   }
-  if (env.noun !== "the analysis") return `order ${h} is not in ${env.noun}`;
-  return `order ${h} is not in the analysis (orders analysed up to ${env.analysedUpTo})`;
+  if (env.noun !== "the analysis") return `not in ${env.noun}`;
+  return `not in the analysis (orders analysed up to ${env.analysedUpTo})`;
 }
 
 function snapshotRow(row: OrderRow, h: number, env: ChannelEnv): ComplianceRow {
