@@ -36,8 +36,8 @@ export interface ImportedCapture {
 export type ImportOptions = Pick<AnalysisOptions, "sampleIntervalS" | "channels">;
 
 
-/** Keeps every chunk: the in-memory import. */
-class MemorySink implements RowSink {
+/** Keeps every chunk: the in-memory import (and the streaming path's look-ahead). */
+export class MemorySink implements RowSink {
   readonly channels: SampleBuffer[];
   readonly times: SampleBuffer | null;
 
@@ -53,7 +53,7 @@ class MemorySink implements RowSink {
 }
 
 /** Builds the imported capture from a collector whose rows have ended and the sink that kept them. */
-function finishImport(collector: RowCollector, sink: MemorySink, options: ImportOptions): ImportedCapture {
+export function finishImport(collector: RowCollector, sink: MemorySink, options: ImportOptions): ImportedCapture {
   const warnings = collector.end();
   const { timeColumn, channelColumns, layout } = collector;
   let sampleIntervalS: number;

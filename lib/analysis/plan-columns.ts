@@ -74,6 +74,8 @@ export function planColumns(layout: CsvLayout, overrides: Record<string, Channel
       toBase: parsed.unit?.toBase ?? 1,
       scale: override?.scale ?? 1,
     };
+    // Columns the user chose to ignore are read past silently (no warning: it was their choice).
+    if (override?.ignore) return { ...base, role: "skipped", quantity: null, phase: null, note: null };
     if (detected.role === "time" && !timeSeen && override?.quantity === undefined) {
       timeSeen = true;
       return { ...base, role: "time", quantity: null, phase: null, note: parsed.unit ? null : `time column "${parsed.header}" has no unit; seconds assumed` };

@@ -111,6 +111,8 @@ export interface ChannelOverride {
    */
   scale?: number;
   phase?: PhaseLabel | null;
+  /** Leave this column out entirely (not analysed, no warning). */
+  ignore?: boolean;
 }
 
 export interface AnalysisOptions {
