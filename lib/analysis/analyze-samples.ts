@@ -102,7 +102,7 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   if (!(intervalS > 0 && Number.isFinite(intervalS))) fail("invalid-option", `sample interval must be a positive number of seconds, got ${intervalS}`);
   const sampleRateHz = 1 / intervalS;
 
-  const resolved = capture.channels.map((c) => {
+  const resolved = capture.channels.filter((c) => !findOverride(options.channels, c.name, c.name)?.ignore).map((c) => {
     const override = findOverride(options.channels, c.name, c.name);
     const quantity = override?.quantity ?? c.quantity ?? null;
     const phase = override && "phase" in override ? override.phase ?? null : c.phase ?? null;

@@ -184,6 +184,11 @@ class FirstPass implements RowSink {
     for (let e = 0; e < this.estimation.length; e++) {
       const list = this.ratios[e]!;
       if (list.some((r) => r instanceof AnalysisInputError)) continue;
+      // No usable rate yet (no interval stated, or a broken time axis): the error is reported after pass 1.
+      if (!(this.provisionalRateHz > 0)) {
+        list.push(Number.NaN);
+        continue;
+      }
       try {
         list.push(estimateFundamental(this.segmentBuffers[e]!.subarray(0, length), this.provisionalRateHz) / this.provisionalRateHz);
       } catch (error) {

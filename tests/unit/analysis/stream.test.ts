@@ -140,6 +140,14 @@ describe("streaming analysis of a file agrees with the in-memory path", () => {
     expect(streamed.waveform!.channels[1]!.values.slice(0, 20)).toEqual(rows.filter((_, i) => i % step === 0).slice(0, 20).map((l) => Number(l.split(",")[2])));
   });
 
+  test("an ignored column is left out silently, on both paths", async () => {
+    const channels = { "Vb (V)": { ignore: true } };
+    const streamed = await streamCsvAnalysis(path, { channels }, undefined, { segmentSamples: SEGMENT });
+    expect(streamed.channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
+    expect(streamed.warnings.some((w) => /Vb/.test(w))).toBe(false);
+    expect(analyzeCsvText(text, { channels }).channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
+  });
+
   test("a record within the look-ahead is analysed exactly like the text path", async () => {
     const short = write("drifting-1s-b.csv", captureText(1));
     const { waveform, ...fromFile } = await analyzeCsvFile(short, options);
