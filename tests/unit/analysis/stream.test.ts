@@ -156,6 +156,23 @@ describe("streaming analysis of a file agrees with the in-memory path", () => {
   });
 });
 
+test("a long record without a time column takes its interval from the preamble", async () => {
+  const body = captureText(3)
+    .split("\n")
+    .map((line) => line.split(",").slice(1).join(","))
+    .join("\n");
+  const text = `Sample Interval,${(1 / RATE).toExponential(4)} s\n${body}`;
+  const path = write("preamble-3s.csv", text);
+  const streamed = await streamCsvAnalysis(path, {}, undefined, { segmentSamples: SEGMENT });
+  const memory = inMemory(text, {});
+  expect(streamed.sampleIntervalSource).toBe("preamble");
+  expect(streamed.sampleIntervalS).toBe(memory.sampleIntervalS);
+  const diff = { worst: 0, where: "", mismatches: [] as string[] };
+  compare(memory, streamed, "", diff, 1e-6);
+  expect(diff.mismatches).toEqual([]);
+  expect(diff.worst, diff.where).toBeLessThan(1e-9);
+});
+
 describe("errors on late lines keep their line numbers in the streaming path", () => {
   const text = captureText(3); // 19,200 rows, past the 8,192-row look-ahead
   const lines = text.split("\n");
