@@ -197,8 +197,10 @@ describe("the pass/fail sheet", () => {
     const lines = text.split("\n");
     const h3 = lines.indexOf("h3");
     expect(h3).toBeGreaterThan(0);
-    expect(lines.slice(h3, h3 + 7)[6]).toBe("Fail");
-    expect(lines.slice(h3, h3 + 7)[2]).toBe("2.3");
+    // order, measured, limit, table limit, unit, % of limit, margin, verdict, decided by
+    expect(lines.slice(h3, h3 + 9)[7]).toBe("Fail");
+    expect(lines.slice(h3, h3 + 9)[2]).toBe("2.3");
+    expect(lines.slice(h3, h3 + 9)[8]).toBe("capture mean");
     expect(text).toContain("qualified engineer");
     fs.mkdirSync(shotDir, { recursive: true });
     fs.writeFileSync(path.join(shotDir, "sheet-report.pdf"), pdf);

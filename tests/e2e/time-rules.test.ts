@@ -1,0 +1,193 @@
+// The time rules on the sheet: which rule decided each verdict, what each rule measured, and the
+// record it was measured on — for a 0.4 s demo capture (rules not evaluated, the capture mean
+// stands in) and a 2 s capture (the IEC 61000-3-2 smoothed rules applied); share page, PDF, CSV.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { signedIn, type Client } from "../support/http";
+import { pdfText } from "../unit/reports/pdf-text";
+
+/**
+ * 100 cycles (2 s) of 50 Hz at 128 samples per cycle: I1 = 10 A, a steady 3 A 3rd harmonic and a
+ * 7th harmonic of 0.3 A with a 3 A burst over the last 0.4 s. Against IEC 61000-3-2 Class A
+ * (Table 1: h3 2.30 A, h7 0.77 A) the h3 smoothed average fails; the late h7 burst lifts the
+ * smoothed peak to ≈ 0.93 A (80 % of 1.5 × 0.77 = 1.155 A) but the average only to ≈ 0.40 A
+ * (52 % of 0.77 A), so "every smoothed value ≤ 150 %" decides h7 (hand calculation, α = 8.011).
+ */
+function timedCsv(): string {
+  const perCycle = 128;
+  const f = 50;
+  const lines = ["Time (s),I (A)"];
+  for (let k = 0; k < 100 * perCycle; k += 1) {
+    const t = k / (perCycle * f);
+    const i7 = t >= 1.6 ? 3 : 0.3;
+    const i = Math.SQRT2 * (10 * Math.sin(2 * Math.PI * f * t) + 3 * Math.sin(2 * Math.PI * 3 * f * t + 0.4) + i7 * Math.sin(2 * Math.PI * 7 * f * t));
+    lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
+  }
+  return lines.join("\n") + "\n";
+}
+
+async function json<T>(res: Response): Promise<T> {
+  if (!res.ok) throw new Error(`${res.status} ${await res.text()}`);
+  return (await res.json()) as T;
+}
+
+async function analysedCapture(api: Client, siteId: string, title: string, csv: string): Promise<string> {
+  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+    await api.request("POST", "/api/captures", { siteId, title, filename: "timed.csv", sizeBytes: Buffer.byteLength(csv) }),
+  );
+  expect((await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv })).ok).toBe(true);
+  await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
+  await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
+  await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
+  const deadline = Date.now() + 60_000;
+  for (;;) {
+    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
+    if (c.status === "done") return capture.id;
+    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
+    if (Date.now() > deadline) throw new Error("analysis did not finish in 60 s");
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
+
+const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
+async function snapAt(page: Page, name: string, selector: string): Promise<void> {
+  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
+  fs.mkdirSync(shotDir, { recursive: true });
+  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
+}
+
+let browser: Browser;
+let demoId = "";
+let timedId = "";
+const stamp = Date.now();
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const tech = await signedIn("technician");
+  const { sites } = await json<{ sites: { id: string; name: string }[] }>(await tech.request("GET", "/api/sites"));
+  const bench = sites.find((s) => s.name.startsWith("Bench B")) ?? sites[0]!;
+  const { items } = await json<{ items: { id: string; title: string }[] }>(await tech.request("GET", `/api/captures?site=${bench.id}&status=done`));
+  demoId = items.find((c) => c.title === "Desktop power supply, 180 W rated")?.id ?? "";
+  timedId = await analysedCapture(tech, bench.id, `Time rules test 2 s ${stamp}`, timedCsv());
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("time rules on the sheet", () => {
+  it("a 0.4 s demo capture lists the smoothed rules as not evaluated with the minimum record, and the capture mean deciding", async () => {
+    expect(demoId).not.toBe("");
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${demoId}`));
+    const panel = page.locator("[data-testid=time-rules]");
+    await panel.waitFor();
+    for (const rule of ["smoothed-average", "smoothed-max"]) {
+      const item = panel.locator(`[data-testid=time-rule-${rule}]`);
+      expect(await item.getAttribute("data-status")).toBe("not-evaluated");
+      expect(await item.locator("[data-testid=time-rule-reason]").textContent()).toContain("needs at least 1.5 s of record; the record has 0.4 s");
+      expect(await item.locator("[data-testid=verdict]").textContent()).toBe("Not evaluated");
+    }
+    expect(await panel.locator("[data-testid=time-basis]").getAttribute("data-coverage")).toBe("none");
+    expect(await panel.locator("[data-testid=time-basis]").textContent()).toContain("0.4 s of 10/12-cycle analysis windows");
+    // The panel sits above the per-order table.
+    const panelBox = (await panel.boundingBox())!;
+    const tableBox = (await page.locator("[data-testid=order-table]").boundingBox())!;
+    expect(panelBox.y).toBeLessThan(tableBox.y);
+
+    expect(await page.locator("[data-testid=order-table] th", { hasText: "Decided by" }).count()).toBe(1);
+    const h3 = page.locator("[data-testid=order-row-3]");
+    expect(await h3.getAttribute("data-decided-by")).toBe("snapshot");
+    expect(await page.textContent("[data-testid=decided-by-3]")).toBe("capture mean");
+    await page.click("[data-testid=rules-toggle-3]");
+    const detail = page.locator("[data-testid=rules-detail-3]");
+    await detail.waitFor();
+    expect(await detail.locator("[data-testid^=rule-result-]").count()).toBe(3);
+    expect(await detail.locator("[data-testid=rule-result-smoothed-max]").getAttribute("data-verdict")).toBe("not-evaluated");
+    expect(await detail.locator("[data-testid=rule-result-snapshot] [data-testid=verdict] svg").count()).toBe(1);
+    expect(await page.isVisible("[data-testid=safety-note]")).toBe(true);
+    await snap(page, "time-rules-demo");
+    await snapAt(page, "time-rules-demo-panel", "[data-testid=time-rules]");
+    await page.close();
+  });
+
+  it("a 2 s capture applies the smoothed rules; rows name their deciding rule and the table limit beside 150 %", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${timedId}`));
+    await page.locator("[data-testid=time-rules]").waitFor();
+    for (const rule of ["smoothed-average", "smoothed-max"]) {
+      expect(await page.getAttribute(`[data-testid=time-rule-${rule}]`, "data-status")).toBe("applied");
+    }
+    expect(await page.getAttribute("[data-testid=time-basis]", "data-coverage")).toBe("all");
+    const h3 = page.locator("[data-testid=order-row-3]");
+    expect(await h3.getAttribute("data-verdict")).toBe("fail");
+    expect(await h3.getAttribute("data-decided-by")).toBe("smoothed-average");
+    expect(await page.textContent("[data-testid=decided-by-3]")).toBe("mean 1.5 s smoothed");
+    const h7 = page.locator("[data-testid=order-row-7]");
+    expect(await h7.getAttribute("data-decided-by")).toBe("smoothed-max");
+    expect(await page.textContent("[data-testid=decided-by-7]")).toBe("max 1.5 s smoothed ×1.5");
+    expect(await page.textContent("[data-testid=table-limit-7]")).toBe("table 0.77");
+    await page.click("[data-testid=rules-toggle-7]");
+    const detail = page.locator("[data-testid=rules-detail-7]");
+    expect(await detail.locator("[data-testid=rule-result-smoothed-max]").textContent()).toContain("1.155 (0.77 ×1.5)");
+
+    await page.waitForSelector("[data-testid=chart-order-trend] canvas");
+    expect(await page.inputValue("[data-testid=order-trend-select]")).toBe("3"); // the worst order first
+    await page.selectOption("[data-testid=order-trend-select]", "7");
+    await page.waitForSelector("[data-testid=chart-order-trend] canvas");
+    expect(await page.textContent("[data-testid=order-trend-caption]")).toMatch(/h7: \d+ window values/);
+    expect(await page.textContent("[data-testid=order-trend]")).toContain("1.5 s smoothed");
+    await snap(page, "time-rules-applied");
+    await snapAt(page, "time-rules-applied-trend", "[data-testid=order-trend]");
+    await snapAt(page, "time-rules-applied-table", "[data-testid=order-table]");
+    await page.close();
+  });
+
+  it("fits a phone: the panel wraps, the table scrolls inside its panel", async () => {
+    const page = await browser.newPage({ viewport: { width: 375, height: 800 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${timedId}`));
+    await page.waitForSelector("[data-testid=chart-order-trend] canvas");
+    await page.click("[data-testid=rules-toggle-7]");
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await snapAt(page, "time-rules-phone-panel", "[data-testid=time-rules]");
+    await snapAt(page, "time-rules-phone-trend", "[data-testid=order-trend]");
+    await snapAt(page, "time-rules-phone-table", "[data-testid=order-table]");
+    await page.close();
+  });
+
+  it("the share page shows the same read-only, and the PDF and CSV carry the decided-by rule and table limit", async () => {
+    const engineer = await signedIn("engineer");
+    const { url: shareUrl } = await json<{ url: string }>(await engineer.request("POST", `/api/captures/${timedId}/shares`, { label: "Time rules test", expiresInDays: 1 }));
+    const outsider = await browser.newContext();
+    const shared = await outsider.newPage();
+    await shared.goto(shareUrl);
+    await shared.locator("[data-testid=time-rules]").waitFor();
+    expect(await shared.getAttribute("[data-testid=time-rule-smoothed-max]", "data-status")).toBe("applied");
+    expect(await shared.textContent("[data-testid=decided-by-7]")).toBe("max 1.5 s smoothed ×1.5");
+    await shared.waitForSelector("[data-testid=chart-order-trend] canvas");
+    await snapAt(shared, "time-rules-share", "[data-testid=time-rules]");
+    await outsider.close();
+
+    const csv = await (await engineer.request("GET", `/api/captures/${timedId}/sheet-csv`)).text();
+    expect(csv).toContain("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason");
+    expect(csv).toMatch(/\r\n[^,\r\n]+,7,[\d.]+,1\.155,A,[\d.]+,[\d.]+,pass,smoothed-max,max 1\.5 s smoothed ×1\.5,0\.77,/);
+    expect(csv).toContain("Time rule smoothed-max,");
+
+    const pdf = Buffer.from(await (await engineer.request("GET", `/api/captures/${timedId}/report`)).arrayBuffer());
+    const lines = pdfText(pdf).split("\n");
+    expect(lines).toContain("Time rules");
+    const h7 = lines.indexOf("h7");
+    expect(lines[h7 + 2]).toBe("1.155");
+    expect(lines[h7 + 3]).toBe("0.77");
+    expect(lines[h7 + 8]).toBe("max 1.5 s smoothed ×1.5");
+    fs.mkdirSync(shotDir, { recursive: true });
+    fs.writeFileSync(path.join(shotDir, "time-rules-report.pdf"), pdf);
+  });
+});
