@@ -180,7 +180,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
         rule.status === "applied"
           ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.reason ? `; ${rule.reason}` : ""}`
           : `NOT EVALUATED: ${rule.reason ?? "no reason given"}`;
-      keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}. ${status}`]]);
+      keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
     }
   }
 

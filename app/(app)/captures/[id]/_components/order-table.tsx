@@ -17,7 +17,6 @@ const allColumns: Column[] = [
   { key: "margin", label: "Margin", numeric: true },
   { key: "verdict", label: "Verdict" },
   { key: null, label: "Decided by", rules: true },
-  { key: null, label: "Rules", rules: true },
 ];
 // Worst first when sorting by verdict ascending.
 const verdictRank: Record<string, number> = { fail: 0, "not-evaluated": 1, pass: 2, "below-threshold": 3 };
@@ -86,7 +85,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
         </label>
       </div>
       <div className="overflow-x-auto">
-        <table className={`table-base ${hasRules ? "min-w-[54rem]" : "min-w-[40rem]"}`} data-testid="order-table">
+        <table className={`table-base ${hasRules ? "min-w-[46rem]" : "min-w-[40rem]"}`} data-testid="order-table">
           <thead>
             <tr>
               {columns.map((c) => (
@@ -125,7 +124,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                       )}
                     </td>
                     <td className="text-ink-soft">{r.unit}</td>
-                    <td className={`text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
+                    <td className={`whitespace-nowrap text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
                     <td className="text-right">{formatMargin(r.margin)}</td>
                     <td>
                       <VerdictBadge verdict={r.verdict} />
@@ -137,26 +136,20 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                       )}
                     </td>
                     {hasRules && (
-                      <td className="whitespace-nowrap text-ink-soft" data-testid={`decided-by-${r.order}`}>
-                        {decidedByLabel(r) || "—"}
-                      </td>
-                    )}
-                    {hasRules && (
-                      <td>
-                        {r.rowRules && r.rowRules.length > 0 ? (
+                      <td className="whitespace-nowrap">
+                        <span className="block text-ink-soft" data-testid={`decided-by-${r.order}`}>{decidedByLabel(r) || "—"}</span>
+                        {r.rowRules && r.rowRules.length > 0 && (
                           <button
                             type="button"
                             onClick={() => toggleOpen(r.order)}
                             aria-expanded={expanded}
                             aria-controls={`rules-${channelName}-${r.order}`}
-                            className="inline-flex items-center gap-1 whitespace-nowrap text-xs text-ink-soft hover:text-copper"
+                            className="mt-0.5 inline-flex items-center gap-1 text-xs text-ink-muted hover:text-copper"
                             data-testid={`rules-toggle-${r.order}`}
                           >
                             <span aria-hidden>{expanded ? "▾" : "▸"}</span>
-                            {r.rowRules.length} rule{r.rowRules.length === 1 ? "" : "s"}
+                            {expanded ? "hide" : "all"} {r.rowRules.length} rule{r.rowRules.length === 1 ? "" : "s"}
                           </button>
-                        ) : (
-                          <span className="text-ink-muted">—</span>
                         )}
                       </td>
                     )}
@@ -164,7 +157,10 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                   {hasRules && expanded && r.rowRules && (
                     <tr id={`rules-${channelName}-${r.order}`} className="bg-paper-sunk/60" data-testid={`rules-detail-${r.order}`}>
                       <td colSpan={columns.length} className="py-2">
-                        <RuleResults row={r} />
+                        {/* Sticky so the details stay in view when the table is scrolled sideways on a phone. */}
+                        <div className="sticky left-3 max-w-[calc(100vw-3.5rem)]">
+                          <RuleResults row={r} />
+                        </div>
                       </td>
                     </tr>
                   )}
