@@ -2,8 +2,11 @@ import "server-only";
 import { getCaptureById, getCurrentRevision, setCaptureStatus, storeAnalysisResult } from "@/db/queries/captures";
 import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
-import { analyzeCaptureText, evaluateCapture } from "@/lib/pipeline/run-capture";
-import { getObjectBytes } from "@/lib/storage/s3";
+import { mkdtemp, rm } from "node:fs/promises";
+import os from "node:os";
+import path from "node:path";
+import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
+import { downloadObjectToFile, getObjectBytes } from "@/lib/storage/s3";
 import { getSiteById } from "@/db/queries/sites";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
@@ -35,10 +38,10 @@ export async function processCapture({
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
-    const bytes = await getObjectBytes(capture.s3Key);
-    await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     if (capture.kind === "interval-log") {
+      const bytes = await getObjectBytes(capture.s3Key);
+      await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
       const site = await getSiteById({ id: capture.siteId });
       const { analysis, trends, result } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
@@ -47,7 +50,18 @@ export async function processCapture({
       return;
     }
     const mapping = captureMappingSchema.parse(capture.mapping ?? {});
-    const { analysis, waveform } = analyzeCaptureText(decodeText(bytes), mapping, context);
+    // Waveform records can be hundreds of MB: copied to a temporary file and analysed as a stream.
+    const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-capture-"));
+    let analysed: Awaited<ReturnType<typeof analyzeCaptureFile>>;
+    try {
+      const file = path.join(dir, "original.csv");
+      await downloadObjectToFile(capture.s3Key, file);
+      await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
+      analysed = await analyzeCaptureFile(file, mapping, context);
+    } finally {
+      await rm(dir, { recursive: true, force: true });
+    }
+    const { analysis, waveform } = analysed;
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
     const result = evaluateCapture(analysis, revision, context);
     await beforeStore?.();

@@ -1,7 +1,6 @@
-// The whole job of one capture, as pure functions: CSV text + mapping → analysis; analysis +
+// The whole job of one capture, as pure functions: CSV file + mapping → analysis; analysis +
 // limit-set revision + context → evaluation. The route handler, the demo seed and the tests call these.
-import { analyzeImported } from "@/lib/analysis/analyze-csv";
-import { importCsvText } from "@/lib/analysis/import-csv";
+import { analyzeCsvFile } from "@/lib/analysis/analyze-csv";
 import type { AnalysisOptions, AnalysisResult } from "@/lib/analysis/types";
 import { evaluateCompliance } from "@/lib/compliance/evaluate-compliance";
 import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
@@ -17,7 +16,10 @@ export interface Waveform {
 export function analysisOptionsFrom(mapping: CaptureMapping, context: EvaluationContext): AnalysisOptions {
   const channels: NonNullable<AnalysisOptions["channels"]> = {};
   for (const [name, m] of Object.entries(mapping.channels)) {
-    if (m.ignore) continue;
+    if (m.ignore) {
+      channels[name] = { ignore: true };
+      continue;
+    }
     channels[name] = {
       ...(m.quantity ? { quantity: m.quantity } : {}),
       ...(m.scale !== undefined ? { scale: m.scale } : {}),
@@ -36,35 +38,18 @@ export function analysisOptionsFrom(mapping: CaptureMapping, context: Evaluation
 }
 
 /**
- * Imports and analyses a capture, and keeps the first few cycles of each channel for the
- * waveform chart (at most `maxPoints` points per channel).
+ * Analyses a capture file on disk as a stream (memory does not grow with the record's length)
+ * and keeps the first few cycles of each channel for the waveform chart.
  *
  * @throws AnalysisInputError for every problem with the file or the mapping.
  */
-export function analyzeCaptureText(
-  text: string,
+export async function analyzeCaptureFile(
+  path: string,
   mapping: CaptureMapping,
   context: EvaluationContext,
-  { cycles = 3, maxPoints = 600 }: { cycles?: number; maxPoints?: number } = {},
-): { analysis: AnalysisResult; waveform: Waveform } {
-  const options = analysisOptionsFrom(mapping, context);
-  const ignored = new Set(Object.entries(mapping.channels).filter(([, m]) => m.ignore).map(([n]) => n.toLowerCase()));
-  const imported = importCsvText(text, { channels: options.channels, sampleIntervalS: options.sampleIntervalS });
-  const channels = imported.channels.filter((c) => !ignored.has(c.name.toLowerCase()));
-  const analysis = analyzeImported({ ...imported, channels }, options);
-  const spanS = cycles / analysis.fundamentalHz;
-  const count = Math.min(imported.rowCount, Math.ceil(spanS / imported.sampleIntervalS));
-  const step = Math.max(1, Math.ceil(count / maxPoints));
-  const timeS: number[] = [];
-  for (let i = 0; i < count; i += step) timeS.push(i * imported.sampleIntervalS);
-  const waveform: Waveform = {
-    timeS,
-    channels: channels.map((c) => {
-      const values: number[] = [];
-      for (let i = 0; i < count; i += step) values.push(c.samples[i] ?? 0);
-      return { name: c.name, unit: c.unit, values };
-    }),
-  };
+  { cycles = 3 }: { cycles?: number } = {},
+): Promise<{ analysis: AnalysisResult; waveform: Waveform | null }> {
+  const { waveform = null, ...analysis } = await analyzeCsvFile(path, { ...analysisOptionsFrom(mapping, context), keepWaveformCycles: cycles });
   return { analysis, waveform };
 }
 

@@ -1,6 +1,9 @@
 import "server-only";
 import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { createWriteStream } from "node:fs";
+import type { Readable } from "node:stream";
+import { pipeline } from "node:stream/promises";
 
 // The only module that talks to the object store (s3rver locally).
 export const bucket = process.env.S3_BUCKET ?? "ordwise-captures";
@@ -39,6 +42,13 @@ export async function headObject(key: string): Promise<{ sizeBytes: number } | n
 
 export function presignPut(key: string, contentType: string, expiresInS = 900): Promise<string> {
   return getSignedUrl(s3, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
+}
+
+/** Streams an object to a file (large captures never sit in memory whole). */
+export async function downloadObjectToFile(key: string, path: string): Promise<void> {
+  const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  if (!res.Body) throw new Error(`object ${key} has no body`);
+  await pipeline(res.Body as Readable, createWriteStream(path));
 }
 
 /** The first `bytes` bytes of an object (for previews of large uploads). */

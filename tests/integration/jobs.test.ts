@@ -11,11 +11,17 @@ import { signedIn } from "../support/http";
 // A queue of its own, so the worker that `npm test` runs beside the app never takes these jobs.
 const queue = `analyze-capture-killtest-${Date.now()}`;
 const workers: ChildProcess[] = [];
+// pg-boss also times out a running handler after this long, so the first worker is killed well
+// before it (its run pauses for a minute before storing); the dead worker's job then expires and
+// the second worker's maintenance puts it back for the retry.
+const expireS = 8;
 
 function startWorker(extraEnv: Record<string, string>): ChildProcess {
   const child = spawn(path.resolve("node_modules/.bin/tsx"), ["--conditions=react-server", "scripts/worker.ts"], {
-    env: { ...process.env, JOB_QUEUE: queue, JOB_EXPIRE_S: "2", JOB_MAINTENANCE_S: "1", ...extraEnv },
+    env: { ...process.env, JOB_QUEUE: queue, JOB_EXPIRE_S: String(expireS), JOB_MAINTENANCE_S: "1", ...extraEnv },
     stdio: ["ignore", "ignore", "inherit"],
+    // Its own process group: tsx runs the script in a child process, and a kill must reach both.
+    detached: true,
   });
   workers.push(child);
   return child;
@@ -32,7 +38,13 @@ async function waitFor<T>(what: string, probe: () => Promise<T | null>, timeoutM
 }
 
 afterAll(() => {
-  for (const w of workers) if (w.exitCode === null) w.kill("SIGKILL");
+  for (const w of workers) {
+    try {
+      process.kill(-w.pid!, "SIGKILL");
+    } catch {
+      // already gone
+    }
+  }
 });
 
 describe("analysis jobs in the PostgreSQL-backed queue", () => {
@@ -52,15 +64,15 @@ describe("analysis jobs in the PostgreSQL-backed queue", () => {
     const first = startWorker({ ORDWISE_TEST_PAUSE_BEFORE_STORE_MS: "120000" });
     const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss", supervise: false, schedule: false });
     await boss.start();
-    await boss.createQueue(queue, { name: queue, retryLimit: 1, retryDelay: 1, expireInSeconds: 2 });
-    const jobId = await boss.send(queue, { captureId: reg.capture.id, actorId: null }, { retryLimit: 1, retryDelay: 1, expireInSeconds: 2 });
+    await boss.createQueue(queue, { name: queue, retryLimit: 1, retryDelay: 1, expireInSeconds: expireS });
+    const jobId = await boss.send(queue, { captureId: reg.capture.id, actorId: null }, { retryLimit: 1, retryDelay: 1, expireInSeconds: expireS });
     expect(jobId).toBeTruthy();
 
     await waitFor("the first run to reach 80 %", async () => {
       const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
       return c?.status === "running" && c.progressPercent >= 80 ? c : null;
     });
-    first.kill("SIGKILL");
+    process.kill(-first.pid!, "SIGKILL");
 
     startWorker({});
     const done = await waitFor(
