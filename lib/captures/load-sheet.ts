@@ -56,6 +56,7 @@ export async function loadChartData({ captureId, role }: { captureId: string; ro
     fundamentalHz: r.fundamentalHz,
     windowDurationS,
     waveform: analysis.waveform,
+    intervalTrends: analysis.trends ?? null,
     channels: r.channels.map((c) => {
       const orders = judged.get(c.name) ?? [];
       return {

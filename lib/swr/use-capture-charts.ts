@@ -2,6 +2,7 @@
 
 import useSWR from "swr";
 import type { Quantity } from "@/lib/analysis/types";
+import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import type { DecimatedSeries } from "@/lib/reports/decimate-series";
 import { fetcher } from "./fetcher";
 
@@ -19,6 +20,8 @@ export interface ChartDataDto {
     /** Per-order window series of the judged orders, at most 600 points each (absent from older servers). */
     harmonicSeries?: DecimatedSeries | null;
   }[];
+  /** Interval logs: per-channel series over the logged period with their limits. */
+  intervalTrends?: IntervalTrend[] | null;
 }
 
 /** Chart data from `url`: `/api/captures/:id/charts` when signed in, `/api/shared/:token/charts` on a share link. */

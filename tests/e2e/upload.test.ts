@@ -67,3 +67,19 @@ describe("a technician uploads a capture in the browser", () => {
     await page.close();
   });
 });
+
+describe("an interval log's sheet", () => {
+  it("draws the logged period of the worst value with its table and rule limits", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "engineer");
+    await page.goto(url("/captures"));
+    await page.click("text=Drive 2 feeder, one week of 10-minute values");
+    await page.waitForSelector("[data-testid=chart-interval-trend]");
+    const options = await page.locator("[data-testid=interval-trend-select] option").allTextContents();
+    expect(options).toContain("TDD");
+    expect(options).toContain("h5");
+    expect(await page.textContent("[data-testid=sheet-charts]")).toContain("1008 logged values");
+    await snap(page, "interval-log-sheet");
+    await page.close();
+  });
+});

@@ -1,6 +1,7 @@
 "use client";
 
 import { useMemo, useState } from "react";
+import { IntervalTrendChart } from "@/app/_components/charts/interval-trend-chart";
 import { OrderTrendChart } from "@/app/_components/charts/order-trend-chart";
 import { SpectrumChart, type SpectrumMode } from "@/app/_components/charts/spectrum-chart";
 import { TrendChart } from "@/app/_components/charts/trend-chart";
@@ -114,6 +115,15 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
   const worst = trendRows.reduce<(typeof trendRows)[number] | undefined>((best, r) => ((r.percentOfLimit ?? -1) > (best?.percentOfLimit ?? -1) ? r : best), undefined);
   const [chosenOrder, setChosenOrder] = useState<number | null>(null);
   const trendRow = trendRows.find((r) => r.order === chosenOrder) ?? worst;
+  if (data?.intervalTrends) {
+    const trend = data.intervalTrends.find((t) => t.channel === channel.channel) ?? data.intervalTrends[0];
+    return (
+      <section className="panel min-w-0" aria-label="Charts" data-testid="sheet-charts">
+        <h2 className="mb-2">{trend?.channel ?? channel.channel} over the logged period</h2>
+        {trend ? <IntervalTrendChart trend={trend} /> : <p className="text-sm text-ink-muted">No trend data.</p>}
+      </section>
+    );
+  }
   return (
     <section className="grid gap-4 lg:grid-cols-2" aria-label="Charts" data-testid="sheet-charts">
       <div className="panel min-w-0 lg:col-span-2">
