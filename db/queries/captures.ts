@@ -90,6 +90,10 @@ export async function setCaptureStatus({
     .where(eq(captures.id, id));
 }
 
+export async function setCapturedAt({ id, capturedAt }: { id: string; capturedAt: Date }): Promise<void> {
+  await db.update(captures).set({ capturedAt }).where(eq(captures.id, id));
+}
+
 export async function saveCaptureSetup({ id, setup, actorId }: { id: string; setup: CaptureSetup; actorId: string }): Promise<Capture> {
   return db.transaction(async (tx) => {
     const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));

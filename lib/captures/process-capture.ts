@@ -1,5 +1,5 @@
 import "server-only";
-import { getCaptureById, getCurrentRevision, setCaptureStatus, storeAnalysisResult } from "@/db/queries/captures";
+import { getCaptureById, getCurrentRevision, setCapturedAt, setCaptureStatus, storeAnalysisResult } from "@/db/queries/captures";
 import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { mkdtemp, rm } from "node:fs/promises";
@@ -44,8 +44,10 @@ export async function processCapture({
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
       const site = await getSiteById({ id: capture.siteId });
-      const { analysis, trends, result } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
+      const { analysis, trends, result, startMs } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
       await beforeStore?.();
+      // A log says when it was recorded: its first timestamp, unless the technician gave a time.
+      if (!capture.capturedAt) await setCapturedAt({ id: captureId, capturedAt: new Date(startMs) });
       await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
       return;
     }

@@ -20,7 +20,7 @@ export function judgeIntervalLog(
   limitSet: { key: string; name: string; revisionId: string; revisionNumber: number; content: LimitSetRevisionContent },
   context: EvaluationContext,
   nominalHz: 50 | 60,
-): { analysis: AnalysisResult; trends: IntervalTrend[]; result: ComplianceResult } {
+): { analysis: AnalysisResult; trends: IntervalTrend[]; result: ComplianceResult; startMs: number } {
   const log = importIntervalLog(text, mapping);
   const evaluation: IntervalLogEvaluation = evaluateIntervalLog(
     log,
@@ -43,5 +43,5 @@ export function judgeIntervalLog(
     power: { phases: [], total: null },
     warnings: [...summary.warnings, ...gapWarnings],
   };
-  return { analysis, trends, result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${summary.intervalS} s from ${new Date(summary.startMs).toISOString()} to ${new Date(summary.endMs).toISOString()}.`] } };
+  return { analysis, trends, startMs: summary.startMs, result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${summary.intervalS} s from ${new Date(summary.startMs).toISOString()} to ${new Date(summary.endMs).toISOString()}.`] } };
 }

@@ -2,7 +2,7 @@ import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { analyses, evaluations, sites } from "@/db/schema";
+import { analyses, captures, evaluations, sites } from "@/db/schema";
 import { Client, signedIn } from "../support/http";
 
 let tech: Client;
@@ -63,6 +63,9 @@ describe("interval logs through the queue", () => {
     // A week of 10-minute rows: 1,008 values; the 95th-percentile rule over them decides order 5.
     const h5 = evaluation!.result.rows.find((r) => r.order === 5)!;
     expect(h5.rowRules?.some((r) => r.verdict !== "not-evaluated")).toBe(true);
+    // The log's first timestamp (fixtures/intervals/generate.ts starts it at 2024-03-04 00:00 UTC) dates the capture.
+    const [row] = await db.select().from(captures).where(eq(captures.id, id));
+    expect(row?.capturedAt?.toISOString()).toBe("2024-03-04T00:00:00.000Z");
     const [analysis] = await db.select().from(analyses).where(eq(analyses.captureId, id));
     expect(analysis?.trends?.[0]?.timestampsMs.length).toBe(1008);
   });
