@@ -5,17 +5,9 @@ import { useState } from "react";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { reevaluateSchema } from "@/lib/validations/capture";
+import { contextNumberFields } from "@/lib/validations/context-fields";
 
-const numberFields: Array<{ key: keyof EvaluationContext; label: string; unit: string; hint?: string }> = [
-  { key: "ilA", label: "IL", unit: "A", hint: "maximum demand load current" },
-  { key: "iscA", label: "Isc", unit: "A", hint: "short-circuit current at the PCC" },
-  { key: "irefA", label: "Iref", unit: "A", hint: "reference current" },
-  { key: "rsce", label: "Rsce", unit: "", hint: "short-circuit ratio" },
-  { key: "ratedPowerW", label: "Rated power", unit: "W" },
-  { key: "lambda", label: "Power factor λ", unit: "", hint: "0–1" },
-  { key: "busVoltageV", label: "Bus voltage", unit: "V", hint: "line-to-line at the PCC" },
-  { key: "nominalVoltageV", label: "Nominal voltage", unit: "V", hint: "of the voltage channels" },
-];
+const numberFields = contextNumberFields;
 
 /**
  * Re-judge the latest analysis in another context or against another limit set. Creates a new

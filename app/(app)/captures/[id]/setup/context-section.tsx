@@ -2,17 +2,9 @@
 
 import { useState } from "react";
 import type { EvaluationContext } from "@/lib/compliance/model";
+import { contextNumberFields } from "@/lib/validations/context-fields";
 
-const contextFields: { key: keyof EvaluationContext; label: string; hint: string }[] = [
-  { key: "iscA", label: "Isc (A)", hint: "maximum short-circuit current at the PCC" },
-  { key: "ilA", label: "IL (A)", hint: "maximum demand load current" },
-  { key: "irefA", label: "Iref (A)", hint: "IEC 61000-3-12; blank = measured r.m.s." },
-  { key: "rsce", label: "Rsce", hint: "short-circuit ratio, IEC 61000-3-12" },
-  { key: "ratedPowerW", label: "Rated power (W)", hint: "IEC 61000-3-2 Class C/D" },
-  { key: "lambda", label: "λ (power factor)", hint: "Class C; blank = measured" },
-  { key: "nominalVoltageV", label: "Nominal voltage of V channels (V)", hint: "line-to-neutral as measured" },
-  { key: "busVoltageV", label: "Bus voltage at PCC (V)", hint: "line-to-line; picks the IEEE 519 table" },
-];
+const contextFields = contextNumberFields;
 
 export const numberOrUndefined = (s: string) => (s.trim() === "" ? undefined : Number(s.replace(",", ".")));
 
@@ -58,7 +50,10 @@ export function ContextSection({
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
         {contextFields.map((f) => (
           <div key={f.key}>
-            <label htmlFor={`ctx-${f.key}`} className="field-label">{f.label}</label>
+            <label htmlFor={`ctx-${f.key}`} className="field-label">
+              {f.label}
+              {f.unit ? ` (${f.unit})` : ""}
+            </label>
             <input
               id={`ctx-${f.key}`}
               inputMode="decimal"
