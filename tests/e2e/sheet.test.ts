@@ -8,6 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn, type CaughtMail, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
+import { analysedCapture, json } from "../support/captures";
 
 /**
  * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
@@ -23,31 +24,6 @@ function currentCsv(i3Rms: number): string {
     lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
   }
   return lines.join("\n") + "\n";
-}
-
-async function json<T>(res: Response): Promise<T> {
-  if (!res.ok) throw new Error(`${res.status} ${await res.text()}`);
-  return (await res.json()) as T;
-}
-
-/** Registers, uploads, maps and analyses a capture through the API as a technician. */
-async function analysedCapture(api: Client, siteId: string, title: string, csv: string): Promise<string> {
-  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
-    await api.request("POST", "/api/captures", { siteId, title, filename: "x.csv", sizeBytes: Buffer.byteLength(csv) }),
-  );
-  const put = await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv });
-  expect(put.ok).toBe(true);
-  await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
-  await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
-  await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
-  const deadline = Date.now() + 30_000;
-  for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
-    if (c.status === "done") return capture.id;
-    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
-    if (Date.now() > deadline) throw new Error("analysis did not finish in 30 s");
-    await new Promise((r) => setTimeout(r, 250));
-  }
 }
 
 async function mailWithSubject(to: string, fragment: string, timeoutMs = 10_000): Promise<CaughtMail> {

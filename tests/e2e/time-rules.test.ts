@@ -9,6 +9,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
+import { analysedCapture, json } from "../support/captures";
 
 /**
  * 100 cycles (2 s) of 50 Hz at 128 samples per cycle: I1 = 10 A, a steady 3 A 3rd harmonic and a
@@ -28,29 +29,6 @@ function timedCsv(): string {
     lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
   }
   return lines.join("\n") + "\n";
-}
-
-async function json<T>(res: Response): Promise<T> {
-  if (!res.ok) throw new Error(`${res.status} ${await res.text()}`);
-  return (await res.json()) as T;
-}
-
-async function analysedCapture(api: Client, siteId: string, title: string, csv: string): Promise<string> {
-  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
-    await api.request("POST", "/api/captures", { siteId, title, filename: "timed.csv", sizeBytes: Buffer.byteLength(csv) }),
-  );
-  expect((await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv })).ok).toBe(true);
-  await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
-  await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
-  await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
-  const deadline = Date.now() + 60_000;
-  for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
-    if (c.status === "done") return capture.id;
-    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
-    if (Date.now() > deadline) throw new Error("analysis did not finish in 60 s");
-    await new Promise((r) => setTimeout(r, 250));
-  }
 }
 
 const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");

@@ -1,16 +1,6 @@
 // Test signal helpers: time-domain waveforms sampled point by point, and a seeded PRNG.
 
-/** Seeded PRNG (mulberry32): reproducible random tests. */
-export function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+export { mulberry32 } from "../../../fixtures/mulberry32";
 
 /**
  * Quasi-square wave of height `id` at sample `k` of `perCycle` samples per cycle: +id within β/2 of

@@ -1,0 +1,33 @@
+// Capture set-up through the API, as a technician would do it in the browser.
+import { expect } from "vitest";
+import type { Client } from "./http";
+
+export async function json<T>(res: Response): Promise<T> {
+  if (!res.ok) throw new Error(`${res.status} ${await res.text()}`);
+  return (await res.json()) as T;
+}
+
+/** Registers, uploads (presigned PUT), maps and analyses a capture; resolves to its id once done. */
+export async function analysedCapture(
+  api: Client,
+  siteId: string,
+  title: string,
+  csv: string,
+  { filename = "x.csv", limitSetKey = "iec-61000-3-2-class-a", timeoutMs = 60_000 }: { filename?: string; limitSetKey?: string; timeoutMs?: number } = {},
+): Promise<string> {
+  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+    await api.request("POST", "/api/captures", { siteId, title, filename, sizeBytes: Buffer.byteLength(csv) }),
+  );
+  expect((await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv })).ok).toBe(true);
+  await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
+  await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey, context: {} }));
+  await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
+  const deadline = Date.now() + timeoutMs;
+  for (;;) {
+    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
+    if (c.status === "done") return capture.id;
+    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
+    if (Date.now() > deadline) throw new Error(`analysis did not finish in ${timeoutMs / 1000} s`);
+    await new Promise((r) => setTimeout(r, 250));
+  }
+}
