@@ -79,6 +79,8 @@ describe("an interval log's sheet", () => {
     expect(options).toContain("TDD");
     expect(options).toContain("h5");
     expect(await page.textContent("[data-testid=sheet-charts]")).toContain("1008 logged values");
+    // TDD over the week is judged by the IEEE 519 weekly 95th percentile of 10-minute values.
+    expect(await page.textContent("[data-testid=aggregate-TDD-decided-by]")).toMatch(/10 min/);
     await snap(page, "interval-log-sheet");
     await page.close();
   });

@@ -1,6 +1,7 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceAggregate } from "@/lib/compliance/result";
 import { formatNumber, formatPercent } from "@/lib/reports/format";
+import { decidedByLabel, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 /** THD, TDD, THC… of one channel, each with measured, limit, % of limit and verdict. */
 export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate[] }) {
@@ -22,6 +23,12 @@ export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate
           <p className="text-sm text-ink-soft tabular-nums">
             limit {formatNumber(a.limit)} {a.unit} · {formatPercent(a.percentOfLimit)} of limit
           </p>
+          {a.decidedBy && (
+            <p className="mt-1 text-xs text-ink-soft" data-testid={`aggregate-${a.name}-decided-by`}>
+              decided by <span className="font-medium">{decidedByLabel(a)}</span>
+              {tableLimitIfDifferent(a) !== null && <> · table limit {formatNumber(tableLimitIfDifferent(a))} {a.unit}</>}
+            </p>
+          )}
           {a.reason && <p className="mt-1 text-xs text-ink-muted">{a.reason}</p>}
         </div>
       ))}
