@@ -129,7 +129,8 @@ describe("limit tables in the browser", () => {
     await snap(page, "limits-history-phone");
     const res = await page.goto(url(`/limits/${key}/edit`));
     expect(res?.status()).toBe(403);
-    expect(await page.isVisible("[data-testid=forbidden]")).toBe(true);
+    // Waits for the 403 page to render (isVisible does not wait).
+    await page.waitForSelector("[data-testid=forbidden]", { timeout: 10_000 });
     await page.close();
   });
 });

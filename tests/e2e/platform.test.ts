@@ -18,7 +18,7 @@ describe("platform in the browser", () => {
     await page.fill("#site-name", "Tamsin Reach Substation Feeder 2");
     await page.fill("#site-nominalVoltageV", "not a number");
     await page.click("button[type=submit]");
-    await expect(page.getByText("Nominal voltage must be a number").isVisible()).resolves.toBe(true);
+    await page.getByText("Nominal voltage must be a number").waitFor({ timeout: 10_000 });
     await page.fill("#site-nominalVoltageV", "400");
     await page.fill("#site-iscA", "12000");
     await page.fill("#site-ilA", "400");
@@ -40,7 +40,8 @@ describe("platform in the browser", () => {
     expect(await page.locator("nav a", { hasText: "Users" }).count()).toBe(0);
     const res = await page.goto(url("/admin/users"));
     expect(res?.status()).toBe(403);
-    expect(await page.isVisible("[data-testid=forbidden]")).toBe(true);
+    // Waits for the 403 page to render (isVisible does not wait).
+    await page.waitForSelector("[data-testid=forbidden]", { timeout: 10_000 });
     await page.close();
   });
 

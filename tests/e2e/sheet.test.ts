@@ -75,7 +75,7 @@ describe("the pass/fail sheet", () => {
     expect(await page.textContent("[data-testid=sheet-verdict]")).toContain("Fail");
     expect(await page.textContent("[data-testid=sheet-revision]")).toMatch(/revision \d+/);
     expect(await page.textContent("[data-testid=sheet-limit-set]")).toContain("iec-61000-3-2-class-a");
-    expect(await page.isVisible("[data-testid=safety-note]")).toBe(true);
+    await page.waitForSelector("[data-testid=safety-note]", { timeout: 10_000 });
 
     const h3 = page.locator("[data-testid=order-row-3]");
     expect(await h3.getAttribute("data-verdict")).toBe("fail");
@@ -205,7 +205,7 @@ describe("the pass/fail sheet", () => {
     expect(res?.status()).toBe(200);
     expect(await shared.textContent("[data-testid=sheet-title]")).toBe(failingTitle);
     expect(await shared.locator("[data-testid=order-row-3]").getAttribute("data-verdict")).toBe("fail");
-    expect(await shared.isVisible("[data-testid=safety-note]")).toBe(true);
+    await shared.waitForSelector("[data-testid=safety-note]", { timeout: 10_000 });
     // Read-only: no actions and no way into the app.
     for (const id of ["review-panel", "share-panel", "context-form", "current-user"]) expect(await shared.locator(`[data-testid=${id}]`).count()).toBe(0);
     expect(await shared.locator("a[href^='/captures'], a[href^='/sites']").count()).toBe(0);
@@ -286,7 +286,7 @@ describe("the pass/fail sheet", () => {
     const viewerPage = await browser.newPage();
     await signInAs(viewerPage, "engineer");
     await viewerPage.goto(url(`/captures/${capture.id}`));
-    expect(await viewerPage.isVisible("[data-testid=failure-reason]")).toBe(true);
+    await viewerPage.waitForSelector("[data-testid=failure-reason]", { timeout: 10_000 });
     await viewerPage.close();
   });
 

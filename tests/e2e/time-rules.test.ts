@@ -87,7 +87,7 @@ describe("time rules on the sheet", () => {
     expect(await detail.locator("[data-testid^=rule-result-]").count()).toBe(3);
     expect(await detail.locator("[data-testid=rule-result-smoothed-max]").getAttribute("data-verdict")).toBe("not-evaluated");
     expect(await detail.locator("[data-testid=rule-result-snapshot] [data-testid=verdict] svg").count()).toBe(1);
-    expect(await page.isVisible("[data-testid=safety-note]")).toBe(true);
+    await page.waitForSelector("[data-testid=safety-note]", { timeout: 10_000 });
     await snap(page, "time-rules-demo");
     await snapAt(page, "time-rules-demo-panel", "[data-testid=time-rules]");
     await page.close();

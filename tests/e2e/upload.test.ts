@@ -36,7 +36,7 @@ describe("a technician uploads a capture in the browser", () => {
     await page.selectOption("#m-limits", "iec-61000-3-2-class-d");
     await page.fill("#ctx-ratedPowerW", "abc");
     await page.click("[data-testid=run-analysis]");
-    await expect(page.isVisible("text=Some fields need attention.")).resolves.toBe(true);
+    await page.waitForSelector("text=Some fields need attention.", { timeout: 10_000 });
     await page.fill("#ctx-ratedPowerW", "180");
     await snap(page, "mapping-form");
     await page.click("[data-testid=run-analysis]");
