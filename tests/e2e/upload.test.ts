@@ -52,6 +52,9 @@ describe("a technician uploads a capture in the browser", () => {
     }
     expect(status).toBe("done");
     await page.reload();
+    // IEC 61000-3-2 Table 3 (Class D) at 180 W: h3 ≤ 3.4 mA/W × 180 W = 0.612 A; the PSU draws ≈ 0.69 A.
+    await page.waitForSelector("[data-testid=order-row-3][data-verdict=fail]", { timeout: 15_000 });
+    expect(await page.textContent("[data-testid=order-row-3]")).toContain("Fail");
     await snap(page, "sheet-after-upload");
     await page.close();
   });
