@@ -26,6 +26,8 @@ describe("platform in the browser", () => {
     await page.waitForURL(/\/sites\/[0-9a-f-]{36}$/);
     expect(await page.textContent("[data-testid=site-title]")).toBe("Tamsin Reach Substation Feeder 2");
     expect(await page.textContent("main")).toContain("Isc/IL = 30.0");
+    expect(await page.textContent("[data-testid=site-captures]")).toContain("None yet.");
+    expect(await page.getAttribute("text=New capture here", "href")).toMatch(/^\/captures\/new\?site=[0-9a-f-]{36}$/);
     await snap(page, "site-created");
     await page.click("[data-testid=sign-out]");
     await page.waitForURL(/\/sign-in$/);

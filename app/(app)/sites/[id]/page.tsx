@@ -1,5 +1,7 @@
 import { notFound } from "next/navigation";
 import { z } from "zod";
+import Link from "next/link";
+import { listCaptures } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
 import { requirePage } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
@@ -15,6 +17,7 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
     throw err;
   });
   const ratio = site.iscA && site.ilA ? site.iscA / site.ilA : null;
+  const captures = await listCaptures({ query: { site: site.id, page: 1 }, role: user.role });
   return (
     <div className="max-w-2xl space-y-4">
       <h1 data-testid="site-title">{site.name}</h1>
@@ -23,6 +26,31 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
         {ratio != null && <> · Isc/IL = {ratio.toFixed(1)}</>}
       </p>
       {site.notes && <p className="text-sm">{site.notes}</p>}
+      <section className="panel space-y-2" data-testid="site-captures">
+        <div className="flex flex-wrap items-center justify-between gap-2">
+          <h2>Captures at this site</h2>
+          <span className="flex gap-2">
+            {can(user.role, "captures:upload") && (
+              <Link href={`/captures/new?site=${site.id}`} className="btn-primary py-1">New capture here</Link>
+            )}
+            <Link href={`/captures?site=${site.id}`} className="btn-quiet py-1">All of them</Link>
+          </span>
+        </div>
+        {captures.items.length === 0 ? (
+          <p className="text-sm text-ink-soft">None yet.</p>
+        ) : (
+          <ul className="divide-y divide-line text-sm">
+            {captures.items.slice(0, 8).map((c) => (
+              <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-2 py-1.5">
+                <Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link>
+                <span className="text-ink-muted">
+                  {c.verdict ?? c.status} · {c.createdAt.toISOString().slice(0, 10)}
+                </span>
+              </li>
+            ))}
+          </ul>
+        )}
+      </section>
       {can(user.role, "sites:write") && (
         <>
           <h2>Edit</h2>
