@@ -184,6 +184,16 @@ function percentOf(measured: number | null, limit: number | null): number | null
   return (measured / limit) * 100;
 }
 
+/** Measured against limit: % of limit and the headroom (limit − measured), null where either is unknown. */
+function comparison(measured: number | null, limit: number | null) {
+  return {
+    measured,
+    limit,
+    percentOfLimit: percentOf(measured, limit),
+    margin: measured !== null && limit !== null ? limit - measured : null,
+  };
+}
+
 function expandOrders(row: { from: number; to: number; parity: OrderRow["parity"] }): number[] {
   const orders: number[] = [];
   for (let h = row.from; h <= row.to; h += 1) if (orderMatchesParity(h, row.parity)) orders.push(h);
@@ -213,13 +223,7 @@ function snapshotRow(row: OrderRow, h: number, env: ChannelEnv): ComplianceRow {
   const rms = (env.harmonics.get(h) as HarmonicValue).rms as number;
   const measured = toBasis(rms, row.basis, env);
   const measuredValue = measured.ok ? measured.value : null;
-  const shown = {
-    ...base,
-    measured: measuredValue,
-    limit: limitValue,
-    percentOfLimit: percentOf(measuredValue, limitValue),
-    margin: measuredValue !== null && limitValue !== null ? limitValue - measuredValue : null,
-  };
+  const shown = { ...base, ...comparison(measuredValue, limitValue) };
 
   // IEC 61000-3-2: small currents are disregarded whatever their limit.
   const threshold = env.content.rules.threshold;
@@ -293,13 +297,7 @@ function snapshotAggregate(aggregate: AggregateRow, band: Band, env: ChannelEnv)
   const { total, unavailable } = sumOrders(aggregate, (h) => (missingHarmonic(h, env) ? null : ((env.harmonics.get(h) as HarmonicValue).rms as number)));
   const measured = toBasis(total, aggregate.basis, env);
   const measuredValue = measured.ok ? measured.value : null;
-  const shown = {
-    ...base,
-    measured: measuredValue,
-    limit: limitValue,
-    percentOfLimit: percentOf(measuredValue, limitValue),
-    margin: measuredValue !== null && limitValue !== null ? limitValue - measuredValue : null,
-  };
+  const shown = { ...base, ...comparison(measuredValue, limitValue) };
   const roleNote = aggregate.role === "allowance-condition" ? "allowance condition only, not itself a requirement" : undefined;
   const withRole = (text: string): string => [text, roleNote].filter(Boolean).join("; ");
   if (!limit.ok) return { ...shown, verdict: "not-evaluated", reason: withRole(`not evaluated: ${limit.missing} not given`) };
