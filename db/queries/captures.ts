@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, desc, eq, gte, inArray, lt, sql as dsql, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, gte, lt, sql as dsql, type SQL } from "drizzle-orm";
 import { db } from "@/db/client";
 import {
   analyses,
@@ -397,13 +397,4 @@ export async function findSharedCapture({ tokenHash }: { tokenHash: string }): P
     .innerJoin(captures, eq(captures.id, shareLinks.captureId))
     .where(and(eq(shareLinks.tokenHash, tokenHash), dsql`${shareLinks.revokedAt} is null`, gte(shareLinks.expiresAt, new Date())));
   return row?.capture ?? null;
-}
-
-export async function getSiteName({ id }: { id: string }): Promise<string> {
-  const [s] = await db.select({ name: sites.name }).from(sites).where(eq(sites.id, id));
-  return s?.name ?? "";
-}
-
-export async function capturesByIds({ ids }: { ids: string[] }): Promise<Capture[]> {
-  return ids.length ? db.select().from(captures).where(inArray(captures.id, ids)) : [];
 }
