@@ -342,12 +342,24 @@ async function test() {
     const { env } = await bringUp({ dataDir, ports, fast: true });
     await serveApp(env, { quiet: true });
     const testEnv = { ...env, CHROMIUM_PATH: chromium, TEST_DATA_DIR: dataDir };
-    for (const project of ["unit", "integration", "e2e"]) {
+    // Developers may narrow a run while iterating: `TEST_PROJECTS=integration npm test -- tests/integration/x.test.ts`.
+    // CI sets neither, so it always runs every project and every file.
+    const projects = (process.env.TEST_PROJECTS ?? "unit,integration,e2e").split(",").filter(Boolean);
+    const filters = process.argv.slice(3);
+    for (const project of projects) {
       log(`running the ${project} tests…`);
       const report = path.join(dataDir, `vitest-${project}.json`);
       const res = spawnSync(
         path.join(root, "node_modules", ".bin", "vitest"),
-        ["run", "--project", project, "--reporter=default", "--reporter=json", `--outputFile.json=${report}`],
+        [
+          "run",
+          "--project",
+          project,
+          "--reporter=default",
+          "--reporter=json",
+          `--outputFile.json=${report}`,
+          ...(filters.length > 0 ? ["--passWithNoTests", ...filters] : []),
+        ],
         { cwd: root, stdio: "inherit", env: testEnv },
       );
       if (res.status !== 0) failedRuns += 1;
