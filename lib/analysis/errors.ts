@@ -5,6 +5,7 @@ export type AnalysisErrorCode =
   | "empty-file"
   | "no-numeric-columns"
   | "non-numeric-cell"
+  | "value-out-of-range"
   | "ragged-row"
   | "non-monotonic-time"
   | "irregular-time"

@@ -10,6 +10,14 @@ import type { ColumnPlan } from "./plan-columns";
 export const ROW_CHUNK = 1 << 15;
 const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
 
+/**
+ * Largest magnitude a sample may have once in A, V or s. Squares, products and sums of 10^8
+ * samples stay finite in double precision below it (10^100 squared is 10^200, far under the
+ * 1.8·10^308 ceiling); from about 1.3·10^154 up a single square is Infinity, which made r.m.s.
+ * null and every order "at the limit". No real current, voltage or time comes near it.
+ */
+export const MAX_SAMPLE_MAGNITUDE = 1e100;
+
 /** Receives parsed rows in chunks: `count` rows starting at row `firstRow` (0-based data row). */
 export interface RowSink {
   /** `timesS` (null without a time column) and `values[channel]` hold `count` valid entries; the arrays are reused after the call. */
@@ -241,14 +249,33 @@ export class RowCollector {
   flush(): void {
     const count = this.fill;
     if (count === 0) return;
+    const first = this.rows - count;
     for (let c = 0; c < this.buffers.length; c++) {
       const factor = this.factors[c]!;
-      if (factor === 1) continue;
       const values = this.buffers[c]!;
-      for (let i = 0; i < count; i++) values[i]! *= factor;
+      if (factor !== 1) for (let i = 0; i < count; i++) values[i]! *= factor;
+      const bad = outOfRange(values, count);
+      if (bad >= 0) throw this.tooLarge(first + bad, this.channelColumns[c]!, values[bad]!);
+    }
+    if (this.times && this.timeColumn) {
+      const bad = outOfRange(this.times, count);
+      if (bad >= 0) throw this.tooLarge(first + bad, this.timeColumn, this.times[bad]!);
     }
     this.fill = 0;
     this.sink.accept(this.times, this.buffers, count, this.rows - count);
+  }
+
+  /** A sample beyond {@link MAX_SAMPLE_MAGNITUDE} (or infinite after its unit and scale): a hard input error at its line and column. */
+  private tooLarge(row: number, plan: ColumnPlan, value: number): AnalysisInputError {
+    const line = this.lineOfRow(row);
+    const unit = plan.role === "time" ? "s" : plan.quantity === "current" ? "A" : "V";
+    const shown = Number.isFinite(value) ? `${value.toPrecision(3)} ${unit}` : `beyond the range of a number (${value})`;
+    return new AnalysisInputError(
+      "value-out-of-range",
+      `value out of range at line ${line}, column ${plan.index + 1} (${plan.header}): ${shown} after unit and scale; ` +
+        `magnitudes above ${MAX_SAMPLE_MAGNITUDE.toPrecision(1)} ${unit} overflow the sums of squares (r.m.s., power) and cannot be analysed`,
+      { line, column: plan.index + 1 },
+    );
   }
 
   /**
@@ -282,9 +309,28 @@ export class RowCollector {
   }
 }
 
+/** Index of the first of `count` values that is not finite or beyond ±{@link MAX_SAMPLE_MAGNITUDE}, or −1. */
+function outOfRange(values: Float64Array, count: number): number {
+  for (let i = 0; i < count; i++) {
+    const v = values[i]!;
+    // Written so NaN fails too: NaN compares false both ways.
+    if (!(v <= MAX_SAMPLE_MAGNITUDE && v >= -MAX_SAMPLE_MAGNITUDE)) return i;
+  }
+  return -1;
+}
+
 function nonNumeric(line: number, plan: ColumnPlan, cell: string): AnalysisInputError {
   const shown = cell.length > 24 ? `${cell.slice(0, 24)}…` : cell;
-  const what = cell.trim() === "" ? "an empty cell" : `"${shown}", not a number`;
+  // "1e400" is written as a number but lies beyond double precision: say so rather than "not a number".
+  if (/^\s*[-+]?(\d+[.,]?\d*|[.,]\d+)[eE][-+]?\d+\s*$/.test(cell) && !Number.isFinite(Number(cell.replace(",", ".")))) {
+    return new AnalysisInputError(
+      "value-out-of-range",
+      `value out of range at line ${line}, column ${plan.index + 1} (${plan.header}): "${shown}" is beyond the range of a double-precision number`,
+      { line, column: plan.index + 1 },
+    );
+  }
+  const what =
+    cell.trim() === "" ? "an empty cell" : /^\s*[-+]?(inf|infinity|nan)\s*$/i.test(cell) ? `"${shown}", not a finite number` : `"${shown}", not a number`;
   return new AnalysisInputError("non-numeric-cell", `non-numeric cell at line ${line}, column ${plan.index + 1} (${plan.header}): ${what}`, {
     line,
     column: plan.index + 1,
