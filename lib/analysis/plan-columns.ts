@@ -63,6 +63,7 @@ export function planColumns(layout: CsvLayout, overrides: Record<string, Channel
     if (unitCell) {
       parsed.unit = parseUnit(unitCell);
       parsed.unitText = unitCell.replace(/^[([]\s*|\s*[)\]]$/g, "");
+      parsed.unitPosition = "units-row";
     }
     const detected = detectChannel(parsed);
     const override = findOverride(overrides, parsed.header, parsed.name);
@@ -70,15 +71,15 @@ export function planColumns(layout: CsvLayout, overrides: Record<string, Channel
       index,
       header: parsed.header,
       name: parsed.name,
-      unitText: parsed.unitText,
-      toBase: parsed.unit?.toBase ?? 1,
+      unitText: detected.unitText,
+      toBase: detected.unit?.toBase ?? 1,
       scale: override?.scale ?? 1,
     };
     // Columns the user chose to ignore are read past silently (no warning: it was their choice).
     if (override?.ignore) return { ...base, role: "skipped", quantity: null, phase: null, note: null };
     if (detected.role === "time" && !timeSeen && override?.quantity === undefined) {
       timeSeen = true;
-      return { ...base, role: "time", quantity: null, phase: null, note: parsed.unit ? null : `time column "${parsed.header}" has no unit; seconds assumed` };
+      return { ...base, role: "time", quantity: null, phase: null, note: detected.unit ? null : `time column "${parsed.header}" has no unit; seconds assumed` };
     }
     const quantity = override?.quantity ?? (detected.role === "time" ? null : detected.quantity);
     const phase = override && "phase" in override ? override.phase ?? null : detected.phase;

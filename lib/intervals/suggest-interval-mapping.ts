@@ -1,3 +1,6 @@
+import { detectChannel } from "../analysis/detect-channel";
+import { parseHeader } from "../analysis/parse-header";
+import type { HeaderToken } from "../analysis/tokenize-header";
 import type { IntervalColumnInput, IntervalMappingInput, TimestampFormat } from "./types";
 
 /** A guess for one column; fields are absent where the header says nothing. */
@@ -9,6 +12,8 @@ export interface IntervalColumnSuggestion {
   kind?: "order" | "rms" | "thd";
   order?: number;
   unit?: "A" | "V" | "%";
+  /** Factor to A or V when the header's unit has a prefix (kA → 1000). */
+  scale?: number;
   statistic?: "avg" | "max" | "min" | "p95" | "p99" | "other";
   /** Whether the draft mapping imports it: an averaged (or unlabelled) value with channel, kind and unit known. */
   use: boolean;
@@ -26,31 +31,35 @@ export interface IntervalMappingSuggestion {
 const TIMESTAMP = /^(?:time\s*stamp|date\s*[/_-]?\s*time|date\s*&\s*time|utc|local\s*time|zeitstempel|datum\s*[/_-]?\s*zeit)$/i;
 const DATE_ONLY = /^(?:date|datum|day)$/i;
 const TIME_ONLY = /^(?:time|zeit|time\s*of\s*day|clock)$/i;
-// Channel tokens: I1, IL2, Ia, I_b, IN, U1, UL3, V2, Va, Van, U12 … (letter I → current, U/V → voltage).
-const CHANNEL = /(?:^|[^a-z0-9])([IUV])\s*[_-]?\s*(L?[123N]|[abcn]{1,2}|[123]{2})(?![a-z0-9])/i;
-const PHASE_ONLY = /(?:^|[^a-z0-9])(L[123N])(?![a-z0-9])/i;
-const ORDER = /(?:^|[^a-z])(?:h|harm(?:onic)?s?|ord(?:er)?|n)\s*[_\-#.]?\s*(\d{1,3})(?!\d)/i;
-const ORDER_SUFFIX = /(\d{1,3})(?:st|nd|rd|th)\s*harm/i;
-const FUNDAMENTAL = /fund(?:amental)?|(?:^|[^a-z])h\s*[_-]?0?1(?!\d)/i;
-const THD = /thd/i;
-const RMS = /rms|true\s*rms|(?:^|[^a-z])eff(?:ective)?(?![a-z])/i;
+const ORDER_WORDS = new Set(["h", "harm", "harmonic", "harmonics", "ord", "order"]);
+const ORDINAL = new Set(["st", "nd", "rd", "th"]);
+const RMS_WORDS = new Set(["rms", "trms", "eff", "effective"]);
+const STATISTIC: Record<string, IntervalColumnSuggestion["statistic"]> = {
+  avg: "avg", mean: "avg", average: "avg", aver: "avg", max: "max", maximum: "max", min: "min", minimum: "min",
+};
 
-function unitOf(header: string): "A" | "V" | "%" | undefined {
-  const bracket = /[([]\s*(%|a|v|ka|kv|ma|mv)\s*[)\]]|[_\s](%|a|v)$|\bin\s+(%|a|v)\b/i.exec(header);
-  const raw = (bracket?.[1] ?? bracket?.[2] ?? bracket?.[3])?.toLowerCase();
-  if (raw === "%") return "%";
-  if (raw === "a") return "A";
-  if (raw === "v") return "V";
-  if (header.includes("%")) return "%";
-  return undefined; // kA/mA/kV/mV: ask the user (scale)
+/** Harmonic order from whole tokens: "H5", "h05", "Harm 11", "order 7", "5th harmonic"; 1 for "fund"/"fundamental". */
+function orderOf(tokens: HeaderToken[]): number | undefined {
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i]!;
+    const next = tokens[i + 1];
+    if (ORDER_WORDS.has(t.lower) && next?.numeric) return Number(next.text);
+    if (t.numeric && next && ORDINAL.has(next.lower) && tokens[i + 2]?.lower.startsWith("harm")) return Number(t.text);
+    if (t.lower === "fund" || t.lower === "fundamental") return 1;
+  }
+  return undefined;
 }
 
-function statisticOf(header: string): IntervalColumnSuggestion["statistic"] {
-  if (/\b(?:avg|mean|average|aver)\b/i.test(header)) return "avg";
-  if (/\bmax(?:imum)?\b/i.test(header)) return "max";
-  if (/\bmin(?:imum)?\b/i.test(header)) return "min";
-  if (/\bp\s*95\b|95\s*(?:th|%)/i.test(header)) return "p95";
-  if (/\bp\s*99\b|99\s*(?:th|%)/i.test(header)) return "p99";
+/** Statistic from whole tokens (avg/mean, max, min, p95 / 95th, p99 / 99th). */
+function statisticOf(tokens: HeaderToken[]): IntervalColumnSuggestion["statistic"] {
+  for (let i = 0; i < tokens.length; i++) {
+    const t = tokens[i]!;
+    const stat = STATISTIC[t.lower];
+    if (stat) return stat;
+    const percentile = t.lower === "p" ? tokens[i + 1]?.text : t.numeric && ORDINAL.has(tokens[i + 1]?.lower ?? "") && !tokens[i + 2]?.lower.startsWith("harm") ? t.text : undefined;
+    if (percentile === "95") return "p95";
+    if (percentile === "99") return "p99";
+  }
   return undefined;
 }
 
@@ -75,33 +84,29 @@ export function suggestIntervalMapping(headers: string[]): IntervalMappingSugges
     if (TIMESTAMP.test(text) || DATE_ONLY.test(text)) return { column: header, role: "timestamp", use: false, missing: [] };
     if (TIME_ONLY.test(text)) return { column: header, role: "time", use: false, missing: [] };
     const suggestion: IntervalColumnSuggestion = { column: header, role: "value", use: false, missing: [] };
-    const channel = CHANNEL.exec(text);
-    if (channel) {
-      // Phase letters lower case (Ia, Vab), numbers and L/N upper case (I1, IL2, IN).
-      const suffix = /^[abc]{1,2}$/i.test(channel[2]!) ? channel[2]!.toLowerCase() : channel[2]!.toUpperCase();
-      suggestion.channel = `${channel[1]!.toUpperCase()}${suffix}`;
-      suggestion.quantity = channel[1]!.toUpperCase() === "I" ? "current" : "voltage";
-    } else {
-      const phase = PHASE_ONLY.exec(text);
-      if (phase) suggestion.channel = phase[1]!.toUpperCase();
+    // The waveform import's recogniser: whole tokens, units only from a unit position.
+    const recognised = detectChannel(parseHeader(text));
+    if (recognised.label) suggestion.channel = recognised.label;
+    if (recognised.quantity) suggestion.quantity = recognised.quantity;
+    const unit = recognised.unit;
+    if (unit && unit.baseUnit !== "s") {
+      suggestion.unit = unit.baseUnit;
+      // kA, mV…: the scale turns the logged values into A or V.
+      if (unit.toBase !== 1) suggestion.scale = unit.toBase;
     }
-    const unit = unitOf(text);
-    if (unit) suggestion.unit = unit;
-    if (!suggestion.quantity && (unit === "A" || unit === "V")) suggestion.quantity = unit === "A" ? "current" : "voltage";
-    if (THD.test(text)) {
+    const tokens = recognised.tokens;
+    const order = orderOf(tokens);
+    if (tokens.some((t) => t.lower.startsWith("thd"))) {
       suggestion.kind = "thd";
       suggestion.unit = "%";
-    } else {
-      const order = ORDER.exec(text.replace(CHANNEL, " ")) ?? ORDER_SUFFIX.exec(text);
-      if (order && Number(order[1]) >= 1 && Number(order[1]) <= 100) {
-        suggestion.kind = "order";
-        suggestion.order = Number(order[1]);
-      } else if (FUNDAMENTAL.test(text)) {
-        suggestion.kind = "order";
-        suggestion.order = 1;
-      } else if (RMS.test(text) || (suggestion.channel && (unit === "A" || unit === "V"))) suggestion.kind = "rms";
+      delete suggestion.scale;
+    } else if (order !== undefined && order >= 1 && order <= 100) {
+      suggestion.kind = "order";
+      suggestion.order = order;
+    } else if (tokens.some((t) => RMS_WORDS.has(t.lower)) || (suggestion.channel && (suggestion.unit === "A" || suggestion.unit === "V"))) {
+      suggestion.kind = "rms";
     }
-    const statistic = statisticOf(text);
+    const statistic = statisticOf(tokens);
     if (statistic) suggestion.statistic = statistic;
     if (!suggestion.channel) suggestion.missing.push("channel");
     if (!suggestion.quantity) suggestion.missing.push("quantity");
@@ -134,6 +139,7 @@ export function suggestIntervalMapping(headers: string[]): IntervalMappingSugges
               kind: c.kind as "order" | "rms" | "thd",
               ...(c.kind === "order" ? { order: c.order } : {}),
               unit: c.unit as "A" | "V" | "%",
+              ...(c.scale !== undefined ? { scale: c.scale } : {}),
               ...(c.statistic ? { statistic: c.statistic } : {}),
             }),
           ),

@@ -66,8 +66,18 @@ describe("suggestIntervalMapping (patterns only, no vendor layout)", () => {
     ["IL2 5th harmonic (A)", { channel: "IL2", quantity: "current", order: 5, unit: "A" }],
     ["V1 THD", { channel: "V1", quantity: "voltage", kind: "thd", unit: "%" }],
     ["Harm 11 I3 mean [A]", { channel: "I3", order: 11, statistic: "avg" }],
+    // The waveform import's recogniser (whole tokens, units from a unit position; common practice, no source):
+    ["Current L1 H3 avg [A]", { channel: "IL1", quantity: "current", order: 3, unit: "A", statistic: "avg" }],
+    ["Voltage Phase A H5 avg [V]", { channel: "Va", quantity: "voltage", order: 5, unit: "V" }],
+    ["I1 H5 avg [kA]", { channel: "I1", quantity: "current", order: 5, unit: "A", scale: 1000, use: true }],
+    ["I1 H3 p95 [A]", { channel: "I1", order: 3, statistic: "p95", use: false }],
+    ["Lamp voltage rms [V]", { channel: "V", quantity: "voltage", kind: "rms", unit: "V" }],
   ])("%s", (header, expected) => {
     expect(suggestIntervalMapping(["Time", header]).columns[1]).toMatchObject(expected);
+  });
+
+  test.each(["Sample", "Amplitude", "Ramp"])("%s is not a channel (it used to match 'amp')", (header) => {
+    expect(suggestIntervalMapping(["Time", header]).columns[1]).toMatchObject({ role: "unknown", use: false });
   });
 
   test("separate Date and Time columns become one timestamp", () => {

@@ -68,7 +68,7 @@ export function IntervalMappingForm({ captureId, limitSets, savedMapping, initia
             kind: s?.kind ?? c.kind ?? "order",
             order: String(s?.order ?? c.order ?? ""),
             unit: s?.unit ?? c.unit ?? "A",
-            scale: String(s?.scale ?? 1),
+            scale: String(s?.scale ?? c.scale ?? 1),
             missing: saved ? [] : c.missing,
           };
         }),
