@@ -16,6 +16,7 @@ export type AnalysisErrorCode =
   | "no-channels"
   | "frequency-out-of-range"
   | "invalid-option"
+  | "unknown-column"
   | "unreadable-file";
 
 /** Where in the source file a problem was found (both 1-based). */

@@ -99,8 +99,11 @@ function isPlain(layout: CsvLayout, text: string): boolean {
 
 export function checkOverrides(options: ImportOptions): void {
   for (const [name, override] of Object.entries(options.channels ?? {})) {
-    if (override.scale !== undefined && (!Number.isFinite(override.scale) || override.scale === 0)) {
-      throw new AnalysisInputError("invalid-option", `scale factor for channel ${name} must be a non-zero number, got ${override.scale}`);
+    if (override.scale !== undefined && !(Number.isFinite(override.scale) && override.scale > 0)) {
+      throw new AnalysisInputError(
+        "invalid-option",
+        `scale factor for channel ${name} must be a number greater than zero (A or V per unit recorded), got ${override.scale}`,
+      );
     }
   }
 }

@@ -46,7 +46,8 @@ export function findOverride(
 }
 
 /**
- * Plans every column of a layout: the first time-like column is the time axis; the others are
+ * Plans every column of a layout: the column the user chose as time, else the first time-like
+ * column, is the time axis; the others are
  * channels whose quantity comes from the override, the name or the unit (in that order); a column
  * whose quantity stays unknown is skipped with a note.
  *
@@ -57,6 +58,10 @@ export function findOverride(
  */
 export function planColumns(layout: CsvLayout, overrides: Record<string, ChannelOverride> | undefined): ColumnPlan[] {
   let timeSeen = false;
+  const timeChosen = layout.headers.some((cell) => {
+    const parsed = parseHeader(cell);
+    return findOverride(overrides, parsed.header, parsed.name)?.time === true;
+  });
   return layout.headers.map((cell, index) => {
     const parsed = parseHeader(cell);
     const unitCell = layout.units?.[index];
@@ -77,9 +82,14 @@ export function planColumns(layout: CsvLayout, overrides: Record<string, Channel
     };
     // Columns the user chose to ignore are read past silently (no warning: it was their choice).
     if (override?.ignore) return { ...base, role: "skipped", quantity: null, phase: null, note: null };
-    if (detected.role === "time" && !timeSeen && override?.quantity === undefined) {
+    const asTime = timeChosen ? override?.time === true : detected.role === "time" && override?.quantity === undefined;
+    if (asTime && !timeSeen) {
       timeSeen = true;
-      return { ...base, role: "time", quantity: null, phase: null, note: detected.unit ? null : `time column "${parsed.header}" has no unit; seconds assumed` };
+      const unitNote = detected.unit?.baseUnit === "s" ? null : `time column "${parsed.header}" has no time unit; seconds assumed`;
+      return { ...base, toBase: detected.unit?.baseUnit === "s" ? detected.unit.toBase : 1, role: "time", quantity: null, phase: null, note: unitNote };
+    }
+    if (override?.time || (detected.role === "time" && override?.quantity === undefined)) {
+      return { ...base, role: "skipped", quantity: null, phase: null, note: `column "${parsed.header}" skipped: another column is the time axis` };
     }
     const quantity = override?.quantity ?? (detected.role === "time" ? null : detected.quantity);
     const phase = override && "phase" in override ? override.phase ?? null : detected.phase;

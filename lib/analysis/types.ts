@@ -113,6 +113,8 @@ export interface ChannelOverride {
   phase?: PhaseLabel | null;
   /** Leave this column out entirely (not analysed, no warning). */
   ignore?: boolean;
+  /** Read this column as the time axis (instead of the one its header suggests). */
+  time?: boolean;
 }
 
 export interface AnalysisOptions {

@@ -24,6 +24,7 @@ export function analysisOptionsFrom(mapping: CaptureMapping, context: Evaluation
       ...(m.quantity ? { quantity: m.quantity } : {}),
       ...(m.scale !== undefined ? { scale: m.scale } : {}),
       ...(m.phase !== undefined ? { phase: m.phase } : {}),
+      ...(m.time ? { time: true } : {}),
     };
   }
   return {

@@ -27,10 +27,16 @@ export const registerCaptureSchema = z.object({
 
 export const channelMappingSchema = z.object({
   quantity: z.enum(["current", "voltage"]).optional(),
-  scale: optionalNumber(z.number().positive("Scale must be greater than zero")),
+  scale: optionalNumber(
+    z
+      .number("Scale must be a number (A or V per unit recorded)")
+      .positive("Scale must be greater than zero: it multiplies the recorded values (zero would erase them, a negative one invert them)"),
+  ),
   phase: z.enum(["a", "b", "c"]).nullable().optional(),
   /** Leave a column out of the analysis. */
   ignore: z.boolean().optional(),
+  /** Read this column as the time axis. */
+  time: z.boolean().optional(),
 });
 
 export const captureMappingSchema = z.object({

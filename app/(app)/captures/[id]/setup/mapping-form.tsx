@@ -6,6 +6,8 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import { fieldErrorsOf } from "@/lib/errors";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { usePreview } from "@/lib/swr/use-preview";
+import { parseSensorRating } from "@/lib/analysis/parse-sensor-rating";
+import { parseUnit } from "@/lib/analysis/parse-unit";
 import { captureSetupSchema, type CaptureMapping } from "@/lib/validations/capture";
 import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
 
@@ -18,22 +20,40 @@ interface Props {
   siteFrequencyHz: number;
 }
 
-interface ChannelRow {
+type Choice = "current" | "voltage" | "time" | "ignore";
+
+interface ColumnRow {
   name: string;
   header: string;
   column: number;
-  include: boolean;
-  quantity: "current" | "voltage";
+  /** The unit written in the file for this column (e.g. "mV"), null when none. */
+  unit: string | null;
+  choice: Choice;
+  /** Whether the header said what the column is (else the row asks the user to choose). */
+  recognised: boolean;
   scale: string;
   phase: "" | "a" | "b" | "c";
   note: string | null;
 }
 
+/** What the scale multiplies, in the row's own terms. */
+function scaleMeaning(row: ColumnRow): string {
+  const recorded = row.unit ? parseUnit(row.unit)?.baseUnit : undefined;
+  if (row.choice === "current") {
+    if (recorded === "V") return "amperes per volt of the recorded signal (clamp or shunt output)";
+    if (recorded === "A") return "amperes per ampere recorded (CT ratio)";
+    return "amperes per unit of the recorded signal";
+  }
+  if (recorded === "V") return "volts per volt recorded (PT ratio, probe factor)";
+  return "volts per unit of the recorded signal";
+}
+
+const CHOICE_LABEL: Record<Choice, string> = { current: "Current (A)", voltage: "Voltage (V)", time: "Time axis", ignore: "Ignore" };
 
 export function MappingForm({ captureId, limitSets, initialMapping, initialLimitSetKey, initialContext, siteFrequencyHz }: Props) {
   const router = useRouter();
   const { data, error } = usePreview(captureId);
-  const [rows, setRows] = useState<ChannelRow[]>([]);
+  const [rows, setRows] = useState<ColumnRow[]>([]);
   const [sampleInterval, setSampleInterval] = useState(initialMapping.sampleIntervalS?.toString() ?? "");
   const [frequency, setFrequency] = useState(initialMapping.frequencyHz?.toString() ?? String(siteFrequencyHz));
   const [thdMaxOrder, setThdMaxOrder] = useState(String(initialMapping.thdMaxOrder ?? 50));
@@ -45,34 +65,46 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
   useEffect(() => {
     if (!data?.preview || rows.length > 0) return;
     setRows(
-      data.preview.columns
-        .filter((c) => c.role === "channel")
-        .map((c) => {
-          const saved = initialMapping.channels[c.name];
-          return {
-            name: c.name,
-            header: c.header,
-            column: c.column,
-            include: !saved?.ignore,
-            quantity: saved?.quantity ?? c.quantity ?? "current",
-            scale: saved?.scale != null ? String(saved.scale) : "1",
-            phase: (saved?.phase ?? c.phase ?? "") as ChannelRow["phase"],
-            note: c.note,
-          };
-        }),
+      data.preview.columns.map((c): ColumnRow => {
+        const saved = initialMapping.channels[c.name] ?? initialMapping.channels[c.header];
+        const recognised = c.role === "time" || c.quantity !== null;
+        const detected: Choice = c.role === "time" ? "time" : (c.quantity ?? "ignore");
+        const choice: Choice = saved?.ignore ? "ignore" : saved?.time ? "time" : (saved?.quantity ?? detected);
+        return {
+          name: c.name,
+          header: c.header,
+          column: c.column,
+          unit: c.unit,
+          choice,
+          recognised,
+          scale: saved?.scale != null ? String(saved.scale) : "1",
+          phase: (saved?.phase ?? c.phase ?? "") as ColumnRow["phase"],
+          note: c.role === "skipped" && !recognised ? null : c.note,
+        };
+      }),
     );
   }, [data, rows.length, initialMapping.channels]);
 
-  const update = (i: number, change: Partial<ChannelRow>) => setRows((rs) => rs.map((r, j) => (j === i ? { ...r, ...change } : r)));
+  const update = (i: number, change: Partial<ColumnRow>) => setRows((rs) => rs.map((r, j) => (j === i ? { ...r, ...change } : r)));
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     setMessage(null);
+    const fieldErrors: Record<string, string[]> = {};
+    const channels: Record<string, unknown> = {};
+    for (const r of rows) {
+      if (r.choice === "ignore") channels[r.name] = { ignore: true };
+      else if (r.choice === "time") channels[r.name] = { time: true };
+      else {
+        // The scale field takes a number or the sensor's rating ("10 mV/A"); the server gets the number.
+        const rating = parseSensorRating(r.scale, r.choice);
+        if (!rating.ok) fieldErrors[`mapping.channels.${r.name}.scale`] = [rating.message];
+        channels[r.name] = { quantity: r.choice, scale: rating.ok ? rating.scale : undefined, phase: r.phase || null };
+      }
+    }
     const payload = {
       mapping: {
-        channels: Object.fromEntries(
-          rows.map((r) => [r.name, r.include ? { quantity: r.quantity, scale: numberOrUndefined(r.scale), phase: r.phase || null } : { ignore: true }]),
-        ),
+        channels,
         sampleIntervalS: numberOrUndefined(sampleInterval),
         frequencyHz: frequency ? Number(frequency) : undefined,
         thdMaxOrder: Number(thdMaxOrder),
@@ -80,14 +112,18 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
       ...contextState.payload(),
     };
     const parsed = captureSetupSchema.safeParse(payload);
-    if (!parsed.success) {
-      setErrors(fieldErrorsOf(parsed.error));
+    if (!parsed.success || Object.keys(fieldErrors).length > 0) {
+      setErrors({ ...(parsed.success ? {} : fieldErrorsOf(parsed.error)), ...fieldErrors });
       setMessage("Some fields need attention.");
       return;
     }
-    if (!rows.some((r) => r.include)) return setMessage("Include at least one channel.");
-    if (!data?.preview?.sampleIntervalS && parsed.data.mapping.sampleIntervalS === undefined) {
-      setErrors({ "mapping.sampleIntervalS": ["The file states no sample interval: enter it"] });
+    if (!rows.some((r) => r.choice === "current" || r.choice === "voltage")) {
+      return setMessage("Choose Current or Voltage for at least one column: no column is analysed yet.");
+    }
+    if (rows.filter((r) => r.choice === "time").length > 1) return setMessage("Only one column can be the time axis.");
+    const hasTime = rows.some((r) => r.choice === "time");
+    if (!hasTime && !data?.preview?.sampleIntervalS && parsed.data.mapping.sampleIntervalS === undefined) {
+      setErrors({ "mapping.sampleIntervalS": ["The file states no sample interval and no column is the time axis: enter the interval"] });
       return;
     }
     setErrors({});
@@ -137,40 +173,56 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
 
       {rows.length > 0 && (
         <section className="panel space-y-2">
-          <h2>Channels</h2>
+          <h2>Columns</h2>
+          <p className="text-xs text-ink-muted">Every column of the file. Say what each one is; ignored columns are not analysed.</p>
           <div className="overflow-x-auto">
             <table className="table-base" data-testid="channel-table">
               <thead>
-                <tr><th>Use</th><th>Column</th><th>Quantity</th><th>Scale (CT/PT ratio, probe factor)</th><th>Phase</th></tr>
+                <tr><th>Column</th><th>What it is</th><th>Scale or sensor rating</th><th>Phase</th></tr>
               </thead>
               <tbody>
-                {rows.map((r, i) => (
-                  <tr key={r.name}>
-                    <td><input type="checkbox" aria-label={`Use ${r.name}`} checked={r.include} onChange={(e) => update(i, { include: e.target.checked })} /></td>
-                    <td>
-                      <span className="font-medium">{r.header}</span>
-                      <span className="block text-2xs text-ink-muted">column {r.column}{r.note ? ` · ${r.note}` : ""}</span>
-                    </td>
-                    <td>
-                      <select aria-label={`Quantity of ${r.name}`} className="rounded border border-line bg-paper-raised px-2 py-1" value={r.quantity} onChange={(e) => update(i, { quantity: e.target.value as ChannelRow["quantity"] })}>
-                        <option value="current">Current (A)</option>
-                        <option value="voltage">Voltage (V)</option>
-                      </select>
-                    </td>
-                    <td>
-                      <input aria-label={`Scale of ${r.name}`} inputMode="decimal" className="w-24 rounded border border-line bg-paper-raised px-2 py-1" value={r.scale} onChange={(e) => update(i, { scale: e.target.value })} />
-                      {err(`mapping.channels.${r.name}.scale`)}
-                    </td>
-                    <td>
-                      <select aria-label={`Phase of ${r.name}`} className="rounded border border-line bg-paper-raised px-2 py-1" value={r.phase} onChange={(e) => update(i, { phase: e.target.value as ChannelRow["phase"] })}>
-                        <option value="">—</option>
-                        <option value="a">L1 / A</option>
-                        <option value="b">L2 / B</option>
-                        <option value="c">L3 / C</option>
-                      </select>
-                    </td>
-                  </tr>
-                ))}
+                {rows.map((r, i) => {
+                  const measured = r.choice === "current" || r.choice === "voltage";
+                  const rating = r.choice === "current" || r.choice === "voltage" ? parseSensorRating(r.scale, r.choice) : null;
+                  return (
+                    <tr key={`${r.column}-${r.name}`} data-testid={`column-row-${r.column}`} data-recognised={r.recognised}>
+                      <td>
+                        <span className="font-medium">{r.header}</span>
+                        <span className="block text-2xs text-ink-muted">column {r.column}{r.note ? ` · ${r.note}` : ""}</span>
+                        {!r.recognised && (
+                          <span className="block text-2xs text-caution" data-testid={`not-recognised-${r.column}`}>not recognised — choose what it is</span>
+                        )}
+                      </td>
+                      <td>
+                        <select aria-label={`Quantity of ${r.name}`} className="rounded border border-line bg-paper-raised px-2 py-1" value={r.choice} onChange={(e) => update(i, { choice: e.target.value as Choice })}>
+                          {(Object.keys(CHOICE_LABEL) as Choice[]).map((k) => (
+                            <option key={k} value={k}>{CHOICE_LABEL[k]}</option>
+                          ))}
+                        </select>
+                      </td>
+                      <td>
+                        {measured && (
+                          <>
+                            <input aria-label={`Scale of ${r.name}`} className="w-28 rounded border border-line bg-paper-raised px-2 py-1" value={r.scale} onChange={(e) => update(i, { scale: e.target.value })} />
+                            <span className="block text-2xs text-ink-muted">× {scaleMeaning(r)}; or the sensor&apos;s rating, e.g. 10 mV/A, 100:5</span>
+                            {rating?.ok && rating.scale !== Number(r.scale) && <span className="block text-2xs text-ink-muted" data-testid={`scale-reading-${r.column}`}>{rating.explanation}</span>}
+                            {err(`mapping.channels.${r.name}.scale`)}
+                          </>
+                        )}
+                      </td>
+                      <td>
+                        {measured && (
+                          <select aria-label={`Phase of ${r.name}`} className="rounded border border-line bg-paper-raised px-2 py-1" value={r.phase} onChange={(e) => update(i, { phase: e.target.value as ColumnRow["phase"] })}>
+                            <option value="">—</option>
+                            <option value="a">L1 / A</option>
+                            <option value="b">L2 / B</option>
+                            <option value="c">L3 / C</option>
+                          </select>
+                        )}
+                      </td>
+                    </tr>
+                  );
+                })}
               </tbody>
             </table>
           </div>
