@@ -1,4 +1,5 @@
 // Reads the head of a CSV export and works out how the rest of it is laid out.
+import type { TextEncodingName } from "./detect-encoding";
 import { AnalysisInputError } from "./errors";
 import { parseNumber } from "./parse-number";
 import { parseUnit } from "./parse-unit";
@@ -27,6 +28,8 @@ export interface CsvLayout {
   units: (string | null)[] | null;
   /** Number of data columns (trailing empty fields are not columns). */
   columnCount: number;
+  /** The file's text encoding, detected once from its head; set by the file readers (text input is decoded already). */
+  encoding?: TextEncodingName;
 }
 
 const DELIMITERS = [",", ";", "\t"] as const;

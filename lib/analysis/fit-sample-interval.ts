@@ -10,6 +10,20 @@ export interface TimeAxisFit {
 }
 
 /**
+ * The error for a time stamp smaller than the one before it: the time axis runs backwards there.
+ * One wording for the in-memory and streaming paths and the preview.
+ *
+ * @example
+ * backwardsTimeError(702, 1, 0.05, 0.1093).message // "time axis runs backwards at line 702: 0.05 s follows 0.1093 s (not monotonic)"
+ */
+export function backwardsTimeError(line: number, column: number, timeS: number, previousS: number): AnalysisInputError {
+  return new AnalysisInputError("non-monotonic-time", `time axis runs backwards at line ${line}: ${timeS} s follows ${previousS} s (not monotonic)`, {
+    line,
+    column,
+  });
+}
+
+/**
  * Least-squares fit of t_i = a + b·i over the whole time column. Printed time stamps are rounded,
  * so neighbouring differences are noisy; the slope of the fit is the interval.
  * The axis must increase (a decreasing stamp is "non-monotonic") and every step and every residual
@@ -37,13 +51,7 @@ export function fitSampleInterval(
     throw new AnalysisInputError("too-short", "record is shorter than one analysis window: it has fewer than two samples");
   }
   for (let i = 1; i < n; i++) {
-    if (timesS[i]! < timesS[i - 1]!) {
-      throw new AnalysisInputError(
-        "non-monotonic-time",
-        `time axis is not monotonic at line ${lineOfRow(i)}: ${timesS[i]} s follows ${timesS[i - 1]} s`,
-        { line: lineOfRow(i), column },
-      );
-    }
+    if (timesS[i]! < timesS[i - 1]!) throw backwardsTimeError(lineOfRow(i), column, timesS[i]!, timesS[i - 1]!);
   }
   const meanIndex = (n - 1) / 2;
   let meanTime = 0;

@@ -3,7 +3,7 @@
 import Papa from "papaparse";
 import { detectLayout, type CsvLayout } from "./detect-layout";
 import { AnalysisInputError } from "./errors";
-import { fitSampleInterval } from "./fit-sample-interval";
+import { backwardsTimeError, fitSampleInterval } from "./fit-sample-interval";
 import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
@@ -61,6 +61,13 @@ export function finishImport(collector: RowCollector, sink: MemorySink, options:
   if (options.sampleIntervalS !== undefined) {
     if (!(options.sampleIntervalS > 0) || !Number.isFinite(options.sampleIntervalS)) {
       throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
+    }
+    // A given interval replaces the time column's spacing, but a column running backwards is still an error.
+    if (sink.times && timeColumn) {
+      const times = sink.times.values();
+      for (let i = 1; i < times.length; i++) {
+        if (times[i]! < times[i - 1]!) throw backwardsTimeError(collector.lineOfRow(i), timeColumn.index + 1, times[i]!, times[i - 1]!);
+      }
     }
     sampleIntervalS = options.sampleIntervalS;
     sampleIntervalSource = "option";

@@ -1,5 +1,6 @@
 // A preview of a CSV export for the upload mapping form: what was detected, nothing analysed.
 import { detectLayout, type PreambleEntry } from "./detect-layout";
+import { backwardsTimeError } from "./fit-sample-interval";
 import { intervalFromPreamble } from "./interval-from-preamble";
 import { parseNumber } from "./parse-number";
 import { planColumns } from "./plan-columns";
@@ -29,6 +30,8 @@ export interface CsvPreview {
   sampleIntervalSource: "time-column" | "preamble" | null;
   /** Numeric data rows in the previewed text. */
   previewRows: number;
+  /** Why the time column cannot give the interval (it runs backwards), with its line; null when it can or there is none. */
+  timeAxisProblem: string | null;
 }
 
 /**
@@ -50,18 +53,26 @@ export function inspectCsv(text: string, overrides?: Record<string, ChannelOverr
   const time = columns.find((c) => c.role === "time");
   const times: number[] = [];
   let previewRows = 0;
-  for (const line of lines) {
-    const fields = line.split(layout.delimiter);
+  let timeAxisProblem: string | null = null;
+  for (let offset = 0; offset < lines.length; offset++) {
+    const fields = lines[offset]!.split(layout.delimiter);
     if (fields.length < layout.columnCount) continue;
     previewRows++;
     if (time) {
       const t = parseNumber(fields[time.index]!.trim(), layout.decimalComma);
-      if (!Number.isNaN(t)) times.push(t * time.toBase);
+      if (Number.isNaN(t)) continue;
+      const previous = times[times.length - 1];
+      if (previous !== undefined && t * time.toBase < previous && timeAxisProblem === null) {
+        timeAxisProblem = backwardsTimeError(layout.dataStartLine + offset, time.index + 1, t * time.toBase, previous).message;
+      }
+      times.push(t * time.toBase);
     }
   }
   let sampleIntervalS: number | null = null;
   let sampleIntervalSource: CsvPreview["sampleIntervalSource"] = null;
-  if (time && times.length >= 2) {
+  if (timeAxisProblem !== null) {
+    // No interval from a column that runs backwards: the problem is shown instead of asking for one.
+  } else if (time && times.length >= 2) {
     const n = times.length;
     const meanIndex = (n - 1) / 2;
     const meanTime = times.reduce((s, t) => s + t, 0) / n;
@@ -102,5 +113,6 @@ export function inspectCsv(text: string, overrides?: Record<string, ChannelOverr
     sampleIntervalS,
     sampleIntervalSource,
     previewRows,
+    timeAxisProblem,
   };
 }

@@ -2,7 +2,9 @@
 // where quotes or \r line ends need it. Never holds more than about one 1 MB chunk of text.
 import { createReadStream } from "node:fs";
 import { open, stat } from "node:fs/promises";
+import { Transform, type Readable } from "node:stream";
 import Papa from "papaparse";
+import { detectEncoding, type TextEncodingName } from "./detect-encoding";
 import { detectLayout, type CsvLayout } from "./detect-layout";
 import { AnalysisInputError } from "./errors";
 import type { RowCollector } from "./row-collector";
@@ -14,10 +16,35 @@ export interface CsvHead {
   sizeBytes: number;
   head: string;
   layout: CsvLayout;
+  /** Detected once from the head's bytes (also in `layout.encoding`, which the row readers use). */
+  encoding: TextEncodingName;
 }
 
 /**
- * Reads the head of a file (256 kB) and detects the layout on it.
+ * The file as a stream of text chunks in its own encoding. UTF-8 takes Node's own decoder (the
+ * fast path of large captures); UTF-16 and Windows-1252 go through a streaming TextDecoder, which
+ * carries a character split between chunks over to the next one.
+ */
+function textStream(path: string, encoding: TextEncodingName): Readable {
+  if (encoding === "utf-8") return createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
+  const decoder = new TextDecoder(encoding);
+  const source = createReadStream(path, { highWaterMark: 1 << 20 });
+  const decode = new Transform({
+    readableObjectMode: true,
+    transform(chunk: Buffer, _encoding, done) {
+      done(null, decoder.decode(chunk, { stream: true }));
+    },
+    flush(done) {
+      const rest = decoder.decode();
+      done(null, rest.length > 0 ? rest : undefined);
+    },
+  });
+  source.on("error", (error) => decode.destroy(error));
+  return source.pipe(decode);
+}
+
+/**
+ * Reads the head of a file (256 kB), detects its encoding ({@link detectEncoding}) and the layout on it.
  *
  * Complexity O(head); one read.
  *
@@ -28,13 +55,16 @@ export interface CsvHead {
 export async function readCsvHead(path: string): Promise<CsvHead> {
   let sizeBytes: number;
   let head: string;
+  let encoding: TextEncodingName;
   try {
     sizeBytes = (await stat(path)).size;
     const handle = await open(path, "r");
     try {
       const buffer = Buffer.alloc(Math.min(sizeBytes, HEAD_BYTES));
       const { bytesRead } = await handle.read(buffer, 0, buffer.length, 0);
-      head = buffer.subarray(0, bytesRead).toString("utf8");
+      encoding = detectEncoding(buffer.subarray(0, bytesRead));
+      // TextDecoder drops the byte-order mark.
+      head = new TextDecoder(encoding).decode(buffer.subarray(0, bytesRead));
     } finally {
       await handle.close();
     }
@@ -42,7 +72,9 @@ export async function readCsvHead(path: string): Promise<CsvHead> {
     const reason = error instanceof Error && "code" in error ? String((error as NodeJS.ErrnoException).code) : "read error";
     throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: ${reason}`);
   }
-  return { sizeBytes, head, layout: detectLayout(head, sizeBytes <= HEAD_BYTES) };
+  const layout = detectLayout(head, sizeBytes <= HEAD_BYTES);
+  layout.encoding = encoding;
+  return { sizeBytes, head, layout, encoding };
 }
 
 /**
@@ -50,7 +82,7 @@ export async function readCsvHead(path: string): Promise<CsvHead> {
  * fast scanner; a chunk that does contain quotes goes through papaparse, which handles quoting.
  */
 async function readPlain(path: string, collector: RowCollector): Promise<void> {
-  const stream = createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
+  const stream = textStream(path, collector.layout.encoding ?? "utf-8");
   let partial = "";
   let first = true;
   const consume = (block: string): void => {
@@ -88,7 +120,7 @@ async function readPlain(path: string, collector: RowCollector): Promise<void> {
 function readQuoted(path: string, collector: RowCollector): Promise<void> {
   const { layout } = collector;
   return new Promise<void>((resolve, reject) => {
-    const stream = createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
+    const stream = textStream(path, layout.encoding ?? "utf-8");
     let failed = false;
     const fail = (error: unknown): void => {
       if (failed) return;

@@ -7,6 +7,7 @@ import { ChannelScan } from "./channel-scan";
 import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
+import { backwardsTimeError } from "./fit-sample-interval";
 import { checkOverrides, finishImport, MemorySink, type ImportOptions } from "./import-csv";
 import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
@@ -146,13 +147,7 @@ class FirstPass implements RowSink {
           if (t < previous && !this.monotonicError) {
             const row = firstRow + r;
             const line = this.collector().lineOfRow(row);
-            this.monotonicError = {
-              row,
-              error: new AnalysisInputError("non-monotonic-time", `time axis is not monotonic at line ${line}: ${t} s follows ${previous} s`, {
-                line,
-                column: this.timeColumn,
-              }),
-            };
+            this.monotonicError = { row, error: backwardsTimeError(line, this.timeColumn, t, previous) };
           }
           // Provisional: against the look-ahead's interval; re-checked exactly in pass 2.
           if (!this.stepError && Math.abs(t - previous - intervalS) > 0.5 * intervalS) this.stepError = { row: firstRow + r, stepS: t - previous };
@@ -389,6 +384,8 @@ export async function streamCsvAnalysis(
     if (!(options.sampleIntervalS > 0) || !Number.isFinite(options.sampleIntervalS)) {
       throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
     }
+    // A given interval replaces the time column's spacing, but a column running backwards is still an error.
+    if (first.monotonicError) throw first.monotonicError.error;
     sampleIntervalS = options.sampleIntervalS;
     sampleIntervalSource = "option";
   } else if (timeColumn) {

@@ -1,11 +1,13 @@
-// CSV exports arrive as UTF-8 (with or without BOM) or, from older instruments, Latin-1.
+import { detectEncoding } from "@/lib/analysis/detect-encoding";
+
+/**
+ * Decodes a stored export (or its head) in the encoding detected from its first bytes — the same
+ * detection the analysis makes when it streams the file, so preview and analysis read the same
+ * characters: UTF-8 with or without BOM, UTF-16 LE/BE, else Windows-1252.
+ */
 export function decodeText(bytes: Uint8Array): string {
-  let text: string;
-  try {
-    text = new TextDecoder("utf-8", { fatal: true }).decode(bytes);
-  } catch {
-    text = new TextDecoder("latin1").decode(bytes);
-  }
+  const text = new TextDecoder(detectEncoding(bytes)).decode(bytes);
+  // TextDecoder drops a leading byte-order mark; a second one (a BOM written twice) is dropped here.
   return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 }
 

@@ -11,7 +11,8 @@ export async function previewCapture(s3Key: string) {
   const text = completeLines(decodeText(await getObjectHead(s3Key, previewBytes)));
   const firstLines = text.split(/\r?\n/).slice(0, 12);
   try {
-    return { preview: inspectCsv(text), problem: null, firstLines };
+    const preview = inspectCsv(text);
+    return { preview, problem: preview.timeAxisProblem, firstLines };
   } catch (err) {
     // A file the importer cannot read still gets its first lines and the reason.
     if (isAnalysisInputError(err)) return { preview: null, problem: err.message, firstLines };

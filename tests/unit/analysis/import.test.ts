@@ -151,7 +151,7 @@ describe("input errors name the problem and the line", () => {
     ["error-no-numeric.csv", "no-numeric-columns", /no numeric columns/, undefined, undefined],
     ["error-non-numeric.csv", "non-numeric-cell", /non-numeric cell at line 57, column 3 \(I \(A\)\): "abc"/, 57, 3],
     ["error-empty-cell.csv", "non-numeric-cell", /line 102, column 2 \(V \(V\)\): an empty cell/, 102, 2],
-    ["error-non-monotonic.csv", "non-monotonic-time", /not monotonic at line 702/, 702, 1],
+    ["error-non-monotonic.csv", "non-monotonic-time", /time axis runs backwards at line 702: .* \(not monotonic\)/, 702, 1],
     ["error-irregular.csv", "irregular-time", /irregular time axis at line 802/, 802, 1],
     ["error-too-short.csv", "too-short", /shorter than one analysis window/, undefined, undefined],
     ["error-constant.csv", "constant-channel", /channel I \(A\) is constant/, undefined, undefined],
