@@ -1,3 +1,4 @@
+import { MAX_SAMPLE_MAGNITUDE } from "../analysis/row-collector";
 import { IntervalLogError, type IntervalLogIssue } from "./errors";
 import { parseTimestamp, TIMESTAMP_FORMATS_TEXT } from "./parse-timestamp";
 import { splitDelimitedLine } from "./split-delimited-line";
@@ -129,7 +130,18 @@ export function importIntervalLog(text: string, mappingInput: IntervalMappingInp
         bad = true;
         return;
       }
-      raw[j]!.push(Number(normalised));
+      const value = Number(normalised);
+      // A value whose square overflows would turn r.m.s./TDD sums into Infinity, which judges as "at the limit".
+      if (!(Math.abs(value * c.scale) <= MAX_SAMPLE_MAGNITUDE)) {
+        issues.push({
+          line: lineNo,
+          column: c.column,
+          message: `"${cell}" is out of range: magnitudes above ${MAX_SAMPLE_MAGNITUDE.toPrecision(1)} (after the scale) overflow the sums and cannot be judged`,
+        });
+        bad = true;
+        return;
+      }
+      raw[j]!.push(value);
     });
     if (bad) continue;
     times.push(ms);

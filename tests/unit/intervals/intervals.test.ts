@@ -130,6 +130,19 @@ describe("importIntervalLog", () => {
     expect(run).toThrow(message);
   });
 
+  // Issue 9 §2: double precision ends near 1.8·10^308 (IEEE 754-2019 §3.6, binary64); a square of 1e200 already overflows.
+  test.each(["1e400", "1e200", "-3e150"])("a logged value of %s is out of range at its line and column (it used to judge as 'at the limit')", (cell) => {
+    const text = `Time,I1 H1 [A],I1 H5 [A]\n2024-03-04 00:00,40,3\n2024-03-04 00:10,41,${cell}\n2024-03-04 00:20,40,3\n`;
+    const mapping: IntervalMappingInput = {
+      timestamp: { column: "Time" },
+      columns: [
+        { column: "I1 H1 [A]", channel: "I1", quantity: "current", kind: "order", order: 1, unit: "A" },
+        { column: "I1 H5 [A]", channel: "I1", quantity: "current", kind: "order", order: 5, unit: "A" },
+      ],
+    };
+    expect(() => importIntervalLog(text, mapping)).toThrow(new RegExp(`^line 3, column "I1 H5 \\[A\\]": "${cell.replace("+", "\\+")}" is out of range`));
+  });
+
   test("mapping errors name the header line and column", () => {
     const text = "Time,I1 H5 [%]\n2024-03-04 00:00,3\n2024-03-04 00:10,4\n";
     expect(() =>
