@@ -177,7 +177,7 @@ export function detectChannel(parsed: ParsedHeader): ColumnRole {
   const byUnit: Quantity | null = unit?.baseUnit === "A" ? "current" : unit?.baseUnit === "V" ? "voltage" : null;
   const quantity = byName ?? byUnit;
   const conflict =
-    byName && byUnit && byName !== byUnit
+    byName && ((byUnit && byName !== byUnit) || unit?.baseUnit === "%")
       ? `column "${parsed.header}" is named as a ${byName} but recorded in ${unitText}; give its scale factor`
       : null;
   return { ...base, unit, unitText, role: "channel", quantity, phase, lineToLine, label, conflict };

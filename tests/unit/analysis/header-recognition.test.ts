@@ -133,6 +133,7 @@ describe("header recognition: whole tokens, units only from a unit position", ()
   test("a name/unit disagreement is flagged for a scale factor, an agreement is not", () => {
     expect(detectChannel(parseHeader("Ia (mV)")).conflict).toMatch(/named as a current but recorded in mV/);
     expect(detectChannel(parseHeader("Ia (mA)")).conflict).toBeNull();
+    expect(detectChannel(parseHeader("Ia (%)")).conflict).toMatch(/recorded in %; give its scale factor/);
   });
 
   test("channel labels for grouping interval-log columns", () => {
