@@ -105,6 +105,7 @@ export function detectChannel(parsed: ParsedHeader): ColumnRole {
   const tokens = tokenizeHeader(parsed.name);
   const words = tokens.map((t) => t.lower);
   const base = { unit, unitText, tokens, lineToLine: false, conflict: null };
+  let suffixDropped = false;
 
   // A simulator's probe: I(device) or V(node) — the bracket names a device or node, never a phase.
   const probe = /^([IVUivu])\s*\(([^()]+)\)$/.exec(parsed.name.trim());
@@ -159,14 +160,18 @@ export function detectChannel(parsed: ParsedHeader): ColumnRole {
         designation += "a";
         unit = null;
         unitText = null;
+        suffixDropped = true;
       } else if (unit.baseUnit === "s") {
         unit = null;
         unitText = null;
+        suffixDropped = true;
       }
     }
     if (letter) label = `${letter}${labelSuffix(designation)}`;
     else if (/^L[123]/.test(designation)) label = labelSuffix(designation);
   }
+  // A suffix that was no unit is a word of the name again (e.g. the statistic of "I1_H5_min").
+  if (suffixDropped) base.tokens = tokenizeHeader(parsed.header);
   const distinct = [...new Set(phases)];
   const lineToLine = distinct.length > 1;
   const phase = distinct.length === 1 ? distinct[0]! : null;

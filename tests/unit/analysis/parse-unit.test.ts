@@ -47,5 +47,7 @@ describe("parseUnit", () => {
     expect(mv).toMatchObject({ unit: "V", scale: 1e-3 });
     expect(minimum).toMatchObject({ unit: "A", statistic: "min" });
     expect(minimum!.scale).toBeUndefined();
+    // As a `_min` suffix after a channel's name it is no time unit but the statistic.
+    expect(suggestIntervalMapping(["Time", "I1_H5_min"]).columns[1]).toMatchObject({ channel: "I1", order: 5, statistic: "min", use: false });
   });
 });
