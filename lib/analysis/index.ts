@@ -7,3 +7,7 @@ export { estimateFundamental } from "./estimate-fundamental";
 export { importCsvFile, importCsvText, type ImportedCapture, type ImportedChannel } from "./import-csv";
 export { inspectCsv, type CsvPreview } from "./inspect-csv";
 export type * from "./types";
+export { parseSensorRating, type SensorRating } from "./parse-sensor-rating";
+export { checkOverrideColumns } from "./check-override-columns";
+export { readCsvHead, type CsvHead } from "./read-csv-rows";
+export { detectEncoding, type TextEncodingName } from "./detect-encoding";
