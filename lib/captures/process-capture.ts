@@ -65,7 +65,8 @@ export async function processCapture({
     }
     const { analysis, waveform } = analysed;
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
-    const result = evaluateCapture(analysis, revision, context);
+    // The record's start (the technician's capture time) aligns 10-minute values to the clock.
+    const result = evaluateCapture(analysis, revision, context, capture.capturedAt?.getTime());
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
   } catch (err) {

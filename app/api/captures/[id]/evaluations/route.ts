@@ -21,11 +21,11 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { limitSetKey, context } = reevaluateSchema.parse(await readJson(req));
-    await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, role: user.role });
     const analysis = await latestAnalysis({ captureId: id });
     if (!analysis) throw new AppError("conflict", "The capture has not been analysed yet.");
     const revision = await getCurrentRevision({ key: limitSetKey });
-    const result = evaluateCapture(analysis.result, revision, context);
+    const result = evaluateCapture(analysis.result, revision, context, capture.capturedAt?.getTime());
     const evaluationId = await insertEvaluation({ captureId: id, analysisId: analysis.id, revisionId: revision.revisionId, context, result, actorId: user.id });
     return NextResponse.json({ evaluationId, verdict: result.verdict }, { status: 201 });
   },
