@@ -63,7 +63,7 @@ describe("the command line and the worker run one pipeline", () => {
     const out = JSON.parse(cli.stdout) as { limitSetSource: string; compliance: typeof stored.result };
     // The CLI read the same current revision from the database the worker used.
     expect(out.limitSetSource).toBe("database");
-    expect(String(out.compliance.limitSet.revision.id)).toBe(stored.limitSetRevisionId);
+    expect(String(out.compliance.revision.id)).toBe(stored.limitSetRevisionId);
 
     const judged = (r: typeof stored.result) =>
       JSON.parse(JSON.stringify({ verdict: r.verdict, rows: r.rows, aggregates: r.aggregates, timeBasis: r.timeBasis, timeRules: r.timeRules })) as unknown;
