@@ -8,13 +8,14 @@ import { formatComplianceTable } from "@/lib/compliance/format-compliance-table"
 import { formatAnalysisText } from "@/lib/pipeline/format-analysis-text";
 import { parseAnalyzeArgs, UsageError, type AnalyzeRequest } from "@/lib/pipeline/parse-analyze-args";
 import { analyzeCaptureFile, evaluateCapture, type LimitSetRevision } from "@/lib/pipeline/run-capture";
-import { seedLimitSetRevision, UnknownLimitSetError } from "@/lib/pipeline/seed-limit-set-revision";
+import { UnknownLimitSetError } from "@/lib/pipeline/unknown-limit-set-error";
 
 type LimitSetSource = "database" | "seed-files";
 
 /** The limit set's current revision and where it came from. */
 async function loadLimitSet(key: string): Promise<{ limitSet: LimitSetRevision; source: LimitSetSource }> {
-  if (!process.env.DATABASE_URL) return { limitSet: seedLimitSetRevision(key), source: "seed-files" };
+  // Loaded only when needed: the seed tables and the database client take time to load.
+  if (!process.env.DATABASE_URL) return { limitSet: (await import("@/lib/pipeline/seed-limit-set-revision")).seedLimitSetRevision(key), source: "seed-files" };
   const [{ getCurrentRevision }, { AppError }, { sql }] = await Promise.all([import("@/db/queries/captures"), import("@/lib/errors"), import("@/db/client")]);
   try {
     return { limitSet: await getCurrentRevision({ key }), source: "database" };

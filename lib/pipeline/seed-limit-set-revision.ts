@@ -1,9 +1,8 @@
 // The limit sets as shipped in the seed files, in the shape the database gives a current revision.
 import { getSeedLimitSet, seedLimitSets } from "@/lib/compliance/seed";
 import type { LimitSetRevision } from "./run-capture";
+import { UnknownLimitSetError } from "./unknown-limit-set-error";
 
-/** Thrown for a key that names no seed limit set; the message lists the known keys. */
-export class UnknownLimitSetError extends Error {}
 
 /**
  * The seed files' content of a limit set, as revision "seed:KEY" number 1 (the revision a fresh
