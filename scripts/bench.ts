@@ -149,6 +149,86 @@ export const BENCH_CASES: BenchCase[] = [
 ];
 
 /**
+ * Writes an interval log: ISO timestamps every `intervalMs`, 3 current channels × (orders 1–50 avg,
+ * THD avg, r.m.s. avg) — 156 value columns, ≈ 1.3 KB a row.
+ */
+async function writeIntervalLog(path: string, rows: number, intervalMs: number): Promise<void> {
+  mkdirSync(dirname(path), { recursive: true });
+  const out = createWriteStream(path);
+  const channels = ["I1", "I2", "I3"];
+  let chunk = `${["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])].join(",")}\n`;
+  const start = Date.UTC(2024, 2, 4);
+  for (let k = 0; k < rows; k++) {
+    const cells = [new Date(start + k * intervalMs).toISOString()];
+    for (let c = 0; c < channels.length; c++) {
+      const i1 = 60 + 30 * Math.sin((2 * Math.PI * k * intervalMs) / 86_400_000) + c;
+      const orders = Array.from({ length: 49 }, (_, i) => ((i + 2) % 2 === 1 ? i1 / (i + 2) : i1 / (20 * (i + 2))) * (0.9 + (0.2 * ((k * 7 + i) % 10)) / 10));
+      const distortion = Math.sqrt(orders.reduce((sum, v) => sum + v * v, 0));
+      cells.push(i1.toFixed(3), ...orders.map((v) => v.toFixed(4)), ((distortion / i1) * 100).toFixed(3), Math.hypot(i1, distortion).toFixed(3));
+    }
+    chunk += `${cells.join(",")}\n`;
+    if (chunk.length > 1 << 20) {
+      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
+      chunk = "";
+    }
+  }
+  out.write(chunk);
+  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+}
+
+/** Interval logs as large as an upload may be: the worker's path, and the chart data it stores. */
+function intervalCases(): BenchCase[] {
+  return [
+    {
+      name: "interval-log-60mb",
+      description: "37 days of 1-minute values (53,500 rows × 156 columns, ≈ 60 MB): the worker's judge of a stored log (read, import, IEEE 519 percentiles, trends)",
+      prepare: async () => {
+        const path = join(outDir, "interval-month-1min-3ch.csv");
+        if (!existsSync(path)) await writeIntervalLog(path, 53_500, 60_000);
+        return path;
+      },
+      run: async (path) => {
+        const { judgeBenchIntervalLog } = await import("./bench-interval-log");
+        const started = performance.now();
+        const { rows, verdict, trendPoints } = await judgeBenchIntervalLog(path);
+        return { timings: { importMs: performance.now() - started }, summary: `${rows} rows, verdict ${verdict}, ${trendPoints} trend points stored per series` };
+      },
+      targets: { wallS: 20, rssMB: 350 },
+    },
+    {
+      name: "scanner-vs-papaparse-60mb",
+      description:
+        "why waveform records keep their own scanner: the 60 s, 4-channel capture (60 MB) read into the same row collector by the fast scanner and by papaparse (the reader quoted files take)",
+      prepare: async () => {
+        const path = join(outDir, "capture-60s-4ch-25k6.csv");
+        if (!existsSync(path)) await writeCapture(path, 60);
+        return path;
+      },
+      run: async (path) => {
+        const { readCsvHead, readCsvRows } = await import("../lib/analysis/read-csv-rows");
+        const { RowCollector } = await import("../lib/analysis/row-collector");
+        const { planColumns } = await import("../lib/analysis/plan-columns");
+        const { head, layout } = await readCsvHead(path);
+        const sink = { accept: () => undefined };
+        const timed = async (text: string): Promise<number> => {
+          const started = performance.now();
+          await readCsvRows(path, text, new RowCollector(layout, planColumns(layout, undefined), sink));
+          return performance.now() - started;
+        };
+        const scannerMs = await timed(head);
+        // A head with a quote sends readCsvRows down its papaparse path; the file and collector are the same.
+        const papaparseMs = await timed(`${head}"`);
+        return {
+          timings: { importMs: scannerMs, rereadMs: papaparseMs },
+          summary: `fast scanner ${(scannerMs / 1000).toFixed(2)} s, papaparse ${(papaparseMs / 1000).toFixed(2)} s: papaparse takes ${(papaparseMs / scannerMs).toFixed(1)}× as long`,
+        };
+      },
+      targets: { wallS: 30, rssMB: 500 },
+    },
+  ];
+}
+
+/**
  * Runs a command as a child process and returns its peak RSS (getrusage of the child, reported by a
  * preloaded exit hook on fd 3) and its stdout.
  */
@@ -201,7 +281,7 @@ async function main(): Promise<void> {
   const keep = args.includes("--keep");
   const only = args.find((a) => !a.startsWith("--"));
   let failed = false;
-  for (const bench of [...BENCH_CASES, ...cliCases()].filter((c) => !only || c.name === only)) {
+  for (const bench of [...BENCH_CASES, ...cliCases(), ...intervalCases()].filter((c) => !only || c.name === only)) {
     const path = await bench.prepare();
     const sizeMB = statSync(path).size / 1e6;
     let peakRss = process.memoryUsage().rss;
