@@ -237,6 +237,8 @@ const next = () => path.join(root, "node_modules", ".bin", "next");
 
 async function bringUp({ dataDir, ports, fast }) {
   ensureNodeModules();
+  // The analysis command line is bundled once (dist/cli/), so `npm run analyze` starts fast.
+  run(process.execPath, ["scripts/build-cli.mjs"]);
   const pgBin = ensurePostgresInstalled();
   await startPostgres(pgBin, path.join(dataDir, "pg"), ports.pg, { fast });
 

@@ -6,12 +6,10 @@ import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
-import { downloadObjectToFile, getObjectBytes } from "@/lib/storage/s3";
-import { getSiteById } from "@/db/queries/sites";
+import { downloadObjectToFile } from "@/lib/storage/s3";
 import { IntervalLogError } from "@/lib/intervals/errors";
-import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
-import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
-import { decodeText } from "./decode-text";
+import { captureMappingSchema } from "@/lib/validations/capture";
+import { judgeStoredIntervalLog } from "./judge-stored-interval-log";
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
 
@@ -40,11 +38,8 @@ export async function processCapture({
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     if (capture.kind === "interval-log") {
-      const bytes = await getObjectBytes(capture.s3Key);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
-      const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
-      const site = await getSiteById({ id: capture.siteId });
-      const { analysis, trends, result, startMs } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
+      const { analysis, trends, result, startMs } = await judgeStoredIntervalLog(capture, revision, context);
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.
       if (!capture.capturedAt) await setCapturedAt({ id: captureId, capturedAt: new Date(startMs) });
@@ -65,7 +60,8 @@ export async function processCapture({
     }
     const { analysis, waveform } = analysed;
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
-    const result = evaluateCapture(analysis, revision, context);
+    // The record's start (the technician's capture time) aligns 10-minute values to the clock.
+    const result = evaluateCapture(analysis, revision, context, capture.capturedAt?.getTime());
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
   } catch (err) {

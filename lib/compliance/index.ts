@@ -1,7 +1,6 @@
 // Public API of the compliance layer (pure: no framework, database or storage imports).
 export { evaluateCompliance, type EvaluateComplianceInput } from "./evaluate-compliance";
 export { formatComplianceTable } from "./format-compliance-table";
-export { complianceForCli } from "./compliance-for-cli";
 export { evaluateFormula } from "./evaluate-formula";
 export { parseFormula, FormulaSyntaxError, FormulaVariableError, FORMULA_VARIABLES } from "./parse-formula";
 export { selectBand, type BandSelection } from "./select-band";

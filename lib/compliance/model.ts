@@ -340,6 +340,8 @@ export const EvaluationContextSchema = z.object({
   nominalVoltageV: z.number().positive().optional(),
   /** Nominal system (line-to-line) voltage at the PCC, V — chooses the IEEE 519 table. */
   busVoltageV: z.number().positive().optional(),
+  /** Where busVoltageV came from: given as such, or taken from the system's nominal voltage (stated on the sheet). */
+  busVoltageSource: z.enum(["given", "system-nominal"]).optional(),
   phaseConfig: PhaseConfigSchema.optional(),
   /** IEEE 519 note (c): power-generation equipment uses the first row regardless of Isc/IL. */
   isGenerator: z.boolean().optional(),

@@ -2,27 +2,10 @@ import type { AnalysisResult, ChannelResult, HarmonicValue } from "../analysis/t
 import { evaluateCompliance, type EvaluateComplianceInput, type TimeSeriesInput } from "../compliance/evaluate-compliance";
 import type { Basis, EvaluationContext } from "../compliance/model";
 import type { ComplianceResult, ComplianceRow } from "../compliance/result";
-import type { IntervalGap, IntervalLog } from "./types";
+import { thinIntervalTrends } from "./thin-interval-trends";
+import type { IntervalGap, IntervalLog, IntervalTrend, IntervalTrendSeries } from "./types";
 
-/** One value series for charts, in the unit of its limit. */
-export interface IntervalTrendSeries {
-  /** "h5", "TDD", "THD". */
-  name: string;
-  order?: number;
-  unit: string;
-  values: number[];
-  /** Table limit (× 1); null when none applies or context is missing. */
-  limit: number | null;
-  /** The limit each time rule compares with (table limit × multiplier). */
-  ruleLimits: Array<{ rule: string; label: string; limit: number }>;
-}
-
-export interface IntervalTrend {
-  channel: string;
-  timestampsMs: number[];
-  orders: IntervalTrendSeries[];
-  aggregates: IntervalTrendSeries[];
-}
+export type { IntervalTrend, IntervalTrendSeries } from "./types";
 
 export interface IntervalLogEvaluation extends ComplianceResult {
   trends: IntervalTrend[];
@@ -82,7 +65,8 @@ function ruleLimitsOf(row: { rowRules?: ComplianceRow["rowRules"] }): IntervalTr
  * 1,008 rows per channel for a week), on the same evaluator as captures, so the result has the
  * ComplianceResult shape (rows with rowRules, aggregates, verdict, timeRules summary) plus
  * trend series per channel (orders and THD/TDD in the unit of their limits, with the table limit
- * and each rule's limit) and the log's gaps and warnings.
+ * and each rule's limit; thinned to `options.maxTrendPoints`, default ~2,000, per series by
+ * thinIntervalTrends) and the log's gaps and warnings.
  *
  * There is no capture mean to fall back on: a rule the log cannot serve (3 s values from a
  * 10-minute log, 1.5 s smoothing) is not evaluated and named; rows none of whose rules can be
@@ -98,7 +82,7 @@ export function evaluateIntervalLog(
   log: IntervalLog,
   limitSet: EvaluateComplianceInput["limitSet"],
   context: EvaluationContext,
-  options: { channel?: string } = {},
+  options: { channel?: string; maxTrendPoints?: number } = {},
 ): IntervalLogEvaluation {
   const rowCount = log.timestampsMs.length;
   const fundamentals = new Map(log.channels.map((channel) => [channel.name, fundamentalSeries(channel)]));
@@ -191,7 +175,8 @@ export function evaluateIntervalLog(
       const tableLimit = aggregate.rowRules?.find((result) => result.tableLimit !== null)?.tableLimit ?? null;
       aggregates.push({ name: aggregate.name, unit: aggregate.unit, values: inBasis, limit: tableLimit, ruleLimits: ruleLimitsOf(aggregate) });
     }
-    return { channel: evaluated.channel, timestampsMs, orders, aggregates };
+    // Thinned per channel as built, so a long log's full-resolution series never exist for every channel at once.
+    return thinIntervalTrends([{ channel: evaluated.channel, timestampsMs, orders, aggregates }], options.maxTrendPoints)[0]!;
   });
   return {
     ...result,

@@ -86,3 +86,25 @@ export interface IntervalLog {
   gaps: IntervalGap[];
   warnings: string[];
 }
+
+/** One value series for charts, in the unit of its limit. */
+export interface IntervalTrendSeries {
+  /** "h5", "TDD", "THD". */
+  name: string;
+  order?: number;
+  unit: string;
+  values: number[];
+  /** Table limit (× 1); null when none applies or context is missing. */
+  limit: number | null;
+  /** The limit each time rule compares with (table limit × multiplier). */
+  ruleLimits: Array<{ rule: string; label: string; limit: number }>;
+}
+
+export interface IntervalTrend {
+  channel: string;
+  /** Log rows behind each point when the series were thinned for the charts (thinIntervalTrends); absent or 1: one point per row. */
+  rowsPerPoint?: number;
+  timestampsMs: number[];
+  orders: IntervalTrendSeries[];
+  aggregates: IntervalTrendSeries[];
+}

@@ -1,27 +1,27 @@
-// An interval log's job, as pure functions: CSV text + the user's column mapping + a limit-set
-// revision + context → the percentile rules judged over the whole period, with trend data.
+// An interval log's job, as pure functions: an imported log + a limit-set revision + context →
+// the percentile rules judged over the whole period, with trend data thinned for the charts.
 import type { AnalysisResult } from "@/lib/analysis/types";
-import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
-import { evaluateIntervalLog, type IntervalLogEvaluation, type IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
-import { importIntervalLog } from "@/lib/intervals/import-interval-log";
-import type { IntervalMappingInput } from "@/lib/intervals/types";
+import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import { evaluateIntervalLog, type IntervalLogEvaluation, type IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import type { IntervalLog } from "@/lib/intervals/types";
+import type { LimitSetRevision } from "./run-capture";
 
 /**
- * Imports and judges an interval log. Returns the evaluation, the trends for the charts and a
- * summary in the analysis shape (channels are per-interval averages, no waveform), so an
- * interval log is stored and listed like any capture.
+ * Judges an imported interval log (importIntervalLogFile / importIntervalLog). Returns the
+ * evaluation, the trends for the charts (at most ~2,000 points per series) and a summary in the
+ * analysis shape (no channels, no waveform), so an interval log is stored and listed like any
+ * capture. The worker's first evaluation and every "evaluate again" call this.
  *
- * @throws IntervalLogError naming the line and column of each problem in the file or mapping.
+ * @example
+ * const { result } = judgeIntervalLog(await importIntervalLogFile(path, mapping), revision, context, 50);
  */
 export function judgeIntervalLog(
-  text: string,
-  mapping: IntervalMappingInput,
-  limitSet: { key: string; name: string; revisionId: string; revisionNumber: number; content: LimitSetRevisionContent },
+  log: IntervalLog,
+  limitSet: LimitSetRevision,
   context: EvaluationContext,
   nominalHz: 50 | 60,
 ): { analysis: AnalysisResult; trends: IntervalTrend[]; result: ComplianceResult; startMs: number } {
-  const log = importIntervalLog(text, mapping);
   const evaluation: IntervalLogEvaluation = evaluateIntervalLog(
     log,
     { key: limitSet.key, name: limitSet.name, revision: { id: limitSet.revisionId, number: limitSet.revisionNumber }, content: limitSet.content },
@@ -43,5 +43,10 @@ export function judgeIntervalLog(
     power: { phases: [], total: null },
     warnings: [...summary.warnings, ...gapWarnings],
   };
-  return { analysis, trends, startMs: summary.startMs, result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${summary.intervalS} s from ${new Date(summary.startMs).toISOString()} to ${new Date(summary.endMs).toISOString()}.`] } };
+  return {
+    analysis,
+    trends,
+    startMs: summary.startMs,
+    result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${summary.intervalS} s from ${new Date(summary.startMs).toISOString()} to ${new Date(summary.endMs).toISOString()}.`] },
+  };
 }

@@ -87,7 +87,11 @@ export function describeContext(context: EvaluationContext | Record<string, unkn
   if (c.rsce !== undefined) out.push(["Rsce", formatNumber(c.rsce)]);
   if (c.ratedPowerW !== undefined) out.push(["Rated power", `${formatNumber(c.ratedPowerW)} W`]);
   if (c.lambda !== undefined) out.push(["Power factor (lambda)", formatNumber(c.lambda)]);
-  if (c.busVoltageV !== undefined) out.push(["Bus voltage", `${formatNumber(c.busVoltageV)} V`]);
+  if (c.busVoltageV !== undefined) {
+    // Which voltage chose a bus-voltage band: one given as such, or the system's nominal voltage standing in for it.
+    const from = c.busVoltageSource === "system-nominal" ? " (the system's nominal voltage; no bus voltage given)" : "";
+    out.push(["Bus voltage", `${formatNumber(c.busVoltageV)} V${from}`]);
+  }
   if (c.nominalVoltageV !== undefined) out.push(["Nominal voltage", `${formatNumber(c.nominalVoltageV)} V`]);
   if (c.phaseConfig !== undefined) out.push(["Phase configuration", phaseConfigLabels[c.phaseConfig] ?? c.phaseConfig]);
   if (c.isGenerator) out.push(["Generator", "yes"]);

@@ -70,6 +70,36 @@ describe("interval logs through the queue", () => {
     expect(analysis?.trends?.[0]?.timestampsMs.length).toBe(1008);
   });
 
+  it("evaluates again from the logged series: the same context gives the first evaluation's verdict, another context judges the rows anew", async () => {
+    const id = await uploadLog("fixtures/intervals/week-10min-3ch.csv");
+    const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as { preview: { suggestion: { mapping: unknown } } };
+    const context = { iscA: 2400, ilA: 60, busVoltageV: 480 };
+    const setup = { intervalMapping: preview.preview.suggestion.mapping, limitSetKey: "ieee-519-2014-current", context };
+    expect((await tech.request("PUT", `/api/captures/${id}/interval-setup`, setup)).status).toBe(200);
+    expect(await evaluate(id)).toMatchObject({ status: "done" });
+    const [first] = await db.select().from(evaluations).where(eq(evaluations.captureId, id));
+    if (!first) throw new Error("no first evaluation stored");
+
+    const engineer = await signedIn("engineer");
+    const again = await engineer.request("POST", `/api/captures/${id}/evaluations`, { limitSetKey: "ieee-519-2014-current", context });
+    expect(again.status).toBe(201);
+    const { evaluationId } = (await again.json()) as { evaluationId: string };
+    const [second] = await db.select().from(evaluations).where(eq(evaluations.id, evaluationId));
+    const judged = (r: typeof first.result) => ({ verdict: r.verdict, rows: r.rows, aggregates: r.aggregates, timeRules: r.timeRules });
+    expect(second!.result.rows.length).toBeGreaterThan(0);
+    expect(judged(second!.result)).toEqual(judged(first.result));
+
+    // Twice the load current IL: IEEE 519-2014 Table 2 limits are in % of IL, so every logged order's
+    // percentile in %IL halves (an independent consequence of the definition, not of the code).
+    const doubled = await engineer.request("POST", `/api/captures/${id}/evaluations`, { limitSetKey: "ieee-519-2014-current", context: { iscA: 4800, ilA: 120, busVoltageV: 480 } });
+    expect(doubled.status).toBe(201);
+    const [third] = await db.select().from(evaluations).where(eq(evaluations.id, ((await doubled.json()) as { evaluationId: string }).evaluationId));
+    const h5Rules = (r: typeof first.result) => r.rows.find((row) => row.order === 5)!.rowRules!.filter((rule) => rule.measured !== null);
+    const firstRules = h5Rules(first.result);
+    expect(firstRules.length).toBeGreaterThan(0);
+    for (const rule of firstRules) expect(h5Rules(third!.result).find((r) => r.rule === rule.rule)!.measured).toBeCloseTo(rule.measured! / 2, 9);
+  });
+
   it("ends a log with a malformed row as failed, naming the line", async () => {
     const id = await uploadLog("fixtures/intervals/error-malformed-row.csv");
     const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as {

@@ -1,7 +1,7 @@
 // Worked evaluator cases, computed by hand from the printed tables (sources beside each check;
 // markers from /work/shared/reference/standards.md).
 import { describe, expect, test } from "vitest";
-import { complianceForCli } from "@/lib/compliance/compliance-for-cli";
+import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { evaluateCompliance } from "@/lib/compliance/evaluate-compliance";
 import { formatComplianceTable } from "@/lib/compliance/format-compliance-table";
 import type { EvaluationContext } from "@/lib/compliance/model";
@@ -10,7 +10,7 @@ import { getSeedLimitSet } from "@/lib/compliance/seed";
 import { makeAnalysis, type AnalysisSpec } from "./make-analysis";
 
 function run(key: string, spec: AnalysisSpec, context: EvaluationContext = {}): ComplianceResult {
-  return complianceForCli(makeAnalysis(spec), key, context).compliance;
+  return judgeWithSeed(makeAnalysis(spec), key, context);
 }
 
 function row(result: ComplianceResult, order: number) {
@@ -452,8 +452,8 @@ describe("result shape and CLI helper", () => {
   });
 
   test("unknown key → one-line error naming the known keys", () => {
-    expect(() => complianceForCli(makeAnalysis({ channels: [{ name: "I", fundamentalRms: 1 }] }), "iec-nope")).toThrow(
-      /unknown limit set "iec-nope"; known: iec-61000-3-2-class-a/,
+    expect(() => judgeWithSeed(makeAnalysis({ channels: [{ name: "I", fundamentalRms: 1 }] }), "iec-nope")).toThrow(
+      /unknown limit set "iec-nope"; known keys: iec-61000-3-2-class-a/,
     );
   });
 });

@@ -2,7 +2,7 @@
 // from /work/shared/reference/standards.md: confirmed (C), secondary source (C*), from memory (M),
 // computed from formula (X).
 import { describe, expect, test } from "vitest";
-import { complianceForCli } from "@/lib/compliance/compliance-for-cli";
+import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { LimitSetRevisionContentSchema, type EvaluationContext } from "@/lib/compliance/model";
 import { getSeedLimitSet, seedLimitSetInputs, seedLimitSets } from "@/lib/compliance/seed";
 import { makeAnalysis } from "./make-analysis";
@@ -13,13 +13,13 @@ const quietVoltage = makeAnalysis({ channels: [{ name: "V", quantity: "voltage",
 
 function limitOf(key: string, order: number, context: EvaluationContext = {}): number | null {
   const analysis = key.endsWith("voltage") ? quietVoltage : quiet;
-  const row = complianceForCli(analysis, key, context).compliance.rows.find((candidate) => candidate.order === order);
+  const row = judgeWithSeed(analysis, key, context).rows.find((candidate) => candidate.order === order);
   return row ? row.limit : null;
 }
 
 function aggregateLimitOf(key: string, name: string, context: EvaluationContext = {}): number | null {
   const analysis = key.endsWith("voltage") ? quietVoltage : quiet;
-  return complianceForCli(analysis, key, context).compliance.aggregates.find((aggregate) => aggregate.name === name)?.limit ?? null;
+  return judgeWithSeed(analysis, key, context).aggregates.find((aggregate) => aggregate.name === name)?.limit ?? null;
 }
 
 describe("seed limit sets validate against the schema", () => {
@@ -226,7 +226,7 @@ describe("IEEE 519 current limits, Tables 2–4 (% of IL)", () => {
   });
 
   test("limits apply up to h = 50 (IEEE 519-2014, C): no row above 50", () => {
-    const rows = complianceForCli(quiet, "ieee-519-2014-current", table2(30)).compliance.rows;
+    const rows = judgeWithSeed(quiet, "ieee-519-2014-current", table2(30)).rows;
     expect(Math.max(...rows.map((row) => row.order))).toBe(50);
     expect(rows.map((row) => row.order)[0]).toBe(2);
   });

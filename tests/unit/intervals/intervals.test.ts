@@ -170,9 +170,7 @@ describe("evaluateIntervalLog: IEEE 519-2014 weekly percentiles of 10-minute val
   }
   const text = lines.join("\n");
   const log = importIntervalLog(text, inspectIntervalLog(text).suggestion.mapping!);
-  const started = performance.now();
   const result = evaluateIntervalLog(log, limitSet("ieee-519-2014-current"), CONTEXT);
-  const elapsedMs = performance.now() - started;
   const row = (order: number) => result.rows.find((candidate) => candidate.order === order)!;
   const rule = (order: number, id: string) => row(order).rowRules!.find((candidate) => candidate.rule === id)!;
 
@@ -211,23 +209,17 @@ describe("evaluateIntervalLog: IEEE 519-2014 weekly percentiles of 10-minute val
     ]);
     expect(result.trends[0]!.timestampsMs[1]! - result.trends[0]!.timestampsMs[0]!).toBe(600_000);
   });
-
-  test("a one-week evaluation takes well under 2 s", () => {
-    expect(elapsedMs).toBeLessThan(2000);
-  });
 });
 
 describe("evaluateIntervalLog on the fixtures", () => {
-  test("week fixture: 3 channels, TDD from the logged THD column, trends with TDD; import + evaluation < 2 s", () => {
-    const started = performance.now();
+  // Speed of import + evaluation lives in `npm run bench` (interval-log-week-3ch, interval-log-60mb).
+  test("week fixture: 3 channels, TDD from the logged THD column, trends with TDD", () => {
     const text = fixture("week-10min-3ch.csv");
     const log = importIntervalLog(text, inspectIntervalLog(text).suggestion.mapping!);
     const result = evaluateIntervalLog(log, limitSet("ieee-519-2014-current"), CONTEXT);
-    expect(performance.now() - started).toBeLessThan(2000);
     expect(result.channels).toHaveLength(3);
     const tdd = result.aggregates.find((aggregate) => aggregate.name === "TDD")!;
     expect(tdd.rowRules?.find((candidate) => candidate.rule === "weekly-p95-short")?.reason).toContain("from the logged THD column");
-    expect(["pass", "fail"]).toContain(tdd.verdict);
     expect(result.trends[0]!.aggregates.find((series) => series.name === "TDD")?.values).toHaveLength(1008);
   });
 

@@ -1,13 +1,13 @@
 // A loaded sheet built by hand around a real evaluation, for the report builder tests.
 import type { AnalysisResult } from "@/lib/analysis/types";
-import { complianceForCli } from "@/lib/compliance/compliance-for-cli";
+import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { SheetReport } from "@/lib/reports/sheet-report";
 import { makeAnalysis, type AnalysisSpec } from "../compliance/make-analysis";
 
 /** `series`: per channel name, per-window r.m.s. by order (all channels get the same number of windows). */
 export function makeSheet(key: string, spec: AnalysisSpec, context: EvaluationContext = {}, series?: Record<string, Record<number, number[]>>): SheetReport {
-  const result = complianceForCli(withSeries(makeAnalysis(spec), series), key, context).compliance;
+  const result = judgeWithSeed(withSeries(makeAnalysis(spec), series), key, context);
   return {
     capture: {
       id: "00000000-0000-4000-8000-000000000001",

@@ -8,6 +8,7 @@ import { IntervalMappingSchema } from "@/lib/intervals/types";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
 import { IntervalMappingForm } from "./interval-mapping-form";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
+import { voltageContextFromSystem } from "@/lib/pipeline/voltage-context-from-system";
 import { MappingForm } from "./mapping-form";
 
 export const metadata = { title: "Map channels" };
@@ -32,8 +33,8 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
     context: {
       ...(site.iscA ? { iscA: site.iscA } : {}),
       ...(site.ilA ? { ilA: site.ilA } : {}),
-      busVoltageV: site.nominalVoltageV,
-      nominalVoltageV: site.nominalVoltageV > 250 ? Math.round(site.nominalVoltageV / Math.sqrt(3)) : site.nominalVoltageV,
+      // The site's (system) nominal voltage gives the bus voltage and the channels' nominal voltage.
+      ...voltageContextFromSystem(site.nominalVoltageV, {}),
     },
   };
   return (

@@ -3,8 +3,16 @@ import { getCaptureById, getCurrentRevision, insertEvaluation, latestAnalysis, l
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { AppError } from "@/lib/errors";
+import { judgeStoredIntervalLog } from "@/lib/captures/judge-stored-interval-log";
+import { IntervalLogError } from "@/lib/intervals/errors";
 import { evaluateCapture } from "@/lib/pipeline/run-capture";
 import { reevaluateSchema } from "@/lib/validations/capture";
+
+/** A log that no longer imports with its stored mapping (e.g. the mapping was changed) cannot be judged again as analysed. */
+function rethrowAsConflict(err: unknown): never {
+  if (err instanceof IntervalLogError) throw new AppError("conflict", `The interval log cannot be judged again with its saved mapping: ${err.message}`);
+  throw err;
+}
 
 // GET /api/captures/:id/evaluations — every evaluation of the capture, newest first
 export const GET = withAuth<{ id: string }>(
@@ -21,11 +29,15 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { limitSetKey, context } = reevaluateSchema.parse(await readJson(req));
-    await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, role: user.role });
     const analysis = await latestAnalysis({ captureId: id });
     if (!analysis) throw new AppError("conflict", "The capture has not been analysed yet.");
     const revision = await getCurrentRevision({ key: limitSetKey });
-    const result = evaluateCapture(analysis.result, revision, context);
+    // An interval log's stored analysis has no channels: it is judged again from its logged series.
+    const result =
+      capture.kind === "interval-log"
+        ? (await judgeStoredIntervalLog(capture, revision, context).catch(rethrowAsConflict)).result
+        : evaluateCapture(analysis.result, revision, context, capture.capturedAt?.getTime());
     const evaluationId = await insertEvaluation({ captureId: id, analysisId: analysis.id, revisionId: revision.revisionId, context, result, actorId: user.id });
     return NextResponse.json({ evaluationId, verdict: result.verdict }, { status: 201 });
   },

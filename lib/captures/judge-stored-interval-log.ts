@@ -1,0 +1,33 @@
+import "server-only";
+import { mkdtemp, rm } from "node:fs/promises";
+import os from "node:os";
+import path from "node:path";
+import type { Capture } from "@/db/schema";
+import { getSiteById } from "@/db/queries/sites";
+import type { EvaluationContext } from "@/lib/compliance/model";
+import { importIntervalLogFile } from "@/lib/intervals/import-interval-log-file";
+import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
+import type { LimitSetRevision } from "@/lib/pipeline/run-capture";
+import { downloadObjectToFile } from "@/lib/storage/s3";
+import { intervalSetupMappingSchema } from "@/lib/validations/capture";
+
+/**
+ * Judges an interval log from its stored original (the logged series, never modified) with its
+ * stored column mapping, in a context and against a limit-set revision. The original is copied to
+ * a temporary file and read as a stream (memory does not grow with the file's text). The worker's
+ * first evaluation and every later "evaluate again" run this, so the same context gives the same verdict.
+ *
+ * @throws IntervalLogError naming the line and column of a problem in the file or mapping.
+ */
+export async function judgeStoredIntervalLog(capture: Capture, revision: LimitSetRevision, context: EvaluationContext): Promise<ReturnType<typeof judgeIntervalLog>> {
+  const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
+  const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-log-"));
+  try {
+    const file = path.join(dir, "original.csv");
+    const [site] = await Promise.all([getSiteById({ id: capture.siteId }), downloadObjectToFile(capture.s3Key, file)]);
+    const log = await importIntervalLogFile(file, intervalMapping);
+    return judgeIntervalLog(log, revision, context, site.frequencyHz === 60 ? 60 : 50);
+  } finally {
+    await rm(dir, { recursive: true, force: true });
+  }
+}

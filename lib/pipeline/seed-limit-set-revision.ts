@@ -1,0 +1,19 @@
+// The limit sets as shipped in the seed files, in the shape the database gives a current revision.
+import { getSeedLimitSet, seedLimitSets } from "@/lib/compliance/seed";
+import type { LimitSetRevision } from "./run-capture";
+import { UnknownLimitSetError } from "./unknown-limit-set-error";
+
+
+/**
+ * The seed files' content of a limit set, as revision "seed:KEY" number 1 (the revision a fresh
+ * database is seeded with). Used by the command line when no DATABASE_URL is set.
+ *
+ * @throws UnknownLimitSetError naming the known keys.
+ * @example
+ * seedLimitSetRevision("iec-61000-3-2-class-a").revisionId // "seed:iec-61000-3-2-class-a"
+ */
+export function seedLimitSetRevision(key: string): LimitSetRevision {
+  const seed = getSeedLimitSet(key);
+  if (!seed) throw new UnknownLimitSetError(`unknown limit set "${key}"; known keys: ${seedLimitSets.map((s) => s.key).join(", ")}`);
+  return { key: seed.key, name: seed.name, revisionId: `seed:${seed.key}`, revisionNumber: 1, content: seed.content };
+}
