@@ -1,5 +1,6 @@
 // The command line's flags → the same mapping and context the upload form produces, so the CLI
 // runs the worker's pipeline on them (lib/pipeline/run-capture.ts).
+import { parseSensorRating } from "@/lib/analysis/parse-sensor-rating";
 import { parseArgs } from "node:util";
 import { EvaluationContextSchema, type EvaluationContext } from "@/lib/compliance/model";
 import { captureMappingSchema, type CaptureMapping } from "@/lib/validations/capture";
@@ -15,6 +16,7 @@ export const ANALYZE_FLAGS = [
   { flag: "--interval", value: "SECONDS", text: "sample interval, s (overrides the time column and preamble)" },
   { flag: "--channel", value: "NAME=current|voltage|ignore", text: "what a column measures (repeatable)" },
   { flag: "--scale", value: "NAME=FACTOR", text: "multiplier applied to a column's values, > 0 (e.g. A per V of a clamp's output; repeatable)" },
+  { flag: "--sensor", value: "NAME=RATING", text: "a column's sensor as on its label, e.g. 10mV/A (clamp: ×100), 100:5 (CT), 10mOhm (shunt); sets that column's scale (repeatable)" },
   { flag: "--thd-order", value: "40|50", text: "highest order in THD (default 50, as in the app)" },
   { flag: "--limits", value: "KEY", text: "judge against this limit set (current revision from PostgreSQL when DATABASE_URL is set, else the seed files)" },
   { flag: "--isc", value: "A", text: "maximum short-circuit current at the PCC, A (IEEE 519)" },
@@ -86,6 +88,7 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeRequest {
         help: { type: "boolean", default: false },
         channel: { type: "string", multiple: true },
         scale: { type: "string", multiple: true },
+        sensor: { type: "string", multiple: true },
         ...Object.fromEntries(stringFlags.map((f) => [f, { type: "string" as const }])),
       },
       allowPositionals: true,
@@ -124,6 +127,13 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeRequest {
     const scale = Number(factor);
     if (!(factor.trim() !== "" && Number.isFinite(scale) && scale > 0)) throw new UsageError(`--scale ${name}= must be a number greater than zero, got "${factor}"`);
     mapping.channels[name] = { ...mapping.channels[name], scale };
+  }
+  for (const item of (values.sensor as string[] | undefined) ?? []) {
+    const [name, ratingText] = nameValue("sensor", item);
+    if (mapping.channels[name]?.scale !== undefined) throw new UsageError(`--sensor ${name}= and --scale ${name}= both set its scale; give one`);
+    const rating = parseSensorRating(ratingText, mapping.channels[name]?.quantity);
+    if (!rating.ok) throw new UsageError(`--sensor ${name}=${ratingText}: ${rating.message}`);
+    mapping.channels[name] = { ...mapping.channels[name], scale: rating.scale };
   }
   const checkedMapping = captureMappingSchema.safeParse(mapping);
   if (!checkedMapping.success) throw new UsageError(checkedMapping.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; "));

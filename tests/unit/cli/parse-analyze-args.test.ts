@@ -26,6 +26,23 @@ describe("parseAnalyzeArgs", () => {
     expect(context).toEqual({ busVoltageV: 415, busVoltageSource: "given", nominalVoltageV: 231 });
   });
 
+  test("--sensor reads a clamp's label into the column's scale", () => {
+    // A 10 mV/A clamp: 1 A primary gives 10 mV, so 1 V recorded is 100 A (common practice, no source).
+    const { mapping } = parseAnalyzeArgs(["a.csv", "--channel", "CH2=current", "--sensor", "CH2=10mV/A"]);
+    expect(mapping.channels).toEqual({ CH2: { quantity: "current", scale: 100 } });
+    // A 100:5 CT: 5 A secondary stands for 100 A primary, ×20 (common practice, no source).
+    expect(parseAnalyzeArgs(["a.csv", "--sensor", "Ib=100:5"]).mapping.channels).toEqual({ Ib: { scale: 20 } });
+  });
+
+  test.each([
+    [["a.csv", "--sensor", "Ia=-10mV/A"], /--sensor Ia=-10mV\/A/],
+    [["a.csv", "--sensor", "Ia=banana"], /--sensor Ia=banana/],
+    [["a.csv", "--scale", "Ia=2", "--sensor", "Ia=10mV/A"], /both set its scale/],
+  ])("refuses the sensor rating in %j", (argv, message) => {
+    expect(() => parseAnalyzeArgs(argv)).toThrow(UsageError);
+    expect(() => parseAnalyzeArgs(argv)).toThrow(message);
+  });
+
   test.each([
     [["--json"], /no input file/],
     [["a.csv", "--frequency", "55"], /--frequency must be 50 or 60/],
