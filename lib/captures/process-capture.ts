@@ -39,6 +39,12 @@ export async function processCapture({
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
+    // What the result is made of, stored beside it so a sign-off names the set-up behind it.
+    const setup = {
+      setup: { mapping: capture.mapping ?? {}, limitSetKey: capture.limitSetKey, context: capture.context ?? {} },
+      setupBy: capture.setupBy,
+      fileSha256: capture.sha256,
+    };
     if (capture.kind === "interval-log") {
       const bytes = await getObjectBytes(capture.s3Key);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
@@ -48,7 +54,7 @@ export async function processCapture({
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.
       if (!capture.capturedAt) await setCapturedAt({ id: captureId, capturedAt: new Date(startMs) });
-      await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+      await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
       return;
     }
     const mapping = captureMappingSchema.parse(capture.mapping ?? {});
@@ -67,7 +73,7 @@ export async function processCapture({
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
     const result = evaluateCapture(analysis, revision, context);
     await beforeStore?.();
-    await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+    await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
   } catch (err) {
     const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError;
     const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");

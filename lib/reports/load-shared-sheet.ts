@@ -19,12 +19,12 @@ async function sharedCaptureId(token: string): Promise<string> {
 }
 
 /**
- * The sheet a share link shows: the capture's newest evaluation. The token itself is the
+ * The sheet a share link shows: the approved evaluation while one exists, else the newest. The token itself is the
  * authorisation, so the capture is read with a reviewer's visibility (not a viewer's filter).
  */
 export async function loadSharedSheet({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadSheet({ captureId, role: "engineer" });
+  return loadSheet({ captureId, role: "engineer", approvedOnly: true });
 }
 
 /** Chart data for a share link, with the same check as the sheet. */

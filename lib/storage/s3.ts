@@ -1,7 +1,9 @@
 import "server-only";
-import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
 import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { createHash } from "node:crypto";
 import { createWriteStream } from "node:fs";
+import { PassThrough, Transform } from "node:stream";
 import type { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 
@@ -31,10 +33,10 @@ export async function getObjectBytes(key: string): Promise<Uint8Array> {
   return res.Body.transformToByteArray();
 }
 
-export async function headObject(key: string): Promise<{ sizeBytes: number } | null> {
+export async function headObject(key: string): Promise<{ sizeBytes: number; contentType: string | null } | null> {
   try {
     const res = await s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key }));
-    return { sizeBytes: res.ContentLength ?? 0 };
+    return { sizeBytes: res.ContentLength ?? 0, contentType: res.ContentType ?? null };
   } catch {
     return null;
   }
@@ -44,11 +46,45 @@ export function presignPut(key: string, contentType: string, expiresInS = 900): 
   return getSignedUrl(s3, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
 }
 
-/** Streams an object to a file (large captures never sit in memory whole). */
-export async function downloadObjectToFile(key: string, path: string): Promise<void> {
+/** A stream step that hashes (SHA-256) and counts what passes through it. */
+function hashing() {
+  const hash = createHash("sha256");
+  let sizeBytes = 0;
+  const step = new Transform({
+    transform(chunk: Buffer, _enc, done) {
+      hash.update(chunk);
+      sizeBytes += chunk.length;
+      done(null, chunk);
+    },
+  });
+  return { step, result: () => ({ sha256: hash.digest("hex"), sizeBytes }) };
+}
+
+/** Streams an object to a file (large captures never sit in memory whole); returns its SHA-256 (hex) and size. */
+export async function downloadObjectToFile(key: string, path: string): Promise<{ sha256: string; sizeBytes: number }> {
   const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
   if (!res.Body) throw new Error(`object ${key} has no body`);
-  await pipeline(res.Body as Readable, createWriteStream(path));
+  const h = hashing();
+  await pipeline(res.Body as Readable, h.step, createWriteStream(path));
+  return h.result();
+}
+
+/** SHA-256 (hex) and size of an object, computed by streaming it through the server. */
+export async function hashObject(key: string): Promise<{ sha256: string; sizeBytes: number }> {
+  const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  if (!res.Body) throw new Error(`object ${key} has no body`);
+  const h = hashing();
+  await pipeline(res.Body as Readable, h.step, new PassThrough().resume());
+  return h.result();
+}
+
+/** Server-side copy inside the bucket (the confirmed original is a copy the client never had a URL for). */
+export async function copyObject(fromKey: string, toKey: string): Promise<void> {
+  await s3.send(new CopyObjectCommand({ Bucket: bucket, Key: toKey, CopySource: `${bucket}/${encodeURIComponent(fromKey).replaceAll("%2F", "/")}` }));
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  await s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
 }
 
 /** The first `bytes` bytes of an object (for previews of large uploads). */

@@ -64,6 +64,8 @@ export const reviewActionSchema = z
   .object({
     action: z.enum(["submitted", "approved", "sent_back", "comment"]),
     comment: z.string().trim().max(4000, "Comment is too long (max 4000)").default(""),
+    /** The evaluation the decision is about (required to approve: it must be the newest one). */
+    evaluationId: z.uuid("Name the evaluation").optional(),
   })
   .refine((v) => !(v.action === "sent_back" || v.action === "comment") || v.comment.length > 0, {
     path: ["comment"],

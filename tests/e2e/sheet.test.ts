@@ -132,7 +132,7 @@ describe("the pass/fail sheet", () => {
     await page.close();
   });
 
-  it("a technician submits, the engineer sends back with a reason and then approves; the uploader gets the e-mail", async () => {
+  it("a technician submits, the engineer sends back with a reason, the technician resubmits and an admin approves; the uploader gets the e-mail", async () => {
     const tech = await browser.newPage();
     await signInAs(tech, "technician");
     await tech.goto(url(`/captures/${failingId}`));
@@ -149,15 +149,30 @@ describe("the pass/fail sheet", () => {
     await page.fill("[data-testid=review-comment]", "h3 is over; check the clamp ratio first");
     await page.click("[data-testid=review-send-back]");
     await page.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Sent back");
-    await page.fill("[data-testid=review-comment]", "Ratio confirmed, excess is real");
-    await page.click("[data-testid=review-approve]");
-    await page.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Approved");
-    const history = await page.$$eval("[data-testid=review-event]", (els) => els.map((e) => e.getAttribute("data-action")));
-    expect(history).toEqual(["submitted", "sent_back", "approved"]);
+    // Sent back is not approvable: the buttons follow the state machine.
+    expect(await page.locator("[data-testid=review-approve]").count()).toBe(0);
+    await page.close();
+
+    const techApi = await signedIn("technician");
+    expect((await techApi.request("POST", `/api/captures/${failingId}/review`, { action: "submitted", comment: "ratio checked" })).status).toBe(200);
+
+    // The engineer re-judged this capture earlier, so by the four-eyes rule another reviewer approves.
+    const adminPage = await browser.newPage();
+    await signInAs(adminPage, "admin");
+    await adminPage.goto(url(`/captures/${failingId}`));
+    await adminPage.fill("[data-testid=review-comment]", "Ratio confirmed, excess is real");
+    await adminPage.click("[data-testid=review-approve]");
+    await adminPage.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Approved");
+    expect(await adminPage.textContent("[data-testid=review-state-chip]")).toContain("Approved by Ines Marlowe");
+    expect(await adminPage.textContent("[data-testid=sheet-setup]")).toContain("File SHA-256");
+    expect(await adminPage.locator("[data-testid=review-approve]").count()).toBe(0);
+    const history = await adminPage.$$eval("[data-testid=review-event]", (els) => els.map((e) => e.getAttribute("data-action")));
+    expect(history).toEqual(["submitted", "sent_back", "submitted", "approved"]);
+    await snapAt(adminPage, "sheet-approved", "body");
     const mail = await mailWithSubject("technician@ordwise.test", `"${failingTitle}" approved`);
     expect(mail.text).toContain("Ratio confirmed");
     expect(mail.text).toContain(`/captures/${failingId}`);
-    await page.close();
+    await adminPage.close();
   });
 
   it("downloads the PDF and the CSV with the per-order table", async () => {

@@ -22,10 +22,16 @@ export async function analysedCapture(
   await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
   await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey, context: {} }));
   await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
+  await waitForCapture(api, capture.id, timeoutMs);
+  return capture.id;
+}
+
+/** Waits until a queued analysis is done; throws with the reason when it failed. */
+export async function waitForCapture(api: Client, id: string, timeoutMs = 60_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
-    if (c.status === "done") return capture.id;
+    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${id}`));
+    if (c.status === "done") return;
     if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
     if (Date.now() > deadline) throw new Error(`analysis did not finish in ${timeoutMs / 1000} s`);
     await new Promise((r) => setTimeout(r, 250));

@@ -74,7 +74,9 @@ export default async function CaptureSheetPage({
     listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, role: user.role }),
   ]);
   const others = siblings.items.filter((c) => c.id !== capture.id);
-  const evalQuery = evaluation.id !== latestId ? `?evaluation=${evaluation.id}` : "";
+  // The sheet's default is the approved evaluation while one exists, else the newest.
+  const defaultId = capture.approvedEvaluationId ?? latestId;
+  const evalQuery = evaluation.id !== defaultId ? `?evaluation=${evaluation.id}` : "";
   const context = EvaluationContextSchema.safeParse(evaluation.context);
   // The evaluation made just before the shown one, to show the two side by side.
   const shownIndex = sheet.evaluations.findIndex((e) => e.id === evaluation.id);
@@ -86,7 +88,19 @@ export default async function CaptureSheetPage({
       <nav className="text-sm text-ink-soft" aria-label="Breadcrumb">
         <Link href="/captures" className="hover:text-copper">Captures</Link> / <span>{capture.title}</span>
       </nav>
-      {evaluation.id !== latestId && (
+      {sheet.newerResult && evaluation.id !== latestId && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="newer-result">
+          A newer result awaits review ({formatWhen(sheet.newerResult.createdAt)}); this sheet shows the approved one until it is approved itself.{" "}
+          <Link href={`/captures/${capture.id}?evaluation=${sheet.newerResult.id}`} className="font-semibold underline">Show the newer result</Link>
+        </p>
+      )}
+      {capture.approvedEvaluationId && evaluation.id === latestId && evaluation.id !== capture.approvedEvaluationId && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="unapproved-result">
+          This newer result is not approved yet; share links, the PDF and viewers show the approved one.{" "}
+          <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the approved result</Link>
+        </p>
+      )}
+      {evaluation.id !== latestId && evaluation.id !== capture.approvedEvaluationId && (
         <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="older-evaluation">
           You are looking at an earlier evaluation ({formatWhen(evaluation.createdAt)}).{" "}
           <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the latest</Link>
@@ -122,7 +136,7 @@ export default async function CaptureSheetPage({
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
-          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts`} />
+          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts${evalQuery}`} />
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 
@@ -133,6 +147,8 @@ export default async function CaptureSheetPage({
             events={sheet.reviews.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}
             canSubmit={can(user.role, "captures:upload")}
             canDecide={canReview}
+            evaluationId={evaluation.id}
+            newestEvaluationId={latestId}
           />
           <section className="panel space-y-2" data-testid="downloads">
             <h2>Report</h2>
