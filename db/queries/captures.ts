@@ -157,6 +157,20 @@ export async function startAnalysis({ id, role }: { id: string; role: Role }): P
   throw new AppError("forbidden", "The capture is approved: only an engineer may analyse it again, and the new result needs a new review.");
 }
 
+/** Records a confirmed upload (size and SHA-256 computed by the server); false when it was already confirmed. */
+export async function markUploaded({ id, sizeBytes, sha256, actorId }: { id: string; sizeBytes: number; sha256: string; actorId: string }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(captures)
+      .set({ status: "uploaded", sizeBytes, sha256, updatedAt: new Date() })
+      .where(and(eq(captures.id, id), eq(captures.status, "uploading")))
+      .returning({ id: captures.id });
+    if (!row) return false;
+    await insertAuditEvent(tx, { actorId, action: "capture.upload_confirmed", entityType: "capture", entityId: id, details: { sizeBytes, sha256 } });
+    return true;
+  });
+}
+
 export async function setCapturedAt({ id, capturedAt }: { id: string; capturedAt: Date }): Promise<void> {
   await db.update(captures).set({ capturedAt }).where(eq(captures.id, id));
 }

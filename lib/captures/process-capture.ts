@@ -6,12 +6,26 @@ import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
 import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
+import { createHash } from "node:crypto";
 import { downloadObjectToFile, getObjectBytes } from "@/lib/storage/s3";
 import { getSiteById } from "@/db/queries/sites";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
 import { decodeText } from "./decode-text";
+
+/** The stored original differs from the file confirmed at upload: the run stops before any analysis. */
+class OriginalChangedError extends Error {
+  constructor() {
+    super("The stored original no longer matches the file confirmed at upload (its SHA-256 differs), so it was not analysed. Tell an admin; upload the record again as a new capture.");
+    this.name = "OriginalChangedError";
+  }
+}
+
+/** Refuses a file whose hash is not the one recorded at confirmation (captures confirmed before hashes were kept have none). */
+function checkOriginal(expected: string | null, actual: string): void {
+  if (expected && expected !== actual) throw new OriginalChangedError();
+}
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
 
@@ -39,7 +53,8 @@ export async function processCapture({
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
-    // What the result is made of, stored beside it so a sign-off names the set-up behind it.
+    // What the result is made of, stored beside it so a sign-off names the set-up behind it;
+    // the file hash is the one of the bytes this run read (checked against the confirmed one).
     const setup = {
       setup: { mapping: capture.mapping ?? {}, limitSetKey: capture.limitSetKey, context: capture.context ?? {} },
       setupBy: capture.setupBy,
@@ -47,6 +62,8 @@ export async function processCapture({
     };
     if (capture.kind === "interval-log") {
       const bytes = await getObjectBytes(capture.s3Key);
+      setup.fileSha256 = createHash("sha256").update(bytes).digest("hex");
+      checkOriginal(capture.sha256, setup.fileSha256);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
       const site = await getSiteById({ id: capture.siteId });
@@ -63,7 +80,9 @@ export async function processCapture({
     let analysed: Awaited<ReturnType<typeof analyzeCaptureFile>>;
     try {
       const file = path.join(dir, "original.csv");
-      await downloadObjectToFile(capture.s3Key, file);
+      const read = await downloadObjectToFile(capture.s3Key, file);
+      setup.fileSha256 = read.sha256;
+      checkOriginal(capture.sha256, read.sha256);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       analysed = await analyzeCaptureFile(file, mapping, context);
     } finally {
@@ -75,7 +94,7 @@ export async function processCapture({
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
   } catch (err) {
-    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError;
+    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError || err instanceof OriginalChangedError;
     const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");
     if (!expected) {
       console.error(err);

@@ -1,6 +1,6 @@
 import "server-only";
 import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
-import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { createPresignedPost } from "@aws-sdk/s3-presigned-post";
 import { createHash } from "node:crypto";
 import { createWriteStream } from "node:fs";
 import { PassThrough, Transform } from "node:stream";
@@ -42,8 +42,31 @@ export async function headObject(key: string): Promise<{ sizeBytes: number; cont
   }
 }
 
-export function presignPut(key: string, contentType: string, expiresInS = 900): Promise<string> {
-  return getSignedUrl(s3, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
+/** A browser form upload the store itself checks: fixed key, exact content type, size range, short expiry. */
+export interface PresignedUpload {
+  url: string;
+  /** Form fields to send before the file field (named "file"). */
+  fields: Record<string, string>;
+  expiresAt: Date;
+}
+
+/**
+ * A presigned POST policy for exactly one key: `content-length-range` 1…`maxBytes`, the exact
+ * `contentType`, expiring in `expiresInS` (at most 600 s). Whatever the store enforces, the server
+ * still checks the object at confirmation (size, SHA-256, first bytes) and copies it to a key the
+ * client never gets a URL for.
+ */
+export async function presignUpload(key: string, { contentType, maxBytes, expiresInS = 600 }: { contentType: string; maxBytes: number; expiresInS?: number }): Promise<PresignedUpload> {
+  const expires = Math.min(expiresInS, 600);
+  // The client types of this package and @aws-sdk/client-s3 are the same class in two published versions.
+  const post = await createPresignedPost(s3 as unknown as Parameters<typeof createPresignedPost>[0], {
+    Bucket: bucket,
+    Key: key,
+    Conditions: [["content-length-range", 1, maxBytes], ["eq", "$Content-Type", contentType]],
+    Fields: { "Content-Type": contentType },
+    Expires: expires,
+  });
+  return { url: post.url, fields: post.fields, expiresAt: new Date(Date.now() + expires * 1000) };
 }
 
 /** A stream step that hashes (SHA-256) and counts what passes through it. */

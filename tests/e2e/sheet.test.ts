@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn, type CaughtMail, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
-import { analysedCapture, json } from "../support/captures";
+import { analysedCapture, json, postUpload, type PresignedUpload } from "../support/captures";
 
 /**
  * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
@@ -280,10 +280,10 @@ describe("the pass/fail sheet", () => {
     const tech = await signedIn("technician");
     const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));
     const csv = "Time (s),I (A)\n0,1\n0.001,2\n0.002,1\n";
-    const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+    const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
       await tech.request("POST", "/api/captures", { siteId: sites[0]!.id, title: `Sheet test too short ${stamp}`, filename: "x.csv", sizeBytes: csv.length }),
     );
-    await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv });
+    await postUpload(upload, csv);
     await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
     await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
     await json(await tech.request("POST", `/api/captures/${capture.id}/analyze`));
