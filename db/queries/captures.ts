@@ -1,6 +1,6 @@
 import "server-only";
 import { and, count, desc, eq, gte, inArray, isNull, lt, sql as dsql, type SQL } from "drizzle-orm";
-import { db } from "@/db/client";
+import { db, type Tx } from "@/db/client";
 import {
   analyses,
   captures,
@@ -33,8 +33,6 @@ export const capturesPerPage = 20;
 function visibleTo(role: Role): SQL | undefined {
   return and(isNull(captures.withdrawnAt), role === "viewer" ? dsql`${captures.approvedEvaluationId} is not null` : undefined);
 }
-
-type Tx = Parameters<Parameters<typeof db.transaction>[0]>[0];
 
 /** The 409 for a review event the capture's state does not allow, naming the allowed ones. */
 function refuseTransition(state: Capture["reviewState"], event: ReviewEvent, allowed: ReviewEvent[]): AppError {
@@ -167,6 +165,53 @@ export async function markUploaded({ id, sizeBytes, sha256, actorId }: { id: str
       .returning({ id: captures.id });
     if (!row) return false;
     await insertAuditEvent(tx, { actorId, action: "capture.upload_confirmed", entityType: "capture", entityId: id, details: { sizeBytes, sha256 } });
+    return true;
+  });
+}
+
+/** Withdraws a capture before submission (its uploader only): hidden from lists, kept with an audit event. */
+export async function withdrawCapture({ id, actorId, role }: { id: string; actorId: string; role: Role }): Promise<void> {
+  await db.transaction(async (tx) => {
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!capture) throw new AppError("not_found", "No such capture.");
+    if (capture.reviewState !== "draft") throw new AppError("conflict", "A capture that was submitted for review cannot be withdrawn.");
+    if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is running; wait for it to finish before withdrawing.");
+    if (capture.uploadedBy !== actorId) throw new AppError("forbidden", "Only the person who uploaded a capture can withdraw it.");
+    await tx.update(captures).set({ withdrawnAt: new Date(), updatedAt: new Date() }).where(eq(captures.id, id));
+    await insertAuditEvent(tx, { actorId, action: "capture.withdraw", entityType: "capture", entityId: id, details: { title: capture.title } });
+  });
+}
+
+/** Switches between waveform record and interval log while nothing has been analysed; the mapping is cleared. */
+export async function switchCaptureKind({ id, kind, actorId, role }: { id: string; kind: Capture["kind"]; actorId: string; role: Role }): Promise<Capture> {
+  return db.transaction(async (tx) => {
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!capture) throw new AppError("not_found", "No such capture.");
+    const [analysed] = await tx.select({ id: analyses.id }).from(analyses).where(eq(analyses.captureId, id)).limit(1);
+    if (analysed || !["uploading", "uploaded", "failed"].includes(capture.status)) {
+      throw new AppError("conflict", "The kind can only be switched before the capture is analysed.");
+    }
+    if (capture.kind === kind) return capture;
+    const [updated] = await tx.update(captures).set({ kind, mapping: null, updatedAt: new Date() }).where(eq(captures.id, id)).returning();
+    await insertAuditEvent(tx, { actorId, action: "capture.kind", entityType: "capture", entityId: id, details: { from: capture.kind, to: kind } });
+    return updated!;
+  });
+}
+
+/** Captures still "uploading" that were registered before `before`. */
+export async function listAbandonedUploads({ before }: { before: Date }): Promise<Pick<Capture, "id" | "s3Key">[]> {
+  return db.select({ id: captures.id, s3Key: captures.s3Key }).from(captures).where(and(eq(captures.status, "uploading"), lt(captures.createdAt, before)));
+}
+
+/** Deletes an abandoned upload's row (only if it is still uploading and old), with an audit event. */
+export async function deleteAbandonedCapture({ id, before }: { id: string; before: Date }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [gone] = await tx
+      .delete(captures)
+      .where(and(eq(captures.id, id), eq(captures.status, "uploading"), lt(captures.createdAt, before)))
+      .returning({ id: captures.id, title: captures.title, uploadedBy: captures.uploadedBy });
+    if (!gone) return false;
+    await insertAuditEvent(tx, { actorId: null, action: "capture.upload_abandoned_removed", entityType: "capture", entityId: id, details: { title: gone.title, uploadedBy: gone.uploadedBy } });
     return true;
   });
 }

@@ -14,7 +14,8 @@ const gone = () => new AppError("not_found", "This link is no longer valid.");
 async function sharedCaptureId(token: string): Promise<string> {
   if (!tokenSchema.safeParse(token).success) throw gone();
   const capture = await findSharedCapture({ tokenHash: hashToken(token) });
-  if (!capture || capture.status !== "done") throw gone();
+  // An approved result stays readable while a newer analysis is queued, running or failed.
+  if (!capture || (capture.status !== "done" && !capture.approvedEvaluationId)) throw gone();
   return capture.id;
 }
 

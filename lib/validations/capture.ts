@@ -55,6 +55,9 @@ export const intervalSetupSchema = z.object({
   context: EvaluationContextSchema,
 });
 
+/** Switch an upload between waveform record and interval log (before analysis). */
+export const switchKindSchema = z.object({ kind: z.enum(["waveform", "interval-log"]) });
+
 export const reevaluateSchema = z.object({
   limitSetKey: z.string().min(1, "Choose a limit set"),
   context: EvaluationContextSchema,

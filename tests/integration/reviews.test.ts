@@ -210,6 +210,23 @@ describe("an approval covers exactly one result", () => {
     expect((await review(engineer, id, { action: "approved", evaluationId: newest!.id })).status).toBe(200);
   });
 
+  it("keeps the share link on the approved result while a newer analysis has failed", async () => {
+    const id = await failingCapture("Failed rerun");
+    expect((await review(tech, id, { action: "submitted" })).status).toBe(200);
+    const [approved] = await evaluationsOf(id);
+    expect((await review(engineer, id, { action: "approved", evaluationId: approved!.id })).status).toBe(200);
+    const token = await shareLink(id);
+    // Leaving the only channel out makes the next run fail with a file/mapping problem.
+    const broken = { mapping: { channels: { "I (A)": { ignore: true } } }, limitSetKey: "iec-61000-3-2-class-a", context: {} };
+    expect((await admin.request("PUT", `/api/captures/${id}/setup`, broken)).status).toBe(200);
+    expect((await admin.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+    await expect(waitForCapture(admin, id)).rejects.toThrow(/analysis failed/);
+    const shared = await sharedPdf(token);
+    expect(shared).toContain("Overall verdict: FAIL");
+    expect(shared).toMatch(/Sign-off\nApproved by Teodor Vance/);
+    expect((await viewer.request("GET", `/api/captures/${id}/report`)).status).toBe(200);
+  });
+
   it("tells engineers by e-mail when a capture is submitted, with a clickable absolute link", async () => {
     const id = await failingCapture("Mail on submit");
     expect((await review(tech, id, { action: "submitted", comment: "please look" })).status).toBe(200);

@@ -4,11 +4,13 @@
 import crypto from "node:crypto";
 import { readFileSync } from "node:fs";
 import { eq } from "drizzle-orm";
+import PgBoss from "pg-boss";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { analyses, captures } from "@/db/schema";
+import { analyses, auditEvents, captures } from "@/db/schema";
+import { cleanupQueue } from "@/lib/jobs/queue";
 import { getObjectBytes, headObject, putObject } from "@/lib/storage/s3";
-import { json, postUpload, waitForCapture, type PresignedUpload } from "../support/captures";
+import { analysedCapture, json, postUpload, waitForCapture, type PresignedUpload } from "../support/captures";
 import { signedIn, type Client } from "../support/http";
 
 let tech: Client;
@@ -131,5 +133,70 @@ describe("attacks on the original", () => {
     expect(row.status).toBe("failed");
     expect(row.failureReason).toContain("no longer matches the file confirmed at upload");
     expect(await db.select().from(analyses).where(eq(analyses.captureId, id))).toHaveLength(0);
+  });
+});
+
+describe("uploads that never complete, withdrawal and kind switch", () => {
+  it("a scheduled job removes a capture whose upload never completed after 24 h (object and row), and keeps younger ones", async () => {
+    const old = await register(good.length, "Abandoned upload");
+    await postUpload(old.upload, good);
+    const young = await register(good.length, "Upload in progress");
+    // Registered 25 hours ago and never confirmed.
+    await db.update(captures).set({ createdAt: new Date(Date.now() - 25 * 3_600_000) }).where(eq(captures.id, old.id));
+    const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss", supervise: false, schedule: false });
+    await boss.start();
+    try {
+      // The schedule is registered on the queue by the worker…
+      const schedules = await boss.getSchedules();
+      expect(schedules.map((s) => s.name)).toContain(cleanupQueue);
+      // …and a run (here started at once rather than waiting for the hour) removes the abandoned capture.
+      await boss.send(cleanupQueue, {});
+      const deadline = Date.now() + 30_000;
+      while (Date.now() < deadline && (await db.select({ id: captures.id }).from(captures).where(eq(captures.id, old.id))).length > 0) {
+        await new Promise((r) => setTimeout(r, 250));
+      }
+    } finally {
+      await boss.stop({ graceful: false });
+    }
+    expect(await db.select().from(captures).where(eq(captures.id, old.id))).toHaveLength(0);
+    expect(await headObject(`uploads/${old.id}/incoming`)).toBeNull();
+    expect(await db.select().from(captures).where(eq(captures.id, young.id))).toHaveLength(1);
+    const audit = await db.select().from(auditEvents).where(eq(auditEvents.entityId, old.id));
+    expect(audit.map((a) => a.action)).toContain("capture.upload_abandoned_removed");
+  });
+
+  it("lets the uploader withdraw a capture before submission: hidden from lists, kept in the audit log; not after submission", async () => {
+    const { id, upload } = await register(good.length, "Withdrawn");
+    await postUpload(upload, good);
+    expect((await tech.request("POST", `/api/captures/${id}/uploaded`)).status).toBe(200);
+    const engineer = await signedIn("engineer");
+    expect((await engineer.request("DELETE", `/api/captures/${id}`)).status).toBe(403);
+    expect((await tech.request("DELETE", `/api/captures/${id}`)).status).toBe(200);
+    expect((await tech.request("GET", `/api/captures/${id}`)).status).toBe(404);
+    const list = await json<{ items: { id: string }[] }>(await tech.request("GET", `/api/captures?site=${siteId}`));
+    expect(list.items.map((c) => c.id)).not.toContain(id);
+    expect((await rowOf(id)).withdrawnAt).not.toBeNull();
+    const audit = await db.select().from(auditEvents).where(eq(auditEvents.entityId, id));
+    expect(audit.map((a) => a.action)).toContain("capture.withdraw");
+
+    const submitted = await analysedCapture(tech, siteId, `Submitted, not withdrawable ${Date.now()}`, good.toString("utf8"));
+    expect((await tech.request("POST", `/api/captures/${submitted}/review`, { action: "submitted" })).status).toBe(200);
+    expect((await tech.request("DELETE", `/api/captures/${submitted}`)).status).toBe(409);
+  });
+
+  it("switches the upload kind before analysis, not after", async () => {
+    const { id, upload } = await register(good.length, "Kind switch");
+    await postUpload(upload, good);
+    expect((await tech.request("POST", `/api/captures/${id}/uploaded`)).status).toBe(200);
+    const switched = await tech.request("PATCH", `/api/captures/${id}`, { kind: "interval-log" });
+    expect(switched.status).toBe(200);
+    expect((await rowOf(id)).kind).toBe("interval-log");
+    expect((await tech.request("PATCH", `/api/captures/${id}`, { kind: "waveform" })).status).toBe(200);
+    expect((await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} })).status).toBe(200);
+    expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+    await waitForCapture(tech, id);
+    const late = await tech.request("PATCH", `/api/captures/${id}`, { kind: "interval-log" });
+    expect(late.status).toBe(409);
+    expect((await rowOf(id)).kind).toBe("waveform");
   });
 });

@@ -38,7 +38,8 @@ export default async function CaptureSheetPage({
   });
   const { capture, evaluation } = sheet;
 
-  if (capture.status !== "done" || !evaluation) {
+  // An approved result stays on show while a newer analysis is queued, running or failed.
+  if ((capture.status !== "done" && !capture.approvedEvaluationId) || !evaluation) {
     return (
       <div className="max-w-2xl space-y-4">
         <div>
@@ -104,6 +105,12 @@ export default async function CaptureSheetPage({
         <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="older-evaluation">
           You are looking at an earlier evaluation ({formatWhen(evaluation.createdAt)}).{" "}
           <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the latest</Link>
+        </p>
+      )}
+      {capture.status !== "done" && user.role !== "viewer" && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="rerun-status">
+          {capture.status === "failed" ? `A new analysis failed: ${capture.failureReason ?? "no reason given"}` : `A new analysis is ${capture.status}`}. The approved result stays on show until a newer one is approved.{" "}
+          {can(user.role, "captures:review") && <Link href={`/captures/${capture.id}/setup`} className="font-semibold underline">Set-up</Link>}
         </p>
       )}
       <SheetHeader sheet={sheet} />
