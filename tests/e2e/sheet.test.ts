@@ -316,6 +316,15 @@ describe("the pass/fail sheet", () => {
     await page.goto(url(`/captures/${capture.id}`));
     expect(await page.getAttribute("[data-testid=capture-progress]", "data-status")).toBe("uploading");
     expect(await page.locator("[data-testid=order-table]").count()).toBe(0);
+    // Before analysis the kind can be switched; the uploader can withdraw it.
+    await page.click("[data-testid=switch-kind]");
+    await page.waitForURL(/\/setup$/);
+    expect((await json<{ capture: { kind: string } }>(await tech.request("GET", `/api/captures/${capture.id}`))).capture.kind).toBe("interval-log");
+    await page.goto(url(`/captures/${capture.id}`));
+    page.once("dialog", (d) => void d.accept());
+    await page.click("[data-testid=withdraw]");
+    await page.waitForURL(/\/captures$/);
+    expect((await tech.request("GET", `/api/captures/${capture.id}`)).status).toBe(404);
     await page.close();
   });
 });

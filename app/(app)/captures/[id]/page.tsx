@@ -10,6 +10,7 @@ import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
 import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { CaptureActions } from "./_components/capture-actions";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
 import { EvaluationHistory } from "./_components/evaluation-history";
@@ -61,6 +62,12 @@ export default async function CaptureSheetPage({
             },
           }}
           canFix={can(user.role, "captures:upload")}
+        />
+        <CaptureActions
+          captureId={capture.id}
+          kind={capture.kind}
+          canSwitchKind={can(user.role, "captures:upload") && ["uploading", "uploaded", "failed"].includes(capture.status) && !sheet.analysis && sheet.evaluations.length === 0}
+          canWithdraw={capture.uploadedBy === user.id && capture.reviewState === "draft" && capture.status !== "queued" && capture.status !== "running"}
         />
         <SafetyNote />
       </div>
