@@ -2,11 +2,12 @@
 // analysis and evaluation exactly as the app does, and signs two of them off.
 // Idempotent: a capture whose title exists is skipped. Run with --conditions=react-server
 // (set by scripts/stack.mjs) so server-only modules load outside Next.js.
+import { createHash } from "node:crypto";
 import { readFileSync } from "node:fs";
 import path from "node:path";
 import { eq } from "drizzle-orm";
 import { db, sql } from "@/db/client";
-import { recordReview, registerCapture, saveCaptureSetup, saveIntervalSetup, setCaptureStatus } from "@/db/queries/captures";
+import { getEvaluation, recordReview, registerCapture, saveCaptureSetup, saveIntervalSetup, setCaptureStatus } from "@/db/queries/captures";
 import { captures, sites, users } from "@/db/schema";
 import { demoCaptures } from "@/db/seed/demo-captures";
 import { processCapture } from "@/lib/captures/process-capture";
@@ -35,7 +36,7 @@ for (const demo of demoCaptures) {
     actorId: technician,
   });
   await putObject(capture.s3Key, bytes, "text/csv");
-  await setCaptureStatus({ id: capture.id, status: "uploaded", sizeBytes: bytes.length });
+  await setCaptureStatus({ id: capture.id, status: "uploaded", sizeBytes: bytes.length, sha256: createHash("sha256").update(bytes).digest("hex") });
   if (kind === "interval-log") {
     const suggested = inspectIntervalLog(bytes.toString("utf8")).suggestion.mapping;
     if (!suggested) throw new Error(`no column mapping could be suggested for ${demo.file}`);
@@ -48,7 +49,10 @@ for (const demo of demoCaptures) {
   const [done] = await db.select({ status: captures.status, reason: captures.failureReason }).from(captures).where(eq(captures.id, capture.id));
   if (done?.status !== "done") throw new Error(`demo capture "${demo.title}" did not analyse: ${done?.reason}`);
   await recordReview({ captureId: capture.id, action: "submitted", comment: "", actorId: technician });
-  if (demo.approve) await recordReview({ captureId: capture.id, action: "approved", comment: demo.approve, actorId: engineer });
+  if (demo.approve) {
+    const evaluation = await getEvaluation({ captureId: capture.id });
+    await recordReview({ captureId: capture.id, action: "approved", comment: demo.approve, actorId: engineer, evaluationId: evaluation?.id });
+  }
   console.log(`[ordwise] demo capture: ${demo.title}`);
 }
 await sql.end();

@@ -1,5 +1,5 @@
 // Local stand-ins for the hosted services, started by scripts/stack.mjs:
-//   - s3rver: a real S3 API on loopback, one bucket with the CORS rule browsers need for presigned PUTs;
+//   - s3rver: a real S3 API on loopback, one bucket with the CORS rule browsers need for presigned form uploads;
 //   - a mail catcher: a real SMTP server (smtp-server + mailparser) that keeps every message and
 //     lists them as JSON on a loopback HTTP port for the admin's dev mailbox page and the tests.
 import fs from "node:fs";
@@ -27,6 +27,7 @@ const cors = `<CORSConfiguration>
     <AllowedOrigin>${appUrl}</AllowedOrigin>
     <AllowedMethod>GET</AllowedMethod>
     <AllowedMethod>PUT</AllowedMethod>
+    <AllowedMethod>POST</AllowedMethod>
     <AllowedMethod>HEAD</AllowedMethod>
     <AllowedHeader>*</AllowedHeader>
     <ExposeHeader>ETag</ExposeHeader>

@@ -1,7 +1,8 @@
 // The analysis worker: takes capture jobs from the PostgreSQL-backed queue and runs them.
 // `npm start` runs one beside the web server; more can run on other machines with the same
 // DATABASE_URL and S3 settings (see README). Run with --conditions=react-server.
-import { analyzeQueue, getBoss, type AnalyzeJob } from "@/lib/jobs/queue";
+import { analyzeQueue, cleanupQueue, getBoss, type AnalyzeJob } from "@/lib/jobs/queue";
+import { removeAbandonedUploads } from "@/lib/captures/remove-abandoned-uploads";
 import { processCapture } from "@/lib/captures/process-capture";
 
 // Test hook: pause before writing results so a test can kill the worker mid-run.
@@ -16,6 +17,10 @@ await boss.work<AnalyzeJob>(analyzeQueue, { batchSize: 1, pollingIntervalSeconds
     finalAttempt: job.retryCount >= job.retryLimit,
     beforeStore: pauseMs > 0 ? () => new Promise((r) => setTimeout(r, pauseMs)) : undefined,
   });
+});
+await boss.work(cleanupQueue, { batchSize: 1, pollingIntervalSeconds: 2 }, async () => {
+  const removed = await removeAbandonedUploads();
+  if (removed > 0) process.stdout.write(`[ordwise] removed ${removed} capture(s) whose upload never completed\n`);
 });
 process.stdout.write(`[ordwise] analysis worker listening on queue ${analyzeQueue}\n`);
 

@@ -1,6 +1,6 @@
 import "server-only";
-import { and, count, desc, eq, gte, lt, sql as dsql, type SQL } from "drizzle-orm";
-import { db } from "@/db/client";
+import { and, count, desc, eq, gte, inArray, isNull, lt, sql as dsql, type SQL } from "drizzle-orm";
+import { db, type Tx } from "@/db/client";
 import {
   analyses,
   captures,
@@ -14,21 +14,53 @@ import {
   type Capture,
 } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/types";
-import type { Role } from "@/lib/auth/permissions";
+import { can, type Role } from "@/lib/auth/permissions";
 import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
+import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
+import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import type { Waveform } from "@/lib/pipeline/run-capture";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
 
 export const capturesPerPage = 20;
 
-/** Viewers read only what an engineer has signed off; other roles read everything. */
+/** Viewers read only what an engineer has signed off; other roles read everything not withdrawn. */
 function visibleTo(role: Role): SQL | undefined {
-  return role === "viewer" ? eq(captures.reviewState, "approved") : undefined;
+  return and(isNull(captures.withdrawnAt), role === "viewer" ? dsql`${captures.approvedEvaluationId} is not null` : undefined);
+}
+
+/** The 409 for a review event the capture's state does not allow, naming the allowed ones. */
+function refuseTransition(state: Capture["reviewState"], event: ReviewEvent, allowed: ReviewEvent[]): AppError {
+  const names = allowed.filter((a) => a !== "new_result").map((a) => reviewActionLabels[a] ?? a);
+  const what = event === "new_result" ? "store a new result" : (reviewActionLabels[event] ?? event).toLowerCase();
+  return new AppError("conflict", `Cannot ${what}: the capture is "${reviewStateLabels[state] ?? state}". Allowed now: ${names.join(", ")}.`);
+}
+
+/** A new analysis or evaluation was stored: an approved capture goes back into review (the approval stays on its evaluation). */
+async function onNewResult(tx: Tx, captureId: string): Promise<void> {
+  const [c] = await tx.select({ reviewState: captures.reviewState }).from(captures).where(eq(captures.id, captureId)).for("update");
+  if (!c) return;
+  const t = reviewTransition(c.reviewState, "new_result");
+  if (t.ok && t.next !== c.reviewState) await tx.update(captures).set({ reviewState: t.next, updatedAt: new Date() }).where(eq(captures.id, captureId));
+}
+
+/**
+ * The set-up is frozen once submitted: nobody changes it while in review; after approval only a
+ * reviewer may (and the new result starts a new review). Throws otherwise.
+ */
+function assertSetupEditable(capture: Capture, role: Role): void {
+  if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is running; wait for it to finish before changing the set-up.");
+  if (capture.reviewState === "in_review") {
+    throw new AppError("conflict", "The set-up is frozen while the capture is in review. An engineer can send it back to change it.");
+  }
+  if (capture.reviewState === "approved" && !can(role, "captures:review")) {
+    throw new AppError("forbidden", "The capture is approved: only an engineer may change its set-up, and the new result needs a new review.");
+  }
 }
 
 export async function registerCapture({ input, actorId }: { input: RegisterCaptureInput; actorId: string }): Promise<Capture> {
@@ -71,12 +103,14 @@ export async function setCaptureStatus({
   progressPercent,
   failureReason,
   sizeBytes,
+  sha256,
 }: {
   id: string;
   status: Capture["status"];
   progressPercent?: number;
   failureReason?: string | null;
   sizeBytes?: number;
+  sha256?: string;
 }): Promise<void> {
   await db
     .update(captures)
@@ -86,21 +120,116 @@ export async function setCaptureStatus({
       ...(progressPercent !== undefined ? { progressPercent } : {}),
       ...(failureReason !== undefined ? { failureReason } : {}),
       ...(sizeBytes !== undefined ? { sizeBytes } : {}),
+      ...(sha256 !== undefined ? { sha256 } : {}),
     })
     .where(eq(captures.id, id));
+}
+
+/**
+ * Moves a capture to "queued" in one conditional UPDATE, so of several simultaneous requests exactly
+ * one wins and queues a job. Refuses (with the reason) a capture that is uploading, already queued or
+ * running, has no limit set, is in review, or is approved and the actor is not a reviewer.
+ */
+export async function startAnalysis({ id, role }: { id: string; role: Role }): Promise<void> {
+  const reviewer = can(role, "captures:review");
+  const [won] = await db
+    .update(captures)
+    .set({ status: "queued", progressPercent: 0, failureReason: null, updatedAt: new Date() })
+    .where(
+      and(
+        eq(captures.id, id),
+        visibleTo(role),
+        inArray(captures.status, ["uploaded", "done", "failed"]),
+        dsql`${captures.limitSetKey} is not null`,
+        dsql`${captures.reviewState} <> 'in_review'`,
+        reviewer ? undefined : dsql`${captures.reviewState} <> 'approved'`,
+      ),
+    )
+    .returning({ id: captures.id });
+  if (won) return;
+  const capture = await getCaptureById({ id, role });
+  if (capture.status === "uploading") throw new AppError("conflict", "The file has not been uploaded yet.");
+  if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is already running.");
+  if (!capture.limitSetKey) throw new AppError("conflict", "Save the mapping and choose a limit set first.");
+  if (capture.reviewState === "in_review") throw new AppError("conflict", "The capture is in review; its set-up and result are frozen until an engineer approves or sends it back.");
+  throw new AppError("forbidden", "The capture is approved: only an engineer may analyse it again, and the new result needs a new review.");
+}
+
+/** Records a confirmed upload (size and SHA-256 computed by the server); false when it was already confirmed. */
+export async function markUploaded({ id, sizeBytes, sha256, actorId }: { id: string; sizeBytes: number; sha256: string; actorId: string }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [row] = await tx
+      .update(captures)
+      .set({ status: "uploaded", sizeBytes, sha256, updatedAt: new Date() })
+      .where(and(eq(captures.id, id), eq(captures.status, "uploading")))
+      .returning({ id: captures.id });
+    if (!row) return false;
+    await insertAuditEvent(tx, { actorId, action: "capture.upload_confirmed", entityType: "capture", entityId: id, details: { sizeBytes, sha256 } });
+    return true;
+  });
+}
+
+/** Withdraws a capture before submission (its uploader only): hidden from lists, kept with an audit event. */
+export async function withdrawCapture({ id, actorId, role }: { id: string; actorId: string; role: Role }): Promise<void> {
+  await db.transaction(async (tx) => {
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!capture) throw new AppError("not_found", "No such capture.");
+    if (capture.reviewState !== "draft") throw new AppError("conflict", "A capture that was submitted for review cannot be withdrawn.");
+    if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is running; wait for it to finish before withdrawing.");
+    if (capture.uploadedBy !== actorId) throw new AppError("forbidden", "Only the person who uploaded a capture can withdraw it.");
+    await tx.update(captures).set({ withdrawnAt: new Date(), updatedAt: new Date() }).where(eq(captures.id, id));
+    await insertAuditEvent(tx, { actorId, action: "capture.withdraw", entityType: "capture", entityId: id, details: { title: capture.title } });
+  });
+}
+
+/** Switches between waveform record and interval log while nothing has been analysed; the mapping is cleared. */
+export async function switchCaptureKind({ id, kind, actorId, role }: { id: string; kind: Capture["kind"]; actorId: string; role: Role }): Promise<Capture> {
+  return db.transaction(async (tx) => {
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!capture) throw new AppError("not_found", "No such capture.");
+    const [analysed] = await tx.select({ id: analyses.id }).from(analyses).where(eq(analyses.captureId, id)).limit(1);
+    if (analysed || !["uploading", "uploaded", "failed"].includes(capture.status)) {
+      throw new AppError("conflict", "The kind can only be switched before the capture is analysed.");
+    }
+    if (capture.kind === kind) return capture;
+    const [updated] = await tx.update(captures).set({ kind, mapping: null, updatedAt: new Date() }).where(eq(captures.id, id)).returning();
+    await insertAuditEvent(tx, { actorId, action: "capture.kind", entityType: "capture", entityId: id, details: { from: capture.kind, to: kind } });
+    return updated!;
+  });
+}
+
+/** Captures still "uploading" that were registered before `before`. */
+export async function listAbandonedUploads({ before }: { before: Date }): Promise<Pick<Capture, "id" | "s3Key">[]> {
+  return db.select({ id: captures.id, s3Key: captures.s3Key }).from(captures).where(and(eq(captures.status, "uploading"), lt(captures.createdAt, before)));
+}
+
+/** Deletes an abandoned upload's row (only if it is still uploading and old), with an audit event. */
+export async function deleteAbandonedCapture({ id, before }: { id: string; before: Date }): Promise<boolean> {
+  return db.transaction(async (tx) => {
+    const [gone] = await tx
+      .delete(captures)
+      .where(and(eq(captures.id, id), eq(captures.status, "uploading"), lt(captures.createdAt, before)))
+      .returning({ id: captures.id, title: captures.title, uploadedBy: captures.uploadedBy });
+    if (!gone) return false;
+    await insertAuditEvent(tx, { actorId: null, action: "capture.upload_abandoned_removed", entityType: "capture", entityId: id, details: { title: gone.title, uploadedBy: gone.uploadedBy } });
+    return true;
+  });
 }
 
 export async function setCapturedAt({ id, capturedAt }: { id: string; capturedAt: Date }): Promise<void> {
   await db.update(captures).set({ capturedAt }).where(eq(captures.id, id));
 }
 
-export async function saveCaptureSetup({ id, setup, actorId }: { id: string; setup: CaptureSetup; actorId: string }): Promise<Capture> {
+export async function saveCaptureSetup({ id, setup, actorId, role = "technician" }: { id: string; setup: CaptureSetup; actorId: string; role?: Role }): Promise<Capture> {
   return db.transaction(async (tx) => {
     const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
     if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
+    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!current) throw new AppError("not_found", "No such capture.");
+    assertSetupEditable(current, role);
     const [capture] = await tx
       .update(captures)
-      .set({ mapping: setup.mapping, context: setup.context, limitSetKey: setup.limitSetKey, updatedAt: new Date() })
+      .set({ mapping: setup.mapping, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })
       .where(eq(captures.id, id))
       .returning();
     if (!capture) throw new AppError("not_found", "No such capture.");
@@ -110,13 +239,16 @@ export async function saveCaptureSetup({ id, setup, actorId }: { id: string; set
 }
 
 /** Saves an interval log's column mapping, limit set and context, and remembers the mapping on its site. */
-export async function saveIntervalSetup({ id, setup, actorId }: { id: string; setup: IntervalSetup; actorId: string }): Promise<Capture> {
+export async function saveIntervalSetup({ id, setup, actorId, role = "technician" }: { id: string; setup: IntervalSetup; actorId: string; role?: Role }): Promise<Capture> {
   return db.transaction(async (tx) => {
     const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
     if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
+    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    if (!current) throw new AppError("not_found", "No such capture.");
+    assertSetupEditable(current, role);
     const [capture] = await tx
       .update(captures)
-      .set({ mapping: { intervalMapping: setup.intervalMapping }, context: setup.context, limitSetKey: setup.limitSetKey, updatedAt: new Date() })
+      .set({ mapping: { intervalMapping: setup.intervalMapping }, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })
       .where(and(eq(captures.id, id), eq(captures.kind, "interval-log")))
       .returning();
     if (!capture) throw new AppError("not_found", "No such interval log.");
@@ -155,6 +287,7 @@ export async function storeAnalysisResult({
   trends,
   evaluation,
   actorId,
+  setup,
 }: {
   captureId: string;
   analysis: AnalysisResult;
@@ -162,9 +295,23 @@ export async function storeAnalysisResult({
   trends?: IntervalTrend[];
   evaluation: { revisionId: string; context: EvaluationContext; result: ComplianceResult };
   actorId: string | null;
+  /** The set-up the run used, who saved it, and the SHA-256 of the file it read. */
+  setup?: { setup: Record<string, unknown>; setupBy: string | null; fileSha256: string | null };
 }): Promise<{ analysisId: string; evaluationId: string }> {
   return db.transaction(async (tx) => {
-    const [a] = await tx.insert(analyses).values({ captureId, result: analysis, waveform, trends: trends ?? null, createdBy: actorId }).returning({ id: analyses.id });
+    const [a] = await tx
+      .insert(analyses)
+      .values({
+        captureId,
+        result: analysis,
+        waveform,
+        trends: trends ?? null,
+        createdBy: actorId,
+        setup: setup?.setup ?? null,
+        setupBy: setup?.setupBy ?? null,
+        fileSha256: setup?.fileSha256 ?? null,
+      })
+      .returning({ id: analyses.id });
     const [e] = await tx
       .insert(evaluations)
       .values({
@@ -181,7 +328,8 @@ export async function storeAnalysisResult({
       .update(captures)
       .set({ status: "done", progressPercent: 100, failureReason: null, updatedAt: new Date() })
       .where(eq(captures.id, captureId));
-    await insertAuditEvent(tx, { actorId, action: "capture.analysed", entityType: "capture", entityId: captureId, details: { verdict: evaluation.result.verdict } });
+    await onNewResult(tx, captureId);
+    await insertAuditEvent(tx, { actorId, action: "capture.analysed", entityType: "capture", entityId: captureId, details: { verdict: evaluation.result.verdict, evaluationId: e!.id } });
     return { analysisId: a!.id, evaluationId: e!.id };
   });
 }
@@ -211,6 +359,7 @@ export async function insertEvaluation({
       .insert(evaluations)
       .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, createdBy: actorId })
       .returning({ id: evaluations.id });
+    await onNewResult(tx, captureId);
     await insertAuditEvent(tx, { actorId, action: "capture.reevaluate", entityType: "capture", entityId: captureId, details: { evaluationId: e!.id } });
     return e!.id;
   });
@@ -268,34 +417,75 @@ export async function listReviewEvents({ captureId }: { captureId: string }) {
     .orderBy(reviewEvents.createdAt);
 }
 
-const nextState = { submitted: "in_review", approved: "approved", sent_back: "sent_back", comment: null } as const;
-
+/**
+ * Records a review decision through the state machine (lib/reviews/review-transition.ts).
+ * A decision is bound to one evaluation: approving names the evaluation the engineer looked at,
+ * which must be the newest one, and the approver must not have set up, run or judged it.
+ */
 export async function recordReview({
   captureId,
   action,
   comment,
   actorId,
+  evaluationId,
 }: {
   captureId: string;
-  action: keyof typeof nextState;
+  action: Exclude<ReviewEvent, "new_result">;
   comment: string;
   actorId: string;
+  evaluationId?: string;
 }): Promise<Capture> {
   return db.transaction(async (tx) => {
-    const [capture] = await tx.select().from(captures).where(eq(captures.id, captureId)).for("update");
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, captureId), isNull(captures.withdrawnAt))).for("update");
     if (!capture) throw new AppError("not_found", "No such capture.");
+    const t = reviewTransition(capture.reviewState, action);
+    if (!t.ok) throw refuseTransition(capture.reviewState, action, t.allowed);
     if (action !== "comment" && capture.status !== "done") {
-      throw new AppError("conflict", "Only an analysed capture can be submitted, approved or sent back.");
+      throw new AppError("conflict", "Only an analysed capture can be submitted, approved or sent back (an analysis is queued, running or failed).");
     }
-    const [latest] = await tx.select({ id: evaluations.id }).from(evaluations).where(eq(evaluations.captureId, captureId)).orderBy(desc(evaluations.createdAt)).limit(1);
+    const [latest] = await tx.select().from(evaluations).where(eq(evaluations.captureId, captureId)).orderBy(desc(evaluations.createdAt)).limit(1);
+    if (action !== "comment" && !latest) throw new AppError("conflict", "The capture has not been evaluated yet.");
+    if (action === "approved") {
+      if (!evaluationId) throw new AppError("validation", "Name the evaluation you approve", { evaluationId: ["Required to approve"] });
+      if (evaluationId !== latest!.id) throw new AppError("conflict", "A newer result exists than the one you approved; open the sheet again and review the newest result.");
+      const [analysis] = await tx.select({ createdBy: analyses.createdBy, setupBy: analyses.setupBy }).from(analyses).where(eq(analyses.id, latest!.analysisId));
+      const parts = fourEyesConflict({ approverId: actorId, setupBy: analysis?.setupBy ?? capture.setupBy, analysedBy: analysis?.createdBy ?? null, evaluatedBy: latest!.createdBy });
+      if (parts.length > 0) {
+        throw new AppError("forbidden", `You made the ${parts.join(", ")} of this result; another engineer must approve it (four-eyes rule).`);
+      }
+    }
     await tx.insert(reviewEvents).values({ captureId, evaluationId: latest?.id ?? null, actorId, action, comment });
-    const state = nextState[action];
-    const [updated] = state
-      ? await tx.update(captures).set({ reviewState: state, updatedAt: new Date() }).where(eq(captures.id, captureId)).returning()
-      : [capture];
-    await insertAuditEvent(tx, { actorId, action: `capture.review.${action}`, entityType: "capture", entityId: captureId, details: { comment } });
+    const [updated] = await tx
+      .update(captures)
+      .set({ reviewState: t.next, updatedAt: new Date(), ...(action === "approved" ? { approvedEvaluationId: latest!.id } : {}) })
+      .where(eq(captures.id, captureId))
+      .returning();
+    await insertAuditEvent(tx, { actorId, action: `capture.review.${action}`, entityType: "capture", entityId: captureId, details: { comment, evaluationId: latest?.id ?? null } });
     return updated!;
   });
+}
+
+/** The approval behind a capture's approved evaluation: who, when, with what comment. */
+export async function getApproval({ captureId, evaluationId }: { captureId: string; evaluationId: string | null }) {
+  if (!evaluationId) return null;
+  const [row] = await db
+    .select({ evaluationId: reviewEvents.evaluationId, createdAt: reviewEvents.createdAt, comment: reviewEvents.comment, actorName: users.name })
+    .from(reviewEvents)
+    .leftJoin(users, eq(users.id, reviewEvents.actorId))
+    .where(and(eq(reviewEvents.captureId, captureId), eq(reviewEvents.evaluationId, evaluationId), eq(reviewEvents.action, "approved")))
+    .orderBy(desc(reviewEvents.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+export async function getAnalysisById({ id }: { id: string }) {
+  const [a] = await db.select().from(analyses).where(eq(analyses.id, id));
+  return a ?? null;
+}
+
+/** Active engineers, who are told when a capture is submitted for review. */
+export async function listReviewerContacts(): Promise<{ email: string; name: string }[]> {
+  return db.select({ email: users.email, name: users.name }).from(users).where(and(eq(users.role, "engineer"), eq(users.active, true)));
 }
 
 export async function getUserContact({ id }: { id: string | null }) {
@@ -312,13 +502,21 @@ export interface CaptureListItem {
   status: Capture["status"];
   reviewState: Capture["reviewState"];
   verdict: string | null;
+  /** True when the verdict shown is an approved evaluation's. */
+  approved: boolean;
+  /** An analysis or evaluation newer than the approved one waits for review. */
+  newerAwaitsReview: boolean;
   createdAt: Date;
   uploadedByName: string | null;
 }
 
-/** Server-side filtered, paginated list; the verdict is the newest evaluation's. */
+/** Server-side filtered, paginated list; the verdict is the approved evaluation's while one exists, else the newest one's. */
 export async function listCaptures({ query, role }: { query: CaptureListQuery; role: Role }): Promise<{ items: CaptureListItem[]; total: number; page: number; pages: number }> {
-  const latestVerdict = dsql<string | null>`(select e.verdict from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1)`;
+  const latestId = dsql`(select e.id from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1)`;
+  const latestVerdict = dsql<string | null>`coalesce(
+    (select e.verdict from ${evaluations} e where e.id = ${captures.approvedEvaluationId}),
+    (select e.verdict from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1))`;
+  const newer = dsql<boolean>`(${captures.approvedEvaluationId} is not null and ${captures.approvedEvaluationId} is distinct from ${latestId})`;
   const where = and(
     visibleTo(role),
     query.site ? eq(captures.siteId, query.site) : undefined,
@@ -339,6 +537,8 @@ export async function listCaptures({ query, role }: { query: CaptureListQuery; r
       status: captures.status,
       reviewState: captures.reviewState,
       verdict: latestVerdict,
+      approved: dsql<boolean>`(${captures.approvedEvaluationId} is not null)`,
+      newerAwaitsReview: newer,
       createdAt: captures.createdAt,
       uploadedByName: users.name,
     })
@@ -395,6 +595,6 @@ export async function findSharedCapture({ tokenHash }: { tokenHash: string }): P
     .select({ capture: captures })
     .from(shareLinks)
     .innerJoin(captures, eq(captures.id, shareLinks.captureId))
-    .where(and(eq(shareLinks.tokenHash, tokenHash), dsql`${shareLinks.revokedAt} is null`, gte(shareLinks.expiresAt, new Date())));
+    .where(and(eq(shareLinks.tokenHash, tokenHash), dsql`${shareLinks.revokedAt} is null`, gte(shareLinks.expiresAt, new Date()), isNull(captures.withdrawnAt)));
   return row?.capture ?? null;
 }

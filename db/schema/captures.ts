@@ -26,6 +26,14 @@ export const captures = pgTable("captures", {
   // Channel mapping and evaluation context chosen by the technician.
   mapping: jsonb("mapping").$type<Record<string, unknown>>(),
   context: jsonb("context").$type<Record<string, unknown>>(),
+  // Who last saved the mapping/context (the four-eyes rule keeps them from approving the result).
+  setupBy: text("setup_by").references(() => users.id),
+  // SHA-256 (hex) of the original, computed by the server when the upload is confirmed; checked before every analysis.
+  sha256: text("sha256"),
+  // The evaluation an engineer approved; share links, the PDF and viewers show it while it exists.
+  approvedEvaluationId: uuid("approved_evaluation_id"),
+  // Withdrawn by its uploader before submission: hidden from lists, kept for the audit log.
+  withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
   capturedAt: timestamp("captured_at", { withTimezone: true }),
   uploadedBy: text("uploaded_by").references(() => users.id),
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),

@@ -21,6 +21,10 @@ export const analyses = pgTable(
     // Interval logs: per-channel trend series with their limits (lib/intervals).
     trends: jsonb("trends").$type<IntervalTrend[]>(),
     waveform: jsonb("waveform").$type<{ timeS: number[]; channels: { name: string; values: number[] }[] }>(),
+    // The set-up this analysis ran with (mapping, scales, sample interval), who saved it, and the file's SHA-256.
+    setup: jsonb("setup").$type<Record<string, unknown>>(),
+    setupBy: text("setup_by").references(() => users.id),
+    fileSha256: text("file_sha256"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

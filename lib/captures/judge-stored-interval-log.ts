@@ -10,6 +10,7 @@ import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
 import type { LimitSetRevision } from "@/lib/pipeline/run-capture";
 import { downloadObjectToFile } from "@/lib/storage/s3";
 import { intervalSetupMappingSchema } from "@/lib/validations/capture";
+import { checkOriginal } from "./original-changed-error";
 
 /**
  * Judges an interval log from its stored original (the logged series, never modified) with its
@@ -17,16 +18,23 @@ import { intervalSetupMappingSchema } from "@/lib/validations/capture";
  * a temporary file and read as a stream (memory does not grow with the file's text). The worker's
  * first evaluation and every later "evaluate again" run this, so the same context gives the same verdict.
  *
- * @throws IntervalLogError naming the line and column of a problem in the file or mapping.
+ * @throws IntervalLogError naming the line and column of a problem in the file or mapping;
+ *   OriginalChangedError when the stored bytes are not the ones confirmed at upload.
  */
-export async function judgeStoredIntervalLog(capture: Capture, revision: LimitSetRevision, context: EvaluationContext): Promise<ReturnType<typeof judgeIntervalLog>> {
+export async function judgeStoredIntervalLog(
+  capture: Capture,
+  revision: LimitSetRevision,
+  context: EvaluationContext,
+): Promise<ReturnType<typeof judgeIntervalLog> & { fileSha256: string }> {
   const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
   const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-log-"));
   try {
     const file = path.join(dir, "original.csv");
-    const [site] = await Promise.all([getSiteById({ id: capture.siteId }), downloadObjectToFile(capture.s3Key, file)]);
+    const [site, read] = await Promise.all([getSiteById({ id: capture.siteId }), downloadObjectToFile(capture.s3Key, file)]);
+    // The bytes read must be the ones confirmed at upload (also on every "evaluate again").
+    checkOriginal(capture.sha256, read.sha256);
     const log = await importIntervalLogFile(file, intervalMapping);
-    return judgeIntervalLog(log, revision, context, site.frequencyHz === 60 ? 60 : 50);
+    return { ...judgeIntervalLog(log, revision, context, site.frequencyHz === 60 ? 60 : 50), fileSha256: read.sha256 };
   } finally {
     await rm(dir, { recursive: true, force: true });
   }

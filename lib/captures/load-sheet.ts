@@ -1,9 +1,10 @@
 import "server-only";
 import {
+  getAnalysisById,
+  getApproval,
   getCaptureById,
   getEvaluation,
   getUserContact,
-  latestAnalysis,
   listEvaluations,
   listReviewEvents,
 } from "@/db/queries/captures";
@@ -15,26 +16,58 @@ import { decimateSeries } from "@/lib/reports/decimate-series";
 /**
  * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
  * the CSV export and the share page all render from this.
- * `role` limits what is visible (viewers see only approved captures).
+ * By default the approved evaluation while one exists, else the newest. Viewers and share links
+ * (`approvedOnly`) see only the approved evaluation of an approved capture — never a newer, unreviewed one.
  */
-export async function loadSheet({ captureId, evaluationId, role }: { captureId: string; evaluationId?: string; role: Role }) {
+export async function loadSheet({
+  captureId,
+  evaluationId,
+  role,
+  approvedOnly = role === "viewer",
+}: {
+  captureId: string;
+  evaluationId?: string;
+  role: Role;
+  approvedOnly?: boolean;
+}) {
   const capture = await getCaptureById({ id: captureId, role });
-  const [site, analysis, evaluations, reviews, uploader] = await Promise.all([
+  if (approvedOnly && capture.approvedEvaluationId && evaluationId && evaluationId !== capture.approvedEvaluationId) {
+    throw new AppError("not_found", "No such evaluation of this capture.");
+  }
+  const shownId = evaluationId ?? capture.approvedEvaluationId ?? undefined;
+  const [site, allEvaluations, allReviews, uploader, evaluation, approval] = await Promise.all([
     getSiteById({ id: capture.siteId }),
-    latestAnalysis({ captureId }),
     listEvaluations({ captureId }),
     listReviewEvents({ captureId }),
     getUserContact({ id: capture.uploadedBy }),
+    getEvaluation({ captureId, evaluationId: shownId }),
+    getApproval({ captureId, evaluationId: capture.approvedEvaluationId }),
   ]);
-  const evaluation = await getEvaluation({ captureId, evaluationId });
   if (evaluationId && !evaluation) throw new AppError("not_found", "No such evaluation of this capture.");
-  const summary = evaluation ? evaluations.find((e) => e.id === evaluation.id) ?? null : null;
+  const analysis = evaluation ? await getAnalysisById({ id: evaluation.analysisId }) : null;
+  // Outside the team only the approved result and its history exist.
+  const evaluations = approvedOnly && capture.approvedEvaluationId ? allEvaluations.filter((e) => e.id === capture.approvedEvaluationId) : allEvaluations;
+  const reviews = approvedOnly && approval ? allReviews.filter((r) => r.createdAt <= approval.createdAt) : allReviews;
+  const summary = evaluation ? allEvaluations.find((e) => e.id === evaluation.id) ?? null : null;
+  const newest = allEvaluations[0] ?? null;
   return {
     capture,
     site,
     uploaderName: uploader?.name ?? null,
-    analysis: analysis ? { id: analysis.id, createdAt: analysis.createdAt, result: analysis.result } : null,
+    analysis: analysis
+      ? {
+          id: analysis.id,
+          createdAt: analysis.createdAt,
+          result: analysis.result,
+          setup: analysis.setup ?? null,
+          fileSha256: analysis.fileSha256 ?? capture.sha256 ?? null,
+        }
+      : null,
     evaluation: evaluation && summary ? { ...summary, result: evaluation.result } : null,
+    /** The approval of the shown evaluation, when it is the approved one. */
+    approval: approval && evaluation && approval.evaluationId === evaluation.id ? approval : null,
+    /** The newest evaluation when it is newer than the approved one the team is looking at. */
+    newerResult: !approvedOnly && capture.approvedEvaluationId && newest && newest.id !== capture.approvedEvaluationId ? { id: newest.id, createdAt: newest.createdAt } : null,
     evaluations,
     reviews,
   };
@@ -43,9 +76,12 @@ export async function loadSheet({ captureId, evaluationId, role }: { captureId: 
 export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 
 /** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
-export async function loadChartData({ captureId, role }: { captureId: string; role: Role }) {
-  await getCaptureById({ id: captureId, role });
-  const [analysis, evaluation] = await Promise.all([latestAnalysis({ captureId }), getEvaluation({ captureId })]);
+export async function loadChartData({ captureId, role, evaluationId }: { captureId: string; role: Role; evaluationId?: string }) {
+  const capture = await getCaptureById({ id: captureId, role });
+  // The charts follow the shown evaluation: the approved one by default, a named one for the team.
+  const chosen = role === "viewer" ? undefined : evaluationId;
+  const evaluation = await getEvaluation({ captureId, evaluationId: chosen ?? capture.approvedEvaluationId ?? undefined });
+  const analysis = evaluation ? await getAnalysisById({ id: evaluation.analysisId }) : null;
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
   const r = analysis.result;
   const windowDurationS = r.window.cycles / r.fundamentalHz;

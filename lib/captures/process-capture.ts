@@ -10,6 +10,8 @@ import { downloadObjectToFile } from "@/lib/storage/s3";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { captureMappingSchema } from "@/lib/validations/capture";
 import { judgeStoredIntervalLog } from "./judge-stored-interval-log";
+import { checkOriginal, OriginalChangedError } from "./original-changed-error";
+
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
 
@@ -37,13 +39,21 @@ export async function processCapture({
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
+    // What the result is made of, stored beside it so a sign-off names the set-up behind it;
+    // the file hash is the one of the bytes this run read (checked against the confirmed one).
+    const setup = {
+      setup: { mapping: capture.mapping ?? {}, limitSetKey: capture.limitSetKey, context: capture.context ?? {} },
+      setupBy: capture.setupBy,
+      fileSha256: capture.sha256,
+    };
     if (capture.kind === "interval-log") {
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
-      const { analysis, trends, result, startMs } = await judgeStoredIntervalLog(capture, revision, context);
+      const { analysis, trends, result, startMs, fileSha256 } = await judgeStoredIntervalLog(capture, revision, context);
+      setup.fileSha256 = fileSha256;
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.
       if (!capture.capturedAt) await setCapturedAt({ id: captureId, capturedAt: new Date(startMs) });
-      await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+      await storeAnalysisResult({ captureId, analysis, waveform: null, trends, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
       return;
     }
     const mapping = captureMappingSchema.parse(capture.mapping ?? {});
@@ -52,7 +62,9 @@ export async function processCapture({
     let analysed: Awaited<ReturnType<typeof analyzeCaptureFile>>;
     try {
       const file = path.join(dir, "original.csv");
-      await downloadObjectToFile(capture.s3Key, file);
+      const read = await downloadObjectToFile(capture.s3Key, file);
+      setup.fileSha256 = read.sha256;
+      checkOriginal(capture.sha256, read.sha256);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       analysed = await analyzeCaptureFile(file, mapping, context);
     } finally {
@@ -63,9 +75,9 @@ export async function processCapture({
     // The record's start (the technician's capture time) aligns 10-minute values to the clock.
     const result = evaluateCapture(analysis, revision, context, capture.capturedAt?.getTime());
     await beforeStore?.();
-    await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
+    await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
   } catch (err) {
-    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError;
+    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError || err instanceof OriginalChangedError;
     const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");
     if (!expected) {
       console.error(err);

@@ -4,6 +4,9 @@ import PgBoss from "pg-boss";
 // Analysis runs as jobs in a PostgreSQL-backed queue (pg-boss), so more workers — on this
 // machine or others, against the same database and bucket — can share the load.
 export const analyzeQueue = process.env.JOB_QUEUE ?? "analyze-capture";
+// Hourly removal of captures whose upload never completed (lib/captures/remove-abandoned-uploads.ts).
+export const cleanupQueue = `${analyzeQueue}-cleanup`;
+export const cleanupCron = "17 * * * *";
 
 export interface AnalyzeJob {
   captureId: string;
@@ -29,13 +32,16 @@ export function getBoss({ supervise = false }: { supervise?: boolean } = {}): Pr
       connectionString: url,
       schema: "pgboss",
       supervise,
-      schedule: false,
+      // The worker (supervise) also runs the clock that turns schedules into jobs.
+      schedule: supervise,
       max: 4,
       maintenanceIntervalSeconds: Number(process.env.JOB_MAINTENANCE_S ?? 30),
     });
     boss.on("error", (err) => console.error("[jobs]", err.message));
     await boss.start();
     await boss.createQueue(analyzeQueue, { name: analyzeQueue, ...queuePolicy });
+    await boss.createQueue(cleanupQueue, { name: cleanupQueue, retryLimit: 1 });
+    if (supervise) await boss.schedule(cleanupQueue, cleanupCron, {}, { tz: "UTC" });
     return boss;
   })();
   return started;

@@ -10,10 +10,11 @@ import {
   formatWhen,
   groupReasons,
   reviewActionLabels,
-  reviewStateLabels,
   verdictLabel,
 } from "./format";
 import { safetyText } from "./safety-text";
+import { describeSetup } from "./describe-setup";
+import { describeSignOff } from "./describe-sign-off";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
@@ -157,8 +158,13 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
     ["Evaluated", `${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : " (automatic, after analysis)"}`],
     ["Band", `${result.band.label ?? "none chosen"} — ${result.band.reason}`],
-    ["Sign-off state", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState],
+    ["Sign-off", describeSignOff(sheet).label],
   ]);
+  const setupRows = describeSetup(sheet);
+  if (setupRows.length > 0) {
+    heading("Set-up behind this result");
+    keyValues(setupRows);
+  }
 
   const blocks = channelBlocks(result);
   heading("Evaluation context");
@@ -233,7 +239,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   }
 
   heading("Sign-off");
-  keyValues([["State", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState]]);
+  keyValues([["State", describeSignOff(sheet).label]]);
   if (sheet.reviews.length === 0) text("No review actions yet.");
   for (const r of sheet.reviews) {
     const who = r.actorName ?? "unknown";

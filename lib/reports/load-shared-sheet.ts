@@ -14,17 +14,18 @@ const gone = () => new AppError("not_found", "This link is no longer valid.");
 async function sharedCaptureId(token: string): Promise<string> {
   if (!tokenSchema.safeParse(token).success) throw gone();
   const capture = await findSharedCapture({ tokenHash: hashToken(token) });
-  if (!capture || capture.status !== "done") throw gone();
+  // An approved result stays readable while a newer analysis is queued, running or failed.
+  if (!capture || (capture.status !== "done" && !capture.approvedEvaluationId)) throw gone();
   return capture.id;
 }
 
 /**
- * The sheet a share link shows: the capture's newest evaluation. The token itself is the
+ * The sheet a share link shows: the approved evaluation while one exists, else the newest. The token itself is the
  * authorisation, so the capture is read with a reviewer's visibility (not a viewer's filter).
  */
 export async function loadSharedSheet({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadSheet({ captureId, role: "engineer" });
+  return loadSheet({ captureId, role: "engineer", approvedOnly: true });
 }
 
 /** Chart data for a share link, with the same check as the sheet. */

@@ -1,5 +1,6 @@
 // The part of a loaded sheet (lib/captures/load-sheet.ts) that the PDF and CSV builders read.
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
+import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
 
 export interface SheetReport {
@@ -10,6 +11,7 @@ export interface SheetReport {
     capturedAt: Date | null;
     createdAt: Date;
     reviewState: string;
+    approvedEvaluationId?: string | null;
   };
   site: { name: string; nominalVoltageV: number; frequencyHz: number };
   uploaderName: string | null;
@@ -22,6 +24,14 @@ export interface SheetReport {
     createdAt: Date;
     createdByName: string | null;
     result: ComplianceResult;
+  } | null;
+  /** The approval of the shown evaluation, when it is the approved one. */
+  approval?: { actorName: string | null; createdAt: Date; comment: string } | null;
+  /** The analysis behind the evaluation, with the set-up and file hash it ran with. */
+  analysis?: {
+    result: Pick<AnalysisResult, "fundamentalHz" | "sampleIntervalS" | "channels">;
+    setup: Record<string, unknown> | null;
+    fileSha256: string | null;
   } | null;
   reviews: Array<{ action: string; comment: string; createdAt: Date; actorName: string | null }>;
 }

@@ -1,7 +1,9 @@
 import "server-only";
-import { GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
-import { getSignedUrl } from "@aws-sdk/s3-request-presigner";
+import { CopyObjectCommand, DeleteObjectCommand, GetObjectCommand, HeadObjectCommand, PutObjectCommand, S3Client } from "@aws-sdk/client-s3";
+import { createPresignedPost } from "@aws-sdk/s3-presigned-post";
+import { createHash } from "node:crypto";
 import { createWriteStream } from "node:fs";
+import { PassThrough, Transform } from "node:stream";
 import type { Readable } from "node:stream";
 import { pipeline } from "node:stream/promises";
 
@@ -31,24 +33,81 @@ export async function getObjectBytes(key: string): Promise<Uint8Array> {
   return res.Body.transformToByteArray();
 }
 
-export async function headObject(key: string): Promise<{ sizeBytes: number } | null> {
+export async function headObject(key: string): Promise<{ sizeBytes: number; contentType: string | null } | null> {
   try {
     const res = await s3.send(new HeadObjectCommand({ Bucket: bucket, Key: key }));
-    return { sizeBytes: res.ContentLength ?? 0 };
+    return { sizeBytes: res.ContentLength ?? 0, contentType: res.ContentType ?? null };
   } catch {
     return null;
   }
 }
 
-export function presignPut(key: string, contentType: string, expiresInS = 900): Promise<string> {
-  return getSignedUrl(s3, new PutObjectCommand({ Bucket: bucket, Key: key, ContentType: contentType }), { expiresIn: expiresInS });
+/** A browser form upload the store itself checks: fixed key, exact content type, size range, short expiry. */
+export interface PresignedUpload {
+  url: string;
+  /** Form fields to send before the file field (named "file"). */
+  fields: Record<string, string>;
+  expiresAt: Date;
 }
 
-/** Streams an object to a file (large captures never sit in memory whole). */
-export async function downloadObjectToFile(key: string, path: string): Promise<void> {
+/**
+ * A presigned POST policy for exactly one key: `content-length-range` 1…`maxBytes`, the exact
+ * `contentType`, expiring in `expiresInS` (at most 600 s). Whatever the store enforces, the server
+ * still checks the object at confirmation (size, SHA-256, first bytes) and copies it to a key the
+ * client never gets a URL for.
+ */
+export async function presignUpload(key: string, { contentType, maxBytes, expiresInS = 600 }: { contentType: string; maxBytes: number; expiresInS?: number }): Promise<PresignedUpload> {
+  const expires = Math.min(expiresInS, 600);
+  // The client types of this package and @aws-sdk/client-s3 are the same class in two published versions.
+  const post = await createPresignedPost(s3 as unknown as Parameters<typeof createPresignedPost>[0], {
+    Bucket: bucket,
+    Key: key,
+    Conditions: [["content-length-range", 1, maxBytes], ["eq", "$Content-Type", contentType]],
+    Fields: { "Content-Type": contentType },
+    Expires: expires,
+  });
+  return { url: post.url, fields: post.fields, expiresAt: new Date(Date.now() + expires * 1000) };
+}
+
+/** A stream step that hashes (SHA-256) and counts what passes through it. */
+function hashing() {
+  const hash = createHash("sha256");
+  let sizeBytes = 0;
+  const step = new Transform({
+    transform(chunk: Buffer, _enc, done) {
+      hash.update(chunk);
+      sizeBytes += chunk.length;
+      done(null, chunk);
+    },
+  });
+  return { step, result: () => ({ sha256: hash.digest("hex"), sizeBytes }) };
+}
+
+/** Streams an object to a file (large captures never sit in memory whole); returns its SHA-256 (hex) and size. */
+export async function downloadObjectToFile(key: string, path: string): Promise<{ sha256: string; sizeBytes: number }> {
   const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
   if (!res.Body) throw new Error(`object ${key} has no body`);
-  await pipeline(res.Body as Readable, createWriteStream(path));
+  const h = hashing();
+  await pipeline(res.Body as Readable, h.step, createWriteStream(path));
+  return h.result();
+}
+
+/** SHA-256 (hex) and size of an object, computed by streaming it through the server. */
+export async function hashObject(key: string): Promise<{ sha256: string; sizeBytes: number }> {
+  const res = await s3.send(new GetObjectCommand({ Bucket: bucket, Key: key }));
+  if (!res.Body) throw new Error(`object ${key} has no body`);
+  const h = hashing();
+  await pipeline(res.Body as Readable, h.step, new PassThrough().resume());
+  return h.result();
+}
+
+/** Server-side copy inside the bucket (the confirmed original is a copy the client never had a URL for). */
+export async function copyObject(fromKey: string, toKey: string): Promise<void> {
+  await s3.send(new CopyObjectCommand({ Bucket: bucket, Key: toKey, CopySource: `${bucket}/${encodeURIComponent(fromKey).replaceAll("%2F", "/")}` }));
+}
+
+export async function deleteObject(key: string): Promise<void> {
+  await s3.send(new DeleteObjectCommand({ Bucket: bucket, Key: key }));
 }
 
 /** The first `bytes` bytes of an object (for previews of large uploads). */

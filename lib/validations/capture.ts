@@ -61,6 +61,9 @@ export const intervalSetupSchema = z.object({
   context: EvaluationContextSchema,
 });
 
+/** Switch an upload between waveform record and interval log (before analysis). */
+export const switchKindSchema = z.object({ kind: z.enum(["waveform", "interval-log"]) });
+
 export const reevaluateSchema = z.object({
   limitSetKey: z.string().min(1, "Choose a limit set"),
   context: EvaluationContextSchema,
@@ -70,6 +73,8 @@ export const reviewActionSchema = z
   .object({
     action: z.enum(["submitted", "approved", "sent_back", "comment"]),
     comment: z.string().trim().max(4000, "Comment is too long (max 4000)").default(""),
+    /** The evaluation the decision is about (required to approve: it must be the newest one). */
+    evaluationId: z.uuid("Name the evaluation").optional(),
   })
   .refine((v) => !(v.action === "sent_back" || v.action === "comment") || v.comment.length > 0, {
     path: ["comment"],

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn, type CaughtMail, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
-import { analysedCapture, json } from "../support/captures";
+import { analysedCapture, json, postUpload, type PresignedUpload } from "../support/captures";
 
 /**
  * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
@@ -132,7 +132,7 @@ describe("the pass/fail sheet", () => {
     await page.close();
   });
 
-  it("a technician submits, the engineer sends back with a reason and then approves; the uploader gets the e-mail", async () => {
+  it("a technician submits, the engineer sends back with a reason, the technician resubmits and an admin approves; the uploader gets the e-mail", async () => {
     const tech = await browser.newPage();
     await signInAs(tech, "technician");
     await tech.goto(url(`/captures/${failingId}`));
@@ -149,15 +149,30 @@ describe("the pass/fail sheet", () => {
     await page.fill("[data-testid=review-comment]", "h3 is over; check the clamp ratio first");
     await page.click("[data-testid=review-send-back]");
     await page.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Sent back");
-    await page.fill("[data-testid=review-comment]", "Ratio confirmed, excess is real");
-    await page.click("[data-testid=review-approve]");
-    await page.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Approved");
-    const history = await page.$$eval("[data-testid=review-event]", (els) => els.map((e) => e.getAttribute("data-action")));
-    expect(history).toEqual(["submitted", "sent_back", "approved"]);
+    // Sent back is not approvable: the buttons follow the state machine.
+    expect(await page.locator("[data-testid=review-approve]").count()).toBe(0);
+    await page.close();
+
+    const techApi = await signedIn("technician");
+    expect((await techApi.request("POST", `/api/captures/${failingId}/review`, { action: "submitted", comment: "ratio checked" })).status).toBe(200);
+
+    // The engineer re-judged this capture earlier, so by the four-eyes rule another reviewer approves.
+    const adminPage = await browser.newPage();
+    await signInAs(adminPage, "admin");
+    await adminPage.goto(url(`/captures/${failingId}`));
+    await adminPage.fill("[data-testid=review-comment]", "Ratio confirmed, excess is real");
+    await adminPage.click("[data-testid=review-approve]");
+    await adminPage.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Approved");
+    expect(await adminPage.textContent("[data-testid=review-state-chip]")).toContain("Approved by Ines Marlowe");
+    expect(await adminPage.textContent("[data-testid=sheet-setup]")).toContain("File SHA-256");
+    expect(await adminPage.locator("[data-testid=review-approve]").count()).toBe(0);
+    const history = await adminPage.$$eval("[data-testid=review-event]", (els) => els.map((e) => e.getAttribute("data-action")));
+    expect(history).toEqual(["submitted", "sent_back", "submitted", "approved"]);
+    await snapAt(adminPage, "sheet-approved", "body");
     const mail = await mailWithSubject("technician@ordwise.test", `"${failingTitle}" approved`);
     expect(mail.text).toContain("Ratio confirmed");
     expect(mail.text).toContain(`/captures/${failingId}`);
-    await page.close();
+    await adminPage.close();
   });
 
   it("downloads the PDF and the CSV with the per-order table", async () => {
@@ -265,10 +280,10 @@ describe("the pass/fail sheet", () => {
     const tech = await signedIn("technician");
     const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));
     const csv = "Time (s),I (A)\n0,1\n0.001,2\n0.002,1\n";
-    const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+    const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
       await tech.request("POST", "/api/captures", { siteId: sites[0]!.id, title: `Sheet test too short ${stamp}`, filename: "x.csv", sizeBytes: csv.length }),
     );
-    await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv });
+    await postUpload(upload, csv);
     await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
     await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
     await json(await tech.request("POST", `/api/captures/${capture.id}/analyze`));
@@ -301,6 +316,15 @@ describe("the pass/fail sheet", () => {
     await page.goto(url(`/captures/${capture.id}`));
     expect(await page.getAttribute("[data-testid=capture-progress]", "data-status")).toBe("uploading");
     expect(await page.locator("[data-testid=order-table]").count()).toBe(0);
+    // Before analysis the kind can be switched; the uploader can withdraw it.
+    await page.click("[data-testid=switch-kind]");
+    await page.waitForURL(/\/setup$/);
+    expect((await json<{ capture: { kind: string } }>(await tech.request("GET", `/api/captures/${capture.id}`))).capture.kind).toBe("interval-log");
+    await page.goto(url(`/captures/${capture.id}`));
+    page.once("dialog", (d) => void d.accept());
+    await page.click("[data-testid=withdraw]");
+    await page.waitForURL(/\/captures$/);
+    expect((await tech.request("GET", `/api/captures/${capture.id}`)).status).toBe(404);
     await page.close();
   });
 });

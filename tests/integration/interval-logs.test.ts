@@ -3,6 +3,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { analyses, captures, evaluations, sites } from "@/db/schema";
+import { postUpload, type PresignedUpload } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let tech: Client;
@@ -18,8 +19,8 @@ async function uploadLog(file: string): Promise<string> {
   const bytes = readFileSync(file);
   const res = await tech.request("POST", "/api/captures", { siteId, kind: "interval-log", title: `Log ${Date.now()}`, filename: "log.csv", sizeBytes: bytes.length });
   expect(res.status).toBe(201);
-  const { capture, uploadUrl } = (await res.json()) as { capture: { id: string }; uploadUrl: string };
-  expect((await fetch(uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } })).status).toBe(200);
+  const { capture, upload } = (await res.json()) as { capture: { id: string }; upload: PresignedUpload };
+  expect((await postUpload(upload, bytes)).ok).toBe(true);
   expect((await tech.request("POST", `/api/captures/${capture.id}/uploaded`)).status).toBe(200);
   return capture.id;
 }

@@ -6,6 +6,7 @@ import PgBoss from "pg-boss";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, sql } from "@/db/client";
 import { captures } from "@/db/schema";
+import { postUpload, type PresignedUpload } from "../support/captures";
 import { signedIn } from "../support/http";
 
 // A queue of its own, so the worker that `npm test` runs beside the app never takes these jobs.
@@ -55,8 +56,8 @@ describe("analysis jobs in the PostgreSQL-backed queue", () => {
     const bytes = readFileSync("fixtures/demo/bench-b-heater-controller.csv");
     const reg = (await (
       await tech.request("POST", "/api/captures", { siteId, title: `Killed worker ${Date.now()}`, filename: "heater.csv", sizeBytes: bytes.length })
-    ).json()) as { capture: { id: string }; uploadUrl: string };
-    await fetch(reg.uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } });
+    ).json()) as { capture: { id: string }; upload: PresignedUpload };
+    await postUpload(reg.upload, bytes);
     expect((await tech.request("POST", `/api/captures/${reg.capture.id}/uploaded`)).status).toBe(200);
     await tech.request("PUT", `/api/captures/${reg.capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} });
 

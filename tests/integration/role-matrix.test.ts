@@ -36,6 +36,9 @@ const routes: RouteCase[] = [
   { method: "GET", path: "/api/captures", allowed: ALL },
   { method: "POST", path: "/api/captures", allowed: UPLOAD, body: {} },
   { method: "GET", path: "/api/captures/:capture", allowed: ALL },
+  // Withdrawal and kind switch go to a capture that does not exist (404) so nothing changes.
+  { method: "PATCH", path: "/api/captures/:missing", allowed: UPLOAD, body: { kind: "waveform" } },
+  { method: "DELETE", path: "/api/captures/:missing", allowed: UPLOAD },
   { method: "POST", path: "/api/captures/:capture/uploaded", allowed: UPLOAD },
   { method: "GET", path: "/api/captures/:capture/preview", allowed: UPLOAD },
   { method: "PUT", path: "/api/captures/:capture/setup", allowed: UPLOAD, body: {} },

@@ -7,6 +7,20 @@ export async function json<T>(res: Response): Promise<T> {
   return (await res.json()) as T;
 }
 
+export interface PresignedUpload {
+  url: string;
+  fields: Record<string, string>;
+  expiresAt: string;
+}
+
+/** The browser's path: a form POST straight to the bucket with the presigned policy's fields, the file last. */
+export async function postUpload(upload: PresignedUpload, body: string | Uint8Array, { contentType = "text/csv", fields = {} }: { contentType?: string; fields?: Record<string, string> } = {}): Promise<Response> {
+  const form = new FormData();
+  for (const [k, v] of Object.entries({ ...upload.fields, ...fields })) form.append(k, v);
+  form.append("file", new Blob([typeof body === "string" ? body : new Uint8Array(body)], { type: contentType }), "upload.csv");
+  return fetch(upload.url, { method: "POST", body: form });
+}
+
 /** Registers, uploads (presigned PUT), maps and analyses a capture; resolves to its id once done. */
 export async function analysedCapture(
   api: Client,
@@ -15,17 +29,23 @@ export async function analysedCapture(
   csv: string,
   { filename = "x.csv", limitSetKey = "iec-61000-3-2-class-a", timeoutMs = 60_000 }: { filename?: string; limitSetKey?: string; timeoutMs?: number } = {},
 ): Promise<string> {
-  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+  const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
     await api.request("POST", "/api/captures", { siteId, title, filename, sizeBytes: Buffer.byteLength(csv) }),
   );
-  expect((await fetch(uploadUrl, { method: "PUT", headers: { "content-type": "text/csv" }, body: csv })).ok).toBe(true);
+  expect((await postUpload(upload, csv)).ok).toBe(true);
   await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
   await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey, context: {} }));
   await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
+  await waitForCapture(api, capture.id, timeoutMs);
+  return capture.id;
+}
+
+/** Waits until a queued analysis is done; throws with the reason when it failed. */
+export async function waitForCapture(api: Client, id: string, timeoutMs = 60_000): Promise<void> {
   const deadline = Date.now() + timeoutMs;
   for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${capture.id}`));
-    if (c.status === "done") return capture.id;
+    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${id}`));
+    if (c.status === "done") return;
     if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
     if (Date.now() > deadline) throw new Error(`analysis did not finish in ${timeoutMs / 1000} s`);
     await new Promise((r) => setTimeout(r, 250));

@@ -103,7 +103,12 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                       <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[c.verdict] ?? ""}`}>{verdictText[c.verdict] ?? c.verdict}</span>
                     ) : "—"}
                   </td>
-                  <td>{reviewLabels[c.reviewState]}</td>
+                  <td data-testid="capture-review">
+                    {c.approved ? "Approved" : reviewLabels[c.reviewState]}
+                    {c.newerAwaitsReview && user.role !== "viewer" && (
+                      <span className="block text-xs text-caution" data-testid="newer-awaits">A newer result awaits review</span>
+                    )}
+                  </td>
                   <td className="whitespace-nowrap text-ink-soft">
                     {c.createdAt.toISOString().slice(0, 10)}
                     {c.uploadedByName ? ` · ${c.uploadedByName}` : ""}

@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
 import { listCaptures, registerCapture } from "@/db/queries/captures";
 import { readJson, withAuth } from "@/lib/api/with-auth";
-import { presignPut } from "@/lib/storage/s3";
+import { incomingKey, uploadContentType } from "@/lib/captures/confirm-upload";
+import { presignUpload } from "@/lib/storage/s3";
 import { captureListQuerySchema, registerCaptureSchema } from "@/lib/validations/capture";
 
 // GET /api/captures — filtered, paginated list (site, verdict, status, date range)
@@ -13,13 +14,14 @@ export const GET = withAuth(
   { permission: "captures:read" },
 );
 
-// POST /api/captures — register a capture and get a presigned URL to PUT the original file to
+// POST /api/captures — register a capture and get a presigned form upload (POST policy: this key, this type,
+// at most the registered size, 10 minutes) for the original file
 export const POST = withAuth(
   async ({ req, user }) => {
     const input = registerCaptureSchema.parse(await readJson(req));
     const capture = await registerCapture({ input, actorId: user.id });
-    const uploadUrl = await presignPut(capture.s3Key, "text/csv");
-    return NextResponse.json({ capture, uploadUrl, contentType: "text/csv" }, { status: 201 });
+    const upload = await presignUpload(incomingKey(capture.id), { contentType: uploadContentType, maxBytes: input.sizeBytes });
+    return NextResponse.json({ capture, upload, contentType: uploadContentType }, { status: 201 });
   },
   { permission: "captures:upload" },
 );

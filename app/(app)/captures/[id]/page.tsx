@@ -10,6 +10,7 @@ import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
 import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { CaptureActions } from "./_components/capture-actions";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
 import { EvaluationHistory } from "./_components/evaluation-history";
@@ -38,7 +39,8 @@ export default async function CaptureSheetPage({
   });
   const { capture, evaluation } = sheet;
 
-  if (capture.status !== "done" || !evaluation) {
+  // An approved result stays on show while a newer analysis is queued, running or failed.
+  if ((capture.status !== "done" && !capture.approvedEvaluationId) || !evaluation) {
     return (
       <div className="max-w-2xl space-y-4">
         <div>
@@ -61,6 +63,12 @@ export default async function CaptureSheetPage({
           }}
           canFix={can(user.role, "captures:upload")}
         />
+        <CaptureActions
+          captureId={capture.id}
+          kind={capture.kind}
+          canSwitchKind={can(user.role, "captures:upload") && ["uploading", "uploaded", "failed"].includes(capture.status) && !sheet.analysis && sheet.evaluations.length === 0}
+          canWithdraw={capture.uploadedBy === user.id && capture.reviewState === "draft" && capture.status !== "queued" && capture.status !== "running"}
+        />
         <SafetyNote />
       </div>
     );
@@ -74,7 +82,9 @@ export default async function CaptureSheetPage({
     listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, role: user.role }),
   ]);
   const others = siblings.items.filter((c) => c.id !== capture.id);
-  const evalQuery = evaluation.id !== latestId ? `?evaluation=${evaluation.id}` : "";
+  // The sheet's default is the approved evaluation while one exists, else the newest.
+  const defaultId = capture.approvedEvaluationId ?? latestId;
+  const evalQuery = evaluation.id !== defaultId ? `?evaluation=${evaluation.id}` : "";
   const context = EvaluationContextSchema.safeParse(evaluation.context);
   // The evaluation made just before the shown one, to show the two side by side.
   const shownIndex = sheet.evaluations.findIndex((e) => e.id === evaluation.id);
@@ -86,10 +96,28 @@ export default async function CaptureSheetPage({
       <nav className="text-sm text-ink-soft" aria-label="Breadcrumb">
         <Link href="/captures" className="hover:text-copper">Captures</Link> / <span>{capture.title}</span>
       </nav>
-      {evaluation.id !== latestId && (
+      {sheet.newerResult && evaluation.id !== latestId && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="newer-result">
+          A newer result awaits review ({formatWhen(sheet.newerResult.createdAt)}); this sheet shows the approved one until it is approved itself.{" "}
+          <Link href={`/captures/${capture.id}?evaluation=${sheet.newerResult.id}`} className="font-semibold underline">Show the newer result</Link>
+        </p>
+      )}
+      {capture.approvedEvaluationId && evaluation.id === latestId && evaluation.id !== capture.approvedEvaluationId && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="unapproved-result">
+          This newer result is not approved yet; share links, the PDF and viewers show the approved one.{" "}
+          <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the approved result</Link>
+        </p>
+      )}
+      {evaluation.id !== latestId && evaluation.id !== capture.approvedEvaluationId && (
         <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="older-evaluation">
           You are looking at an earlier evaluation ({formatWhen(evaluation.createdAt)}).{" "}
           <Link href={`/captures/${capture.id}`} className="font-semibold underline">Show the latest</Link>
+        </p>
+      )}
+      {capture.status !== "done" && user.role !== "viewer" && (
+        <p className="rounded-md border border-caution/40 bg-caution-light px-4 py-2 text-sm text-caution" role="status" data-testid="rerun-status">
+          {capture.status === "failed" ? `A new analysis failed: ${capture.failureReason ?? "no reason given"}` : `A new analysis is ${capture.status}`}. The approved result stays on show until a newer one is approved.{" "}
+          {can(user.role, "captures:review") && <Link href={`/captures/${capture.id}/setup`} className="font-semibold underline">Set-up</Link>}
         </p>
       )}
       <SheetHeader sheet={sheet} />
@@ -122,7 +150,7 @@ export default async function CaptureSheetPage({
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
-          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts`} />
+          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts${evalQuery}`} />
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 
@@ -133,6 +161,8 @@ export default async function CaptureSheetPage({
             events={sheet.reviews.map((r) => ({ ...r, createdAt: r.createdAt.toISOString() }))}
             canSubmit={can(user.role, "captures:upload")}
             canDecide={canReview}
+            evaluationId={evaluation.id}
+            newestEvaluationId={latestId}
           />
           <section className="panel space-y-2" data-testid="downloads">
             <h2>Report</h2>

@@ -14,18 +14,25 @@ interface Props {
 
 type Phase = { kind: "idle" } | { kind: "uploading"; percent: number } | { kind: "finishing" };
 
-/** PUTs the file straight to the bucket through the presigned URL, reporting progress. */
-function putWithProgress(url: string, file: File, onProgress: (percent: number) => void, xhrRef: React.RefObject<XMLHttpRequest | null>) {
+interface PresignedUpload {
+  url: string;
+  fields: Record<string, string>;
+}
+
+/** Posts the file straight to the bucket with the presigned form policy (fields first, the file last), reporting progress. */
+function postWithProgress(upload: PresignedUpload, file: File, onProgress: (percent: number) => void, xhrRef: React.RefObject<XMLHttpRequest | null>) {
   return new Promise<void>((resolve, reject) => {
     const xhr = new XMLHttpRequest();
     xhrRef.current = xhr;
-    xhr.open("PUT", url);
-    xhr.setRequestHeader("content-type", "text/csv");
+    const form = new FormData();
+    for (const [k, v] of Object.entries(upload.fields)) form.append(k, v);
+    form.append("file", file);
+    xhr.open("POST", upload.url);
     xhr.upload.onprogress = (e) => e.lengthComputable && onProgress(Math.round((e.loaded / e.total) * 100));
     xhr.onload = () => (xhr.status >= 200 && xhr.status < 300 ? resolve() : reject(new Error(`Storage refused the upload (HTTP ${xhr.status}).`)));
     xhr.onerror = () => reject(new Error("The upload failed: the storage service could not be reached."));
     xhr.onabort = () => reject(new DOMException("Upload cancelled", "AbortError"));
-    xhr.send(file);
+    xhr.send(form);
   });
 }
 
@@ -57,8 +64,8 @@ export function UploadForm({ sites, defaultSiteId, maxBytes }: Props) {
     setErrors({});
     try {
       setPhase({ kind: "uploading", percent: 0 });
-      const { capture, uploadUrl } = await sendJson<{ capture: { id: string }; uploadUrl: string }>("/api/captures", "POST", parsed.data);
-      await putWithProgress(uploadUrl, file, (percent) => setPhase({ kind: "uploading", percent }), xhrRef);
+      const { capture, upload } = await sendJson<{ capture: { id: string }; upload: PresignedUpload }>("/api/captures", "POST", parsed.data);
+      await postWithProgress(upload, file, (percent) => setPhase({ kind: "uploading", percent }), xhrRef);
       setPhase({ kind: "finishing" });
       await sendJson(`/api/captures/${capture.id}/uploaded`, "POST");
       router.push(`/captures/${capture.id}/setup`);

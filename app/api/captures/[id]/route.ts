@@ -1,7 +1,8 @@
 import { NextResponse } from "next/server";
-import { getCaptureById } from "@/db/queries/captures";
+import { getCaptureById, switchCaptureKind, withdrawCapture } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
-import { withAuth } from "@/lib/api/with-auth";
+import { readJson, withAuth } from "@/lib/api/with-auth";
+import { switchKindSchema } from "@/lib/validations/capture";
 
 // GET /api/captures/:id — one capture with its status and progress
 export const GET = withAuth<{ id: string }>(
@@ -10,4 +11,24 @@ export const GET = withAuth<{ id: string }>(
     return NextResponse.json({ capture: await getCaptureById({ id, role: user.role }) });
   },
   { permission: "captures:read" },
+);
+
+// PATCH /api/captures/:id — switch the upload kind (waveform record / interval log) before analysis
+export const PATCH = withAuth<{ id: string }>(
+  async ({ req, params, user }) => {
+    const { id } = captureParamsSchema.parse(params);
+    const { kind } = switchKindSchema.parse(await readJson(req));
+    return NextResponse.json({ capture: await switchCaptureKind({ id, kind, actorId: user.id, role: user.role }) });
+  },
+  { permission: "captures:upload" },
+);
+
+// DELETE /api/captures/:id — the uploader withdraws a capture before submission (hidden, kept in the audit log)
+export const DELETE = withAuth<{ id: string }>(
+  async ({ params, user }) => {
+    const { id } = captureParamsSchema.parse(params);
+    await withdrawCapture({ id, actorId: user.id, role: user.role });
+    return NextResponse.json({ withdrawn: true });
+  },
+  { permission: "captures:upload" },
 );

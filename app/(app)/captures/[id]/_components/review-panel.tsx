@@ -30,12 +30,18 @@ export function ReviewPanel({
   events,
   canSubmit,
   canDecide,
+  evaluationId,
+  newestEvaluationId,
 }: {
   captureId: string;
   reviewState: string;
   events: ReviewEventView[];
   canSubmit: boolean;
   canDecide: boolean;
+  /** The evaluation on screen; a decision is about it. */
+  evaluationId: string;
+  /** The newest evaluation: only it can be approved. */
+  newestEvaluationId: string | null;
 }) {
   const router = useRouter();
   const [comment, setComment] = useState("");
@@ -50,7 +56,7 @@ export function ReviewPanel({
     setBusy(action);
     setError(null);
     try {
-      await sendJson(`/api/captures/${captureId}/review`, "POST", { action, comment: comment.trim() });
+      await sendJson(`/api/captures/${captureId}/review`, "POST", { action, comment: comment.trim(), evaluationId });
       setComment("");
       router.refresh();
     } catch (err) {
@@ -61,6 +67,9 @@ export function ReviewPanel({
   }
 
   const canAct = canSubmit || canDecide;
+  // The buttons follow the server's state machine (lib/reviews/review-transition.ts); the server enforces it.
+  const inReview = reviewState === "in_review";
+  const showsNewest = evaluationId === newestEvaluationId;
   return (
     <section className="panel space-y-3" data-testid="review-panel">
       <div className="flex items-center justify-between gap-2">
@@ -101,12 +110,12 @@ export function ReviewPanel({
           />
           {error && <p className="field-error" role="alert" data-testid="review-error">{error}</p>}
           <div className="flex flex-wrap gap-2">
-            {canDecide && reviewState !== "approved" && (
+            {canDecide && inReview && showsNewest && (
               <button type="button" className="btn-primary" disabled={busy !== null} onClick={() => act("approved")} data-testid="review-approve">
                 {busy === "approved" ? "Approving…" : "Approve"}
               </button>
             )}
-            {canDecide && (
+            {canDecide && inReview && (
               <button type="button" className="btn-quiet" disabled={busy !== null} onClick={() => act("sent_back")} data-testid="review-send-back">
                 {busy === "sent_back" ? "Sending back…" : "Send back"}
               </button>

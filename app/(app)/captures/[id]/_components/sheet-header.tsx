@@ -1,6 +1,8 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { Sheet } from "@/lib/captures/load-sheet";
-import { describeContext, formatWhen, reviewStateLabels } from "@/lib/reports/format";
+import { describeSetup } from "@/lib/reports/describe-setup";
+import { describeSignOff } from "@/lib/reports/describe-sign-off";
+import { describeContext, formatWhen } from "@/lib/reports/format";
 
 /** Who, what, when and against which limits: the top of every sheet (signed-in and shared). */
 export function SheetHeader({ sheet }: { sheet: Sheet }) {
@@ -8,6 +10,8 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
   if (!evaluation) return null;
   const result = evaluation.result;
   const context = describeContext(result.context);
+  const signOff = describeSignOff(sheet);
+  const setup = describeSetup(sheet);
   return (
     <section className="panel space-y-4" data-testid="sheet-header">
       <div className="flex flex-wrap items-start justify-between gap-3">
@@ -22,7 +26,9 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
         <div className="flex flex-col items-start gap-1 sm:items-end">
           <span className="text-xs uppercase tracking-wide text-ink-muted">Overall verdict</span>
           <VerdictBadge verdict={result.verdict} size="lg" testId="sheet-verdict" />
-          <span className="text-xs text-ink-muted" data-testid="review-state-chip">Sign-off: {reviewStateLabels[capture.reviewState] ?? capture.reviewState}</span>
+          <span className={`text-xs ${signOff.approved ? "font-semibold text-pass" : "text-ink-muted"}`} data-testid="review-state-chip" data-approved={signOff.approved}>
+            Sign-off: {signOff.label}
+          </span>
         </div>
       </div>
       <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2 lg:grid-cols-3">
@@ -74,6 +80,20 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
             {result.channel ? ` · worst channel ${result.channel}` : ""}
           </dd>
         </div>
+        {setup.length > 0 && (
+          <div className="sm:col-span-2 lg:col-span-3">
+            <dt className="text-xs uppercase tracking-wide text-ink-muted">Set-up behind this result</dt>
+            <dd data-testid="sheet-setup">
+              <ul>
+                {setup.map(([k, v]) => (
+                  <li key={k} className="break-all">
+                    <span className="text-ink-soft">{k}</span> {v}
+                  </li>
+                ))}
+              </ul>
+            </dd>
+          </div>
+        )}
       </dl>
     </section>
   );

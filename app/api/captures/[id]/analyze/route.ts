@@ -1,21 +1,22 @@
 import { NextResponse } from "next/server";
-import { getCaptureById, setCaptureStatus } from "@/db/queries/captures";
+import { setCaptureStatus, startAnalysis } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
 import { enqueueAnalysis } from "@/lib/jobs/queue";
-import { AppError } from "@/lib/errors";
 
 // POST /api/captures/:id/analyze — put the analysis on the job queue; status and progress are read from GET /api/captures/:id
 export const POST = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const capture = await getCaptureById({ id, role: user.role });
-    if (capture.status === "uploading") throw new AppError("conflict", "The file has not been uploaded yet.");
-    if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is already running.");
-    if (!capture.limitSetKey) throw new AppError("conflict", "Save the mapping and choose a limit set first.");
-    await setCaptureStatus({ id, status: "queued", progressPercent: 0, failureReason: null });
-    const jobId = await enqueueAnalysis({ captureId: id, actorId: user.id });
-    return NextResponse.json({ status: "queued", jobId }, { status: 202 });
+    // The conditional update decides who queues the job: parallel requests queue one, the others get 409.
+    await startAnalysis({ id, role: user.role });
+    try {
+      const jobId = await enqueueAnalysis({ captureId: id, actorId: user.id });
+      return NextResponse.json({ status: "queued", jobId }, { status: 202 });
+    } catch (err) {
+      await setCaptureStatus({ id, status: "failed", failureReason: "The analysis could not be queued; try again." });
+      throw err;
+    }
   },
   { permission: "captures:upload" },
 );

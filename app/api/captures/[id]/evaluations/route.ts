@@ -5,12 +5,14 @@ import { readJson, withAuth } from "@/lib/api/with-auth";
 import { AppError } from "@/lib/errors";
 import { judgeStoredIntervalLog } from "@/lib/captures/judge-stored-interval-log";
 import { IntervalLogError } from "@/lib/intervals/errors";
+import { OriginalChangedError } from "@/lib/captures/original-changed-error";
 import { evaluateCapture } from "@/lib/pipeline/run-capture";
 import { reevaluateSchema } from "@/lib/validations/capture";
 
 /** A log that no longer imports with its stored mapping (e.g. the mapping was changed) cannot be judged again as analysed. */
 function rethrowAsConflict(err: unknown): never {
   if (err instanceof IntervalLogError) throw new AppError("conflict", `The interval log cannot be judged again with its saved mapping: ${err.message}`);
+  if (err instanceof OriginalChangedError) throw new AppError("conflict", err.message);
   throw err;
 }
 

@@ -9,7 +9,7 @@ export const PUT = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const setup = intervalSetupSchema.parse(await readJson(req));
-    return NextResponse.json({ capture: await saveIntervalSetup({ id, setup, actorId: user.id }) });
+    return NextResponse.json({ capture: await saveIntervalSetup({ id, setup, actorId: user.id, role: user.role }) });
   },
   { permission: "captures:upload" },
 );

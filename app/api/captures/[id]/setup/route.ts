@@ -9,7 +9,7 @@ export const PUT = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const setup = captureSetupSchema.parse(await readJson(req));
-    return NextResponse.json({ capture: await saveCaptureSetup({ id, setup, actorId: user.id }) });
+    return NextResponse.json({ capture: await saveCaptureSetup({ id, setup, actorId: user.id, role: user.role }) });
   },
   { permission: "captures:upload" },
 );
