@@ -10,7 +10,7 @@ const r = (x: number, digits = 0): string => {
  * matter. Always a resemblance ("resembles …"), never a statement of what is installed. The one
  * place these words are made; nothing parses them back.
  *
- * @example describeCandidate("six-pulse-capacitor", { acInductancePercent: 3, dcChokePercent: 0, loadPercent: 100 }, true)
+ * @example describeCandidate("six-pulse-capacitor", { acInductancePercent: 3, dcChokePercent: 0 }, true)
  * // "resembles a six-pulse diode bridge with a DC capacitor and about 3 % line reactance"
  */
 export function describeCandidate(family: FrontEndFamily, p: FrontEndParameters, hasVoltage: boolean): string {
@@ -19,7 +19,7 @@ export function describeCandidate(family: FrontEndFamily, p: FrontEndParameters,
       return `resembles single-phase rectifier loads with DC capacitors (electronics power supplies) and about ${r(p.lineInductancePercent!, 1)} % line inductance`;
     case "six-pulse-capacitor": {
       const choke = p.dcChokePercent! >= 0.5 ? ` and a DC choke of about ${r(p.dcChokePercent!)} %` : "";
-      return `resembles a six-pulse diode bridge with a DC capacitor and about ${r(p.acInductancePercent!, p.acInductancePercent! < 1 ? 1 : 0)} % line reactance${choke}, at about ${r(p.loadPercent!, -1)} % load`;
+      return `resembles a six-pulse diode bridge with a DC capacitor and about ${r(p.acInductancePercent!, p.acInductancePercent! < 1 ? 1 : 0)} % line reactance${choke}`;
     }
     case "six-pulse-inductor":
       return `resembles a six-pulse bridge feeding a large DC inductance, with about ${r(p.commutationReactancePercent!)} % commutation reactance`;
