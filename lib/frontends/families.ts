@@ -1,6 +1,7 @@
 import { activeFrontEndSpectrum } from "./active-front-end-spectrum";
 import { complexSpectrum } from "./complex-spectrum";
 import { currentSourceBridgeSpectrum } from "./current-source-bridge-spectrum";
+import { decodeGrid, PRECOMPUTED_GRIDS } from "./grid-data";
 import { interpolateGrid, type SpectrumGrid } from "./interpolate-grid";
 import { multiPulseSpectrum } from "./multi-pulse-spectrum";
 import { simulateSinglePhaseCapacitor } from "./simulate-single-phase-capacitor";
@@ -18,7 +19,7 @@ export interface FamilyModel {
   exact: (p: FrontEndParameters) => FrontEndSpectrum;
 }
 
-function gridOf(axes: readonly (readonly number[])[], compute: (point: number[]) => FrontEndSpectrum): SpectrumGrid {
+export function gridOf(axes: readonly (readonly number[])[], compute: (point: number[]) => FrontEndSpectrum): SpectrumGrid {
   const re: Float64Array[] = [];
   const im: Float64Array[] = [];
   const walk = (d: number, point: number[]): void => {
@@ -40,22 +41,37 @@ function gridOf(axes: readonly (readonly number[])[], compute: (point: number[])
   return { axes, re, im };
 }
 
-function lazyGrid(axes: readonly (readonly number[])[], compute: (point: number[]) => FrontEndSpectrum): () => SpectrumGrid {
+/**
+ * A grid from the precomputed data when its axes match (written by `npx tsx scripts/generate-frontend-grids.ts`;
+ * a unit test re-simulates points of it), else simulated on first use.
+ */
+function lazyGrid(key: string, axes: readonly (readonly number[])[], compute: (point: number[]) => FrontEndSpectrum): () => SpectrumGrid {
   let grid: SpectrumGrid | null = null;
-  return () => (grid ??= gridOf(axes, compute));
+  return () => (grid ??= decodeGrid(PRECOMPUTED_GRIDS[key], axes) ?? gridOf(axes, compute));
 }
 
-// Grids of the simulated families: coarse, built once per process on first use (≈ 0.5 s), then
-// interpolated. Axes are denser where the spectrum changes fastest (small inductance).
+/** The simulated families' grids, for the generator script: key → axes and how to compute a point. */
+export const SIMULATED_GRIDS: Record<string, { axes: readonly (readonly number[])[]; compute: (point: number[]) => FrontEndSpectrum }> = {};
+
+// Grids of the simulated families: precomputed (grid-data.ts), or simulated once per process on
+// first use (≈ 1 s) when the axes changed; then interpolated. Axes are denser where the spectrum changes fastest (small inductance).
 const SIX_PULSE_AC = [0.1, 0.2, 0.3, 0.4, 0.5, 0.6, 0.8, 1, 1.25, 1.5, 2, 2.5, 3, 4, 5, 6, 7, 8.5, 10] as const;
 const SIX_PULSE_DC = [0, 1, 2.5, 5, 7.5, 10] as const;
 // Inductance and load trade against each other in the current's shape (it follows ωL·I/V), so a
 // spectrum cannot tell a 3 % reactor at full load from a 6 % one at half load: the fit takes the
 // present load as the base (100 %) and the percentages are on it.
-const sixPulseGrid = lazyGrid([SIX_PULSE_AC, SIX_PULSE_DC], ([ac, dc]) => simulateSixPulseCapacitor({ acInductancePercent: ac!, dcChokePercent: dc!, loadPercent: 100 }));
+SIMULATED_GRIDS["six-pulse-capacitor"] = {
+  axes: [SIX_PULSE_AC, SIX_PULSE_DC],
+  compute: ([ac, dc]) => simulateSixPulseCapacitor({ acInductancePercent: ac!, dcChokePercent: dc!, loadPercent: 100 }),
+};
+const sixPulseGrid = lazyGrid("six-pulse-capacitor", SIMULATED_GRIDS["six-pulse-capacitor"].axes, SIMULATED_GRIDS["six-pulse-capacitor"].compute);
 const SINGLE_L = [0.1, 0.2, 0.3, 0.45, 0.6, 0.8, 1, 1.5, 2, 3, 4, 5, 7, 10, 15, 20] as const;
 const SINGLE_C = [3, 6, 12, 25, 50] as const;
-const singlePhaseGrid = lazyGrid([SINGLE_L, SINGLE_C], ([l, c]) => simulateSinglePhaseCapacitor({ lineInductancePercent: l!, capacitorPu: c! }));
+SIMULATED_GRIDS["single-phase-capacitor"] = {
+  axes: [SINGLE_L, SINGLE_C],
+  compute: ([l, c]) => simulateSinglePhaseCapacitor({ lineInductancePercent: l!, capacitorPu: c! }),
+};
+const singlePhaseGrid = lazyGrid("single-phase-capacitor", SIMULATED_GRIDS["single-phase-capacitor"].axes, SIMULATED_GRIDS["single-phase-capacitor"].compute);
 
 function fromGrid(grid: SpectrumGrid, point: number[]): FrontEndSpectrum {
   const { re, im } = interpolateGrid(grid, point);
