@@ -9,6 +9,7 @@ import { db, sql } from "@/db/client";
 import { recordReview, registerCapture, saveCaptureSetup, saveIntervalSetup, setCaptureStatus } from "@/db/queries/captures";
 import { captures, sites, users } from "@/db/schema";
 import { demoCaptures } from "@/db/seed/demo-captures";
+import { seedDemoStudies } from "@/db/seed/demo-studies";
 import { processCapture } from "@/lib/captures/process-capture";
 import { inspectIntervalLog } from "@/lib/intervals/inspect-interval-log";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
@@ -51,4 +52,5 @@ for (const demo of demoCaptures) {
   if (demo.approve) await recordReview({ captureId: capture.id, action: "approved", comment: demo.approve, actorId: engineer });
   console.log(`[ordwise] demo capture: ${demo.title}`);
 }
+await seedDemoStudies({ engineerId: engineer });
 await sql.end();

@@ -17,7 +17,7 @@ export interface DiagnosisCandidate {
 
 export interface ChannelDiagnosis {
   name: string;
-  /** Best first, at most three. */
+  /** Best first, at most three (none when the channel carries no fundamental current). */
   candidates: DiagnosisCandidate[];
   /** Whether the best candidate fits within GOOD_FIT_PERCENT. */
   fits: boolean;
@@ -46,6 +46,10 @@ export function diagnoseChannels(analysis: AnalysisResult, channelName?: string)
   const currents = analysis.channels.filter((c) => c.quantity === "current" && (channelName === undefined || c.name === channelName));
   if (channelName !== undefined && currents.length === 0) throw new Error(`no current channel named "${channelName}"`);
   const channels = currents.map((channel): ChannelDiagnosis => {
+    const fundamental = channel.harmonics.find((h) => h.order === 1)?.rms ?? null;
+    if (fundamental === null || !(fundamental > 0)) {
+      return { name: channel.name, candidates: [], fits: false, summary: "No fundamental current was measured, so there is no spectrum to compare.", usedVoltage: false };
+    }
     const measured = measuredSpectrum(analysis, channel);
     const fits = FRONT_END_FAMILIES.map((family) => fitFamily(measured, family)).sort((a, b) => a.fitErrorPercent - b.fitErrorPercent);
     const candidates = fits.slice(0, 3).map((fit) => ({

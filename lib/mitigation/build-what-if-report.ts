@@ -5,6 +5,7 @@ import { diagnoseChannels, type Diagnosis } from "../frontends/diagnose-channels
 import { FRONT_END_MODEL_VERSION, MAX_ORDER } from "../frontends/types";
 import { allocateActiveFilter } from "./allocate-active-filter";
 import { applyFrontEndChanges } from "./apply-front-end-changes";
+import { MitigationInputError } from "./mitigation-input-error";
 import { DEFAULT_X_OVER_R, passiveFilterAtPcc } from "./passive-filter-at-pcc";
 import type { FilterReport, Mitigation, NetworkData, WhatIfChannel, WhatIfResult } from "./types";
 
@@ -41,7 +42,7 @@ const characteristicOrders = (family: string): number[] => {
  * divider with the source impedance, the active filter by cancelling orders largest first within
  * its rating. THD/TDD and the verdict follow from the predicted per-order values.
  *
- * @throws Error naming a missing input (e.g. a passive filter without Isc or bus voltage)
+ * @throws MitigationInputError naming a missing input (e.g. a passive filter without Isc or bus voltage)
  * @example buildWhatIfReport({ analysis, mitigations: [{ kind: "reactor", percent: 5 }] }).channels[0]!.thdPercent
  */
 export function buildWhatIfReport(input: WhatIfInput): WhatIfResult {
@@ -53,19 +54,19 @@ export function buildWhatIfReport(input: WhatIfInput): WhatIfResult {
   const ilA = context?.ilA;
   const assumptions: string[] = [];
   const warnings: string[] = [];
+  const currents = analysis.channels.filter((c) => c.quantity === "current" && (input.channel === undefined || c.name === input.channel));
+  if (currents.length === 0) throw new MitigationInputError(input.channel === undefined ? "the capture has no current channel" : `no current channel named "${input.channel}"`);
   const hasPassive = mitigations.some((m) => m.kind === "passive-filter");
   if (hasPassive) {
-    if (iscA === undefined) throw new Error("a passive filter needs the short-circuit current at the PCC (--isc / iscA)");
-    if (busVoltageV === undefined) throw new Error("a passive filter needs the line-to-line bus voltage at the PCC (--bus-voltage / busVoltageV)");
-    if (!(xOverR > 0)) throw new Error("the source X/R must be positive");
+    if (iscA === undefined) throw new MitigationInputError("a passive filter needs the short-circuit current at the PCC (--isc / iscA)");
+    if (busVoltageV === undefined) throw new MitigationInputError("a passive filter needs the line-to-line bus voltage at the PCC (--bus-voltage / busVoltageV)");
+    if (!(xOverR > 0)) throw new MitigationInputError("the source X/R must be positive");
     assumptions.push(
       `Source impedance from Isc = ${iscA} A at ${busVoltageV} V with X/R = ${xOverR}${input.network?.xOverR === undefined ? " (default)" : ""}; the supply voltage is taken as undistorted, so no background harmonic current flows into the filter.`,
     );
     assumptions.push("Capacitor rated at the bus voltage and the stated kvar; duty limits of IEEE Std 18-2012 (from memory).");
   }
   const diagnosis = input.diagnosis ?? diagnoseChannels(analysis, input.channel);
-  const currents = analysis.channels.filter((c) => c.quantity === "current" && (input.channel === undefined || c.name === input.channel));
-  if (currents.length === 0) throw new Error(input.channel === undefined ? "the capture has no current channel" : `no current channel named "${input.channel}"`);
 
   assumptions.push(
     `Load-side changes re-simulate the front end the diagnosis found most alike; each measured order is scaled by that model's after/before ratio, and orders the model barely produces (below ${100 * MODELLED_ORDER_MIN} % of fundamental) are kept as measured.`,
@@ -76,7 +77,7 @@ export function buildWhatIfReport(input: WhatIfInput): WhatIfResult {
   const predicted: WhatIfChannel[] = currents.map((channel) => {
     const dx = diagnosis.channels.find((d) => d.name === channel.name);
     const best = dx?.candidates[0];
-    if (!best) throw new Error(`no diagnosis for channel "${channel.name}"`);
+    if (!best) throw new MitigationInputError(`channel "${channel.name}" carries no fundamental current; there is nothing to predict`);
     const i1 = channel.harmonics.find((h) => h.order === 1)?.rms ?? 0;
     const fe = applyFrontEndChanges({ family: best.family, parameters: best.parameters }, mitigations);
     for (const w of fe.warnings) warnings.push(`${channel.name}: ${w}`);
