@@ -13,6 +13,7 @@ import {
   reviewStateLabels,
   verdictLabel,
 } from "./format";
+import { addMitigationStudyPages, type StudyForReport } from "./mitigation-study-pages";
 import { safetyText } from "./safety-text";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
@@ -24,6 +25,8 @@ export interface SheetPdfOptions {
   includeComments?: boolean;
   /** Printed in the footer; injected so tests are reproducible. */
   generatedAt?: Date;
+  /** Saved mitigation studies chosen for the report: one "Mitigation study — prediction" page each. */
+  studies?: readonly StudyForReport[];
 }
 
 const colours = {
@@ -240,6 +243,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     const comment = options.includeComments === false || !r.comment ? "" : ` — "${r.comment}"`;
     keyValues([[formatWhen(r.createdAt), `${reviewActionLabels[r.action] ?? r.action} by ${who}${comment}`]]);
   }
+
+  if (options.studies?.length) addMitigationStudyPages(doc, options.studies, { margin, safe: pdfSafe, formatWhen });
 
   // --- footer on every page --------------------------------------------------------------------
   const range = doc.bufferedPageRange();

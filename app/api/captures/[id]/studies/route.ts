@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { getCaptureById } from "@/db/queries/captures";
 import { insertMitigationStudy, listMitigationStudies } from "@/db/queries/studies";
 import { captureParamsSchema } from "@/lib/api/params";
+import { can } from "@/lib/auth/permissions";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { computeMitigationStudy } from "@/lib/captures/mitigation-study";
 import { saveStudySchema } from "@/lib/validations/studies";
@@ -11,7 +12,8 @@ export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     await getCaptureById({ id, role: user.role });
-    return NextResponse.json({ studies: await listMitigationStudies({ captureId: id }) });
+    // canSave tells the sheet whether to offer the save form (the POST checks again).
+    return NextResponse.json({ studies: await listMitigationStudies({ captureId: id }), canSave: can(user.role, "captures:review") });
   },
   { permission: "captures:read" },
 );
