@@ -12,6 +12,8 @@ import { formatComplianceTable } from "../lib/compliance/format-compliance-table
 import { EvaluationContextSchema, LimitSetRevisionContentSchema, type EvaluationContext } from "../lib/compliance/model";
 import { getSeedLimitSet, seedLimitSets } from "../lib/compliance/seed";
 import type { AnalysisOptions, AnalysisResult, ChannelOverride, ChannelResult } from "../lib/analysis/types";
+import type { CliAdditions } from "../lib/mitigation/build-cli-additions";
+import { MitigationInputError } from "../lib/mitigation/mitigation-input-error";
 
 /** Flags understood by the analysis CLI (exported so other commands can extend them). */
 export const ANALYZE_ARG_OPTIONS = {
@@ -31,6 +33,8 @@ export const ANALYZE_ARG_OPTIONS = {
   "nominal-voltage": { type: "string" },
   "bus-voltage": { type: "string" },
   "phase-config": { type: "string" },
+  diagnose: { type: "boolean", default: false },
+  mitigate: { type: "string", multiple: true },
   help: { type: "boolean", default: false },
 } satisfies ParseArgsConfig["options"];
 
@@ -46,7 +50,7 @@ export interface AnalyzeArgs {
 }
 
 export const USAGE =
-  "usage: npm run analyze -- FILE [--json] [--frequency 50|60] [--interval SECONDS] [--channel NAME=current|voltage] [--scale NAME=FACTOR] [--max-order N] [--il A] [--iref A] [--thd-order 40|50] [--limits KEY [--isc A] [--rsce N] [--rated-power W] [--nominal-voltage V] [--bus-voltage V] [--phase-config single-phase|balanced-three-phase|other]]";
+  "usage: npm run analyze -- FILE [--json] [--frequency 50|60] [--interval SECONDS] [--channel NAME=current|voltage] [--scale NAME=FACTOR] [--max-order N] [--il A] [--iref A] [--thd-order 40|50] [--limits KEY [--isc A] [--rsce N] [--rated-power W] [--nominal-voltage V] [--bus-voltage V] [--phase-config single-phase|balanced-three-phase|other]] [--diagnose] [--mitigate reactor=3%|dc-choke=4%|pulses=12|filter=4.7@300kvar[,q=30]|active=100A]…";
 
 function positiveNumber(flag: string, text: string): number {
   const value = Number(text);
@@ -111,7 +115,9 @@ export function parseAnalyzeArgs(argv: string[], extra: ParseArgsConfig["options
   }
   if (Object.keys(channels).length > 0) options.channels = channels;
   if (str("limits") === undefined) {
-    const stray = ["isc", "rsce", "rated-power", "nominal-voltage", "bus-voltage", "phase-config"].find((k) => str(k) !== undefined);
+    // A passive filter what-if takes --isc and --bus-voltage without limits.
+    const mitigating = ((values.mitigate as string[] | undefined) ?? []).length > 0;
+    const stray = [...(mitigating ? [] : ["isc", "bus-voltage"]), "rsce", "rated-power", "nominal-voltage", "phase-config"].find((k) => str(k) !== undefined);
     if (stray) throw new UsageError(`--${stray} only makes sense with --limits KEY`);
   }
   return { file, json: Boolean(values.json), options, values };
@@ -238,17 +244,19 @@ export async function main(argv: string[]): Promise<number> {
     const context = limits ? limitContext(args) : null;
     const result = await buildAnalysis(args.file, args.options);
     if (!limits || !context) {
-      process.stdout.write(args.json ? `${JSON.stringify(result)}\n` : `${formatAnalysis(result)}\n`);
+      const extra = await mitigationAdditions(args, result, undefined);
+      process.stdout.write(args.json ? `${JSON.stringify({ ...result, ...extra.json })}\n` : `${formatAnalysis(result)}\n${extra.text}`);
       return 0;
     }
     const limitSet = await loadLimitSet(limits);
     const compliance = evaluateCompliance({ analysis: result, limitSet, context });
+    const extra = await mitigationAdditions(args, result, { limitSet, context });
     process.stdout.write(
-      args.json ? `${JSON.stringify({ ...result, compliance })}\n` : `${formatAnalysis(result)}\n\n${formatComplianceTable(compliance)}\n`,
+      args.json ? `${JSON.stringify({ ...result, compliance, ...extra.json })}\n` : `${formatAnalysis(result)}\n\n${formatComplianceTable(compliance)}\n${extra.text}`,
     );
     return 0;
   } catch (error) {
-    if (error instanceof UsageError || isAnalysisInputError(error)) {
+    if (error instanceof UsageError || isAnalysisInputError(error) || error instanceof MitigationInputError) {
       process.stderr.write(`error: ${error.message.replace(/\s*\n\s*/g, " ")}\n`);
       return 1;
     }
@@ -256,6 +264,34 @@ export async function main(argv: string[]): Promise<number> {
     process.stderr.write(`internal error: ${message.replace(/\s*\n\s*/g, " ")}\n`);
     return 2;
   }
+}
+
+// --- --diagnose / --mitigate (lib/frontends, lib/mitigation) -----------------------------------
+/** The diagnosis and what-if for the flags given: JSON parts and a few lines of text. */
+async function mitigationAdditions(
+  args: AnalyzeArgs,
+  analysis: AnalysisResult,
+  compliance: { limitSet: EvaluateComplianceInput["limitSet"]; context: EvaluationContext } | undefined,
+): Promise<{ json: CliAdditions; text: string }> {
+  const mitigate = (args.values.mitigate as string[] | undefined) ?? [];
+  if (!args.values.diagnose && mitigate.length === 0) return { json: {}, text: "" };
+  // Loaded only when asked for: the models and their precomputed grids are not needed otherwise.
+  const { buildCliAdditions } = await import("../lib/mitigation/build-cli-additions");
+  const num = (key: string) => (args.values[key] === undefined ? undefined : positiveNumber(key, args.values[key] as string));
+  const json = buildCliAdditions(analysis, { diagnose: Boolean(args.values.diagnose), mitigate, compliance, network: { iscA: num("isc"), busVoltageV: num("bus-voltage") } });
+  const lines: string[] = [];
+  for (const c of json.diagnosis?.channels ?? []) {
+    lines.push(`${c.name}: likely source (a resemblance, not a fact)`);
+    for (const k of c.candidates) lines.push(`  ${k.family.padEnd(24)} fit error ${k.fitErrorPercent.toFixed(1).padStart(5)} %  ${k.description}`);
+  }
+  if (json.whatIf) {
+    lines.push(`PREDICTION after ${mitigate.join(" + ")}:`);
+    for (const c of json.whatIf.channels) lines.push(`  ${c.name}: THD ${c.thdPercent.toFixed(1)} %${c.tddPercent === null ? "" : `, TDD ${c.tddPercent.toFixed(1)} %`}`);
+    if (json.whatIf.compliance) lines.push(`  predicted verdict: ${json.whatIf.compliance.verdict}`);
+    for (const w of json.whatIf.warnings) lines.push(`  warning: ${w}`);
+    lines.push(`  ${json.whatIf.caution}`);
+  }
+  return { json, text: lines.length > 0 ? `\n${lines.join("\n")}\n` : "" };
 }
 
 if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {

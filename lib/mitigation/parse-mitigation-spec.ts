@@ -1,3 +1,4 @@
+import { MitigationInputError } from "./mitigation-input-error";
 import type { Mitigation } from "./types";
 
 /** Residual imbalance between the bridges of a multi-pulse conversion when none is stated, %. */
@@ -7,7 +8,7 @@ export const DEFAULT_FILTER_Q = 30;
 
 const number = (text: string, what: string, spec: string): number => {
   const value = Number(text);
-  if (text.trim() === "" || !Number.isFinite(value)) throw new Error(`mitigation "${spec}": ${what} "${text}" is not a number`);
+  if (text.trim() === "" || !Number.isFinite(value)) throw new MitigationInputError(`mitigation "${spec}": ${what} "${text}" is not a number`);
   return value;
 };
 
@@ -20,22 +21,22 @@ const number = (text: string, what: string, spec: string): number => {
  */
 export function parseMitigationSpec(spec: string): Mitigation {
   const eq = spec.indexOf("=");
-  if (eq < 0) throw new Error(`mitigation "${spec}": expected KIND=VALUE (reactor=3%, dc-choke=4%, pulses=12, filter=4.7@300kvar, active=100A)`);
+  if (eq < 0) throw new MitigationInputError(`mitigation "${spec}": expected KIND=VALUE (reactor=3%, dc-choke=4%, pulses=12, filter=4.7@300kvar, active=100A)`);
   const kind = spec.slice(0, eq).trim().toLowerCase();
   const [main = "", ...options] = spec.slice(eq + 1).split(",");
   const opts = new Map<string, string>();
   for (const o of options) {
     const k = o.indexOf("=");
-    if (k < 0) throw new Error(`mitigation "${spec}": option "${o}" should be NAME=VALUE`);
+    if (k < 0) throw new MitigationInputError(`mitigation "${spec}": option "${o}" should be NAME=VALUE`);
     opts.set(o.slice(0, k).trim().toLowerCase(), o.slice(k + 1).trim());
   }
   const known = (allowed: string[]): void => {
-    for (const k of opts.keys()) if (!allowed.includes(k)) throw new Error(`mitigation "${spec}": unknown option "${k}"`);
+    for (const k of opts.keys()) if (!allowed.includes(k)) throw new MitigationInputError(`mitigation "${spec}": unknown option "${k}"`);
   };
   const percent = (text: string, what: string): number => {
     const t = text.trim();
     const value = number(t.endsWith("%") ? t.slice(0, -1) : t, what, spec);
-    if (value < 0 || value > 100) throw new Error(`mitigation "${spec}": ${what} must be between 0 and 100 %`);
+    if (value < 0 || value > 100) throw new MitigationInputError(`mitigation "${spec}": ${what} must be between 0 and 100 %`);
     return value;
   };
   switch (kind) {
@@ -43,46 +44,46 @@ export function parseMitigationSpec(spec: string): Mitigation {
     case "dc-choke": {
       known([]);
       const p = percent(main, kind === "reactor" ? "reactor impedance" : "DC choke");
-      if (p <= 0 || p > 20) throw new Error(`mitigation "${spec}": ${kind} must be above 0 and at most 20 %`);
+      if (p <= 0 || p > 20) throw new MitigationInputError(`mitigation "${spec}": ${kind} must be above 0 and at most 20 %`);
       return { kind, percent: p };
     }
     case "pulses": {
       known(["imbalance"]);
       const pulses = number(main, "pulse number", spec);
-      if (pulses !== 12 && pulses !== 18) throw new Error(`mitigation "${spec}": pulses must be 12 or 18`);
+      if (pulses !== 12 && pulses !== 18) throw new MitigationInputError(`mitigation "${spec}": pulses must be 12 or 18`);
       const imbalance = opts.has("imbalance") ? percent(opts.get("imbalance")!, "imbalance") : DEFAULT_IMBALANCE_PERCENT;
       return { kind: "multi-pulse", pulses, imbalancePercent: imbalance };
     }
     case "filter": {
       known(["q"]);
       const m = /^\s*([^@]+)@\s*([^\s]+?)\s*kvar\s*$/i.exec(main);
-      if (!m) throw new Error(`mitigation "${spec}": expected filter=ORDER@KVARkvar, e.g. filter=4.7@300kvar`);
+      if (!m) throw new MitigationInputError(`mitigation "${spec}": expected filter=ORDER@KVARkvar, e.g. filter=4.7@300kvar`);
       const tuningOrder = number(m[1]!.trim(), "tuning order", spec);
       const kvar = number(m[2]!, "kvar", spec);
-      if (tuningOrder <= 1 || tuningOrder > 50) throw new Error(`mitigation "${spec}": tuning order must be above 1 and at most 50`);
-      if (kvar <= 0) throw new Error(`mitigation "${spec}": kvar must be positive`);
+      if (tuningOrder <= 1 || tuningOrder > 50) throw new MitigationInputError(`mitigation "${spec}": tuning order must be above 1 and at most 50`);
+      if (kvar <= 0) throw new MitigationInputError(`mitigation "${spec}": kvar must be positive`);
       const q = opts.has("q") ? number(opts.get("q")!, "q", spec) : DEFAULT_FILTER_Q;
-      if (q <= 0) throw new Error(`mitigation "${spec}": q must be positive`);
+      if (q <= 0) throw new MitigationInputError(`mitigation "${spec}": q must be positive`);
       return { kind: "passive-filter", tuningOrder, kvar, q };
     }
     case "active": {
       known(["orders"]);
       const m = /^\s*([^\s]+?)\s*A\s*$/.exec(main);
-      if (!m) throw new Error(`mitigation "${spec}": expected active=RATINGA, e.g. active=100A`);
+      if (!m) throw new MitigationInputError(`mitigation "${spec}": expected active=RATINGA, e.g. active=100A`);
       const ratingA = number(m[1]!, "rating", spec);
-      if (ratingA <= 0) throw new Error(`mitigation "${spec}": rating must be positive`);
+      if (ratingA <= 0) throw new MitigationInputError(`mitigation "${spec}": rating must be positive`);
       let fromOrder = 2;
       let toOrder = 50;
       if (opts.has("orders")) {
         const r = /^(\d+)-(\d+)$/.exec(opts.get("orders")!);
-        if (!r) throw new Error(`mitigation "${spec}": orders should be FROM-TO, e.g. orders=2-25`);
+        if (!r) throw new MitigationInputError(`mitigation "${spec}": orders should be FROM-TO, e.g. orders=2-25`);
         fromOrder = Number(r[1]);
         toOrder = Number(r[2]);
-        if (fromOrder < 2 || toOrder > 50 || fromOrder > toOrder) throw new Error(`mitigation "${spec}": orders must lie within 2-50`);
+        if (fromOrder < 2 || toOrder > 50 || fromOrder > toOrder) throw new MitigationInputError(`mitigation "${spec}": orders must lie within 2-50`);
       }
       return { kind: "active-filter", ratingA, fromOrder, toOrder };
     }
     default:
-      throw new Error(`mitigation "${spec}": unknown kind "${kind}" (reactor, dc-choke, pulses, filter, active)`);
+      throw new MitigationInputError(`mitigation "${spec}": unknown kind "${kind}" (reactor, dc-choke, pulses, filter, active)`);
   }
 }
