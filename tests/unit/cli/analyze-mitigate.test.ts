@@ -9,7 +9,7 @@ const file = "fixtures/demo/quillbrook-drives-before-filter.csv";
 function cli(args: string[]) {
   const env = { ...process.env };
   delete env.DATABASE_URL;
-  return spawnSync(tsx, ["scripts/analyze.ts", ...args], { encoding: "utf8", env, timeout: 120_000 });
+  return spawnSync(tsx, ["scripts/analyze.ts", ...args], { encoding: "utf8", env, timeout: 120_000, maxBuffer: 256 * 1024 * 1024 });
 }
 
 describe("npm run analyze -- FILE --diagnose --mitigate SPEC", () => {
