@@ -10,7 +10,7 @@ import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { MitigationStudyInputs } from "@/lib/mitigation/study-inputs";
 import type { Mitigation, WhatIfResult } from "@/lib/mitigation/types";
 import { formatWhen } from "@/lib/reports/format";
-import { sendJson } from "@/lib/swr/fetcher";
+import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { captureStudiesKey, useCaptureDiagnosis, useMitigationStudies } from "@/lib/swr/use-mitigation-studies";
 
 const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "—" : Number(v.toPrecision(digits)).toString());
@@ -22,7 +22,9 @@ const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "
  */
 export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult }) {
   const base = chartsUrl.startsWith("/api/captures/") && chartsUrl.endsWith("/charts") ? chartsUrl.slice(0, -"/charts".length) : null;
-  if (!base) return null;
+  // Interval logs have no waveform to diagnose (409): the panels stay away.
+  const { error } = useCaptureDiagnosis(base);
+  if (!base || (error instanceof FetchError && error.status === 409)) return null;
   return (
     <div className="space-y-4" data-testid="mitigation-panels">
       <LikelySource base={base} channelName={channel.channel} />
