@@ -9,6 +9,10 @@ import { formatAnalysisText } from "@/lib/pipeline/format-analysis-text";
 import { parseAnalyzeArgs, UsageError, type AnalyzeRequest } from "@/lib/pipeline/parse-analyze-args";
 import { analyzeCaptureFile, evaluateCapture, type LimitSetRevision } from "@/lib/pipeline/run-capture";
 import { UnknownLimitSetError } from "@/lib/pipeline/unknown-limit-set-error";
+import type { AnalysisResult } from "@/lib/analysis/types";
+import type { EvaluationContext } from "@/lib/compliance/model";
+import type { CliAdditions } from "@/lib/mitigation/build-cli-additions";
+import { MitigationInputError } from "@/lib/mitigation/mitigation-input-error";
 
 type LimitSetSource = "database" | "seed-files";
 
@@ -36,11 +40,54 @@ function sourceLine(limitSet: LimitSetRevision, source: LimitSetSource): string 
 /** Analyses (and judges) one file; returns what to print. */
 async function runFile(file: string, request: AnalyzeRequest, limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null): Promise<string> {
   const { analysis } = await analyzeCaptureFile(file, request.mapping, request.context, { cycles: 0 });
-  if (!limits) return request.json ? JSON.stringify({ file, ...analysis }) : `${file}\n\n${formatAnalysisText(analysis)}`;
+  if (!limits) {
+    const extra = await mitigationAdditions(request, analysis, undefined);
+    return request.json ? JSON.stringify({ file, ...analysis, ...extra.json }) : `${file}\n\n${formatAnalysisText(analysis)}\n${extra.text}`;
+  }
   const compliance = evaluateCapture(analysis, limits.limitSet, request.context, request.recordStartMs);
+  const extra = await mitigationAdditions(request, analysis, { limitSet: limits.limitSet, context: request.context });
   return request.json
-    ? JSON.stringify({ file, ...analysis, compliance, limitSetSource: limits.source })
-    : `${file}\n\n${formatAnalysisText(analysis)}\n\n${sourceLine(limits.limitSet, limits.source)}\n${formatComplianceTable(compliance)}`;
+    ? JSON.stringify({ file, ...analysis, compliance, limitSetSource: limits.source, ...extra.json })
+    : `${file}\n\n${formatAnalysisText(analysis)}\n\n${sourceLine(limits.limitSet, limits.source)}\n${formatComplianceTable(compliance)}\n${extra.text}`;
+}
+
+// --- --diagnose / --mitigate (lib/frontends, lib/mitigation) -----------------------------------
+/** The diagnosis and what-if for the flags given: JSON parts and a few lines of text. */
+async function mitigationAdditions(
+  request: AnalyzeRequest,
+  analysis: AnalysisResult,
+  compliance: { limitSet: LimitSetRevision; context: EvaluationContext } | undefined,
+): Promise<{ json: CliAdditions; text: string }> {
+  const { diagnose, mitigate } = request;
+  if (!diagnose && mitigate.length === 0) return { json: {}, text: "" };
+  // Loaded only when asked for: the models and their precomputed grids are not needed otherwise.
+  const { buildCliAdditions } = await import("@/lib/mitigation/build-cli-additions");
+  const json = buildCliAdditions(analysis, {
+    diagnose,
+    mitigate,
+    ...(compliance
+      ? {
+          compliance: {
+            limitSet: { key: compliance.limitSet.key, name: compliance.limitSet.name, revision: { id: compliance.limitSet.revisionId, number: compliance.limitSet.revisionNumber }, content: compliance.limitSet.content },
+            context: compliance.context,
+          },
+        }
+      : {}),
+    network: { iscA: request.context.iscA, busVoltageV: request.context.busVoltageV },
+  });
+  const lines: string[] = [];
+  for (const c of json.diagnosis?.channels ?? []) {
+    lines.push(`${c.name}: likely source (a resemblance, not a fact)`);
+    for (const k of c.candidates) lines.push(`  ${k.family.padEnd(24)} fit error ${k.fitErrorPercent.toFixed(1).padStart(5)} %  ${k.description}`);
+  }
+  if (json.whatIf) {
+    lines.push(`PREDICTION after ${mitigate.join(" + ")}:`);
+    for (const c of json.whatIf.channels) lines.push(`  ${c.name}: THD ${c.thdPercent.toFixed(1)} %${c.tddPercent === null ? "" : `, TDD ${c.tddPercent.toFixed(1)} %`}`);
+    if (json.whatIf.compliance) lines.push(`  predicted verdict: ${json.whatIf.compliance.verdict}`);
+    for (const w of json.whatIf.warnings) lines.push(`  warning: ${w}`);
+    lines.push(`  ${json.whatIf.caution}`);
+  }
+  return { json, text: lines.length > 0 ? `\n${lines.join("\n")}\n` : "" };
 }
 
 const oneLine = (message: string): string => message.replace(/\s*\n\s*/g, " ");
@@ -70,7 +117,7 @@ export async function main(argv: string[]): Promise<number> {
       const out = await runFile(file, request, limits);
       process.stdout.write(request.json ? `${out}\n` : `${i > 0 ? "\n" : ""}${out}\n`);
     } catch (error) {
-      const input = isAnalysisInputError(error);
+      const input = isAnalysisInputError(error) || error instanceof MitigationInputError;
       const message = oneLine(error instanceof Error ? error.message : String(error));
       process.stderr.write(`${input ? "error" : "internal error"}: ${file}: ${message}\n`);
       if (request.json) process.stdout.write(`${JSON.stringify({ file, error: message })}\n`);

@@ -146,6 +146,7 @@ export const BENCH_CASES: BenchCase[] = [
     },
     targets: { wallS: 2, rssMB: 500 },
   },
+  diagnoseCase(),
 ];
 
 /**
@@ -274,6 +275,58 @@ function cliCases(): BenchCase[] {
       targets: { wallS: 1.2, rssMB: 250 },
     },
   ];
+ * Front-end diagnosis: a 2 s three-phase capture of a six-pulse drive (simulated, 1 % line
+ * reactance, 100 A) analysed, then diagnosed twice — the first run in a cold process (code not yet
+ * optimised by the JIT), the second warm. Target < 1 s per channel.
+ */
+function diagnoseCase(): BenchCase {
+  return {
+    name: "diagnose-6pulse-3ch",
+    description: "front-end diagnosis of a 3-phase six-pulse drive capture (orders 2–50, 9 families fitted per channel)",
+    prepare: async () => {
+      const path = join(outDir, "drive-6pulse-2s.csv");
+      if (!existsSync(path)) {
+        const { simulateSixPulseCapacitorCycle } = await import("../lib/frontends/simulate-six-pulse-capacitor");
+        const { currentA } = simulateSixPulseCapacitorCycle({ acInductancePercent: 1, dcChokePercent: 0, loadPercent: 100 });
+        const n = currentA.length;
+        const at = (x: number): number => {
+          const u = ((x % 1) + 1) % 1 * n;
+          const k = Math.floor(u);
+          return currentA[k % n]! + (u - k) * (currentA[(k + 1) % n]! - currentA[k % n]!);
+        };
+        const rate = 12_800;
+        const lines = ["Time (s),Va (V),Vb (V),Vc (V),Ia (A),Ib (A),Ic (A)"];
+        for (let k = 0; k < 2 * rate; k++) {
+          const c = (50 * k) / rate;
+          const v = [0, -1 / 3, 1 / 3].map((s) => (325 * Math.cos(2 * Math.PI * (c + s))).toFixed(2));
+          const i = [0, -1 / 3, 1 / 3].map((s) => (141 * at(c + s)).toFixed(3));
+          lines.push([(k / rate).toFixed(7), ...v, ...i].join(","));
+        }
+        mkdirSync(dirname(path), { recursive: true });
+        writeFileSync(path, `${lines.join("\n")}\n`);
+      }
+      return path;
+    },
+    run: async (path) => {
+      const { diagnoseChannels } = await import("../lib/frontends/diagnose-channels");
+      const started = performance.now();
+      const analysis = await analyzeCsvFile(path, {});
+      const importMs = performance.now() - started;
+      const t0 = performance.now();
+      const cold = diagnoseChannels(analysis);
+      const coldMs = performance.now() - t0;
+      const t1 = performance.now();
+      diagnoseChannels(analysis);
+      const warmMs = performance.now() - t1;
+      const n = cold.channels.length;
+      const best = cold.channels[0]!.candidates[0]!;
+      return {
+        timings: { importMs },
+        summary: `${n} current channels; cold ${(coldMs / n).toFixed(0)} ms per channel, warm ${(warmMs / n).toFixed(0)} ms per channel (target < 1000); best: ${best.family}, fit ${best.fitErrorPercent} %`,
+      };
+    },
+    targets: { wallS: 6, rssMB: 500 },
+  };
 }
 
 async function main(): Promise<void> {

@@ -10,6 +10,7 @@ import { db, sql } from "@/db/client";
 import { getEvaluation, recordReview, registerCapture, saveCaptureSetup, saveIntervalSetup, setCaptureStatus } from "@/db/queries/captures";
 import { captures, sites, users } from "@/db/schema";
 import { demoCaptures } from "@/db/seed/demo-captures";
+import { seedDemoStudies } from "@/db/seed/demo-studies";
 import { processCapture } from "@/lib/captures/process-capture";
 import { inspectIntervalLog } from "@/lib/intervals/inspect-interval-log";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
@@ -55,4 +56,5 @@ for (const demo of demoCaptures) {
   }
   console.log(`[ordwise] demo capture: ${demo.title}`);
 }
+await seedDemoStudies({ engineerId: engineer });
 await sql.end();

@@ -5,3 +5,4 @@ export * from "./captures";
 export * from "./audit";
 export * from "./limits";
 export * from "./results";
+export * from "./studies";

@@ -28,6 +28,8 @@ export const ANALYZE_FLAGS = [
   { flag: "--bus-voltage", value: "V", text: "line-to-line voltage at the PCC, V (chooses the IEEE 519 table)" },
   { flag: "--phase-config", value: "single-phase|balanced-three-phase|other", text: "phase configuration of the equipment (IEC 61000-3-12)" },
   { flag: "--start", value: "ISO-8601", text: "when the record started, e.g. 2024-03-04T12:00:00Z (10-minute values then align to the clock)" },
+  { flag: "--diagnose", value: "", text: "adds the likely converter front end behind each current's spectrum (a resemblance, not a fact)" },
+  { flag: "--mitigate", value: "SPEC", text: "predicts the spectrum and verdict after a fix (repeatable, applied in order): reactor=3%, dc-choke=4%, pulses=12|18, filter=4.7@300kvar[,q=30] (needs --isc and a voltage), active=100A" },
   { flag: "--help", value: "", text: "this list" },
 ] as const;
 
@@ -53,6 +55,10 @@ export interface AnalyzeRequest {
   /** Limit-set key, or null to analyse only. */
   limitSetKey: string | null;
   recordStartMs?: number;
+  /** --diagnose: add the likely front end of each current channel. */
+  diagnose: boolean;
+  /** --mitigate SPEC…: what-ifs applied in order. */
+  mitigate: string[];
 }
 
 const stringFlags = ["frequency", "interval", "thd-order", "limits", "isc", "il", "iref", "rsce", "rated-power", "nominal-voltage", "bus-voltage", "phase-config", "start"] as const;
@@ -89,6 +95,8 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeRequest {
         channel: { type: "string", multiple: true },
         scale: { type: "string", multiple: true },
         sensor: { type: "string", multiple: true },
+        diagnose: { type: "boolean", default: false },
+        mitigate: { type: "string", multiple: true },
         ...Object.fromEntries(stringFlags.map((f) => [f, { type: "string" as const }])),
       },
       allowPositionals: true,
@@ -139,8 +147,11 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeRequest {
   if (!checkedMapping.success) throw new UsageError(checkedMapping.error.issues.map((i) => `${i.path.join(".")}: ${i.message}`).join("; "));
 
   const limitSetKey = str("limits") ?? null;
+  const mitigate = (values.mitigate as string[] | undefined) ?? [];
   if (limitSetKey === null) {
-    const stray = contextOnlyFlags.find((k) => str(k) !== undefined);
+    // A what-if's filter needs the network at the PCC even when nothing is judged.
+    const networkFlags: readonly string[] = mitigate.length > 0 ? ["isc", "bus-voltage", "nominal-voltage"] : [];
+    const stray = contextOnlyFlags.find((k) => str(k) !== undefined && !networkFlags.includes(k));
     if (stray) throw new UsageError(`--${stray} only makes sense with --limits KEY`);
   }
   const phase = str("phase-config");
@@ -165,5 +176,14 @@ export function parseAnalyzeArgs(argv: string[]): AnalyzeRequest {
     recordStartMs = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}(:\d{2}(\.\d+)?)?(Z|[+-]\d{2}:\d{2})$/.test(start) ? Date.parse(start) : NaN;
     if (!Number.isFinite(recordStartMs)) throw new UsageError(`--start needs a date and time with its offset, e.g. 2024-03-04T12:00:00Z, got "${start}"`);
   }
-  return { files, json: Boolean(values.json), mapping: checkedMapping.data, context, limitSetKey, ...(recordStartMs !== undefined ? { recordStartMs } : {}) };
+  return {
+    files,
+    json: Boolean(values.json),
+    mapping: checkedMapping.data,
+    context,
+    limitSetKey,
+    ...(recordStartMs !== undefined ? { recordStartMs } : {}),
+    diagnose: Boolean(values.diagnose),
+    mitigate,
+  };
 }

@@ -12,6 +12,7 @@ import {
   reviewActionLabels,
   verdictLabel,
 } from "./format";
+import { addMitigationStudyPages, type StudyForReport } from "./mitigation-study-pages";
 import { safetyText } from "./safety-text";
 import { describeSetup } from "./describe-setup";
 import { describeSignOff } from "./describe-sign-off";
@@ -25,6 +26,8 @@ export interface SheetPdfOptions {
   includeComments?: boolean;
   /** Printed in the footer; injected so tests are reproducible. */
   generatedAt?: Date;
+  /** Saved mitigation studies chosen for the report: one "Mitigation study — prediction" page each. */
+  studies?: readonly StudyForReport[];
 }
 
 const colours = {
@@ -246,6 +249,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     const comment = options.includeComments === false || !r.comment ? "" : ` — "${r.comment}"`;
     keyValues([[formatWhen(r.createdAt), `${reviewActionLabels[r.action] ?? r.action} by ${who}${comment}`]]);
   }
+
+  if (options.studies?.length) addMitigationStudyPages(doc, options.studies, { margin, safe: pdfSafe, formatWhen });
 
   // --- footer on every page --------------------------------------------------------------------
   const range = doc.bufferedPageRange();

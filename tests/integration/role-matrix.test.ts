@@ -56,6 +56,10 @@ const routes: RouteCase[] = [
   { method: "DELETE", path: "/api/captures/:capture/shares/:missing", allowed: REVIEW },
   { method: "GET", path: "/api/captures/:capture/report", allowed: ALL },
   { method: "GET", path: "/api/captures/:capture/sheet-csv", allowed: ALL },
+  { method: "GET", path: "/api/captures/:capture/diagnosis", allowed: ALL },
+  { method: "GET", path: "/api/captures/:capture/studies", allowed: ALL },
+  { method: "POST", path: "/api/captures/:capture/studies", allowed: REVIEW, body: {} },
+  { method: "POST", path: "/api/captures/:capture/studies/preview", allowed: ALL, body: {} },
   // Limit sets: :missing is a well-formed key of no set, so an allowed caller gets 404 or 422 and nothing changes.
   { method: "GET", path: "/api/limit-sets", allowed: ALL },
   { method: "GET", path: "/api/limit-sets/:missing", allowed: ALL },

@@ -12,6 +12,7 @@ import { formatOrders, groupReasons } from "@/lib/reports/format";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
+import { MitigationPanels } from "./mitigation-panels";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
 
@@ -72,6 +73,7 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
         <OrderTable key={channel.channel} rows={channel.rows} channelName={channel.channel} />
       </section>
 
+      <MitigationPanels key={`fix-${channel.channel}`} chartsUrl={chartsUrl} channel={channel} result={result} />
       {reasons.length > 0 && (
         <section className="panel text-sm" data-testid="row-reasons">
           <h2 className="mb-2">Why some orders are not a plain pass or fail</h2>

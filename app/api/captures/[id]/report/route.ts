@@ -1,3 +1,4 @@
+import { listMitigationStudies } from "@/db/queries/studies";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
 import { loadSheet } from "@/lib/captures/load-sheet";
@@ -11,7 +12,7 @@ export const GET = withAuth<{ id: string }>(
     const { evaluation } = reportQuery(req.url);
     const sheet = await loadSheet({ captureId: id, evaluationId: evaluation, role: user.role });
     if (!sheet.evaluation) throw new AppError("conflict", "The capture has not been evaluated yet.");
-    return pdfResponse(sheet);
+    return pdfResponse(sheet, { studies: await listMitigationStudies({ captureId: id, onlyForReport: true }) });
   },
   { permission: "captures:read" },
 );

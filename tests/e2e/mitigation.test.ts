@@ -1,0 +1,80 @@
+// From a failing sheet to a fix, in the browser: the engineer opens the failing demo compressor-drive
+// sheet, reads the likely source, tries a reactor and a filter, saves the study and finds it in the PDF.
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { signedIn } from "../support/http";
+import { pdfText } from "../unit/reports/pdf-text";
+
+let browser: Browser;
+let captureId = "";
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const engineer = await signedIn("engineer");
+  const list = (await (await engineer.request("GET", "/api/captures")).json()) as { items: { id: string; title: string }[] };
+  captureId = list.items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("mitigation study on the sheet", () => {
+  it("reads the likely source, predicts a reactor (still failing) and a filter (passing), saves it and sees it in the PDF", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${captureId}`));
+    expect(await page.textContent("[data-testid=sheet-verdict]")).toContain("Fail");
+
+    const summary = page.locator("[data-testid=likely-source-summary]");
+    await summary.waitFor({ timeout: 30_000 });
+    expect(await summary.textContent()).toMatch(/resembles|No model fits within 5 %/);
+    expect(await page.locator("[data-testid=likely-source] [data-testid^=candidate-]").count()).toBe(3);
+
+    // A 5 % line reactor: predicted, marked as a prediction, still failing IEEE 519 here.
+    await page.check("[data-testid=fix-reactor]");
+    await page.fill("[data-testid=fix-reactorPercent]", "5");
+    await page.click("[data-testid=fix-predict]");
+    await page.locator("[data-testid=prediction-label]").waitFor({ timeout: 30_000 });
+    expect(await page.textContent("[data-testid=prediction-label]")).toContain("PREDICTION — 5 % AC line reactor");
+    expect(await page.getAttribute("[data-testid=prediction-verdict]", "data-verdict")).toBe("fail");
+    expect(await page.locator("[data-testid=prediction-row-5]").count()).toBe(1);
+    expect(await page.textContent("[data-testid=prediction-caution]")).toContain("model prediction");
+
+    // Instead a 4.7th-tuned 3 Mvar filter at the 11 kV PCC: predicted to pass.
+    await page.uncheck("[data-testid=fix-reactor]");
+    await page.check("[data-testid=fix-filter]");
+    await page.fill("[data-testid=fix-tuningOrder]", "4.7");
+    await page.fill("[data-testid=fix-kvar]", "3000");
+    await page.click("[data-testid=fix-predict]");
+    await page.waitForFunction(() => document.querySelector("[data-testid=prediction-label]")?.textContent?.includes("filter at 4.7th"), null, { timeout: 30_000 });
+    expect(await page.getAttribute("[data-testid=prediction-verdict]", "data-verdict")).toBe("pass");
+    await snap(page, "mitigation-prediction");
+
+    const title = `Browser study ${Date.now()}`;
+    await page.fill("[data-testid=study-title]", title);
+    await page.check("[data-testid=study-include]");
+    await page.click("[data-testid=study-save]");
+    await page.waitForFunction((t) => [...document.querySelectorAll("[data-testid=saved-study]")].some((el) => el.textContent?.includes(t)), title, { timeout: 30_000 });
+
+    const res = await page.context().request.get(url(`/api/captures/${captureId}/report`));
+    expect(res.status()).toBe(200);
+    const text = pdfText(Buffer.from(await res.body()));
+    expect(text).toContain("Mitigation study");
+    expect(text).toContain(title);
+    await page.close();
+  }, 180_000);
+
+  it("a technician reads the saved studies but is offered no save", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "technician");
+    await page.goto(url(`/captures/${captureId}`));
+    await page.locator("[data-testid=saved-study]").first().waitFor({ timeout: 30_000 });
+    expect(await page.textContent("[data-testid=saved-studies]")).toContain("4.7th filter, 3 Mvar at the 11 kV PCC");
+    await page.check("[data-testid=fix-active]");
+    await page.click("[data-testid=fix-predict]");
+    await page.locator("[data-testid=prediction-label]").waitFor({ timeout: 30_000 });
+    expect(await page.locator("[data-testid=save-study]").count()).toBe(0);
+    await page.close();
+  }, 120_000);
+});
