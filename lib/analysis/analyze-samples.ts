@@ -5,7 +5,8 @@ import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
 import { findOverride } from "./plan-columns";
 import { planWindows } from "./plan-windows";
-import { segmentBounds, WindowSchedule } from "./schedule-windows";
+import { PhaseTracker } from "./phase-tracker";
+import { segmentBounds } from "./schedule-windows";
 import type { AnalysisOptions, AnalysisResult, PhaseLabel, Quantity } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 
@@ -71,8 +72,9 @@ function sliceSamples(samples: ArrayLike<number>, a: number, b: number): ArrayLi
  * Analyses sampled channels of one capture and returns the result in the design's JSON shape.
  *
  * Steps: measure the fundamental on the reference channel (the first voltage, else the largest
- * current); choose 50/60 Hz; cut consecutive windows of 10 (50 Hz) or 12 (60 Hz) cycles of the
- * measured fundamental (IEC 61000-4-7 §4.4 / §5.5.1, from memory); resample each to 2^k points
+ * current) and track its phase; choose 50/60 Hz; cut consecutive windows of 10 (50 Hz) or 12
+ * (60 Hz) cycles, each of its own measured fundamental (IEC 61000-4-7:2002+A1:2008 §4.4 / §5,
+ * from memory); resample each to 2^k points
  * with a band-limited kernel so harmonic h falls on bin 10·h or 12·h; FFT (fft.js); per order:
  * r.m.s. (√2·|X|/N), phase, IEC 61000-4-7 groups/subgroups; aggregate windows as r.m.s. mean,
  * maximum and 95th percentile. Phases use the cosine reference and are relative to the reference
@@ -142,11 +144,18 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   lap("checksMs");
   let reference = usable.findIndex((c) => c.quantity === "voltage");
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
-  // The fundamental is measured per segment (≈ 10 s at 25.6 kS/s) so windows stay whole cycles when the grid drifts.
+  // The fundamental is estimated per segment (≈ 10 s at 25.6 kS/s); its phase is then tracked
+  // through each segment so every window spans whole cycles of its own fundamental.
   const bounds = segmentBounds(n, options.frequencySegmentSamples ?? FREQUENCY_SEGMENT_SAMPLES);
   const referenceSamples = usable[reference]!.samples;
-  const segmentHz = bounds.slice(0, -1).map((first, k) => estimateFundamental(sliceSamples(referenceSamples, first, bounds[k + 1]!), sampleRateHz));
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, options, warnings);
+  const tracker = new PhaseTracker();
+  const segmentHz = bounds.slice(0, -1).map((first, k) => {
+    const segment = sliceSamples(referenceSamples, first, bounds[k + 1]!);
+    const hz = estimateFundamental(segment, sampleRateHz);
+    tracker.feed(segment, segment.length, hz / sampleRateHz);
+    return hz;
+  });
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, options, warnings, tracker.finish());
   lap("fundamentalMs");
 
   const analyzer = new WindowAnalyzer(
@@ -154,7 +163,7 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
     reference,
     plan.shape,
     n,
-    n / plan.lengths[0]! + 1,
+    plan.windowBounds.length - 1,
   );
   const source: WindowSource = {
     copyWindow(ci, first, span, period, target) {
@@ -168,9 +177,8 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
       }
     },
   };
-  for (const schedule = new WindowSchedule(bounds, plan.lengths); !schedule.done; schedule.advance()) {
-    analyzer.addWindow(schedule.start, schedule.windowSamples, source);
-  }
+  const windowBounds = plan.windowBounds;
+  for (let w = 0; w + 1 < windowBounds.length; w++) analyzer.addWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source);
   lap("windowsMs");
   const aggregate = analyzer.finish(options, warnings);
   const result: AnalysisResult = {

@@ -1,5 +1,5 @@
 // Analyses a CSV file on disk in two streaming passes, with memory that does not grow with the
-// record: pass 1 parses and checks every row and measures the fundamental per segment; pass 2
+// record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
 // parses again and analyses each window from a ring buffer as soon as its samples are in.
 import { analyzeImported } from "./analyze-csv";
 import { checkOptions, FREQUENCY_SEGMENT_SAMPLES, type StageTimings } from "./analyze-samples";
@@ -10,10 +10,11 @@ import { estimateFundamental } from "./estimate-fundamental";
 import { checkOverrides, finishImport, MemorySink, type ImportOptions } from "./import-csv";
 import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
+import { PhaseTracker } from "./phase-tracker";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
-import { segmentBounds, WindowSchedule } from "./schedule-windows";
+import { segmentBounds } from "./schedule-windows";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 
@@ -68,7 +69,8 @@ class TimeAxisFit {
  * Pass 1 sink. Keeps rows in memory up to the look-ahead (two frequency segments); a file that
  * ends within it is analysed by the in-memory path (identical results). Beyond it, switches to
  * streaming: time-axis fit and monotonic/step checks, per-channel extremes and r.m.s., and the
- * fundamental of each finished segment of the estimation channels.
+ * fundamental of each finished segment of the estimation channels, whose phase is then tracked
+ * through that segment (the windows' boundaries come from the reference channel's track).
  */
 class FirstPass implements RowSink {
   memory: MemorySink | null;
@@ -78,6 +80,8 @@ class FirstPass implements RowSink {
   readonly scans: ChannelScan[];
   /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
   readonly ratios: (number | AnalysisInputError)[][];
+  /** The fundamental's phase through the record, per estimation channel (fed segment by segment, as the in-memory path does). */
+  readonly trackers: PhaseTracker[];
   fundamentalMs = 0;
   private provisionalRateHz = 0;
   private previousTimeS = Number.NaN;
@@ -99,6 +103,7 @@ class FirstPass implements RowSink {
     this.memory = new MemorySink(channelCount, hasTime, 2 * segmentSamples + ROW_CHUNK);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.ratios = estimation.map(() => []);
+    this.trackers = estimation.map(() => new PhaseTracker());
     this.segmentBuffers = estimation.map(() => new Float64Array(2 * segmentSamples));
   }
 
@@ -190,7 +195,10 @@ class FirstPass implements RowSink {
         continue;
       }
       try {
-        list.push(estimateFundamental(this.segmentBuffers[e]!.subarray(0, length), this.provisionalRateHz) / this.provisionalRateHz);
+        const segment = this.segmentBuffers[e]!.subarray(0, length);
+        const ratio = estimateFundamental(segment, this.provisionalRateHz) / this.provisionalRateHz;
+        list.push(ratio);
+        this.trackers[e]!.feed(segment, length, ratio);
       } catch (error) {
         if (!(error instanceof AnalysisInputError)) throw error;
         list.push(error);
@@ -213,12 +221,15 @@ class SecondPass implements RowSink, WindowSource {
   private readonly rings: Float64Array[];
   private readonly mask: number;
   private previousTimeS = Number.NaN;
+  /** The next window to analyse. */
+  private window = 0;
 
   constructor(
     private readonly collector: () => RowCollector,
     private readonly scans: ChannelScan[],
     private readonly analyzer: WindowAnalyzer,
-    private readonly schedule: WindowSchedule,
+    /** Window boundaries in samples (see scheduleWindows). */
+    private readonly windowBounds: Float64Array,
     private readonly recordSamples: number,
     private readonly padding: number,
     private readonly span: number,
@@ -248,12 +259,14 @@ class SecondPass implements RowSink, WindowSource {
 
   /** Analyses every window whose samples (with padding) are all in. */
   drain(): void {
-    const { schedule, analyzer } = this;
+    const { windowBounds, analyzer } = this;
     const available = Math.min(this.filled, this.recordSamples);
     const started = performance.now();
-    while (!schedule.done && Math.min(Math.floor(schedule.start) - this.padding + this.span, this.recordSamples) <= available) {
-      analyzer.addWindow(schedule.start, schedule.windowSamples, this);
-      schedule.advance();
+    while (this.window + 1 < windowBounds.length) {
+      const start = windowBounds[this.window]!;
+      if (Math.min(Math.floor(start) - this.padding + this.span, this.recordSamples) > available) break;
+      analyzer.addWindow(start, windowBounds[this.window + 1]! - start, this);
+      this.window++;
     }
     this.windowsMs += performance.now() - started;
   }
@@ -316,7 +329,8 @@ export interface StreamTuning {
  * memory and analysed exactly as {@link analyzeImported} does. Longer records take two streaming
  * passes: pass 1 parses every row (every parse error with its line), fits the time axis
  * incrementally, checks monotonicity, accumulates each channel's extremes and r.m.s., and
- * measures the fundamental per segment; pass 2 parses again, checks steps/residuals against the
+ * measures the fundamental per segment and tracks its phase (so each window spans whole cycles
+ * of its own fundamental); pass 2 parses again, checks steps/residuals against the
  * whole-record fit and clipping runs against the extremes, and analyses each 10/12-cycle window
  * from a ring buffer as soon as its samples are in. Only per-window numbers are kept.
  *
@@ -453,7 +467,7 @@ export async function streamCsvAnalysis(
   });
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings);
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.trackers[estimation.indexOf(reference)]!.finish());
   if (timings) timings.fundamentalMs = first.fundamentalMs + performance.now() - clock;
 
   // Pass 2.
@@ -463,9 +477,8 @@ export async function streamCsvAnalysis(
     reference,
     plan.shape,
     n,
-    n / plan.lengths[0]! + 1,
+    plan.windowBounds.length - 1,
   );
-  const schedule = new WindowSchedule(bounds, plan.lengths);
   const waveform = options.keepWaveformCycles
     ? new WaveformCollector(
         options.keepWaveformCycles,
@@ -476,7 +489,7 @@ export async function streamCsvAnalysis(
       )
     : null;
   let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, schedule, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
+  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
   collector2 = new RowCollector(layout, columns, second);
   await readCsvRows(path, head, collector2);
   if (collector2.rows !== n) {

@@ -1,4 +1,4 @@
-// The streaming file path (two passes, ring buffer, fundamental per segment) against the in-memory
+// The streaming file path (two passes, ring buffer, fundamental tracked per window) against the in-memory
 // path on the same records: same results within floating-point noise, same errors and lines.
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -113,7 +113,7 @@ describe("streaming analysis of a file agrees with the in-memory path", () => {
     expect(diff.worst, diff.where).toBeLessThan(1e-6);
   });
 
-  test("the fundamental is measured per segment: a 0.2 Hz ramp keeps every window whole", async () => {
+  test("every window is cut to its own fundamental: a 0.2 Hz ramp keeps every window whole", async () => {
     const streamed = await streamCsvAnalysis(path, options, undefined, { segmentSamples: SEGMENT });
     expect(streamed.fundamentalHz).toBeCloseTo(50, 2);
     // Leakage from a window off by 0.1 Hz would make the fundamental swing; per-segment windows keep it steady.
