@@ -1,5 +1,6 @@
 // The analysis pipeline on samples already in memory: fundamental → windows → resample → FFT →
 // per-order values, groups, indices, power, sequence components, aggregation.
+import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
@@ -181,19 +182,15 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   for (let w = 0; w + 1 < windowBounds.length; w++) analyzer.addWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source);
   lap("windowsMs");
   const aggregate = analyzer.finish(options, warnings);
-  const result: AnalysisResult = {
-    fundamentalHz: plan.fundamentalHz,
-    nominalHz: plan.nominalHz,
+  const result = assembleAnalysisResult({
+    plan,
+    aggregate,
+    windowCount: analyzer.count,
     sampleIntervalS: intervalS,
     durationS,
-    window: { cycles: plan.shape.cycles, points: plan.shape.points, count: analyzer.count },
-    maxResolvableOrder: plan.shape.resolvableOrder,
-    channels: aggregate.channels,
-    power: aggregate.power,
     warnings,
-  };
-  if (aggregate.sequence.length > 0) result.sequence = aggregate.sequence;
+    ...(capture.sampleIntervalSource ? { sampleIntervalSource: options.sampleIntervalS !== undefined ? "option" : capture.sampleIntervalSource } : {}),
+  });
   lap("aggregateMs");
-  if (capture.sampleIntervalSource) result.sampleIntervalSource = options.sampleIntervalS !== undefined ? "option" : capture.sampleIntervalSource;
   return result;
 }

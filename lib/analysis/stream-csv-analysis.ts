@@ -1,14 +1,17 @@
 // Analyses a CSV file on disk in two streaming passes, with memory that does not grow with the
 // record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
 // parses again and analyses each window from a ring buffer as soon as its samples are in.
-import { analyzeImported } from "./analyze-csv";
+import { analyzeImported } from "./analyze-imported";
 import { checkOptions, FREQUENCY_SEGMENT_SAMPLES, type StageTimings } from "./analyze-samples";
+import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
+import { chooseSampleInterval } from "./choose-sample-interval";
 import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
 import { checkOverrides, finishImport, MemorySink, type ImportOptions } from "./import-csv";
 import { intervalFromPreamble } from "./interval-from-preamble";
+import { LineFit } from "./line-fit";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { PhaseTracker } from "./phase-tracker";
 import { planWindows } from "./plan-windows";
@@ -31,40 +34,6 @@ interface PendingError {
   error: AnalysisInputError;
 }
 
-/** Running least-squares fit t = a + b·k over the time column (Welford-style co-moments, stable over 10^7 rows). */
-class TimeAxisFit {
-  count = 0;
-  private meanK = 0;
-  private meanT = 0;
-  private ckk = 0;
-  private ckt = 0;
-  firstS = Number.NaN;
-
-  add(timesS: Float64Array, count: number, firstRow: number): void {
-    for (let r = 0; r < count; r++) {
-      const k = firstRow + r;
-      const t = timesS[r]!;
-      if (this.count === 0) this.firstS = t;
-      this.count++;
-      const dk = k - this.meanK;
-      this.meanK += dk / this.count;
-      const dt = t - this.meanT;
-      this.meanT += dt / this.count;
-      // Co-moments with the updated means (Welford): exact in exact arithmetic, no cancellation.
-      this.ckk += dk * (k - this.meanK);
-      this.ckt += dk * (t - this.meanT);
-    }
-  }
-
-  intervalS(): number {
-    return this.ckt / this.ckk;
-  }
-
-  startS(): number {
-    return this.meanT - this.intervalS() * this.meanK;
-  }
-}
-
 /**
  * Pass 1 sink. Keeps rows in memory up to the look-ahead (two frequency segments); a file that
  * ends within it is analysed by the in-memory path (identical results). Beyond it, switches to
@@ -75,7 +44,9 @@ class TimeAxisFit {
 class FirstPass implements RowSink {
   memory: MemorySink | null;
   streaming = false;
-  readonly fit = new TimeAxisFit();
+  /** Least-squares line t = start + interval·row over the whole time column. */
+  readonly fit = new LineFit();
+  firstTimeS = Number.NaN;
   rows = 0;
   readonly scans: ChannelScan[];
   /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
@@ -125,9 +96,9 @@ class FirstPass implements RowSink {
     const times = memory.times?.values() ?? null;
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
-      const fit = new TimeAxisFit();
-      fit.add(times, rows, 0);
-      this.provisionalRateHz = 1 / fit.intervalS();
+      const fit = new LineFit();
+      for (let r = 0; r < rows; r++) fit.add(r, times[r]!);
+      this.provisionalRateHz = 1 / fit.slope();
     } else {
       this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
     }
@@ -142,7 +113,8 @@ class FirstPass implements RowSink {
 
   private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     if (timesS && this.hasTime) {
-      this.fit.add(timesS, count, firstRow);
+      if (firstRow === 0 && count > 0) this.firstTimeS = timesS[0]!;
+      for (let r = 0; r < count; r++) this.fit.add(firstRow + r, timesS[r]!);
       const intervalS = 1 / this.provisionalRateHz;
       let previous = this.previousTimeS;
       for (let r = 0; r < count; r++) {
@@ -395,48 +367,38 @@ export async function streamCsvAnalysis(
   first.end();
   const warnings = collector1.end();
   const n = collector1.rows;
-  // The sample interval, as finishImport decides it.
-  let sampleIntervalS: number;
-  let sampleIntervalSource: AnalysisResult["sampleIntervalSource"];
+  // The sample interval: the same decision as the in-memory import's (chooseSampleInterval).
   let timeCheck: ConstructorParameters<typeof SecondPass>[7] = null;
-  if (options.sampleIntervalS !== undefined) {
-    if (!(options.sampleIntervalS > 0) || !Number.isFinite(options.sampleIntervalS)) {
-      throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
-    }
-    sampleIntervalS = options.sampleIntervalS;
-    sampleIntervalSource = "option";
-  } else if (timeColumn) {
-    if (first.monotonicError) throw first.monotonicError.error;
-    const column = timeColumn.index + 1;
-    sampleIntervalS = first.fit.intervalS();
-    if (!(sampleIntervalS > 0)) {
-      throw new AnalysisInputError(
-        "irregular-time",
-        `time axis does not advance: every time stamp from line ${collector1.lineOfRow(0)} on is ${first.fit.firstS} s`,
-        { line: collector1.lineOfRow(0), column },
-      );
-    }
-    const toleranceS = 0.5 * sampleIntervalS + collector1.timeResolutionS();
-    const step = first.stepError;
-    if (step && Math.abs(step.stepS - sampleIntervalS) > toleranceS) {
-      const line = collector1.lineOfRow(step.row);
-      throw new AnalysisInputError(
-        "irregular-time",
-        `irregular time axis at line ${line}: step of ${step.stepS.toPrecision(4)} s where the interval is ${sampleIntervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
-        { line, column },
-      );
-    }
-    timeCheck = { intervalS: sampleIntervalS, startS: first.fit.startS(), toleranceS, column };
-    sampleIntervalSource = "time-column";
-  } else if (stated !== null) {
-    sampleIntervalS = stated;
-    sampleIntervalSource = "preamble";
-  } else {
-    throw new AnalysisInputError(
-      "no-sample-interval",
-      "no sample interval: the file has no time column and its preamble states no sample interval or rate (give the interval in seconds)",
-    );
-  }
+  const { sampleIntervalS, sampleIntervalSource } = chooseSampleInterval(
+    options.sampleIntervalS,
+    timeColumn
+      ? () => {
+          if (first.monotonicError) throw first.monotonicError.error;
+          const column = timeColumn.index + 1;
+          const intervalS = first.fit.slope();
+          if (!(intervalS > 0)) {
+            throw new AnalysisInputError(
+              "irregular-time",
+              `time axis does not advance: every time stamp from line ${collector1.lineOfRow(0)} on is ${first.firstTimeS} s`,
+              { line: collector1.lineOfRow(0), column },
+            );
+          }
+          const toleranceS = 0.5 * intervalS + collector1.timeResolutionS();
+          const step = first.stepError;
+          if (step && Math.abs(step.stepS - intervalS) > toleranceS) {
+            const line = collector1.lineOfRow(step.row);
+            throw new AnalysisInputError(
+              "irregular-time",
+              `irregular time axis at line ${line}: step of ${step.stepS.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
+              { line, column },
+            );
+          }
+          timeCheck = { intervalS, startS: first.fit.intercept(), toleranceS, column };
+          return intervalS;
+        }
+      : null,
+    stated,
+  );
   if (timings) timings.importMs = performance.now() - started;
 
   // The checks analyzeSamples makes, in its order.
@@ -507,19 +469,7 @@ export async function streamCsvAnalysis(
   clock = performance.now();
   const aggregate = analyzer.finish(analysisOptions, warnings);
   aggregate.channels.forEach((channel, c) => (channel.scale = channelColumns[c]!.scale));
-  const result: AnalysisResult = {
-    fundamentalHz: plan.fundamentalHz,
-    nominalHz: plan.nominalHz,
-    sampleIntervalS,
-    durationS,
-    window: { cycles: plan.shape.cycles, points: plan.shape.points, count: analyzer.count },
-    maxResolvableOrder: plan.shape.resolvableOrder,
-    channels: aggregate.channels,
-    power: aggregate.power,
-    warnings,
-  };
-  if (aggregate.sequence.length > 0) result.sequence = aggregate.sequence;
-  result.sampleIntervalSource = sampleIntervalSource;
+  const result = assembleAnalysisResult({ plan, aggregate, windowCount: analyzer.count, sampleIntervalS, durationS, warnings, sampleIntervalSource });
   if (waveform) result.waveform = waveform.result();
   if (timings) timings.aggregateMs = performance.now() - clock;
   return result;
