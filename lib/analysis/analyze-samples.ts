@@ -2,12 +2,13 @@
 // per-order values, groups, indices, power, sequence components, aggregation.
 import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
+import { checkOptions } from "./check-options";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
 import { findOverride } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { PhaseTracker } from "./phase-tracker";
-import { segmentBounds } from "./schedule-windows";
+import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import type { AnalysisOptions, AnalysisResult, PhaseLabel, Quantity } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 
@@ -37,30 +38,6 @@ export interface StageTimings {
   aggregateMs?: number;
 }
 
-/** Default frequency segment: 2^18 samples ≈ 10 s at 25.6 kS/s. */
-export const FREQUENCY_SEGMENT_SAMPLES = 1 << 18;
-
-function fail(code: "invalid-option", message: string): never {
-  throw new AnalysisInputError(code, message);
-}
-
-export function checkOptions(options: AnalysisOptions): void {
-  const { frequencyHz, maxOrder, thdMaxOrder, ilA, irefA } = options;
-  if (frequencyHz !== undefined && frequencyHz !== 50 && frequencyHz !== 60) fail("invalid-option", `frequency must be 50 or 60 Hz, got ${frequencyHz}`);
-  if (maxOrder !== undefined && !(Number.isInteger(maxOrder) && maxOrder >= 1 && maxOrder <= 100)) {
-    fail("invalid-option", `max order must be an integer from 1 to 100, got ${maxOrder}`);
-  }
-  if (thdMaxOrder !== undefined && thdMaxOrder !== 40 && thdMaxOrder !== 50) fail("invalid-option", `THD max order must be 40 or 50, got ${thdMaxOrder}`);
-  if (ilA !== undefined && !(ilA > 0 && Number.isFinite(ilA))) fail("invalid-option", `IL must be a positive current in A, got ${ilA}`);
-  if (irefA !== undefined && !(irefA > 0 && Number.isFinite(irefA))) fail("invalid-option", `Iref must be a positive current in A, got ${irefA}`);
-  if (options.sampleIntervalS !== undefined && !(options.sampleIntervalS > 0 && Number.isFinite(options.sampleIntervalS))) {
-    fail("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
-  }
-  const segment = options.frequencySegmentSamples;
-  if (segment !== undefined && !(Number.isInteger(segment) && segment >= 4096)) {
-    fail("invalid-option", `frequency segment must be an integer of at least 4096 samples, got ${segment}`);
-  }
-}
 
 /** A view of samples a..b (a copy for plain arrays). */
 function sliceSamples(samples: ArrayLike<number>, a: number, b: number): ArrayLike<number> {
@@ -102,7 +79,9 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   checkOptions(options);
   const warnings = [...(capture.warnings ?? [])];
   const intervalS = options.sampleIntervalS ?? capture.sampleIntervalS;
-  if (!(intervalS > 0 && Number.isFinite(intervalS))) fail("invalid-option", `sample interval must be a positive number of seconds, got ${intervalS}`);
+  if (!(intervalS > 0 && Number.isFinite(intervalS))) {
+    throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${intervalS}`);
+  }
   const sampleRateHz = 1 / intervalS;
 
   const resolved = capture.channels.filter((c) => !findOverride(options.channels, c.name, c.name)?.ignore).map((c) => {

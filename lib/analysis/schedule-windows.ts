@@ -3,7 +3,7 @@
 import type { PhaseTrack } from "./phase-tracker";
 
 /** Longest window allowed to extend past the record, as a fraction of a window (IEC 61000-4-7 sync tolerance is ±0.03 %). */
-export const WINDOW_FIT_TOLERANCE = 1e-3;
+const WINDOW_FIT_TOLERANCE = 1e-3;
 
 /**
  * Cuts a record of `n` samples into consecutive windows of `cycles` cycles each, from the phase
@@ -46,18 +46,4 @@ export function scheduleWindows(track: PhaseTrack, cycles: number, n: number): F
     bounds.push(end);
   }
   return Float64Array.from(bounds);
-}
-
-/**
- * Splits a record of `n` samples into frequency segments of `segmentSamples`; the last segment
- * takes the remainder (so it holds between one and two segments' worth). Returns the starts plus n.
- *
- * @example
- * segmentBounds(10, 4) // [0, 4, 10]
- */
-export function segmentBounds(n: number, segmentSamples: number): number[] {
-  const count = Math.max(1, Math.floor(n / segmentSamples));
-  const bounds = Array.from({ length: count }, (_, k) => k * segmentSamples);
-  bounds.push(n);
-  return bounds;
 }

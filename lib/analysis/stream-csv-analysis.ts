@@ -2,7 +2,8 @@
 // record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
 // parses again and analyses each window from a ring buffer as soon as its samples are in.
 import { analyzeImported } from "./analyze-imported";
-import { checkOptions, FREQUENCY_SEGMENT_SAMPLES, type StageTimings } from "./analyze-samples";
+import type { StageTimings } from "./analyze-samples";
+import { checkOptions } from "./check-options";
 import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
 import { chooseSampleInterval } from "./choose-sample-interval";
@@ -17,7 +18,7 @@ import { PhaseTracker } from "./phase-tracker";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
-import { segmentBounds } from "./schedule-windows";
+import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 

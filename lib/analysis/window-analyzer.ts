@@ -1,6 +1,6 @@
 // Per-window analysis and the whole-capture aggregation, fed one window at a time: the in-memory
 // path hands it windows cut from arrays, the streaming path windows cut from a ring buffer.
-import { summarizeWindows } from "./aggregate";
+import { summarizeWindows } from "./summarize-windows";
 import { getFft } from "./get-fft";
 import { computeIndices } from "./indices";
 import { pairPhases } from "./pair-phases";
