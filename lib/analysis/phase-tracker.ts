@@ -3,6 +3,8 @@
 
 /** Cycles of the fundamental per measuring block. */
 const BLOCK_CYCLES = 5;
+/** A block whose fundamental is below this fraction of the strongest so far has no phase worth following. */
+const WEAK_FRACTION = 0.01;
 
 /** The fundamental's unwrapped phase, in cycles, at the centre of consecutive blocks. */
 export interface PhaseTrack {
@@ -21,20 +23,27 @@ export interface PhaseTrack {
  * the Hann window is symmetric, so a frequency slightly off the carrier, or a slow ramp, shifts
  * the phase at the centre by nothing to first order. Harmonics of a block of B ≈ 5 cycles fall on
  * the Hann window's nulls (5·(h − 1) bins away), so they do not bias the phase. Consecutive phases
- * are unwrapped against the carrier's advance (valid while the frequency stays within ±10 % of it).
+ * are unwrapped against the carrier's advance (valid while the frequency stays within ±10 % of it);
+ * a block whose fundamental is under 1 % of the strongest so far (a current that stops) advances
+ * by the carrier instead.
  *
  * The result depends only on the samples and on the carrier given with each sample, not on how
  * the record is cut into chunks: the in-memory and the streaming paths get the same track.
  *
- * Complexity O(1) per sample (a block copy and one complex multiply-add), memory one number per block.
+ * Complexity O(1) per sample (one complex multiply-add), memory one number per block.
  *
  * @example
  * const tracker = new PhaseTracker(); tracker.feed(samples, samples.length, 50 / 6400); const track = tracker.finish();
  */
 export class PhaseTracker {
   private blockSamples = 0;
-  private block = new Float64Array(0);
   private fill = 0;
+  /** Running sums of the block being filled: Σx·kernel (re, im) and Σx. */
+  private sumRe = 0;
+  private sumIm = 0;
+  private sum = 0;
+  /** Largest phasor magnitude so far: blocks far below it hold no fundamental to follow. */
+  private strongest = 0;
   /** Carrier of the block being filled (that of its first sample). */
   private blockCarrier = 0;
   private kernelCarrier = Number.NaN;
@@ -53,18 +62,35 @@ export class PhaseTracker {
   feed(samples: ArrayLike<number>, count: number, carrier: number): void {
     if (this.blockSamples === 0) {
       this.blockSamples = Math.max(4, Math.round(BLOCK_CYCLES / carrier));
-      this.block = new Float64Array(this.blockSamples);
       this.firstCarrier = carrier;
     }
     const b = this.blockSamples;
+    let { fill, sumRe, sumIm, sum } = this;
+    let kernelRe = this.kernelRe;
+    let kernelIm = this.kernelIm;
     for (let i = 0; i < count; i++) {
-      if (this.fill === 0) this.blockCarrier = carrier;
-      this.block[this.fill++] = samples[i]!;
-      if (this.fill === b) {
-        this.measure();
-        this.fill = 0;
+      if (fill === 0) {
+        this.blockCarrier = carrier;
+        this.kernel(carrier);
+        kernelRe = this.kernelRe;
+        kernelIm = this.kernelIm;
+      }
+      const x = samples[i]!;
+      sumRe += x * kernelRe[fill]!;
+      sumIm += x * kernelIm[fill]!;
+      sum += x;
+      if (++fill === b) {
+        this.measure(sumRe, sumIm, sum);
+        fill = 0;
+        sumRe = 0;
+        sumIm = 0;
+        sum = 0;
       }
     }
+    this.fill = fill;
+    this.sumRe = sumRe;
+    this.sumIm = sumIm;
+    this.sum = sum;
   }
 
   /** The phases measured so far (a partial last block is left out). */
@@ -95,33 +121,27 @@ export class PhaseTracker {
     this.kernelCarrier = carrier;
   }
 
-  private measure(): void {
+  private measure(sumRe: number, sumIm: number, sum: number): void {
     const carrier = this.blockCarrier;
-    this.kernel(carrier);
-    const { block, kernelRe, kernelIm } = this;
     const b = this.blockSamples;
-    let re = 0;
-    let im = 0;
-    let sum = 0;
-    for (let i = 0; i < b; i++) {
-      const x = block[i]!;
-      re += x * kernelRe[i]!;
-      im += x * kernelIm[i]!;
-      sum += x;
-    }
+    let re = sumRe;
+    let im = sumIm;
     // Remove the block's DC, which the Hann kernel would otherwise let through a little.
     const mean = sum / b;
     re -= mean * this.kernelSumRe;
     im -= mean * this.kernelSumIm;
     // arg X = 2π·Θ(centre) − 2π·carrier·(B − 1)/2 for x = A·cos(2π·Θ).
     const measured = Math.atan2(im, re) / (2 * Math.PI) + carrier * ((b - 1) / 2);
+    const magnitude = Math.hypot(re, im);
+    this.strongest = Math.max(this.strongest, magnitude);
     let phase: number;
     if (this.count === 0) {
       phase = measured - Math.floor(measured);
     } else {
       const predicted = this.phases[this.count - 1]! + carrier * b;
       const difference = measured - predicted;
-      phase = predicted + (difference - Math.round(difference));
+      // Under 1 % of the strongest fundamental so far (a load switched off): follow the carrier, not the noise's phase.
+      phase = magnitude < WEAK_FRACTION * this.strongest ? predicted : predicted + (difference - Math.round(difference));
     }
     if (this.count === this.phases.length) {
       const grown = new Float64Array(2 * this.phases.length);

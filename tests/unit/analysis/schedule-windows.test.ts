@@ -2,7 +2,7 @@
 import { expect, test } from "vitest";
 import { PhaseTracker } from "@/lib/analysis/phase-tracker";
 import { scheduleWindows } from "@/lib/analysis/schedule-windows";
-import { rampingMultiTone } from "./signals";
+import { mulberry32, rampingMultiTone } from "./signals";
 
 test("each window ends where the ramping fundamental has turned exactly 10 more cycles (IEC 61000-4-7:2002+A1:2008 §4.4, from memory)", () => {
   // f(t) = 49.85 + 0.03·t Hz, so the phase in cycles is Θ(t) = 49.85·t + 0.015·t² (its integral);
@@ -24,5 +24,24 @@ test("each window ends where the ramping fundamental has turned exactly 10 more 
     expect(Math.abs(bounds[w]! - endSample(w)), `window ${w} end`).toBeLessThan(0.1);
     // Every window's length within 0.002 sample except the first and last (their outer ends are extended beyond the first and last block centres).
     if (w > 1 && w < 50) expect(Math.abs(bounds[w]! - bounds[w - 1]! - (endSample(w) - endSample(w - 1))), `window ${w} length`).toBeLessThan(0.002);
+  }
+});
+
+test("a current that stops for a second: the windows after it are back on the fundamental's cycles", () => {
+  // 50 Hz at 6400 S/s (128 samples per cycle, so window w ends at sample 1280·w), off from 1.5 s to 2.5 s
+  // with a noise of 10⁻⁴ of the amplitude; the carrier is given 0.05 Hz high.
+  const rate = 6400;
+  const rnd = mulberry32(11);
+  const samples = Float64Array.from({ length: 4 * rate }, (_, k) =>
+    k >= 1.5 * rate && k < 2.5 * rate ? 1e-4 * (rnd() - 0.5) : 10 * Math.cos((2 * Math.PI * 50 * k) / rate + 0.4) + 1.5 * Math.cos((2 * Math.PI * 250 * k) / rate),
+  );
+  const tracker = new PhaseTracker();
+  tracker.feed(samples, samples.length, 50.05 / rate);
+  const bounds = scheduleWindows(tracker.finish(), 10, samples.length);
+  expect(bounds.length - 1).toBe(20);
+  for (let w = 1; w <= 20; w++) {
+    const offset = Math.abs(bounds[w]! - 1280 * w);
+    // Through the gap the phase follows the carrier (0.05 Hz × 1 s = 0.05 cycle = 6.4 samples at most).
+    expect(offset, `window ${w} end`).toBeLessThan(w * 1280 <= 1.4 * rate || w * 1280 >= 2.7 * rate ? 0.05 : 8);
   }
 });

@@ -92,7 +92,8 @@ function syncError(run: () => unknown): AnalysisInputError {
   throw new Error("expected an AnalysisInputError");
 }
 
-describe("streaming analysis of a file agrees with the in-memory path", () => {
+// Each test reads and analyses a 38,400-row file (twice): allow for a loaded machine.
+describe("streaming analysis of a file agrees with the in-memory path", { timeout: 30_000 }, () => {
   const text = captureText(6); // 38,400 rows: 9 frequency segments, 30 windows
   const path = write("drifting-6s.csv", text);
   const options: AnalysisOptions = { includeOrderSeries: true, thdMaxOrder: 50, ilA: 12 };
