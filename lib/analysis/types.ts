@@ -76,6 +76,7 @@ export interface PowerPhase {
 }
 
 export interface AnalysisResult {
+  /** Mean fundamental over the analysed windows, Hz (their cycles divided by their duration). */
   fundamentalHz: number;
   nominalHz: 50 | 60;
   sampleIntervalS: number;
