@@ -353,7 +353,7 @@ async function main(): Promise<void> {
     console.log(`  input        ${sizeMB.toFixed(1)} MB  (${summary})`);
     console.log(`  wall time    ${wallS.toFixed(3)} s   (${(sizeMB / wallS).toFixed(1)} MB/s of CSV)   target < ${bench.targets.wallS} s`);
     console.log(`  peak RSS     ${rssMB.toFixed(0)} MB   target < ${bench.targets.rssMB} MB (${processRssMB !== undefined ? "the child process's getrusage maxrss" : "sampled every 10 ms"})`);
-    console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment)" : ""}`);
+    console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
     if (timings.rereadMs !== undefined) console.log(`  pass 2 parse ${ms(timings.rereadMs)}   (re-parse, time-axis and clipping checks, ring buffer)`);
     console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
     console.log(

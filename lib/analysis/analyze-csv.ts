@@ -1,39 +1,8 @@
 // CSV in, analysis out: the import and the sample pipeline joined, for text and for files.
-import { analyzeSamples, type StageTimings } from "./analyze-samples";
-import { importCsvText, type ImportedCapture } from "./import-csv";
+import { analyzeImported } from "./analyze-imported";
+import { importCsvText } from "./import-csv";
 import { streamCsvAnalysis, type StreamTimings } from "./stream-csv-analysis";
 import type { AnalysisOptions, AnalysisResult } from "./types";
-
-export function analyzeImported(capture: ImportedCapture, options: AnalysisOptions, timings?: StageTimings): AnalysisResult {
-  // The importer has applied unit prefixes and scale factors already; pass on quantity and phase only.
-  const { sampleIntervalS: _given, channels: overrides, ...rest } = options;
-  void _given;
-  const kept = Object.fromEntries(
-    Object.entries(overrides ?? {}).map(([name, o]) => [
-      name,
-      { ...(o.quantity ? { quantity: o.quantity } : {}), ...("phase" in o ? { phase: o.phase ?? null } : {}) },
-    ]),
-  );
-  const result = analyzeSamples(
-    {
-      sampleIntervalS: capture.sampleIntervalS,
-      sampleIntervalSource: capture.sampleIntervalSource,
-      warnings: capture.warnings,
-      channels: capture.channels.map((c) => ({ name: c.name, quantity: c.quantity, phase: c.phase, samples: c.samples })),
-    },
-    { ...rest, channels: kept },
-    timings,
-  );
-  return withScale(capture, result);
-}
-
-function withScale(capture: ImportedCapture, result: AnalysisResult): AnalysisResult {
-  for (const channel of result.channels) {
-    const imported = capture.channels.find((c) => c.name === channel.name);
-    if (imported) channel.scale = imported.scale;
-  }
-  return result;
-}
 
 /**
  * Analyses CSV text held in memory (an upload, a test fixture).

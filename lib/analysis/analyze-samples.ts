@@ -1,11 +1,14 @@
 // The analysis pipeline on samples already in memory: fundamental → windows → resample → FFT →
 // per-order values, groups, indices, power, sequence components, aggregation.
+import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
+import { checkOptions } from "./check-options";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
 import { findOverride } from "./plan-columns";
 import { planWindows } from "./plan-windows";
-import { segmentBounds, WindowSchedule } from "./schedule-windows";
+import { PhaseTracker } from "./phase-tracker";
+import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import type { AnalysisOptions, AnalysisResult, PhaseLabel, Quantity } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 
@@ -35,30 +38,6 @@ export interface StageTimings {
   aggregateMs?: number;
 }
 
-/** Default frequency segment: 2^18 samples ≈ 10 s at 25.6 kS/s. */
-export const FREQUENCY_SEGMENT_SAMPLES = 1 << 18;
-
-function fail(code: "invalid-option", message: string): never {
-  throw new AnalysisInputError(code, message);
-}
-
-export function checkOptions(options: AnalysisOptions): void {
-  const { frequencyHz, maxOrder, thdMaxOrder, ilA, irefA } = options;
-  if (frequencyHz !== undefined && frequencyHz !== 50 && frequencyHz !== 60) fail("invalid-option", `frequency must be 50 or 60 Hz, got ${frequencyHz}`);
-  if (maxOrder !== undefined && !(Number.isInteger(maxOrder) && maxOrder >= 1 && maxOrder <= 100)) {
-    fail("invalid-option", `max order must be an integer from 1 to 100, got ${maxOrder}`);
-  }
-  if (thdMaxOrder !== undefined && thdMaxOrder !== 40 && thdMaxOrder !== 50) fail("invalid-option", `THD max order must be 40 or 50, got ${thdMaxOrder}`);
-  if (ilA !== undefined && !(ilA > 0 && Number.isFinite(ilA))) fail("invalid-option", `IL must be a positive current in A, got ${ilA}`);
-  if (irefA !== undefined && !(irefA > 0 && Number.isFinite(irefA))) fail("invalid-option", `Iref must be a positive current in A, got ${irefA}`);
-  if (options.sampleIntervalS !== undefined && !(options.sampleIntervalS > 0 && Number.isFinite(options.sampleIntervalS))) {
-    fail("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
-  }
-  const segment = options.frequencySegmentSamples;
-  if (segment !== undefined && !(Number.isInteger(segment) && segment >= 4096)) {
-    fail("invalid-option", `frequency segment must be an integer of at least 4096 samples, got ${segment}`);
-  }
-}
 
 /** A view of samples a..b (a copy for plain arrays). */
 function sliceSamples(samples: ArrayLike<number>, a: number, b: number): ArrayLike<number> {
@@ -71,8 +50,9 @@ function sliceSamples(samples: ArrayLike<number>, a: number, b: number): ArrayLi
  * Analyses sampled channels of one capture and returns the result in the design's JSON shape.
  *
  * Steps: measure the fundamental on the reference channel (the first voltage, else the largest
- * current); choose 50/60 Hz; cut consecutive windows of 10 (50 Hz) or 12 (60 Hz) cycles of the
- * measured fundamental (IEC 61000-4-7 §4.4 / §5.5.1, from memory); resample each to 2^k points
+ * current) and track its phase; choose 50/60 Hz; cut consecutive windows of 10 (50 Hz) or 12
+ * (60 Hz) cycles, each of its own measured fundamental (IEC 61000-4-7:2002+A1:2008 §4.4 / §5,
+ * from memory); resample each to 2^k points
  * with a band-limited kernel so harmonic h falls on bin 10·h or 12·h; FFT (fft.js); per order:
  * r.m.s. (√2·|X|/N), phase, IEC 61000-4-7 groups/subgroups; aggregate windows as r.m.s. mean,
  * maximum and 95th percentile. Phases use the cosine reference and are relative to the reference
@@ -99,7 +79,9 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   checkOptions(options);
   const warnings = [...(capture.warnings ?? [])];
   const intervalS = options.sampleIntervalS ?? capture.sampleIntervalS;
-  if (!(intervalS > 0 && Number.isFinite(intervalS))) fail("invalid-option", `sample interval must be a positive number of seconds, got ${intervalS}`);
+  if (!(intervalS > 0 && Number.isFinite(intervalS))) {
+    throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${intervalS}`);
+  }
   const sampleRateHz = 1 / intervalS;
 
   const resolved = capture.channels.filter((c) => !findOverride(options.channels, c.name, c.name)?.ignore).map((c) => {
@@ -142,11 +124,18 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
   lap("checksMs");
   let reference = usable.findIndex((c) => c.quantity === "voltage");
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
-  // The fundamental is measured per segment (≈ 10 s at 25.6 kS/s) so windows stay whole cycles when the grid drifts.
+  // The fundamental is estimated per segment (≈ 10 s at 25.6 kS/s); its phase is then tracked
+  // through each segment so every window spans whole cycles of its own fundamental.
   const bounds = segmentBounds(n, options.frequencySegmentSamples ?? FREQUENCY_SEGMENT_SAMPLES);
   const referenceSamples = usable[reference]!.samples;
-  const segmentHz = bounds.slice(0, -1).map((first, k) => estimateFundamental(sliceSamples(referenceSamples, first, bounds[k + 1]!), sampleRateHz));
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, options, warnings);
+  const tracker = new PhaseTracker();
+  const segmentHz = bounds.slice(0, -1).map((first, k) => {
+    const segment = sliceSamples(referenceSamples, first, bounds[k + 1]!);
+    const hz = estimateFundamental(segment, sampleRateHz);
+    tracker.feed(segment, segment.length, hz / sampleRateHz);
+    return hz;
+  });
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, options, warnings, tracker.finish());
   lap("fundamentalMs");
 
   const analyzer = new WindowAnalyzer(
@@ -154,7 +143,7 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
     reference,
     plan.shape,
     n,
-    n / plan.lengths[0]! + 1,
+    plan.windowBounds.length - 1,
   );
   const source: WindowSource = {
     copyWindow(ci, first, span, period, target) {
@@ -168,24 +157,19 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
       }
     },
   };
-  for (const schedule = new WindowSchedule(bounds, plan.lengths); !schedule.done; schedule.advance()) {
-    analyzer.addWindow(schedule.start, schedule.windowSamples, source);
-  }
+  const windowBounds = plan.windowBounds;
+  for (let w = 0; w + 1 < windowBounds.length; w++) analyzer.addWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source);
   lap("windowsMs");
   const aggregate = analyzer.finish(options, warnings);
-  const result: AnalysisResult = {
-    fundamentalHz: plan.fundamentalHz,
-    nominalHz: plan.nominalHz,
+  const result = assembleAnalysisResult({
+    plan,
+    aggregate,
+    windowCount: analyzer.count,
     sampleIntervalS: intervalS,
     durationS,
-    window: { cycles: plan.shape.cycles, points: plan.shape.points, count: analyzer.count },
-    maxResolvableOrder: plan.shape.resolvableOrder,
-    channels: aggregate.channels,
-    power: aggregate.power,
     warnings,
-  };
-  if (aggregate.sequence.length > 0) result.sequence = aggregate.sequence;
+    ...(capture.sampleIntervalSource ? { sampleIntervalSource: options.sampleIntervalS !== undefined ? "option" : capture.sampleIntervalSource } : {}),
+  });
   lap("aggregateMs");
-  if (capture.sampleIntervalSource) result.sampleIntervalSource = options.sampleIntervalS !== undefined ? "option" : capture.sampleIntervalSource;
   return result;
 }

@@ -1,6 +1,7 @@
 // Measures the fundamental frequency of a record to well within ±0.01 Hz on a clean signal.
 import { AnalysisInputError } from "./errors";
 import { getFft } from "./get-fft";
+import { LineFit } from "./line-fit";
 
 /** Search band for the fundamental: both nominal frequencies with ample margin. */
 export const FUNDAMENTAL_MIN_HZ = 40;
@@ -133,17 +134,9 @@ function phaseRegression(samples: ArrayLike<number>, sampleRateHz: number, coars
     phases[b] = phase;
     previous = phase;
   }
-  const meanIndex = (blocks - 1) / 2;
-  let meanPhase = 0;
-  for (let b = 0; b < blocks; b++) meanPhase += phases[b]!;
-  meanPhase /= blocks;
-  let sxy = 0;
-  let sxx = 0;
-  for (let b = 0; b < blocks; b++) {
-    sxy += (b - meanIndex) * (phases[b]! - meanPhase);
-    sxx += (b - meanIndex) ** 2;
-  }
-  const radiansPerSample = sxy / sxx / blockLength;
+  const fit = new LineFit();
+  for (let b = 0; b < blocks; b++) fit.add(b, phases[b]!);
+  const radiansPerSample = fit.slope() / blockLength;
   return coarseHz + (radiansPerSample * sampleRateHz) / (2 * Math.PI);
 }
 

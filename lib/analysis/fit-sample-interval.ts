@@ -1,5 +1,6 @@
 // Derives the sample interval from a time column and rejects time axes that are not a regular grid.
 import { AnalysisInputError } from "./errors";
+import { LineFit } from "./line-fit";
 
 /** Result of fitting t_i = startS + i·intervalS. */
 export interface TimeAxisFit {
@@ -53,25 +54,16 @@ export function fitSampleInterval(
   for (let i = 1; i < n; i++) {
     if (timesS[i]! < timesS[i - 1]!) throw backwardsTimeError(lineOfRow(i), column, timesS[i]!, timesS[i - 1]!);
   }
-  const meanIndex = (n - 1) / 2;
-  let meanTime = 0;
-  for (let i = 0; i < n; i++) meanTime += timesS[i]!;
-  meanTime /= n;
-  let sxy = 0;
-  let sxx = 0;
-  for (let i = 0; i < n; i++) {
-    const dx = i - meanIndex;
-    sxy += dx * (timesS[i]! - meanTime);
-    sxx += dx * dx;
-  }
-  const intervalS = sxy / sxx;
+  const fit = new LineFit();
+  for (let i = 0; i < n; i++) fit.add(i, timesS[i]!);
+  const intervalS = fit.slope();
   if (!(intervalS > 0)) {
     throw new AnalysisInputError("irregular-time", `time axis does not advance: every time stamp from line ${lineOfRow(0)} on is ${timesS[0]} s`, {
       line: lineOfRow(0),
       column,
     });
   }
-  const startS = meanTime - intervalS * meanIndex;
+  const startS = fit.intercept();
   const tolerance = 0.5 * intervalS + resolutionS;
   const describe = `(tolerance ±50 % of the interval plus the stamps' printed resolution)`;
   for (let i = 1; i < n; i++) {

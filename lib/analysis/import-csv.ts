@@ -2,6 +2,7 @@
 // into Float64Array buffers (no per-row objects are kept).
 import Papa from "papaparse";
 import { detectLayout, type CsvLayout } from "./detect-layout";
+import { chooseSampleInterval } from "./choose-sample-interval";
 import { AnalysisInputError } from "./errors";
 import { backwardsTimeError, fitSampleInterval } from "./fit-sample-interval";
 import { intervalFromPreamble } from "./interval-from-preamble";
@@ -56,35 +57,19 @@ export class MemorySink implements RowSink {
 export function finishImport(collector: RowCollector, sink: MemorySink, options: ImportOptions): ImportedCapture {
   const warnings = collector.end();
   const { timeColumn, channelColumns, layout } = collector;
-  let sampleIntervalS: number;
-  let sampleIntervalSource: ImportedCapture["sampleIntervalSource"];
-  if (options.sampleIntervalS !== undefined) {
-    if (!(options.sampleIntervalS > 0) || !Number.isFinite(options.sampleIntervalS)) {
-      throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
+  const times = sink.times;
+  // A given interval replaces the time column's spacing, but a column running backwards is still an error.
+  if (options.sampleIntervalS !== undefined && times && timeColumn) {
+    const values = times.values();
+    for (let i = 1; i < values.length; i++) {
+      if (values[i]! < values[i - 1]!) throw backwardsTimeError(collector.lineOfRow(i), timeColumn.index + 1, values[i]!, values[i - 1]!);
     }
-    // A given interval replaces the time column's spacing, but a column running backwards is still an error.
-    if (sink.times && timeColumn) {
-      const times = sink.times.values();
-      for (let i = 1; i < times.length; i++) {
-        if (times[i]! < times[i - 1]!) throw backwardsTimeError(collector.lineOfRow(i), timeColumn.index + 1, times[i]!, times[i - 1]!);
-      }
-    }
-    sampleIntervalS = options.sampleIntervalS;
-    sampleIntervalSource = "option";
-  } else if (sink.times && timeColumn) {
-    sampleIntervalS = fitSampleInterval(sink.times.values(), collector.timeResolutionS(), collector.lineOfRow, timeColumn.index + 1).intervalS;
-    sampleIntervalSource = "time-column";
-  } else {
-    const stated = intervalFromPreamble(layout.preamble, layout.decimalComma);
-    if (!stated) {
-      throw new AnalysisInputError(
-        "no-sample-interval",
-        "no sample interval: the file has no time column and its preamble states no sample interval or rate (give the interval in seconds)",
-      );
-    }
-    sampleIntervalS = stated.sampleIntervalS;
-    sampleIntervalSource = "preamble";
   }
+  const { sampleIntervalS, sampleIntervalSource } = chooseSampleInterval(
+    options.sampleIntervalS,
+    times && timeColumn ? () => fitSampleInterval(times.values(), collector.timeResolutionS(), collector.lineOfRow, timeColumn.index + 1).intervalS : null,
+    intervalFromPreamble(layout.preamble, layout.decimalComma)?.sampleIntervalS ?? null,
+  );
   const channels = channelColumns.map(
     (plan, c): ImportedChannel => ({
       name: plan.header,

@@ -1,5 +1,6 @@
 // Public API of the analysis engine (pure: no framework, database or storage imports).
-export { analyzeCsvFile, analyzeCsvText, analyzeImported } from "./analyze-csv";
+export { analyzeCsvFile, analyzeCsvText } from "./analyze-csv";
+export { analyzeImported } from "./analyze-imported";
 export { streamCsvAnalysis, type StreamTimings } from "./stream-csv-analysis";
 export { analyzeSamples, type SampleCapture, type SampleChannel, type StageTimings } from "./analyze-samples";
 export { AnalysisInputError, isAnalysisInputError, type AnalysisErrorCode } from "./errors";

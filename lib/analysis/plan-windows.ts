@@ -1,8 +1,9 @@
-// From the measured fundamental to the window shape: nominal 50/60 Hz, cycles per window,
-// resampled points, resolvable orders, interpolator padding.
+// From the measured fundamental to the windows: nominal 50/60 Hz, cycles per window, each
+// window's boundaries, resampled points, resolvable orders, interpolator padding.
 import { AnalysisInputError } from "./errors";
-import { kernelHalfWidth, PASSBAND_FRACTION } from "./resample";
-import { WINDOW_FIT_TOLERANCE } from "./schedule-windows";
+import { kernelHalfWidth, PASSBAND_FRACTION, STEP_SLACK } from "./resample";
+import type { PhaseTrack } from "./phase-tracker";
+import { scheduleWindows } from "./schedule-windows";
 import type { AnalysisOptions } from "./types";
 import type { WindowShape } from "./window-analyzer";
 
@@ -12,38 +13,43 @@ const DEFAULT_MAX_ORDER = 50;
 
 /** The fundamental and window plan of a capture. */
 export interface WindowPlan {
-  /** Record mean: the segments' fundamentals weighted by their lengths (the one estimate for one segment). */
+  /** Mean fundamental over the windows: their cycles divided by their duration. */
   fundamentalHz: number;
   nominalHz: 50 | 60;
   shape: WindowShape;
-  /** Window length in samples per frequency segment. */
-  lengths: number[];
+  /** Window boundaries in samples (fractional): window w is [windowBounds[w], windowBounds[w + 1]). */
+  windowBounds: Float64Array;
 }
 
 /**
- * Plans the windows of a record from its per-segment fundamentals (Hz): chooses 50/60 Hz
- * (options.frequencyHz, else from the mean fundamental), 10 or 12 cycles per window
- * (IEC 61000-4-7 §4.4 / §5.5.1, from memory), 2^k points (≤ 4096), the highest order the
- * interpolator passes flat, and pushes warnings about orders that cannot be evaluated.
+ * Plans the windows of a record from its per-segment fundamentals (Hz) and the phase track of its
+ * reference channel: chooses 50/60 Hz (options.frequencyHz, else from the mean fundamental), 10 or
+ * 12 cycles per window (IEC 61000-4-7:2002+A1:2008 §4.4 / §5, from memory), cuts each window to
+ * exactly that many cycles of its own fundamental (see scheduleWindows), 2^k points (≤ 4096), the
+ * highest order the interpolator passes flat, and pushes warnings about orders that cannot be evaluated.
  *
- * Complexity O(segments).
+ * Complexity O(segments + blocks + windows).
  *
  * @param bounds segment starts plus the record length (see segmentBounds).
+ * @param track the reference channel's phase track (see PhaseTracker).
  * @throws AnalysisInputError "frequency-out-of-range", "too-short", "sample-rate-too-low".
  * @example
- * planWindows([49.98], [0, 64000], 6400, {}, warnings).shape.points // 2048
+ * planWindows([49.98], [0, 64000], 6400, {}, warnings, track).shape.points // 2048
  */
-export function planWindows(segmentHz: number[], bounds: number[], sampleRateHz: number, options: AnalysisOptions, warnings: string[]): WindowPlan {
+export function planWindows(segmentHz: number[], bounds: number[], sampleRateHz: number, options: AnalysisOptions, warnings: string[], track: PhaseTrack): WindowPlan {
   const n = bounds[bounds.length - 1]!;
   const durationS = n / sampleRateHz;
-  let fundamentalHz = segmentHz[0]!;
+  let segmentMeanHz = segmentHz[0]!;
   if (segmentHz.length > 1) {
     let weighted = 0;
     for (let k = 0; k < segmentHz.length; k++) weighted += segmentHz[k]! * (bounds[k + 1]! - bounds[k]!);
-    fundamentalHz = weighted / n;
+    segmentMeanHz = weighted / n;
   }
-  const nominalHz: 50 | 60 = options.frequencyHz ?? (fundamentalHz < 55 ? 50 : 60);
-  for (const hz of segmentHz.length > 1 ? [fundamentalHz, ...segmentHz] : [fundamentalHz]) {
+  if (!segmentHz.every(Number.isFinite)) {
+    throw new AnalysisInputError("frequency-out-of-range", "the fundamental could not be measured (no usable sample interval while reading the record)");
+  }
+  const nominalHz: 50 | 60 = options.frequencyHz ?? (segmentMeanHz < 55 ? 50 : 60);
+  for (const hz of segmentHz.length > 1 ? [segmentMeanHz, ...segmentHz] : [segmentMeanHz]) {
     if (Math.abs(hz - nominalHz) > 0.1 * nominalHz) {
       throw new AnalysisInputError(
         "frequency-out-of-range",
@@ -54,19 +60,24 @@ export function planWindows(segmentHz: number[], bounds: number[], sampleRateHz:
     }
   }
   const cycles = nominalHz === 50 ? 10 : 12;
-  const windowSamples = (cycles * sampleRateHz) / fundamentalHz;
-  const windowCount = Math.floor(n / windowSamples + WINDOW_FIT_TOLERANCE);
+  const windowBounds = scheduleWindows(track, cycles, n);
+  const windowCount = windowBounds.length - 1;
   if (windowCount < 1) {
     throw new AnalysisInputError(
       "too-short",
-      `record is shorter than one analysis window: ${durationS.toPrecision(3)} s of data, a window is ${cycles} cycles = ${(cycles / fundamentalHz).toFixed(4)} s at ${fundamentalHz.toFixed(2)} Hz`,
+      `record is shorter than one analysis window: ${durationS.toPrecision(3)} s of data, a window is ${cycles} cycles = ${(cycles / segmentMeanHz).toFixed(4)} s at ${segmentMeanHz.toFixed(2)} Hz`,
     );
   }
+  const windowSamples = (windowBounds[windowCount]! - windowBounds[0]!) / windowCount;
+  const fundamentalHz = (cycles * sampleRateHz) / windowSamples;
+  let longest = 0;
+  for (let w = 0; w < windowCount; w++) longest = Math.max(longest, windowBounds[w + 1]! - windowBounds[w]!);
   let points = 1;
-  while (points < windowSamples && points < MAX_POINTS) points *= 2;
+  while (points * (1 + STEP_SLACK) < windowSamples && points < MAX_POINTS) points *= 2;
   const maxOrder = options.maxOrder ?? DEFAULT_MAX_ORDER;
   const orders = Math.max(maxOrder, 50);
   const step = windowSamples / points;
+  // One kernel for the whole capture: windows a hair either side of `points` samples keep the same passband.
   const halfWidth = kernelHalfWidth(step);
   const passband = PASSBAND_FRACTION[halfWidth]!;
   // The interpolator's cutoff is the lower of the source and output Nyquist frequencies (in orders).
@@ -83,15 +94,13 @@ export function planWindows(segmentHz: number[], bounds: number[], sampleRateHz:
   }
   const thdMaxOrder = options.thdMaxOrder ?? 40;
   if (resolvableOrder < thdMaxOrder) warnings.push(`THD is computed up to order ${resolvableOrder} instead of ${thdMaxOrder} (sampling rate too low)`);
-  // Segments' windows differ by parts per thousand at most: pad for the longest step (+2 samples of slack).
-  const lengths = segmentHz.map((hz) => (cycles * sampleRateHz) / hz);
-  const longest = Math.max(windowSamples, ...lengths);
-  const padding = Math.ceil(halfWidth * Math.max(1, Math.max(step, longest / points))) + 2;
+  // Windows differ by parts per thousand at most: pad for the longest step (+2 samples of slack).
+  const padding = Math.ceil(halfWidth * Math.max(1, longest / points)) + 2;
   const span = Math.ceil(longest) + 2 * padding + 2;
   return {
     fundamentalHz,
     nominalHz,
-    shape: { cycles, points, orders, maxOrder, resolvableOrder, thdMaxOrder, padding, span },
-    lengths: segmentHz.length > 1 ? lengths : [windowSamples],
+    shape: { cycles, points, orders, maxOrder, resolvableOrder, thdMaxOrder, halfWidth, padding, span },
+    windowBounds,
   };
 }

@@ -13,6 +13,8 @@ export const DECIMATION_HALF_WIDTH = 8;
 /** Fraction of the cutoff up to which the passband is flat within ±0.02 % (measured), per half-width. */
 export const PASSBAND_FRACTION: Record<number, number> = { 16: 0.8, 8: 0.65 };
 const KAISER_BETA = 8;
+/** Relative excess of a window over its points still treated as 1:1 (0.1 %, the window fit tolerance). */
+export const STEP_SLACK = 1e-3;
 const TABLE_STEPS_PER_SAMPLE = 512;
 
 const tables = new Map<number, Float64Array>();
@@ -30,7 +32,8 @@ function besselI0(x: number): number {
 
 /** Half-width used for a given step (source samples per output point). */
 export function kernelHalfWidth(stepSamples: number): number {
-  return stepSamples > 1 ? DECIMATION_HALF_WIDTH : KERNEL_HALF_WIDTH;
+  // A window a hair longer than its 2^k points (a tracked window of exactly 2^k samples ± jitter) is not decimated.
+  return stepSamples > 1 + STEP_SLACK ? DECIMATION_HALF_WIDTH : KERNEL_HALF_WIDTH;
 }
 
 /** h(u − K) for u = 0..2K in steps of 1/TABLE_STEPS_PER_SAMPLE (plus one guard entry). */
@@ -71,11 +74,11 @@ export interface ResamplePlan {
  * Complexity O(points × taps), taps = 32 when upsampling, 2·⌈8·stepSamples⌉ when decimating.
  *
  * @param reuse a previous plan of the same shape whose arrays may be overwritten.
+ * @param halfWidth kernel half-width (default: {@link kernelHalfWidth} of the step); a capture fixes it once.
  * @example
  * const plan = planResample(20.3, 1280 / 2048, 2048); applyResample(plan, source, out);
  */
-export function planResample(startIndex: number, stepSamples: number, points: number, reuse?: ResamplePlan): ResamplePlan {
-  const halfWidth = kernelHalfWidth(stepSamples);
+export function planResample(startIndex: number, stepSamples: number, points: number, reuse?: ResamplePlan, halfWidth = kernelHalfWidth(stepSamples)): ResamplePlan {
   const values = kernelTable(halfWidth);
   const stretch = Math.max(1, stepSamples);
   const taps = 2 * Math.ceil(halfWidth * stretch);

@@ -1,68 +1,49 @@
-// Where consecutive analysis windows start when the fundamental is measured per segment.
+// Where consecutive analysis windows start and end: each spans exactly 10 or 12 cycles of its own
+// measured fundamental (IEC 61000-4-7 §4.4 / §5).
+import type { PhaseTrack } from "./phase-tracker";
 
 /** Longest window allowed to extend past the record, as a fraction of a window (IEC 61000-4-7 sync tolerance is ±0.03 %). */
-export const WINDOW_FIT_TOLERANCE = 1e-3;
+const WINDOW_FIT_TOLERANCE = 1e-3;
 
 /**
- * Walks the windows of a record: consecutive, each `windowSamples[k]` samples long (whole cycles
- * of segment k's fundamental) where k is the segment holding the window's start. Within a segment
- * starts are anchor + i·length (no accumulated rounding); a window whose start crosses into the
- * next segment anchors that segment. With one segment this is exactly w·length, w < ⌊n/length + 0.001⌋.
+ * Cuts a record of `n` samples into consecutive windows of `cycles` cycles each, from the phase
+ * track of its reference channel: window w spans the samples where the fundamental's phase goes
+ * from Θ(0) + w·cycles to Θ(0) + (w + 1)·cycles, so every window is synchronised to the
+ * fundamental it holds even when the grid drifts. Between block centres the phase is interpolated
+ * linearly (a linear frequency ramp of 0.03 Hz/s moves a boundary by under 10⁻⁵ of a window);
+ * beyond the first and last centres it is extended with the nearest pair's slope (with one
+ * block, the carrier's). Boundaries are computed from Θ(0) + w·cycles, so rounding does not
+ * accumulate. The last window may end up to {@link WINDOW_FIT_TOLERANCE} of a window past the record.
  *
- * Complexity O(1) per window.
+ * Complexity O(blocks + windows).
  *
- * @param bounds segment starts plus the record length at the end ([0, n] for one segment).
- * @param windowSamples window length in samples per segment.
+ * @returns window boundaries in samples (fractional): window w is [bounds[w], bounds[w + 1]); W + 1 numbers.
  * @example
- * const s = new WindowSchedule([0, 12800], [1280]); while (!s.done) { use(s.start, s.windowSamples); s.advance(); }
+ * scheduleWindows(track, 10, 64000) // Float64Array [0, 1280.2, 2560.5, …]
  */
-export class WindowSchedule {
-  start = 0;
-  windowSamples: number;
-  done = false;
-  private segment = 0;
-  private anchor = 0;
-  private index = 0;
-  private readonly n: number;
-
-  constructor(
-    private readonly bounds: number[],
-    private readonly lengths: number[],
-  ) {
-    this.n = bounds[bounds.length - 1]!;
-    this.windowSamples = lengths[0]!;
-    this.update();
+export function scheduleWindows(track: PhaseTrack, cycles: number, n: number): Float64Array {
+  const { blockSamples: b, phasesCycles: phases, firstCarrier } = track;
+  const m = phases.length;
+  const centre = (j: number): number => j * b + (b - 1) / 2;
+  if (m === 0 && !(firstCarrier > 0)) throw new Error("scheduleWindows requires a phase track with a carrier");
+  const firstSlope = m >= 2 ? (phases[1]! - phases[0]!) / b : firstCarrier;
+  const lastSlope = m >= 2 ? (phases[m - 1]! - phases[m - 2]!) / b : firstCarrier;
+  const phase0 = m === 0 ? 0 : phases[0]! - firstSlope * centre(0);
+  const bounds: number[] = [0];
+  let j = 0;
+  /** The sample where the phase reaches `target` cycles (targets only increase). */
+  const inverse = (target: number): number => {
+    if (m === 0) return (target - phase0) / firstSlope;
+    if (target <= phases[0]!) return centre(0) + (target - phases[0]!) / firstSlope;
+    while (j + 1 < m && phases[j + 1]! < target) j++;
+    if (j + 1 >= m) return centre(m - 1) + (target - phases[m - 1]!) / lastSlope;
+    return centre(j) + ((target - phases[j]!) / (phases[j + 1]! - phases[j]!)) * b;
+  };
+  for (let w = 1; ; w++) {
+    const end = inverse(phase0 + w * cycles);
+    const start = bounds[w - 1]!;
+    if (!(end <= n + WINDOW_FIT_TOLERANCE * (end - start))) break;
+    bounds.push(end);
   }
-
-  private update(): void {
-    const length = this.lengths[this.segment]!;
-    this.windowSamples = length;
-    this.start = this.anchor + this.index * length;
-    this.done = !(this.index + 1 <= (this.n - this.anchor) / length + WINDOW_FIT_TOLERANCE);
-  }
-
-  advance(): void {
-    this.index++;
-    const next = this.anchor + this.index * this.lengths[this.segment]!;
-    if (this.segment + 2 < this.bounds.length && next >= this.bounds[this.segment + 1]!) {
-      this.segment++;
-      this.anchor = next;
-      this.index = 0;
-    }
-    this.update();
-  }
-}
-
-/**
- * Splits a record of `n` samples into frequency segments of `segmentSamples`; the last segment
- * takes the remainder (so it holds between one and two segments' worth). Returns the starts plus n.
- *
- * @example
- * segmentBounds(10, 4) // [0, 4, 10]
- */
-export function segmentBounds(n: number, segmentSamples: number): number[] {
-  const count = Math.max(1, Math.floor(n / segmentSamples));
-  const bounds = Array.from({ length: count }, (_, k) => k * segmentSamples);
-  bounds.push(n);
-  return bounds;
+  return Float64Array.from(bounds);
 }

@@ -1,20 +1,25 @@
 // Analyses a CSV file on disk in two streaming passes, with memory that does not grow with the
-// record: pass 1 parses and checks every row and measures the fundamental per segment; pass 2
+// record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
 // parses again and analyses each window from a ring buffer as soon as its samples are in.
-import { analyzeImported } from "./analyze-csv";
-import { checkOptions, FREQUENCY_SEGMENT_SAMPLES, type StageTimings } from "./analyze-samples";
+import { analyzeImported } from "./analyze-imported";
+import type { StageTimings } from "./analyze-samples";
+import { checkOptions } from "./check-options";
+import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
+import { chooseSampleInterval } from "./choose-sample-interval";
 import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
 import { estimateFundamental } from "./estimate-fundamental";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { checkOverrides, finishImport, MemorySink, type ImportOptions } from "./import-csv";
 import { intervalFromPreamble } from "./interval-from-preamble";
+import { LineFit } from "./line-fit";
 import { planColumns, type ColumnPlan } from "./plan-columns";
+import { PhaseTracker } from "./phase-tracker";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
-import { segmentBounds, WindowSchedule } from "./schedule-windows";
+import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 
@@ -31,54 +36,25 @@ interface PendingError {
   error: AnalysisInputError;
 }
 
-/** Running least-squares fit t = a + b·k over the time column (Welford-style co-moments, stable over 10^7 rows). */
-class TimeAxisFit {
-  count = 0;
-  private meanK = 0;
-  private meanT = 0;
-  private ckk = 0;
-  private ckt = 0;
-  firstS = Number.NaN;
-
-  add(timesS: Float64Array, count: number, firstRow: number): void {
-    for (let r = 0; r < count; r++) {
-      const k = firstRow + r;
-      const t = timesS[r]!;
-      if (this.count === 0) this.firstS = t;
-      this.count++;
-      const dk = k - this.meanK;
-      this.meanK += dk / this.count;
-      const dt = t - this.meanT;
-      this.meanT += dt / this.count;
-      // Co-moments with the updated means (Welford): exact in exact arithmetic, no cancellation.
-      this.ckk += dk * (k - this.meanK);
-      this.ckt += dk * (t - this.meanT);
-    }
-  }
-
-  intervalS(): number {
-    return this.ckt / this.ckk;
-  }
-
-  startS(): number {
-    return this.meanT - this.intervalS() * this.meanK;
-  }
-}
-
 /**
  * Pass 1 sink. Keeps rows in memory up to the look-ahead (two frequency segments); a file that
  * ends within it is analysed by the in-memory path (identical results). Beyond it, switches to
  * streaming: time-axis fit and monotonic/step checks, per-channel extremes and r.m.s., and the
- * fundamental of each finished segment of the estimation channels.
+ * fundamental of each finished segment of the estimation channels, whose phase is then tracked
+ * through that segment (the windows' boundaries come from the reference channel's track).
  */
 class FirstPass implements RowSink {
   memory: MemorySink | null;
   streaming = false;
-  readonly fit = new TimeAxisFit();
+  /** Least-squares line t = start + interval·row over the whole time column. */
+  readonly fit = new LineFit();
+  firstTimeS = Number.NaN;
   rows = 0;
   readonly scans: ChannelScan[];
   /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
   readonly ratios: (number | AnalysisInputError)[][];
+  /** The fundamental's phase through the record, per estimation channel (fed segment by segment, as the in-memory path does). */
+  readonly trackers: PhaseTracker[];
   fundamentalMs = 0;
   private provisionalRateHz = 0;
   private previousTimeS = Number.NaN;
@@ -100,6 +76,7 @@ class FirstPass implements RowSink {
     this.memory = new MemorySink(channelCount, hasTime, 2 * segmentSamples + ROW_CHUNK);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.ratios = estimation.map(() => []);
+    this.trackers = estimation.map(() => new PhaseTracker());
     this.segmentBuffers = estimation.map(() => new Float64Array(2 * segmentSamples));
   }
 
@@ -121,9 +98,9 @@ class FirstPass implements RowSink {
     const times = memory.times?.values() ?? null;
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
-      const fit = new TimeAxisFit();
-      fit.add(times, rows, 0);
-      this.provisionalRateHz = 1 / fit.intervalS();
+      const fit = new LineFit();
+      for (let r = 0; r < rows; r++) fit.add(r, times[r]!);
+      this.provisionalRateHz = 1 / fit.slope();
     } else {
       this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
     }
@@ -138,7 +115,8 @@ class FirstPass implements RowSink {
 
   private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     if (timesS && this.hasTime) {
-      this.fit.add(timesS, count, firstRow);
+      if (firstRow === 0 && count > 0) this.firstTimeS = timesS[0]!;
+      for (let r = 0; r < count; r++) this.fit.add(firstRow + r, timesS[r]!);
       const intervalS = 1 / this.provisionalRateHz;
       let previous = this.previousTimeS;
       for (let r = 0; r < count; r++) {
@@ -185,7 +163,10 @@ class FirstPass implements RowSink {
         continue;
       }
       try {
-        list.push(estimateFundamental(this.segmentBuffers[e]!.subarray(0, length), this.provisionalRateHz) / this.provisionalRateHz);
+        const segment = this.segmentBuffers[e]!.subarray(0, length);
+        const ratio = estimateFundamental(segment, this.provisionalRateHz) / this.provisionalRateHz;
+        list.push(ratio);
+        this.trackers[e]!.feed(segment, length, ratio);
       } catch (error) {
         if (!(error instanceof AnalysisInputError)) throw error;
         list.push(error);
@@ -208,12 +189,15 @@ class SecondPass implements RowSink, WindowSource {
   private readonly rings: Float64Array[];
   private readonly mask: number;
   private previousTimeS = Number.NaN;
+  /** The next window to analyse. */
+  private window = 0;
 
   constructor(
     private readonly collector: () => RowCollector,
     private readonly scans: ChannelScan[],
     private readonly analyzer: WindowAnalyzer,
-    private readonly schedule: WindowSchedule,
+    /** Window boundaries in samples (see scheduleWindows). */
+    private readonly windowBounds: Float64Array,
     private readonly recordSamples: number,
     private readonly padding: number,
     private readonly span: number,
@@ -243,12 +227,14 @@ class SecondPass implements RowSink, WindowSource {
 
   /** Analyses every window whose samples (with padding) are all in. */
   drain(): void {
-    const { schedule, analyzer } = this;
+    const { windowBounds, analyzer } = this;
     const available = Math.min(this.filled, this.recordSamples);
     const started = performance.now();
-    while (!schedule.done && Math.min(Math.floor(schedule.start) - this.padding + this.span, this.recordSamples) <= available) {
-      analyzer.addWindow(schedule.start, schedule.windowSamples, this);
-      schedule.advance();
+    while (this.window + 1 < windowBounds.length) {
+      const start = windowBounds[this.window]!;
+      if (Math.min(Math.floor(start) - this.padding + this.span, this.recordSamples) > available) break;
+      analyzer.addWindow(start, windowBounds[this.window + 1]! - start, this);
+      this.window++;
     }
     this.windowsMs += performance.now() - started;
   }
@@ -311,7 +297,8 @@ export interface StreamTuning {
  * memory and analysed exactly as {@link analyzeImported} does. Longer records take two streaming
  * passes: pass 1 parses every row (every parse error with its line), fits the time axis
  * incrementally, checks monotonicity, accumulates each channel's extremes and r.m.s., and
- * measures the fundamental per segment; pass 2 parses again, checks steps/residuals against the
+ * measures the fundamental per segment and tracks its phase (so each window spans whole cycles
+ * of its own fundamental); pass 2 parses again, checks steps/residuals against the
  * whole-record fit and clipping runs against the extremes, and analyses each 10/12-cycle window
  * from a ring buffer as soon as its samples are in. Only per-window numbers are kept.
  *
@@ -376,50 +363,40 @@ export async function streamCsvAnalysis(
   first.end();
   const warnings = collector1.end();
   const n = collector1.rows;
-  // The sample interval, as finishImport decides it.
-  let sampleIntervalS: number;
-  let sampleIntervalSource: AnalysisResult["sampleIntervalSource"];
+  // The sample interval: the same decision as the in-memory import's (chooseSampleInterval).
   let timeCheck: ConstructorParameters<typeof SecondPass>[7] = null;
-  if (options.sampleIntervalS !== undefined) {
-    if (!(options.sampleIntervalS > 0) || !Number.isFinite(options.sampleIntervalS)) {
-      throw new AnalysisInputError("invalid-option", `sample interval must be a positive number of seconds, got ${options.sampleIntervalS}`);
-    }
-    // A given interval replaces the time column's spacing, but a column running backwards is still an error.
-    if (first.monotonicError) throw first.monotonicError.error;
-    sampleIntervalS = options.sampleIntervalS;
-    sampleIntervalSource = "option";
-  } else if (timeColumn) {
-    if (first.monotonicError) throw first.monotonicError.error;
-    const column = timeColumn.index + 1;
-    sampleIntervalS = first.fit.intervalS();
-    if (!(sampleIntervalS > 0)) {
-      throw new AnalysisInputError(
-        "irregular-time",
-        `time axis does not advance: every time stamp from line ${collector1.lineOfRow(0)} on is ${first.fit.firstS} s`,
-        { line: collector1.lineOfRow(0), column },
-      );
-    }
-    const toleranceS = 0.5 * sampleIntervalS + collector1.timeResolutionS();
-    const step = first.stepError;
-    if (step && Math.abs(step.stepS - sampleIntervalS) > toleranceS) {
-      const line = collector1.lineOfRow(step.row);
-      throw new AnalysisInputError(
-        "irregular-time",
-        `irregular time axis at line ${line}: step of ${step.stepS.toPrecision(4)} s where the interval is ${sampleIntervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
-        { line, column },
-      );
-    }
-    timeCheck = { intervalS: sampleIntervalS, startS: first.fit.startS(), toleranceS, column };
-    sampleIntervalSource = "time-column";
-  } else if (stated !== null) {
-    sampleIntervalS = stated;
-    sampleIntervalSource = "preamble";
-  } else {
-    throw new AnalysisInputError(
-      "no-sample-interval",
-      "no sample interval: the file has no time column and its preamble states no sample interval or rate (give the interval in seconds)",
-    );
-  }
+  // A given interval replaces the time column's spacing, but a column running backwards is still an error.
+  if (options.sampleIntervalS !== undefined && first.monotonicError) throw first.monotonicError.error;
+  const { sampleIntervalS, sampleIntervalSource } = chooseSampleInterval(
+    options.sampleIntervalS,
+    timeColumn
+      ? () => {
+          if (first.monotonicError) throw first.monotonicError.error;
+          const column = timeColumn.index + 1;
+          const intervalS = first.fit.slope();
+          if (!(intervalS > 0)) {
+            throw new AnalysisInputError(
+              "irregular-time",
+              `time axis does not advance: every time stamp from line ${collector1.lineOfRow(0)} on is ${first.firstTimeS} s`,
+              { line: collector1.lineOfRow(0), column },
+            );
+          }
+          const toleranceS = 0.5 * intervalS + collector1.timeResolutionS();
+          const step = first.stepError;
+          if (step && Math.abs(step.stepS - intervalS) > toleranceS) {
+            const line = collector1.lineOfRow(step.row);
+            throw new AnalysisInputError(
+              "irregular-time",
+              `irregular time axis at line ${line}: step of ${step.stepS.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
+              { line, column },
+            );
+          }
+          timeCheck = { intervalS, startS: first.fit.intercept(), toleranceS, column };
+          return intervalS;
+        }
+      : null,
+    stated,
+  );
   if (timings) timings.importMs = performance.now() - started;
 
   // The checks analyzeSamples makes, in its order.
@@ -450,7 +427,7 @@ export async function streamCsvAnalysis(
   });
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings);
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.trackers[estimation.indexOf(reference)]!.finish());
   if (timings) timings.fundamentalMs = first.fundamentalMs + performance.now() - clock;
 
   // Pass 2.
@@ -460,9 +437,8 @@ export async function streamCsvAnalysis(
     reference,
     plan.shape,
     n,
-    n / plan.lengths[0]! + 1,
+    plan.windowBounds.length - 1,
   );
-  const schedule = new WindowSchedule(bounds, plan.lengths);
   const waveform = options.keepWaveformCycles
     ? new WaveformCollector(
         options.keepWaveformCycles,
@@ -473,7 +449,7 @@ export async function streamCsvAnalysis(
       )
     : null;
   let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, schedule, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
+  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
   collector2 = new RowCollector(layout, columns, second);
   await readCsvRows(path, head, collector2);
   if (collector2.rows !== n) {
@@ -491,19 +467,7 @@ export async function streamCsvAnalysis(
   clock = performance.now();
   const aggregate = analyzer.finish(analysisOptions, warnings);
   aggregate.channels.forEach((channel, c) => (channel.scale = channelColumns[c]!.scale));
-  const result: AnalysisResult = {
-    fundamentalHz: plan.fundamentalHz,
-    nominalHz: plan.nominalHz,
-    sampleIntervalS,
-    durationS,
-    window: { cycles: plan.shape.cycles, points: plan.shape.points, count: analyzer.count },
-    maxResolvableOrder: plan.shape.resolvableOrder,
-    channels: aggregate.channels,
-    power: aggregate.power,
-    warnings,
-  };
-  if (aggregate.sequence.length > 0) result.sequence = aggregate.sequence;
-  result.sampleIntervalSource = sampleIntervalSource;
+  const result = assembleAnalysisResult({ plan, aggregate, windowCount: analyzer.count, sampleIntervalS, durationS, warnings, sampleIntervalSource });
   if (waveform) result.waveform = waveform.result();
   if (timings) timings.aggregateMs = performance.now() - clock;
   return result;

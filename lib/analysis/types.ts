@@ -76,6 +76,7 @@ export interface PowerPhase {
 }
 
 export interface AnalysisResult {
+  /** Mean fundamental over the analysed windows, Hz (their cycles divided by their duration). */
   fundamentalHz: number;
   nominalHz: 50 | 60;
   sampleIntervalS: number;
@@ -137,9 +138,9 @@ export interface AnalysisOptions {
   /** Keep per-window rms of every order in `ChannelResult.harmonicSeries` (for charts). */
   includeOrderSeries?: boolean;
   /**
-   * The fundamental is re-measured per segment of this many samples (default 2^18 ≈ 10 s at
-   * 25.6 kS/s; the last segment takes the remainder, so records under two segments use one
-   * estimate); windows stay whole cycles of their segment's fundamental. At least 4096.
+   * The fundamental is estimated per segment of this many samples (default 2^18 ≈ 10 s at
+   * 25.6 kS/s; the last segment takes the remainder) as the carrier of the phase tracking that
+   * cuts every window to whole cycles of its own fundamental. At least 4096.
    */
   frequencySegmentSamples?: number;
   /**

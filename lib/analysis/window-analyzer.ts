@@ -1,6 +1,6 @@
 // Per-window analysis and the whole-capture aggregation, fed one window at a time: the in-memory
 // path hands it windows cut from arrays, the streaming path windows cut from a ring buffer.
-import { summarizeWindows } from "./aggregate";
+import { summarizeWindows } from "./summarize-windows";
 import { getFft } from "./get-fft";
 import { computeIndices } from "./indices";
 import { pairPhases } from "./pair-phases";
@@ -32,6 +32,8 @@ export interface WindowShape {
   maxOrder: number;
   resolvableOrder: number;
   thdMaxOrder: number;
+  /** Half-width of the resampling kernel, in source samples (one for the whole capture). */
+  halfWidth: number;
   /** Samples copied before a window's first sample for the interpolator. */
   padding: number;
   /** Samples copied per window (window + both paddings). */
@@ -167,14 +169,14 @@ export class WindowAnalyzer {
    */
   addWindow(start: number, windowSamples: number, source: WindowSource): void {
     const { channels, fft, scratch, reference, pairs, sets, pairActive, pairProduct, sequenceSq, stride } = this;
-    const { cycles, points, resolvableOrder, thdMaxOrder, padding, span } = this.shape;
+    const { cycles, points, resolvableOrder, thdMaxOrder, halfWidth, padding, span } = this.shape;
     const n = this.recordSamples;
     const binScale = Math.SQRT2 / points;
     const halfPoints = points / 2;
     const binSq = (spectrum: Float64Array, k: number): number =>
       k <= 0 || k >= halfPoints ? 0 : (spectrum[2 * k]! ** 2 + spectrum[2 * k + 1]! ** 2) * binScale * binScale;
     const first = Math.floor(start) - padding;
-    const plan = planResample(start - first, windowSamples / points, points, this.plan);
+    const plan = planResample(start - first, windowSamples / points, points, this.plan, halfWidth);
     this.plan = plan;
     const period = Math.round(windowSamples);
     const w = this.count;

@@ -4,7 +4,7 @@
 // all orders ≤ 50 within 0.5 % at ≥ 256 samples/cycle; fundamental within 0.01 Hz.
 import { describe, expect, test } from "vitest";
 import { analyzeSamples } from "@/lib/analysis/analyze-samples";
-import { mulberry32 } from "./signals";
+import { mulberry32, rampingMultiTone } from "./signals";
 
 function multiTone(frequencyHz: number, rateHz: number, seconds: number, seed: number) {
   const rnd = mulberry32(seed);
@@ -75,4 +75,36 @@ test("orders above the resolvable order are null, never 0, and a warning says so
   expect(h[49]!.percentOfFundamental).toBeNull();
   expect(result.channels[0]!.thd40Percent).toBeNull();
   expect(result.warnings.some((w) => /resolves orders up to 16/.test(w))).toBe(true);
+});
+
+describe("a grid drifting 0.3 Hz over 10 s: every window synchronised to its own fundamental", { timeout: 30_000 }, () => {
+  // IEC 61000-4-7:2002+A1:2008 §4.4/§5: the window spans 10 (50 Hz) or 12 (60 Hz) cycles of the
+  // measured fundamental. Expected values are the analytic amplitudes put into the signal (order h
+  // of amplitude A has r.m.s. A/√2). Targets of the issue: orders ≤ 25 within 0.5 %, ≤ 50 within 1 %.
+  const rnd = mulberry32(2026);
+  const amplitudes = Array.from({ length: 51 }, (_, h) => (h === 0 ? 0 : h === 1 ? 100 : 2 + 8 * rnd()));
+  const phases = Array.from({ length: 51 }, () => 2 * Math.PI * rnd());
+
+  test.each([
+    [49.85, 25_600],
+    [59.85, 25_600],
+  ])("%s Hz + 0.3 Hz ramp at %s S/s", (startHz, rateHz) => {
+    const samples = rampingMultiTone(startHz, 0.3, rateHz, 10, amplitudes, phases);
+    const result = analyzeSamples({ sampleIntervalS: 1 / rateHz, channels: [{ name: "V", quantity: "voltage", samples }] });
+    // The mean of a linear ramp is its midpoint.
+    expect(Math.abs(result.fundamentalHz - (startHz + 0.15))).toBeLessThan(0.01);
+    const harmonics = result.channels[0]!.harmonics;
+    for (let h = 1; h <= 50; h++) {
+      const error = Math.abs(harmonics[h - 1]!.rms! / (amplitudes[h]! / Math.SQRT2) - 1);
+      expect(error, `order ${h}`).toBeLessThan(h <= 25 ? 0.005 : 0.01);
+    }
+  });
+
+  test("orders absent from the signal stay absent: no leakage from the fundamental and odd orders into h2, h4, h6", () => {
+    // Only orders 1, 3, 5, 7 are present (100, 20, 10, 5); windows a whole number of cycles long put
+    // nothing between them. A window 0.15 Hz off the fundamental showed about 0.2 % in h2.
+    const samples = rampingMultiTone(49.85, 0.3, 25_600, 10, [0, 100, 0, 20, 0, 10, 0, 5], [0, 0, 0, 1, 0, 2, 0, 3]);
+    const result = analyzeSamples({ sampleIntervalS: 1 / 25_600, channels: [{ name: "V", quantity: "voltage", samples }] });
+    for (const order of [2, 4, 6]) expect(result.channels[0]!.harmonics[order - 1]!.percentOfFundamental!, `order ${order}`).toBeLessThan(0.01);
+  });
 });

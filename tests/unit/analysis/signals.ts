@@ -19,3 +19,22 @@ export function quasiSquareAt(k: number, perCycle: number, betaDeg: number, id =
   };
   return id * (level(90) - level(270));
 }
+
+/**
+ * A clean multi-tone whose fundamental ramps linearly from `startHz` by `rampHz` over the record:
+ * f(t) = startHz + rampHz·t/T, so the fundamental's phase is θ(t) = 2π(startHz·t + rampHz·t²/(2T))
+ * (the integral of the frequency) and order h is amplitudes[h]·cos(h·θ + phases[h]). The r.m.s. of
+ * order h is amplitudes[h]/√2 at every instant (Fourier series of a periodic wave; textbook).
+ */
+export function rampingMultiTone(startHz: number, rampHz: number, rateHz: number, seconds: number, amplitudes: number[], phases: number[]): Float64Array {
+  const n = Math.round(seconds * rateHz);
+  const samples = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    const t = k / rateHz;
+    const theta = 2 * Math.PI * (startHz * t + (rampHz * t * t) / (2 * seconds));
+    let v = 0;
+    for (let h = 1; h < amplitudes.length; h++) if (amplitudes[h]) v += amplitudes[h]! * Math.cos(h * theta + phases[h]!);
+    samples[k] = v;
+  }
+  return samples;
+}

@@ -1,10 +1,8 @@
 // 150/180-cycle (≈ 3 s) and 10-minute aggregation of window values (IEC 61000-4-30 r.m.s.
 // aggregation — from memory; reference §3.3 and §4.5).
 import { describe, expect, test } from "vitest";
-import { aggregateChannelTime } from "@/lib/analysis/aggregate-channel-time";
 import { aggregateIntervals } from "@/lib/analysis/aggregate-intervals";
 import { planIntervals } from "@/lib/analysis/plan-intervals";
-import type { AnalysisResult } from "@/lib/analysis/types";
 
 const WINDOW_S = 0.2; // 10 cycles at 50 Hz
 
@@ -68,25 +66,5 @@ describe("10-minute values: r.m.s. of the window values in each interval", () =>
     expect(plan.starts.length).toBe(1);
     // Windows starting in [0, 600 s): k · 0.2002 s < 600 s → k < 2997 (600 s × 49.95 Hz / 10 cycles).
     expect(plan.ends[0]! - plan.starts[0]!).toBe(2997);
-  });
-});
-
-describe("aggregateChannelTime", () => {
-  test("per-order window, smoothed, 3 s and 10 min statistics of a synthetic 11-minute capture", () => {
-    const count = 3300; // 660 s of 200 ms windows
-    const h5 = Array.from({ length: count }, (_, k) => (k < 3000 ? 2 : 6));
-    const analysis = {
-      fundamentalHz: 50,
-      window: { cycles: 10, points: 2048, count },
-      channels: [{ name: "Ia", harmonicSeries: [Array(count).fill(10), null, null, null, h5] }],
-    } as unknown as AnalysisResult;
-    const time = aggregateChannelTime(analysis, "Ia");
-    const fifth = time.orders.find((o) => o.order === 5)!;
-    expect(fifth.window).toMatchObject({ max: 6, count });
-    expect(fifth.veryShort?.values.length).toBe(220);
-    expect(fifth.short?.values.length).toBe(1);
-    expect(fifth.short?.values[0]).toBeCloseTo(2, 12);
-    expect(fifth.smoothed.stats.max).toBeCloseTo(2 + 4 * (1 - Math.exp(-300 * 0.2 / 1.5)), 9);
-    expect(time.align).toBe("record-start");
   });
 });

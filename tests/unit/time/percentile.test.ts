@@ -2,7 +2,6 @@
 import { describe, expect, test } from "vitest";
 import { orderStatistic } from "@/lib/analysis/order-statistic";
 import { percentile } from "@/lib/analysis/percentile";
-import { seriesStatistics } from "@/lib/analysis/series-statistics";
 
 describe("percentile (nearest rank: the ⌈p/100·n⌉-th smallest value)", () => {
   // Classic nearest-rank worked example (common practice): {15, 20, 35, 40, 50}.
@@ -58,14 +57,5 @@ describe("orderStatistic (quickselect)", () => {
 
   test("rejects k outside 0..n−1", () => {
     expect(() => orderStatistic(Float64Array.from([1, 2]), 2)).toThrow("orderStatistic requires 0 ≤ k < 2, got 2");
-  });
-});
-
-describe("seriesStatistics", () => {
-  test("1..200: mean 100.5, max 200, p95 = 190th, p99 = 198th value (nearest rank)", () => {
-    const values = Array.from({ length: 200 }, (_, i) => 200 - i);
-    const stats = seriesStatistics(values);
-    expect(stats).toMatchObject({ count: 200, mean: 100.5, max: 200, p95: 190, p99: 198 });
-    expect(stats.rms).toBeCloseTo(Math.sqrt((200 * 201 * 401) / 6 / 200), 9);
   });
 });
