@@ -275,6 +275,9 @@ function cliCases(): BenchCase[] {
       targets: { wallS: 1.2, rssMB: 250 },
     },
   ];
+}
+
+/**
  * Front-end diagnosis: a 2 s three-phase capture of a six-pulse drive (simulated, 1 % line
  * reactance, 100 A) analysed, then diagnosed twice — the first run in a cold process (code not yet
  * optimised by the JIT), the second warm. Target < 1 s per channel.
