@@ -1,16 +1,9 @@
 // npm run analyze -- FILE --json --diagnose / --mitigate SPEC (the exact contract of the CLI).
-import { spawnSync } from "node:child_process";
-import path from "node:path";
 import { describe, expect, it } from "vitest";
+import { runAnalyzeCli } from "@/tests/support/run-analyze-cli";
 
-const tsx = path.resolve("node_modules/.bin/tsx");
 const file = "fixtures/demo/quillbrook-drives-before-filter.csv";
-
-function cli(args: string[]) {
-  const env = { ...process.env };
-  delete env.DATABASE_URL;
-  return spawnSync(tsx, ["scripts/analyze.ts", ...args], { encoding: "utf8", env, timeout: 120_000, maxBuffer: 256 * 1024 * 1024 });
-}
+const cli = (args: string[]) => runAnalyzeCli(args, { timeoutMs: 120_000 });
 
 describe("npm run analyze -- FILE --diagnose --mitigate SPEC", () => {
   it("adds diagnosis and whatIf, with the predicted compliance judged like the measured one", () => {
