@@ -17,6 +17,8 @@ describe("parseAnalyzeArgs", () => {
       context: { iscA: 8200, ilA: 260, busVoltageV: 480, busVoltageSource: "given" },
       limitSetKey: "ieee-519-2014-current",
       recordStartMs: Date.UTC(2024, 2, 4, 12, 5, 0),
+      diagnose: false,
+      mitigate: [],
     });
   });
 
