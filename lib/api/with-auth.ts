@@ -58,8 +58,8 @@ export function errorResponse(err: unknown): NextResponse {
 }
 
 /** Route parameters never carry control characters (a NUL would otherwise reach the database). */
-function assertCleanParams(params: Params): void {
-  for (const [name, value] of Object.entries(params)) {
+function assertCleanParams(params: Params | undefined): void {
+  for (const [name, value] of Object.entries(params ?? {})) {
     for (const v of Array.isArray(value) ? value : [value]) {
       const problem = controlCharacterProblem(v, { multiLine: false });
       if (problem) throw new AppError("validation", "Some fields need attention.", { [name]: [problem] });

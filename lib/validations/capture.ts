@@ -81,7 +81,7 @@ export const captureListQuerySchema = z.object({
   status: z.enum(["uploading", "uploaded", "queued", "running", "done", "failed"]).optional(),
   from: boundedIsoDate().optional(),
   to: boundedIsoDate().optional(),
-  page: z.coerce.number().int().min(1).default(1),
+  page: z.coerce.number().int().min(1).max(100_000, "Page is out of range").default(1),
 });
 
 export type RegisterCaptureInput = z.infer<typeof registerCaptureSchema>;
