@@ -126,7 +126,8 @@ describe("every route handler, signed in as admin, with hostile input", () => {
             if (probe.what === "text/plain" || probe.what === "a form" || probe.what === "no content type") expect(res.status, probe.what).toBe(415);
             if (probe.what === "a 2 MB body") expect(res.status).toBe(413);
             if (probe.what === "NUL in every text field") expect(res.status).toBe(422);
-            if (probe.what === "JSON nested 5000 deep") expect(res.status).toBe(422);
+            // 10 kB of brackets: refused as too deep, or as too large where the route reads only a few kB.
+            if (probe.what === "JSON nested 5000 deep") expect([413, 422]).toContain(res.status);
             if (probe.what === "malformed JSON" || probe.what === "invalid UTF-8") expect(res.status).toBe(400);
           }
         }
