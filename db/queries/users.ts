@@ -178,6 +178,12 @@ export type SignInClaim = { ok: true } | { ok: false; scope: "account" | "client
  */
 export async function claimSignInAttempt({ email, client }: { email: string; client: string }): Promise<SignInClaim> {
   const accountKey = `account:${email}`;
+  // Now and then, forget keys idle for a day (guesses at made-up addresses would otherwise pile up).
+  if (Math.random() < 0.02) {
+    await db
+      .delete(signInThrottle)
+      .where(sql`${signInThrottle.nextAttemptAt} < now() - interval '1 day' and ${signInThrottle.windowStart} < now() - interval '1 day'`);
+  }
   const claim = encodeHexLowerCase(crypto.getRandomValues(new Uint8Array(12)));
   const { freeAttempts, maxDelayS, quietResetS, clientMaxFailures, clientWindowS } = throttle;
   const t = signInThrottle;
