@@ -16,7 +16,7 @@ export const limitSetKeySchema = z
 
 export const limitSetNameSchema = singleLineText().trim().min(2, "Name needs at least 2 characters").max(160, "Name is too long (max 160)");
 
-export const revisionReasonSchema = multiLineText()
+export const revisionReasonSchema = multiLineText({ error: "Give a reason for this revision" })
   .trim()
   .min(3, "Give a reason for this revision (at least 3 characters)")
   .max(1000, "Reason is too long (max 1000)");

@@ -23,16 +23,18 @@ export function controlCharacterProblem(text: string, { multiLine }: { multiLine
   return `Contains a control character (${codePoint(ch)})`;
 }
 
-/** A one-line text field: no control characters at all. */
-export const singleLineText = () =>
-  z.string().superRefine((v, ctx) => {
+type StringParams = Parameters<typeof z.string>[0];
+
+/** A one-line text field: no control characters at all. `params` as for `z.string` (e.g. the missing-value message). */
+export const singleLineText = (params?: StringParams) =>
+  z.string(params).superRefine((v, ctx) => {
     const problem = controlCharacterProblem(v, { multiLine: false });
     if (problem) ctx.addIssue({ code: "custom", message: problem });
   });
 
 /** A multi-line text field: tab and line breaks allowed, other control characters not. */
-export const multiLineText = () =>
-  z.string().superRefine((v, ctx) => {
+export const multiLineText = (params?: StringParams) =>
+  z.string(params).superRefine((v, ctx) => {
     const problem = controlCharacterProblem(v, { multiLine: true });
     if (problem) ctx.addIssue({ code: "custom", message: problem });
   });
