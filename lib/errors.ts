@@ -6,7 +6,10 @@ export type AppErrorCode =
   | "unauthorized"
   | "forbidden"
   | "not_found"
+  | "method_not_allowed"
   | "conflict"
+  | "payload_too_large"
+  | "unsupported_media_type"
   | "validation"
   | "too_many_requests"
   | "internal";
@@ -16,7 +19,10 @@ const statusByCode: Record<AppErrorCode, number> = {
   unauthorized: 401,
   forbidden: 403,
   not_found: 404,
+  method_not_allowed: 405,
   conflict: 409,
+  payload_too_large: 413,
+  unsupported_media_type: 415,
   validation: 422,
   too_many_requests: 429,
   internal: 500,
@@ -25,12 +31,15 @@ const statusByCode: Record<AppErrorCode, number> = {
 export class AppError extends Error {
   readonly code: AppErrorCode;
   readonly fieldErrors?: Record<string, string[]>;
+  /** For "too_many_requests": seconds until a retry can succeed (sent as Retry-After). */
+  readonly retryAfterS?: number;
 
-  constructor(code: AppErrorCode, message: string, fieldErrors?: Record<string, string[]>) {
+  constructor(code: AppErrorCode, message: string, fieldErrors?: Record<string, string[]>, retryAfterS?: number) {
     super(message);
     this.name = "AppError";
     this.code = code;
     this.fieldErrors = fieldErrors;
+    this.retryAfterS = retryAfterS;
   }
 
   get status(): number {

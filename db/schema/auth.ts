@@ -1,4 +1,4 @@
-import { boolean, index, integer, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { boolean, integer, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { roleEnum } from "./enums";
 
 export const users = pgTable("users", {
@@ -19,6 +19,8 @@ export const sessions = pgTable("sessions", {
     .notNull()
     .references(() => users.id, { onDelete: "cascade" }),
   expiresAt: timestamp("expires_at", { withTimezone: true, mode: "date" }).notNull(),
+  // When the session began: a session ends 7 days after this however active it is (lib/auth/session.ts).
+  createdAt: timestamp("created_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
 });
 
 export const invitations = pgTable("invitations", {
@@ -34,18 +36,18 @@ export const invitations = pgTable("invitations", {
   createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
 });
 
-// Failed sign-ins per e-mail address, for throttling.
-export const signInAttempts = pgTable(
-  "sign_in_attempts",
-  {
-    id: uuid("id").primaryKey().defaultRandom(),
-    email: text("email").notNull(),
-    failures: integer("failures").notNull().default(0),
-    windowStart: timestamp("window_start", { withTimezone: true }).notNull().defaultNow(),
-    lockedUntil: timestamp("locked_until", { withTimezone: true }),
-  },
-  (t) => [index("sign_in_attempts_email_idx").on(t.email)],
-);
+// Sign-in throttling: one row per key ("account:<e-mail>" or "client:<address>"), claimed atomically by an
+// upsert before a password is checked (db/queries/users.ts).
+export const signInThrottle = pgTable("sign_in_throttle", {
+  key: text("key").primaryKey(),
+  // Attempts claimed since the window began (a successful sign-in releases its claim).
+  attempts: integer("attempts").notNull().default(0),
+  windowStart: timestamp("window_start", { withTimezone: true }).notNull().defaultNow(),
+  // No attempt for this key is checked before this time (exponential back-off).
+  nextAttemptAt: timestamp("next_attempt_at", { withTimezone: true }).notNull().defaultNow(),
+  // A random value written by the attempt that last claimed the row, so the claimer can tell it won.
+  claim: text("claim"),
+});
 
 export type User = typeof users.$inferSelect;
 export type NewUser = typeof users.$inferInsert;

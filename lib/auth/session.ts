@@ -8,12 +8,19 @@ import { can, type Permission } from "./permissions";
 
 export type SessionUser = User;
 
+/** Absolute session lifetime: 7 days from sign-in, however active the session is. */
+export const sessionMaxAgeMs = 7 * 24 * 3600 * 1000;
+
 /** The signed-in user of this request, or null. Refreshes the cookie when lucia extends the session. */
 export const getCurrentSession = cache(async (): Promise<{ user: User; session: Session } | { user: null; session: null }> => {
   const jar = await cookies();
   const sessionId = jar.get(lucia.sessionCookieName)?.value ?? null;
   if (!sessionId) return { user: null, session: null };
-  const result = await lucia.validateSession(sessionId);
+  const validated = await lucia.validateSession(sessionId);
+  // The sliding 12 h lifetime is capped by an absolute one: a session ends `sessionMaxAgeMs` after it began.
+  const tooOld = validated.session !== null && Date.now() - new Date(validated.session.createdAt).getTime() > sessionMaxAgeMs;
+  if (tooOld) await lucia.invalidateSession(validated.session.id);
+  const result = tooOld ? { user: null, session: null } : validated;
   try {
     if (result.session?.fresh) {
       const c = lucia.createSessionCookie(result.session.id);
@@ -44,7 +51,7 @@ export async function authorise(permission: Permission | null): Promise<User> {
 }
 
 export async function startSession(userId: string): Promise<void> {
-  const session = await lucia.createSession(userId, {});
+  const session = await lucia.createSession(userId, { createdAt: new Date() });
   const c = lucia.createSessionCookie(session.id);
   (await cookies()).set(c.name, c.value, c.attributes);
 }

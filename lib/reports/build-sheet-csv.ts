@@ -1,16 +1,23 @@
+import Papa from "papaparse";
 import { formatWhen, summariseContext } from "./format";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
 
-function cell(value: string | number | null | undefined): string {
+type Cell = string | number | null | undefined;
+
+/** A cell as papaparse should write it: numbers stay numbers (eight significant figures), non-finite ones and nulls empty. */
+function cell(value: Cell): string | number {
   if (value === null || value === undefined) return "";
-  const text = typeof value === "number" ? (Number.isFinite(value) ? String(Number(value.toPrecision(8))) : "") : value;
-  // RFC 4180 quoting; a leading =, +, - or @ is prefixed so spreadsheets do not run it as a formula.
-  const safe = /^[=+\-@]/.test(text) && typeof value === "string" ? `'${text}` : text;
-  return /[",\r\n]/.test(safe) ? `"${safe.replace(/"/g, '""')}"` : safe;
+  if (typeof value === "number") return Number.isFinite(value) ? Number(value.toPrecision(8)) : "";
+  return value;
 }
 
-const line = (cells: Array<string | number | null | undefined>) => cells.map(cell).join(",");
+/**
+ * RFC 4180 lines by papaparse. Text starting with =, +, -, @, tab or carriage return gets a leading
+ * apostrophe (papaparse's `escapeFormulae`) so a spreadsheet shows it instead of running it as a formula;
+ * numbers are written as numbers, so a negative margin such as -0.2 stays a number.
+ */
+const line = (cells: Cell[]) => Papa.unparse([cells.map(cell)], { escapeFormulae: true, newline: "\r\n" });
 
 /**
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,

@@ -1,6 +1,7 @@
 import { z } from "zod";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
+import { boundedIsoDate, boundedIsoDateTime, multiLineText, singleLineText } from "./text";
 
 export const maxUploadBytes = 200 * 1024 * 1024;
 
@@ -10,9 +11,8 @@ const optionalNumber = (schema: z.ZodNumber) =>
 export const registerCaptureSchema = z.object({
   siteId: z.uuid("Choose a site"),
   kind: z.enum(["waveform", "interval-log"]).default("waveform"),
-  title: z.string().trim().min(2, "Title needs at least 2 characters").max(160, "Title is too long (max 160)"),
-  filename: z
-    .string()
+  title: singleLineText().trim().min(2, "Title needs at least 2 characters").max(160, "Title is too long (max 160)"),
+  filename: singleLineText()
     .trim()
     .min(1)
     .max(255)
@@ -22,7 +22,7 @@ export const registerCaptureSchema = z.object({
     .int()
     .positive("The file is empty")
     .max(maxUploadBytes, `The file is larger than the ${maxUploadBytes / 1024 / 1024} MB limit`),
-  capturedAt: z.iso.datetime({ offset: true }).optional(),
+  capturedAt: boundedIsoDateTime().optional(),
 });
 
 export const channelMappingSchema = z.object({
@@ -72,7 +72,7 @@ export const reevaluateSchema = z.object({
 export const reviewActionSchema = z
   .object({
     action: z.enum(["submitted", "approved", "sent_back", "comment"]),
-    comment: z.string().trim().max(4000, "Comment is too long (max 4000)").default(""),
+    comment: multiLineText().trim().max(4000, "Comment is too long (max 4000)").default(""),
     /** The evaluation the decision is about (required to approve: it must be the newest one). */
     evaluationId: z.uuid("Name the evaluation").optional(),
   })
@@ -82,7 +82,7 @@ export const reviewActionSchema = z
   });
 
 export const createShareSchema = z.object({
-  label: z.string().trim().max(120).default(""),
+  label: singleLineText().trim().max(120).default(""),
   expiresInDays: z.coerce.number().int().min(1, "At least 1 day").max(90, "At most 90 days").default(14),
 });
 
@@ -90,9 +90,9 @@ export const captureListQuerySchema = z.object({
   site: z.uuid().optional(),
   verdict: z.enum(["pass", "fail", "incomplete"]).optional(),
   status: z.enum(["uploading", "uploaded", "queued", "running", "done", "failed"]).optional(),
-  from: z.iso.date().optional(),
-  to: z.iso.date().optional(),
-  page: z.coerce.number().int().min(1).default(1),
+  from: boundedIsoDate().optional(),
+  to: boundedIsoDate().optional(),
+  page: z.coerce.number().int().min(1).max(100_000, "Page is out of range").default(1),
 });
 
 export type RegisterCaptureInput = z.infer<typeof registerCaptureSchema>;

@@ -3,6 +3,7 @@
 import { z } from "zod";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
+import { multiLineText, singleLineText } from "./text";
 
 export const limitSetKeySchema = z
   .string()
@@ -13,10 +14,9 @@ export const limitSetKeySchema = z
   // `/api/limit-sets/import` is a route of its own.
   .refine((k) => k !== "import", "Key import is reserved");
 
-export const limitSetNameSchema = z.string().trim().min(2, "Name needs at least 2 characters").max(160, "Name is too long (max 160)");
+export const limitSetNameSchema = singleLineText().trim().min(2, "Name needs at least 2 characters").max(160, "Name is too long (max 160)");
 
-export const revisionReasonSchema = z
-  .string({ error: "Give a reason for this revision" })
+export const revisionReasonSchema = multiLineText({ error: "Give a reason for this revision" })
   .trim()
   .min(3, "Give a reason for this revision (at least 3 characters)")
   .max(1000, "Reason is too long (max 1000)");

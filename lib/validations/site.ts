@@ -1,4 +1,5 @@
 import { z } from "zod";
+import { multiLineText, singleLineText } from "./text";
 
 const optionalPositive = (label: string) =>
   z.preprocess(
@@ -9,8 +10,8 @@ const optionalPositive = (label: string) =>
 // Shared by the site form, the route handlers and the SWR hook.
 export const siteInputSchema = z
   .object({
-    name: z.string().trim().min(2, "Name needs at least 2 characters").max(120, "Name is too long (max 120)"),
-    address: z.string().trim().max(300, "Address is too long (max 300)").default(""),
+    name: singleLineText().trim().min(2, "Name needs at least 2 characters").max(120, "Name is too long (max 120)"),
+    address: multiLineText().trim().max(300, "Address is too long (max 300)").default(""),
     nominalVoltageV: z.coerce
       .number({ error: "Nominal voltage must be a number" })
       .positive("Nominal voltage must be greater than zero")
@@ -18,7 +19,7 @@ export const siteInputSchema = z
     frequencyHz: z.coerce.number({ error: "Frequency must be 50 or 60 Hz" }).refine((f) => f === 50 || f === 60, "Frequency must be 50 or 60 Hz"),
     iscA: optionalPositive("Isc"),
     ilA: optionalPositive("IL"),
-    notes: z.string().trim().max(4000, "Notes are too long (max 4000)").default(""),
+    notes: multiLineText().trim().max(4000, "Notes are too long (max 4000)").default(""),
   })
   .refine((s) => s.iscA == null || s.ilA == null || s.iscA > s.ilA, {
     path: ["iscA"],

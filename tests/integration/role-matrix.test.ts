@@ -31,6 +31,8 @@ const routes: RouteCase[] = [
   { method: "GET", path: "/api/users", allowed: ["admin"] },
   { method: "POST", path: "/api/users", allowed: ["admin"], body: {} },
   { method: "PATCH", path: "/api/users/:user", allowed: ["admin"], body: {} },
+  // :user has a password already, so an allowed caller is told so (409) and nothing is sent.
+  { method: "POST", path: "/api/users/:user/invitation", allowed: ["admin"] },
   { method: "GET", path: "/api/dev/mailbox", allowed: ["admin"] },
   { method: "POST", path: "/api/auth/sign-out", allowed: ALL },
   { method: "GET", path: "/api/captures", allowed: ALL },

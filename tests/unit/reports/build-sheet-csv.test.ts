@@ -78,6 +78,6 @@ describe("sheet CSV", () => {
 
   test("a text starting with = is not run as a spreadsheet formula", () => {
     const csv2 = buildSheetCsv({ ...sheet, capture: { ...sheet.capture, title: "=HYPERLINK(1)" } });
-    expect(csv2.split("\r\n")[0]).toBe("Capture,'=HYPERLINK(1)");
+    expect(csv2.split("\r\n")[0]).toBe("Capture,\"'=HYPERLINK(1)\"");
   });
 });

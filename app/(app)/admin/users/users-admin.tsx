@@ -40,6 +40,16 @@ export function UsersAdmin({ myId }: { myId: string }) {
     }
   }
 
+  async function resend(id: string, email: string) {
+    try {
+      await sendJson(`/api/users/${id}/invitation`, "POST");
+      setMessage(`A new invitation was sent to ${email}; earlier links no longer work.`);
+      await mutate();
+    } catch (err) {
+      setMessage(err instanceof Error ? err.message : "Could not resend the invitation.");
+    }
+  }
+
   return (
     <div className="space-y-6">
       <form onSubmit={invite} className="panel grid gap-3 sm:grid-cols-[1fr_1fr_10rem_auto] sm:items-end" noValidate data-testid="invite-form">
@@ -85,7 +95,12 @@ export function UsersAdmin({ myId }: { myId: string }) {
                   </select>
                 </td>
                 <td>{!u.active ? "Deactivated" : u.invited ? "Invited" : "Active"}</td>
-                <td className="text-right">
+                <td className="space-x-2 whitespace-nowrap text-right">
+                  {u.active && u.invited && (
+                    <button type="button" className="btn-quiet py-1" onClick={() => resend(u.id, u.email)}>
+                      Resend invitation
+                    </button>
+                  )}
                   {u.id !== myId && (
                     <button type="button" className="btn-quiet py-1" onClick={() => update(u.id, { active: !u.active })}>
                       {u.active ? "Deactivate" : "Reactivate"}

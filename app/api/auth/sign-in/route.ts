@@ -1,25 +1,28 @@
 import { NextResponse } from "next/server";
-import { clearSignInFailures, getUserByEmail, recordSignInFailure, signInLockRemaining } from "@/db/queries/users";
-import { withPublic, readJson } from "@/lib/api/with-auth";
+import { claimSignInAttempt, getUserByEmail, releaseSignInAttempt } from "@/db/queries/users";
+import { clientAddress, readJson, withPublic } from "@/lib/api/with-auth";
 import { verifyPassword } from "@/lib/auth/password";
 import { startSession } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { signInSchema } from "@/lib/validations/auth";
 
-// POST /api/auth/sign-in — start a session (throttled after repeated failures)
+function waitWords(s: number): string {
+  return s < 120 ? `${s} second${s === 1 ? "" : "s"}` : `${Math.ceil(s / 60)} minutes`;
+}
+
+// POST /api/auth/sign-in — start a session (each attempt is claimed against per-account back-off and a per-client limit)
 export const POST = withPublic(async ({ req }) => {
-  const { email, password } = signInSchema.parse(await readJson(req));
-  const waitMs = await signInLockRemaining({ email });
-  if (waitMs > 0) {
-    throw new AppError("too_many_requests", `Too many failed sign-ins. Try again in ${Math.ceil(waitMs / 60000)} minutes.`);
+  const { email, password } = signInSchema.parse(await readJson(req, { maxBytes: 4 * 1024 }));
+  const client = clientAddress(req);
+  const claim = await claimSignInAttempt({ email, client });
+  if (!claim.ok) {
+    const from = claim.scope === "client" ? " from this address" : "";
+    throw new AppError("too_many_requests", `Too many failed sign-ins${from}. Try again in ${waitWords(claim.waitS)}.`, undefined, claim.waitS);
   }
   const user = await getUserByEmail({ email });
   const ok = user?.passwordHash && user.active ? await verifyPassword(user.passwordHash, password) : false;
-  if (!user || !ok) {
-    await recordSignInFailure({ email });
-    throw new AppError("unauthorized", "The e-mail or password is not right, or the account is inactive.");
-  }
-  await clearSignInFailures({ email });
+  if (!user || !ok) throw new AppError("unauthorized", "The e-mail or password is not right, or the account is inactive.");
+  await releaseSignInAttempt({ email, client });
   await startSession(user.id);
   return NextResponse.json({ user: { id: user.id, email: user.email, name: user.name, role: user.role } });
 });
