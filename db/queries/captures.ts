@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, desc, eq, gte, lt, sql as dsql, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, gte, lt, sql as dsql } from "drizzle-orm";
 import { db } from "@/db/client";
 import {
   analyses,
@@ -14,7 +14,7 @@ import {
   type Capture,
 } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/types";
-import type { Role } from "@/lib/auth/permissions";
+import type { Reader } from "@/lib/auth/permissions";
 import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
@@ -23,13 +23,9 @@ import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import type { Waveform } from "@/lib/pipeline/run-capture";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
+import { capturesVisibleTo } from "./scope";
 
 export const capturesPerPage = 20;
-
-/** Viewers read only what an engineer has signed off; other roles read everything. */
-function visibleTo(role: Role): SQL | undefined {
-  return role === "viewer" ? eq(captures.reviewState, "approved") : undefined;
-}
 
 export async function registerCapture({ input, actorId }: { input: RegisterCaptureInput; actorId: string }): Promise<Capture> {
   const id = crypto.randomUUID();
@@ -56,11 +52,12 @@ export async function registerCapture({ input, actorId }: { input: RegisterCaptu
   });
 }
 
-export async function getCaptureById({ id, role }: { id: string; role: Role }): Promise<Capture> {
+/** One capture as `reader` may see it (viewers: approved sheets of their customers' sites); otherwise not found. */
+export async function getCaptureById({ id, reader }: { id: string; reader: Reader }): Promise<Capture> {
   const [capture] = await db
     .select()
     .from(captures)
-    .where(and(eq(captures.id, id), visibleTo(role)));
+    .where(and(eq(captures.id, id), capturesVisibleTo(reader)));
   if (!capture) throw new AppError("not_found", "No such capture.");
   return capture;
 }
@@ -317,10 +314,10 @@ export interface CaptureListItem {
 }
 
 /** Server-side filtered, paginated list; the verdict is the newest evaluation's. */
-export async function listCaptures({ query, role }: { query: CaptureListQuery; role: Role }): Promise<{ items: CaptureListItem[]; total: number; page: number; pages: number }> {
+export async function listCaptures({ query, reader }: { query: CaptureListQuery; reader: Reader }): Promise<{ items: CaptureListItem[]; total: number; page: number; pages: number }> {
   const latestVerdict = dsql<string | null>`(select e.verdict from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1)`;
   const where = and(
-    visibleTo(role),
+    capturesVisibleTo(reader),
     query.site ? eq(captures.siteId, query.site) : undefined,
     query.status ? eq(captures.status, query.status) : undefined,
     query.verdict ? dsql`${latestVerdict} = ${query.verdict}` : undefined,

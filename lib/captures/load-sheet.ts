@@ -8,22 +8,22 @@ import {
   listReviewEvents,
 } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
-import type { Role } from "@/lib/auth/permissions";
+import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { decimateSeries } from "@/lib/reports/decimate-series";
 
 /**
  * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
  * the CSV export and the share page all render from this.
- * `role` limits what is visible (viewers see only approved captures).
+ * `reader` limits what is visible (viewers: approved sheets of their customers' sites, no internal review comments).
  */
-export async function loadSheet({ captureId, evaluationId, role }: { captureId: string; evaluationId?: string; role: Role }) {
-  const capture = await getCaptureById({ id: captureId, role });
+export async function loadSheet({ captureId, evaluationId, reader }: { captureId: string; evaluationId?: string; reader: Reader }) {
+  const capture = await getCaptureById({ id: captureId, reader });
   const [site, analysis, evaluations, reviews, uploader] = await Promise.all([
-    getSiteById({ id: capture.siteId }),
+    getSiteById({ id: capture.siteId, reader }),
     latestAnalysis({ captureId }),
     listEvaluations({ captureId }),
-    listReviewEvents({ captureId }),
+    canSeeReviewComments(reader) ? listReviewEvents({ captureId }) : Promise.resolve([]),
     getUserContact({ id: capture.uploadedBy }),
   ]);
   const evaluation = await getEvaluation({ captureId, evaluationId });
@@ -43,8 +43,8 @@ export async function loadSheet({ captureId, evaluationId, role }: { captureId: 
 export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 
 /** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
-export async function loadChartData({ captureId, role }: { captureId: string; role: Role }) {
-  await getCaptureById({ id: captureId, role });
+export async function loadChartData({ captureId, reader }: { captureId: string; reader: Reader }) {
+  await getCaptureById({ id: captureId, reader });
   const [analysis, evaluation] = await Promise.all([latestAnalysis({ captureId }), getEvaluation({ captureId })]);
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
   const r = analysis.result;

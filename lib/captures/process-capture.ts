@@ -8,6 +8,7 @@ import path from "node:path";
 import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
 import { downloadObjectToFile, getObjectBytes } from "@/lib/storage/s3";
 import { getSiteById } from "@/db/queries/sites";
+import { systemReader } from "@/lib/auth/permissions";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
@@ -34,7 +35,7 @@ export async function processCapture({
   beforeStore?: () => Promise<void>;
 }): Promise<void> {
   try {
-    const capture = await getCaptureById({ id: captureId, role: "admin" });
+    const capture = await getCaptureById({ id: captureId, reader: systemReader });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");
@@ -43,7 +44,7 @@ export async function processCapture({
       const bytes = await getObjectBytes(capture.s3Key);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
       const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
-      const site = await getSiteById({ id: capture.siteId });
+      const site = await getSiteById({ id: capture.siteId, reader: systemReader });
       const { analysis, trends, result, startMs } = judgeIntervalLog(decodeText(bytes), intervalMapping, revision, context, site.frequencyHz === 60 ? 60 : 50);
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.

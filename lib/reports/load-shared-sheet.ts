@@ -3,6 +3,7 @@ import { z } from "zod";
 import { findSharedCapture } from "@/db/queries/captures";
 import { hashToken } from "@/db/queries/users";
 import { loadChartData, loadSheet } from "@/lib/captures/load-sheet";
+import { systemReader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 
 // Share tokens are 20 random bytes in lower-case base32 (32 characters).
@@ -24,11 +25,11 @@ async function sharedCaptureId(token: string): Promise<string> {
  */
 export async function loadSharedSheet({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadSheet({ captureId, role: "engineer" });
+  return loadSheet({ captureId, reader: systemReader });
 }
 
 /** Chart data for a share link, with the same check as the sheet. */
 export async function loadSharedChartData({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadChartData({ captureId, role: "engineer" });
+  return loadChartData({ captureId, reader: systemReader });
 }

@@ -28,7 +28,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
   const raw = Object.fromEntries(Object.entries(await searchParams).filter(([, v]) => typeof v === "string" && v !== ""));
   const parsed = captureListQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : { page: 1 };
-  const [{ items, total, page, pages }, sites] = await Promise.all([listCaptures({ query, role: user.role }), listSites()]);
+  const [{ items, total, page, pages }, sites] = await Promise.all([listCaptures({ query, reader: user }), listSites({ reader: user })]);
   const pageHref = (p: number) => `/captures?${new URLSearchParams({ ...(raw as Record<string, string>), page: String(p) })}`;
 
   return (

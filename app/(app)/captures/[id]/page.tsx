@@ -32,7 +32,7 @@ export default async function CaptureSheetPage({
   const query = await searchParams;
   if (!z.uuid().safeParse(id).success) notFound();
   const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
-  const sheet = await loadSheet({ captureId: id, evaluationId: requested, role: user.role }).catch((err) => {
+  const sheet = await loadSheet({ captureId: id, evaluationId: requested, reader: user }).catch((err) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
@@ -71,7 +71,7 @@ export default async function CaptureSheetPage({
   const canShare = can(user.role, "captures:share");
   const [limitSets, siblings] = await Promise.all([
     canReview ? listLimitSetChoices() : Promise.resolve([]),
-    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, role: user.role }),
+    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, reader: user }),
   ]);
   const others = siblings.items.filter((c) => c.id !== capture.id);
   const evalQuery = evaluation.id !== latestId ? `?evaluation=${evaluation.id}` : "";

@@ -4,7 +4,7 @@ import { SafetyNote } from "@/app/_components/safety-note";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { listCaptures } from "@/db/queries/captures";
 import { requirePage } from "@/lib/auth/page";
-import type { Role } from "@/lib/auth/permissions";
+import type { Reader } from "@/lib/auth/permissions";
 import { loadSheet, type Sheet } from "@/lib/captures/load-sheet";
 import type { ChannelCompliance, ComplianceRow } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
@@ -14,10 +14,10 @@ export const metadata = { title: "Compare captures" };
 
 const querySchema = z.object({ a: z.uuid().optional(), b: z.uuid().optional(), channel: z.string().max(200).optional() });
 
-async function sheetOrNull(id: string | undefined, role: Role): Promise<Sheet | null> {
+async function sheetOrNull(id: string | undefined, reader: Reader): Promise<Sheet | null> {
   if (!id) return null;
   try {
-    return await loadSheet({ captureId: id, role });
+    return await loadSheet({ captureId: id, reader });
   } catch (err) {
     if (err instanceof AppError && err.code === "not_found") return null;
     throw err;
@@ -50,7 +50,7 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
   const raw = await searchParams;
   const parsed = querySchema.safeParse(Object.fromEntries(Object.entries(raw).filter(([, v]) => typeof v === "string" && v !== "")));
   const query = parsed.success ? parsed.data : {};
-  const [a, b] = await Promise.all([sheetOrNull(query.a, user.role), sheetOrNull(query.b, user.role)]);
+  const [a, b] = await Promise.all([sheetOrNull(query.a, user), sheetOrNull(query.b, user)]);
 
   if (!a || !a.evaluation) {
     return (
@@ -64,7 +64,7 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
     );
   }
 
-  const siblings = await listCaptures({ query: { site: a.capture.siteId, status: "done", page: 1 }, role: user.role });
+  const siblings = await listCaptures({ query: { site: a.capture.siteId, status: "done", page: 1 }, reader: user });
   const others = siblings.items.filter((c) => c.id !== a.capture.id);
   const picker = (
     <form action="/captures/compare" method="get" className="panel flex flex-wrap items-end gap-3" data-testid="compare-form">

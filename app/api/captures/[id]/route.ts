@@ -7,7 +7,7 @@ import { withAuth } from "@/lib/api/with-auth";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    return NextResponse.json({ capture: await getCaptureById({ id, role: user.role }) });
+    return NextResponse.json({ capture: await getCaptureById({ id, reader: user }) });
   },
   { permission: "captures:read" },
 );

@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { getCaptureById, setCaptureStatus } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
+import { authoriseCaptureEdit } from "@/lib/auth/session";
 import { enqueueAnalysis } from "@/lib/jobs/queue";
 import { AppError } from "@/lib/errors";
 
@@ -9,7 +10,8 @@ import { AppError } from "@/lib/errors";
 export const POST = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const capture = await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, reader: user });
+    authoriseCaptureEdit(user, capture);
     if (capture.status === "uploading") throw new AppError("conflict", "The file has not been uploaded yet.");
     if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is already running.");
     if (!capture.limitSetKey) throw new AppError("conflict", "Save the mapping and choose a limit set first.");

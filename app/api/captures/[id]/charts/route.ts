@@ -7,7 +7,7 @@ import { loadChartData } from "@/lib/captures/load-sheet";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    return NextResponse.json(await loadChartData({ captureId: id, role: user.role }));
+    return NextResponse.json(await loadChartData({ captureId: id, reader: user }));
   },
   { permission: "captures:read" },
 );

@@ -10,7 +10,7 @@ import { reevaluateSchema } from "@/lib/validations/capture";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     return NextResponse.json({ evaluations: await listEvaluations({ captureId: id }) });
   },
   { permission: "captures:read" },
@@ -21,7 +21,7 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { limitSetKey, context } = reevaluateSchema.parse(await readJson(req));
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     const analysis = await latestAnalysis({ captureId: id });
     if (!analysis) throw new AppError("conflict", "The capture has not been analysed yet.");
     const revision = await getCurrentRevision({ key: limitSetKey });

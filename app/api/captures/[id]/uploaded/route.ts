@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { getCaptureById, setCaptureStatus } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
+import { authoriseCaptureEdit } from "@/lib/auth/session";
 import { previewCapture } from "@/lib/captures/preview";
 import { AppError } from "@/lib/errors";
 import { headObject } from "@/lib/storage/s3";
@@ -10,7 +11,8 @@ import { headObject } from "@/lib/storage/s3";
 export const POST = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const capture = await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, reader: user });
+    authoriseCaptureEdit(user, capture);
     const head = await headObject(capture.s3Key);
     if (!head) throw new AppError("conflict", "The file has not arrived in storage. Upload it again.");
     if (head.sizeBytes === 0) throw new AppError("validation", "The uploaded file is empty.");
