@@ -13,6 +13,8 @@ import {
   reviewStateLabels,
   verdictLabel,
 } from "./format";
+import { headlineNumbers } from "./headline-numbers";
+import { headlineTable } from "./headline-table";
 import { safetyText } from "./safety-text";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
@@ -159,6 +161,15 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["Band", `${result.band.label ?? "none chosen"} — ${result.band.reason}`],
     ["Sign-off state", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState],
   ]);
+
+  // Headline numbers on page 1, one line per channel / pair, labels with units.
+  const headline = headlineNumbers(sheet.analysis?.result, result.context);
+  if (headline) {
+    for (const table of headlineTable(headline)) {
+      heading(`Headline numbers — ${table.title.toLowerCase()}`);
+      keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
+    }
+  }
 
   const blocks = channelBlocks(result);
   heading("Evaluation context");

@@ -1,5 +1,6 @@
 // The part of a loaded sheet (lib/captures/load-sheet.ts) that the PDF and CSV builders read.
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
+import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
 
 export interface SheetReport {
@@ -24,6 +25,8 @@ export interface SheetReport {
     result: ComplianceResult;
   } | null;
   reviews: Array<{ action: string; comment: string; createdAt: Date; actorName: string | null }>;
+  /** The stored analysis, for the headline numbers (lib/reports/headline-numbers.ts). */
+  analysis?: { result: AnalysisResult } | null;
 }
 
 /** The channel blocks of a result: every evaluated channel, or the top level when none are listed. */

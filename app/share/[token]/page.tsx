@@ -4,7 +4,9 @@ import { SafetyNote } from "@/app/_components/safety-note";
 import { AppError } from "@/lib/errors";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
+import { HeadlineSummary } from "@/app/(app)/captures/[id]/_components/headline-summary";
 import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
+import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
 
 export const metadata: Metadata = { title: "Shared sheet", robots: { index: false, follow: false } };
@@ -38,6 +40,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
         <div className="rounded-md border border-caution/30 bg-caution-light/50 px-3 py-2">
           <SafetyNote />
         </div>
+        <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
         <SheetBody result={evaluation.result} chartsUrl={`/api/shared/${token}/charts`} />
         <SheetNotes notes={evaluation.result.notes} />
         <section className="panel text-sm" data-testid="shared-signoff">

@@ -10,9 +10,11 @@ import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
 import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
 import { EvaluationHistory } from "./_components/evaluation-history";
+import { HeadlineSummary } from "./_components/headline-summary";
 import { ReviewPanel } from "./_components/review-panel";
 import { SharePanel } from "./_components/share-panel";
 import { SheetBody } from "./_components/sheet-body";
@@ -122,6 +124,7 @@ export default async function CaptureSheetPage({
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
+          <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
           <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts`} />
           <SheetNotes notes={evaluation.result.notes} />
         </div>
