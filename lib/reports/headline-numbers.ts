@@ -84,7 +84,8 @@ export function headlineNumbers(analysis: AnalysisResult | null | undefined, con
   const ilA = finite((context as EvaluationContext).ilA);
   const byName = new Map(analysis.channels.map((c) => [c.name, c]));
   const channels: HeadlineChannel[] = analysis.channels.map((c) => {
-    const tdd = c.quantity === "current" ? finite(c.tddPercent) : null;
+    // TDD is stated only with the IL it is taken against (the pipeline passes the context IL to the engine).
+    const tdd = c.quantity === "current" && ilA !== null ? finite(c.tddPercent) : null;
     return {
       name: c.name,
       quantity: c.quantity,
