@@ -7,6 +7,7 @@ import {
   listEvaluations,
   listReviewEvents,
 } from "@/db/queries/captures";
+import { getRevisionVerification } from "@/db/queries/limit-verifications";
 import { getSiteById } from "@/db/queries/sites";
 import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
@@ -29,6 +30,8 @@ export async function loadSheet({ captureId, evaluationId, reader }: { captureId
   const evaluation = await getEvaluation({ captureId, evaluationId });
   if (evaluationId && !evaluation) throw new AppError("not_found", "No such evaluation of this capture.");
   const summary = evaluation ? evaluations.find((e) => e.id === evaluation.id) ?? null : null;
+  // Whether the revision this evaluation was judged against has been checked against the printed standard.
+  const limitsVerification = summary ? await getRevisionVerification({ revisionId: summary.revisionId }) : null;
   return {
     capture,
     site,
@@ -37,6 +40,7 @@ export async function loadSheet({ captureId, evaluationId, reader }: { captureId
     evaluation: evaluation && summary ? { ...summary, result: evaluation.result } : null,
     evaluations,
     reviews,
+    limitsVerification,
   };
 }
 

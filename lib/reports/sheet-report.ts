@@ -2,6 +2,7 @@
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import type { RevisionVerification } from "./limits-line";
 
 export interface SheetReport {
   capture: {
@@ -27,6 +28,8 @@ export interface SheetReport {
   reviews: Array<{ action: string; comment: string; createdAt: Date; actorName: string | null }>;
   /** The stored analysis, for the headline numbers (lib/reports/headline-numbers.ts). */
   analysis?: { result: AnalysisResult } | null;
+  /** The newest verification of the evaluation's limit-set revision; null or absent: not yet verified. */
+  limitsVerification?: RevisionVerification | null;
 }
 
 /** The channel blocks of a result: every evaluated channel, or the top level when none are listed. */

@@ -66,6 +66,8 @@ const routes: RouteCase[] = [
   { method: "PUT", path: "/api/limit-sets/:missing", allowed: ["admin"], body: {} },
   { method: "GET", path: "/api/limit-sets/:missing/revisions", allowed: ALL },
   { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing", allowed: ALL },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ALL },
+  { method: "POST", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ["admin"], body: {} },
   { method: "POST", path: "/api/limit-sets/:missing/clone", allowed: ["admin"], body: {} },
   { method: "GET", path: "/api/limit-sets/:missing/export", allowed: ALL },
   { method: "POST", path: "/api/limit-sets/import", allowed: ["admin"], body: {} },

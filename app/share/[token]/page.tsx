@@ -5,6 +5,7 @@ import { AppError } from "@/lib/errors";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
 import { HeadlineSummary } from "@/app/(app)/captures/[id]/_components/headline-summary";
+import { LimitsLine } from "@/app/(app)/captures/[id]/_components/limits-line";
 import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
@@ -37,6 +38,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 space-y-4 px-4 py-6" data-testid="shared-sheet">
         <SheetHeader sheet={sheet} />
+        <LimitsLine standard={evaluation.result.limitSet.standard} edition={evaluation.result.limitSet.edition} revisionNumber={evaluation.revisionNumber} verification={sheet.limitsVerification} />
         <div className="rounded-md border border-caution/30 bg-caution-light/50 px-3 py-2">
           <SafetyNote />
         </div>

@@ -15,6 +15,7 @@ import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
 import { EvaluationHistory } from "./_components/evaluation-history";
 import { HeadlineSummary } from "./_components/headline-summary";
+import { LimitsLine } from "./_components/limits-line";
 import { ReviewPanel } from "./_components/review-panel";
 import { SharePanel } from "./_components/share-panel";
 import { SheetBody } from "./_components/sheet-body";
@@ -95,6 +96,7 @@ export default async function CaptureSheetPage({
         </p>
       )}
       <SheetHeader sheet={sheet} />
+      <LimitsLine standard={evaluation.result.limitSet.standard} edition={evaluation.result.limitSet.edition} revisionNumber={evaluation.revisionNumber} verification={sheet.limitsVerification} />
       {previous && previousSummary && (
         <section className="panel grid gap-3 text-sm sm:grid-cols-2" data-testid="evaluation-pair">
           {[

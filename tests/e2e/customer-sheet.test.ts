@@ -1,0 +1,100 @@
+// The sheet a customer reads: the headline numbers at desktop and phone width, and a viewer who sees
+// only their own customer's sheets (a demo capture of another customer's site answers 404).
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, url } from "../support/browser";
+import { signedIn } from "../support/http";
+import { json } from "../support/captures";
+
+const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
+
+async function snapAt(page: Page, name: string, selector: string): Promise<void> {
+  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
+  fs.mkdirSync(shotDir, { recursive: true });
+  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
+}
+
+let browser: Browser;
+// The demo scenario: the after-filter capture at Quillbrook (the demo viewer's customer) is approved, and so is
+// the heater controller at Bench B (another customer).
+let ownId = "";
+let otherId = "";
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const engineer = await signedIn("engineer");
+  const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+  ownId = items.find((c) => c.title === "Compressor drives at full load — after filter")!.id;
+  otherId = items.find((c) => c.title === "Heater controller, 1.8 kW")!.id;
+}, 60_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("headline numbers on the sheet", () => {
+  it("at 1280 px: a row per phase with units in the column labels, above the per-order table", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${ownId}`));
+    const table = page.locator("[data-testid=headline-current-table]");
+    await table.waitFor({ state: "visible", timeout: 15_000 });
+    expect(await page.locator("[data-testid=headline-current-cards]").isVisible()).toBe(false);
+    const headers = await table.locator("thead th").allTextContents();
+    expect(headers).toEqual(["Channel", "Fundamental frequency (Hz)", "RMS (A)", "Fundamental RMS (A)", "THD (% of fundamental)", "TDD (% of IL)", "Crest factor", "K-factor"]);
+    // Three phase currents, each with its TDD stated against the IL of the evaluation (260 A in the demo).
+    expect(await table.locator("tbody tr").count()).toBe(3);
+    expect(await table.locator("tbody tr").first().textContent()).toContain("(IL 260 A)");
+    await page.locator("[data-testid=headline-voltage-table]").waitFor({ state: "visible" });
+    const power = page.locator("[data-testid=headline-power-table]");
+    expect(await power.textContent()).toContain("Three-phase total");
+    expect(await power.textContent()).toMatch(/0\.\d{3} (lagging|leading|in phase)/);
+    expect(await page.locator("[data-testid=headline-unbalance-table]").textContent()).toContain("Fundamental unbalance");
+    // Above the per-order table.
+    const summaryTop = await page.locator("[data-testid=headline-summary]").evaluate((el) => el.getBoundingClientRect().top);
+    const tableTop = await page.locator("[data-testid=order-table]").first().evaluate((el) => el.getBoundingClientRect().top);
+    expect(summaryTop).toBeLessThan(tableTop);
+    await snapAt(page, "headline-1280", "[data-testid=headline-summary]");
+    await page.close();
+  });
+
+  it("at 390 px: a card per phase, no sideways scrolling", async () => {
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${ownId}`));
+    const cards = page.locator("[data-testid=headline-current-cards]");
+    await cards.waitFor({ state: "visible", timeout: 15_000 });
+    expect(await page.locator("[data-testid=headline-current-table]").isVisible()).toBe(false);
+    expect(await cards.locator("li").count()).toBe(3);
+    expect(await cards.locator("li").first().textContent()).toContain("TDD (% of IL)");
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await snapAt(page, "headline-390", "[data-testid=headline-summary]");
+    await page.close();
+  });
+});
+
+describe("a viewer sees only their own customer's sheets", () => {
+  it("reads the approved sheet of her customer's site, without review comments, and gets 404 for another customer's", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "viewer");
+    await page.goto(url(`/captures/${ownId}`));
+    await page.locator("[data-testid=headline-summary]").waitFor({ timeout: 15_000 });
+    expect(await page.textContent("main")).not.toContain("Approved for the utility submission");
+    await page.goto(url("/captures"));
+    const list = (await page.textContent("main")) ?? "";
+    expect(list).toContain("Compressor drives at full load — after filter");
+    expect(list).not.toContain("Heater controller");
+    const res = await page.goto(url(`/captures/${otherId}`));
+    expect(res?.status()).toBe(404);
+    await snapAt(page, "viewer-other-customer-404", "body");
+    await page.goto(url("/sites"));
+    const sites = (await page.textContent("main")) ?? "";
+    expect(sites).toContain("Quillbrook");
+    expect(sites).not.toContain("Bench B");
+    expect(sites).not.toContain("Harrowgate");
+    await page.close();
+  });
+});
