@@ -55,12 +55,17 @@ export function headlineTable(h: HeadlineNumbers): HeadlineTable[] {
     if (channels.length === 0) continue;
     const unit = channels[0]!.unit;
     const withTdd = quantity === "current" && channels.some((c) => c.tddPercent !== null);
+    // One upper order and one IL for every channel (the usual case) go in the label, keeping the cells short.
+    const orders = new Set(channels.map((c) => c.thdMaxOrder));
+    const thdOrder = orders.size === 1 ? [...orders][0] ?? null : null;
+    const ils = new Set(channels.filter((c) => c.tddPercent !== null).map((c) => c.ilA));
+    const il = ils.size === 1 ? [...ils][0] ?? null : null;
     const columns: HeadlineColumn[] = [
       { key: "fundamentalHz", label: "Fundamental frequency (Hz)" },
       { key: "rms", label: `RMS (${unit})` },
       { key: "fundamentalRms", label: `Fundamental RMS (${unit})` },
-      { key: "thdPercent", label: "THD (% of fundamental)" },
-      ...(withTdd ? [{ key: "tddPercent", label: "TDD (% of IL)" }] : []),
+      { key: "thdPercent", label: thdOrder !== null ? `THD h2–h${thdOrder} (% of fundamental)` : "THD (% of fundamental)" },
+      ...(withTdd ? [{ key: "tddPercent", label: il !== null ? `TDD (% of IL = ${formatNumber(il)} A)` : "TDD (% of IL)" }] : []),
       { key: "crestFactor", label: "Crest factor" },
       { key: "kFactor", label: "K-factor" },
     ];
@@ -74,8 +79,8 @@ export function headlineTable(h: HeadlineNumbers): HeadlineTable[] {
           fixed(c.fundamentalHz, 3),
           formatNumber(c.rms),
           formatNumber(c.fundamentalRms),
-          c.thdPercent === null ? "—" : `${c.thdPercent.toFixed(2)} (h2–h${c.thdMaxOrder ?? "?"})`,
-          ...(withTdd ? [c.tddPercent === null ? "— (no IL)" : `${c.tddPercent.toFixed(2)} (IL ${formatNumber(c.ilA)} A)`] : []),
+          c.thdPercent === null ? "—" : thdOrder !== null ? c.thdPercent.toFixed(2) : `${c.thdPercent.toFixed(2)} (h2–h${c.thdMaxOrder ?? "?"})`,
+          ...(withTdd ? [c.tddPercent === null ? "— (no IL)" : il !== null ? c.tddPercent.toFixed(2) : `${c.tddPercent.toFixed(2)} (IL ${formatNumber(c.ilA)} A)`] : []),
           fixed(c.crestFactor, 2),
           fixed(c.kFactor, 2),
         ];
