@@ -386,12 +386,12 @@ export async function revokeShareLink({ captureId, shareId, actorId }: { capture
   });
 }
 
-/** The capture a share token opens, or null when unknown, revoked or expired. */
-export async function findSharedCapture({ tokenHash }: { tokenHash: string }): Promise<Capture | null> {
+/** A live share link: the capture it opens and when it stops working; null when unknown, revoked or expired. */
+export async function findShareLink({ tokenHash }: { tokenHash: string }): Promise<{ capture: Capture; expiresAt: Date } | null> {
   const [row] = await db
-    .select({ capture: captures })
+    .select({ capture: captures, expiresAt: shareLinks.expiresAt })
     .from(shareLinks)
     .innerJoin(captures, eq(captures.id, shareLinks.captureId))
     .where(and(eq(shareLinks.tokenHash, tokenHash), dsql`${shareLinks.revokedAt} is null`, gte(shareLinks.expiresAt, new Date())));
-  return row?.capture ?? null;
+  return row ?? null;
 }

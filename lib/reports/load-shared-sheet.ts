@@ -1,6 +1,6 @@
 import "server-only";
 import { z } from "zod";
-import { findSharedCapture } from "@/db/queries/captures";
+import { findShareLink } from "@/db/queries/captures";
 import { hashToken } from "@/db/queries/users";
 import { loadChartData, loadSheet } from "@/lib/captures/load-sheet";
 import { systemReader } from "@/lib/auth/permissions";
@@ -13,10 +13,14 @@ const gone = () => new AppError("not_found", "This link is no longer valid.");
 
 /** The capture id a share token opens; not_found when unknown, revoked or expired. */
 async function sharedCaptureId(token: string): Promise<string> {
+  return (await sharedLink(token)).captureId;
+}
+
+async function sharedLink(token: string): Promise<{ captureId: string; expiresAt: Date }> {
   if (!tokenSchema.safeParse(token).success) throw gone();
-  const capture = await findSharedCapture({ tokenHash: hashToken(token) });
-  if (!capture || capture.status !== "done") throw gone();
-  return capture.id;
+  const link = await findShareLink({ tokenHash: hashToken(token) });
+  if (!link || link.capture.status !== "done") throw gone();
+  return { captureId: link.capture.id, expiresAt: link.expiresAt };
 }
 
 /**
@@ -24,8 +28,8 @@ async function sharedCaptureId(token: string): Promise<string> {
  * authorisation, so the capture is read with a reviewer's visibility (not a viewer's filter).
  */
 export async function loadSharedSheet({ token }: { token: string }) {
-  const captureId = await sharedCaptureId(token);
-  return loadSheet({ captureId, reader: systemReader });
+  const { captureId, expiresAt } = await sharedLink(token);
+  return { ...(await loadSheet({ captureId, reader: systemReader })), shareExpiresAt: expiresAt };
 }
 
 /** Chart data for a share link, with the same check as the sheet. */

@@ -30,7 +30,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
             <span aria-hidden className="inline-block h-4 w-4 rounded-sm bg-copper" />
             Ordwise
           </span>
-          <span className="text-sm text-paper/80">Shared, read-only sheet</span>
+          <span className="text-sm text-paper/80" data-testid="share-expiry">Shared, read-only sheet · this link works until {formatWhen(sheet.shareExpiresAt)}</span>
           <a href={`/api/shared/${token}/report`} className="ml-auto rounded-md bg-copper px-3 py-1.5 text-sm font-medium text-white hover:bg-copper-dark" data-testid="shared-pdf">
             Download PDF
           </a>

@@ -9,7 +9,7 @@ import { can } from "@/lib/auth/permissions";
 import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
-import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { formatWhen, reviewStateLabels, summariseContext } from "@/lib/reports/format";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
@@ -97,6 +97,11 @@ export default async function CaptureSheetPage({
       )}
       <SheetHeader sheet={sheet} />
       <LimitsLine standard={evaluation.result.limitSet.standard} edition={evaluation.result.limitSet.edition} revisionNumber={evaluation.revisionNumber} verification={sheet.limitsVerification} />
+      {/* On narrow screens the review panel sits below the sheet: a way to it near the top. */}
+      <p className="flex flex-wrap items-center gap-2 text-sm lg:hidden" data-testid="review-jump">
+        <span className="text-ink-soft">Review: {reviewStateLabels[capture.reviewState] ?? capture.reviewState}</span>
+        <a href="#review" className="btn-quiet py-1">Go to the review panel</a>
+      </p>
       {previous && previousSummary && (
         <section className="panel grid gap-3 text-sm sm:grid-cols-2" data-testid="evaluation-pair">
           {[
@@ -132,6 +137,7 @@ export default async function CaptureSheetPage({
         </div>
 
         <aside className="min-w-0 space-y-4">
+          <div id="review" className="scroll-mt-4">
           <ReviewPanel
             captureId={capture.id}
             reviewState={capture.reviewState}
@@ -139,6 +145,7 @@ export default async function CaptureSheetPage({
             canSubmit={can(user.role, "captures:upload")}
             canDecide={canReview}
           />
+          </div>
           <section className="panel space-y-2" data-testid="downloads">
             <h2>Report</h2>
             <div className="flex flex-wrap gap-2">

@@ -12,6 +12,7 @@ import { formatOrders, groupReasons } from "@/lib/reports/format";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
+import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
 
@@ -68,9 +69,13 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
 
       <TimeRulesPanel key={`rules-${channel.channel}`} rules={rules} basis={result.timeBasis} channelName={channel.channel} />
 
-      <section className="panel p-0 sm:p-0" aria-labelledby="orders-heading">
+      {/* Wide screens: the sortable table. Phones: one card per order, no sideways scrolling. */}
+      <section className="panel hidden p-0 sm:p-0 md:block" aria-labelledby="orders-heading">
         <OrderTable key={channel.channel} rows={channel.rows} channelName={channel.channel} />
       </section>
+      <div className="md:hidden">
+        <OrderCards key={`cards-${channel.channel}`} rows={channel.rows} channelName={channel.channel} />
+      </div>
 
       {reasons.length > 0 && (
         <section className="panel text-sm" data-testid="row-reasons">
