@@ -20,6 +20,7 @@ import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import type { HeadlineSource } from "@/lib/reports/headline-numbers";
 import type { Waveform } from "@/lib/pipeline/run-capture";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
@@ -181,6 +182,27 @@ export async function storeAnalysisResult({
     await insertAuditEvent(tx, { actorId, action: "capture.analysed", entityType: "capture", entityId: captureId, details: { verdict: evaluation.result.verdict } });
     return { analysisId: a!.id, evaluationId: e!.id };
   });
+}
+
+/**
+ * The newest analysis without its per-order and per-window arrays (built in PostgreSQL, so the large
+ * document never leaves the database): what the sheet, PDF and CSV need for the headline numbers.
+ */
+export async function latestAnalysisSummary({ captureId }: { captureId: string }): Promise<{ id: string; createdAt: Date; result: HeadlineSource } | null> {
+  const r = analyses.result;
+  const slim = dsql<HeadlineSource>`jsonb_build_object(
+    'fundamentalHz', ${r}->'fundamentalHz',
+    'power', ${r}->'power',
+    'sequence', coalesce((select jsonb_agg(s.v - 'orders' order by s.i) from jsonb_array_elements(coalesce(${r}->'sequence', '[]'::jsonb)) with ordinality as s(v, i)), '[]'::jsonb),
+    'channels', coalesce((select jsonb_agg(c.v - 'harmonics' - 'series' - 'harmonicSeries' - 'groups' order by c.i) from jsonb_array_elements(${r}->'channels') with ordinality as c(v, i)), '[]'::jsonb)
+  )`;
+  const [a] = await db
+    .select({ id: analyses.id, createdAt: analyses.createdAt, result: slim })
+    .from(analyses)
+    .where(eq(analyses.captureId, captureId))
+    .orderBy(desc(analyses.createdAt))
+    .limit(1);
+  return a ?? null;
 }
 
 export async function latestAnalysis({ captureId }: { captureId: string }) {

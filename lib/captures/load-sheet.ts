@@ -4,6 +4,7 @@ import {
   getEvaluation,
   getUserContact,
   latestAnalysis,
+  latestAnalysisSummary,
   listEvaluations,
   listReviewEvents,
 } from "@/db/queries/captures";
@@ -22,7 +23,7 @@ export async function loadSheet({ captureId, evaluationId, reader }: { captureId
   const capture = await getCaptureById({ id: captureId, reader });
   const [site, analysis, evaluations, reviews, uploader] = await Promise.all([
     getSiteById({ id: capture.siteId, reader }),
-    latestAnalysis({ captureId }),
+    latestAnalysisSummary({ captureId }),
     listEvaluations({ captureId }),
     canSeeReviewComments(reader) ? listReviewEvents({ captureId }) : Promise.resolve([]),
     getUserContact({ id: capture.uploadedBy }),

@@ -1,5 +1,5 @@
 // The numbers a reader looks at first, per channel, per V–I pair and for the three-phase total.
-import type { AnalysisResult, Quantity } from "@/lib/analysis/types";
+import type { AnalysisResult, ChannelResult, Quantity, SequenceSet } from "@/lib/analysis/types";
 import type { EvaluationContext } from "@/lib/compliance/model";
 
 export interface HeadlineChannel {
@@ -56,6 +56,19 @@ export interface HeadlineNumbers {
   unbalance: HeadlineUnbalance[];
 }
 
+/**
+ * The part of an analysis the headline numbers read: a whole AnalysisResult fits, and so does the slim
+ * summary the sheet loads (no per-order or per-window arrays).
+ */
+export interface HeadlineSource {
+  fundamentalHz: number;
+  channels: Array<
+    Pick<ChannelResult, "name" | "quantity" | "unit" | "phase" | "rms" | "fundamentalRms" | "thdPercent" | "thdMaxOrder" | "crestFactor" | "kFactor" | "tddPercent">
+  >;
+  power: AnalysisResult["power"];
+  sequence?: Array<Pick<SequenceSet, "quantity" | "channels" | "unbalancePercent">>;
+}
+
 const finite = (x: number | null | undefined): number | null => (typeof x === "number" && Number.isFinite(x) ? x : null);
 
 function leadLagOf(angleDeg: number | null | undefined): LeadLag | null {
@@ -79,7 +92,7 @@ function leadLagOf(angleDeg: number | null | undefined): LeadLag | null {
  * @example
  * headlineNumbers(analysis, { ilA: 260 })?.channels[0]?.tddPercent // 7.4
  */
-export function headlineNumbers(analysis: AnalysisResult | null | undefined, context: EvaluationContext | Record<string, unknown>): HeadlineNumbers | null {
+export function headlineNumbers(analysis: HeadlineSource | null | undefined, context: EvaluationContext | Record<string, unknown>): HeadlineNumbers | null {
   if (!analysis) return null;
   const ilA = finite((context as EvaluationContext).ilA);
   const byName = new Map(analysis.channels.map((c) => [c.name, c]));

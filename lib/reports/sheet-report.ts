@@ -1,7 +1,7 @@
 // The part of a loaded sheet (lib/captures/load-sheet.ts) that the PDF and CSV builders read.
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
-import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import type { HeadlineSource } from "./headline-numbers";
 import type { RevisionVerification } from "./limits-line";
 
 export interface SheetReport {
@@ -27,7 +27,7 @@ export interface SheetReport {
   } | null;
   reviews: Array<{ action: string; comment: string; createdAt: Date; actorName: string | null }>;
   /** The stored analysis, for the headline numbers (lib/reports/headline-numbers.ts). */
-  analysis?: { result: AnalysisResult } | null;
+  analysis?: { result: HeadlineSource } | null;
   /** The newest verification of the evaluation's limit-set revision; null or absent: not yet verified. */
   limitsVerification?: RevisionVerification | null;
 }

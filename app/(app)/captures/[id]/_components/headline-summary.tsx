@@ -19,8 +19,8 @@ export function HeadlineSummary({ headline }: { headline: HeadlineNumbers | null
             <table className="table-base tabular-nums">
               <thead>
                 <tr>
-                  <th scope="col">{t.key === "power" ? "Pair" : "Channel"}</th>
-                  {t.columns.map((c) => <th key={c.key} scope="col">{c.label}</th>)}
+                  <th scope="col" className="!normal-case !tracking-normal">{t.key === "power" ? "Pair" : "Channel"}</th>
+                  {t.columns.map((c) => <th key={c.key} scope="col" className="!normal-case !tracking-normal">{c.label}</th>)}
                 </tr>
               </thead>
               <tbody>
