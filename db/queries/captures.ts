@@ -20,6 +20,7 @@ import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
 import type { HeadlineSource } from "@/lib/reports/headline-numbers";
 import type { Waveform } from "@/lib/pipeline/run-capture";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
@@ -172,6 +173,7 @@ export async function storeAnalysisResult({
         context: evaluation.context,
         result: evaluation.result,
         verdict: evaluation.result.verdict,
+        charts: buildChartData({ analysis, waveform, trends: trends ?? null, evaluation: evaluation.result }),
         createdBy: actorId,
       })
       .returning({ id: evaluations.id });
@@ -226,9 +228,11 @@ export async function insertEvaluation({
   actorId: string;
 }): Promise<string> {
   return db.transaction(async (tx) => {
+    const [a] = await tx.select({ result: analyses.result, waveform: analyses.waveform, trends: analyses.trends }).from(analyses).where(eq(analyses.id, analysisId));
+    const charts = a ? buildChartData({ analysis: a.result, waveform: a.waveform ?? null, trends: a.trends ?? null, evaluation: result }) : null;
     const [e] = await tx
       .insert(evaluations)
-      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, createdBy: actorId })
+      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, charts, createdBy: actorId })
       .returning({ id: evaluations.id });
     await insertAuditEvent(tx, { actorId, action: "capture.reevaluate", entityType: "capture", entityId: captureId, details: { evaluationId: e!.id } });
     return e!.id;
@@ -266,6 +270,25 @@ export async function listEvaluations({ captureId }: { captureId: string }): Pro
     .leftJoin(users, eq(users.id, evaluations.createdBy))
     .where(eq(evaluations.captureId, captureId))
     .orderBy(desc(evaluations.createdAt));
+}
+
+/**
+ * The precomputed chart data of an evaluation of a capture (the newest when no id is given), with its id.
+ * `charts` is null for evaluations stored before the data was precomputed. Reads one row, no analysis.
+ */
+export async function getEvaluationCharts({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {
+  const [row] = await db
+    .select({ id: evaluations.id, analysisId: evaluations.analysisId, charts: evaluations.charts })
+    .from(evaluations)
+    .where(and(eq(evaluations.captureId, captureId), evaluationId ? eq(evaluations.id, evaluationId) : undefined))
+    .orderBy(desc(evaluations.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Stores chart data computed late for an older evaluation, so the next request reads it. */
+export async function saveEvaluationCharts({ evaluationId, charts }: { evaluationId: string; charts: ChartData }): Promise<void> {
+  await db.update(evaluations).set({ charts }).where(eq(evaluations.id, evaluationId));
 }
 
 export async function getEvaluation({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {
@@ -331,6 +354,8 @@ export interface CaptureListItem {
   status: Capture["status"];
   reviewState: Capture["reviewState"];
   verdict: string | null;
+  /** The verdict of the evaluation an engineer last approved (null when never approved). */
+  approvedVerdict: string | null;
   createdAt: Date;
   uploadedByName: string | null;
 }
@@ -358,6 +383,7 @@ export async function listCaptures({ query, reader }: { query: CaptureListQuery;
       status: captures.status,
       reviewState: captures.reviewState,
       verdict: latestVerdict,
+      approvedVerdict: dsql<string | null>`(select e.verdict from ${reviewEvents} r join ${evaluations} e on e.id = r.evaluation_id where r.capture_id = ${captures.id} and r.action = 'approved' order by r.created_at desc limit 1)`,
       createdAt: captures.createdAt,
       uploadedByName: users.name,
     })

@@ -2,17 +2,19 @@ import "server-only";
 import {
   getCaptureById,
   getEvaluation,
+  getEvaluationCharts,
   getUserContact,
   latestAnalysis,
   latestAnalysisSummary,
   listEvaluations,
   listReviewEvents,
+  saveEvaluationCharts,
 } from "@/db/queries/captures";
 import { getRevisionVerification } from "@/db/queries/limit-verifications";
 import { getSiteById } from "@/db/queries/sites";
 import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
-import { decimateSeries } from "@/lib/reports/decimate-series";
+import { buildChartData } from "@/lib/reports/chart-data";
 
 /**
  * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
@@ -47,33 +49,21 @@ export async function loadSheet({ captureId, evaluationId, reader }: { captureId
 
 export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 
-/** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
-export async function loadChartData({ captureId, reader }: { captureId: string; reader: Reader }) {
+/**
+ * The waveform, spectrum and trend data for the charts (loaded by the client through SWR): the data
+ * precomputed when the evaluation was stored (`evaluationId`, or the newest), read in two queries.
+ * Evaluations stored before precomputation get theirs built once here and saved.
+ */
+export async function loadChartData({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }) {
   await getCaptureById({ id: captureId, reader });
-  const [analysis, evaluation] = await Promise.all([latestAnalysis({ captureId }), getEvaluation({ captureId })]);
+  const stored = await getEvaluationCharts({ captureId, evaluationId });
+  if (evaluationId && !stored) throw new AppError("not_found", "No such evaluation of this capture.");
+  if (stored?.charts) return { evaluationId: stored.id, ...stored.charts };
+  const [analysis, evaluation] = await Promise.all([latestAnalysis({ captureId }), stored ? getEvaluation({ captureId, evaluationId: stored.id }) : null]);
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
-  const r = analysis.result;
-  const windowDurationS = r.window.cycles / r.fundamentalHz;
-  // Per-order trends only for the orders the latest evaluation judged, so the payload stays small.
-  const judged = new Map<string, number[]>();
-  for (const c of evaluation?.result.channels ?? []) judged.set(c.channel, c.rows.filter((row) => row.limit !== null).map((row) => row.order));
-  return {
-    fundamentalHz: r.fundamentalHz,
-    windowDurationS,
-    waveform: analysis.waveform,
-    intervalTrends: analysis.trends ?? null,
-    channels: r.channels.map((c) => {
-      const orders = judged.get(c.name) ?? [];
-      return {
-        name: c.name,
-        quantity: c.quantity,
-        unit: c.unit,
-        harmonics: c.harmonics.map((h) => ({ order: h.order, rms: h.rms, percentOfFundamental: h.percentOfFundamental })),
-        series: c.series ?? null,
-        harmonicSeries: c.harmonicSeries && orders.length > 0 ? decimateSeries(c.harmonicSeries, orders, windowDurationS) : null,
-      };
-    }),
-  };
+  const charts = buildChartData({ analysis: analysis.result, waveform: analysis.waveform ?? null, trends: analysis.trends ?? null, evaluation: evaluation?.result ?? null });
+  if (stored && stored.analysisId === analysis.id) await saveEvaluationCharts({ evaluationId: stored.id, charts });
+  return { evaluationId: stored?.id ?? null, ...charts };
 }
 
 export type ChartData = Awaited<ReturnType<typeof loadChartData>>;

@@ -102,6 +102,11 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                     {c.verdict ? (
                       <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[c.verdict] ?? ""}`}>{verdictText[c.verdict] ?? c.verdict}</span>
                     ) : "—"}
+                    {c.approvedVerdict && c.approvedVerdict !== c.verdict && (
+                      <span className="mt-1 block text-xs text-ink-soft" data-testid="approved-verdict">
+                        approved as {verdictText[c.approvedVerdict] ?? c.approvedVerdict}; latest differs
+                      </span>
+                    )}
                   </td>
                   <td>{reviewLabels[c.reviewState]}</td>
                   <td className="whitespace-nowrap text-ink-soft">

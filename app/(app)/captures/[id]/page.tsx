@@ -132,7 +132,7 @@ export default async function CaptureSheetPage({
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
           <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts`} />
+          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 
