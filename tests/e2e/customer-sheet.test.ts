@@ -75,6 +75,38 @@ describe("headline numbers on the sheet", () => {
   });
 });
 
+describe("chart values without a mouse", () => {
+  it("the spectrum lists its failing orders in text, and the keyboard reaches and opens each chart's table", async () => {
+    const engineer = await signedIn("engineer");
+    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+    const beforeId = items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${beforeId}`));
+    await page.waitForSelector("[data-testid=spectrum-table]", { timeout: 20_000 });
+    // The demo's before-filter record fails at least one order (the after-filter one is the fix).
+    expect(await page.textContent("[data-testid=spectrum-failing]")).toMatch(/^Over the limit: h\d+ \(/);
+    // Tab from the top of the page until the spectrum's "Show as table" has the focus.
+    await page.locator("body").click({ position: { x: 5, y: 5 } });
+    let reached = false;
+    for (let i = 0; i < 250 && !reached; i++) {
+      await page.keyboard.press("Tab");
+      reached = await page.evaluate(() => document.activeElement?.closest("[data-testid=spectrum-table]") !== null && document.activeElement?.tagName === "SUMMARY");
+    }
+    expect(reached).toBe(true);
+    // A visible focus ring on the focused control.
+    expect(await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle)).toBe("solid");
+    await page.keyboard.press("Enter");
+    const table = page.locator("[data-testid=spectrum-table] table");
+    await table.waitFor({ state: "visible" });
+    expect(await table.locator("tbody tr").first().textContent()).toContain("h1");
+    expect(await page.locator("[data-testid=spectrum-table] tbody tr").count()).toBeGreaterThan(10);
+    for (const id of ["waveform-table", "trend-table", "order-trend-table"]) expect(await page.locator(`[data-testid=${id}] summary`).count()).toBe(1);
+    await snapAt(page, "chart-table-keyboard", "[data-testid=spectrum-table]");
+    await page.close();
+  });
+});
+
 describe("a viewer sees only their own customer's sheets", () => {
   it("reads the approved sheet of her customer's site, without review comments, and gets 404 for another customer's", async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });

@@ -12,6 +12,7 @@ import { formatOrders, groupReasons } from "@/lib/reports/format";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
+import { FailingOrdersText, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
 import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
@@ -157,15 +158,21 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
           <SpectrumChart channel={chartChannel} rows={channel.rows} mode={mode} />
         )}
         <p className="mt-1 text-xs text-ink-muted">Bars: measured r.m.s. per order (red where over the limit). Copper marks: the limit of this evaluation.</p>
+        <FailingOrdersText rows={channel.rows} />
+        {data && chartChannel && <SpectrumTable channel={chartChannel} rows={channel.rows} />}
       </div>
       <div className="panel min-w-0">
         <h2 className="mb-2">Waveform</h2>
         {data ? <WaveformChart data={data} /> : <div className="h-52 animate-pulse rounded bg-paper-sunk" />}
+        {data?.waveform && <WaveformTable waveform={data.waveform} />}
       </div>
       <div className="panel min-w-0">
         <h2 className="mb-2">{ilA !== undefined ? "THD and TDD" : "THD"} over the windows</h2>
         {data && chartChannel ? (
-          <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
+          <>
+            <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
+            <TrendTable channel={chartChannel} windowDurationS={data.windowDurationS} />
+          </>
         ) : (
           <div className="h-44 animate-pulse rounded bg-paper-sunk" />
         )}
@@ -213,6 +220,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
               {smoothing ? "; the 1.5 s smoothed line is the IEC 61000-4-7 filter over every window" : ""}. Solid copper: table limit; dashed red: limit × a rule's multiplier.
               {trendRow.decidedBy ? ` Verdict ${trendRow.verdict} decided by ${decidedByLabel(trendRow)}.` : ""}
             </p>
+            <OrderTrendTable series={orderSeries} order={trendRow.order} unit={trendRow.unit} windowDurationS={data.windowDurationS} />
           </>
         )}
       </div>
