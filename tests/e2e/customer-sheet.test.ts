@@ -107,6 +107,27 @@ describe("chart values without a mouse", () => {
   });
 });
 
+describe("compare two captures", () => {
+  it("draws both spectra with their limits and hides orders below threshold in both on request", async () => {
+    const engineer = await signedIn("engineer");
+    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+    const psu = items.find((c) => c.title === "Desktop power supply, 180 W rated")!.id;
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/compare?a=${psu}&b=${otherId}`));
+    await page.waitForSelector("[data-testid=compare-spectrum] svg", { timeout: 15_000 });
+    expect(await page.locator("[data-testid=compare-spectrum] rect").count()).toBeGreaterThan(10);
+    const before = await page.locator("[data-testid=compare-table] tbody tr").count();
+    await page.click("[data-testid=compare-hide-below]");
+    await page.waitForURL(/hide=below-threshold/);
+    const after = await page.locator("[data-testid=compare-table] tbody tr").count();
+    expect(after).toBeLessThan(before);
+    expect(await page.textContent("main")).toContain(`${before - after} order`);
+    await snapAt(page, "compare-spectrum", "[data-testid=compare-spectrum]");
+    await page.close();
+  });
+});
+
 describe("a viewer sees only their own customer's sheets", () => {
   it("reads the approved sheet of her customer's site, without review comments, and gets 404 for another customer's", async () => {
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
