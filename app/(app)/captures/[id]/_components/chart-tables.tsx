@@ -34,7 +34,7 @@ export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channe
   const byOrder = new Map(rows.map((r) => [r.order, r]));
   return (
     <Toggle testId="spectrum-table">
-      <table className="table-base tabular-nums">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
         <thead>
           <tr><th scope="col">Order</th><th scope="col">Measured ({channel.unit})</th><th scope="col">% of fundamental</th><th scope="col">Limit ({channel.unit})</th><th scope="col">% of limit</th><th scope="col">Verdict</th></tr>
         </thead>
@@ -62,7 +62,7 @@ export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channe
 export function WaveformTable({ waveform }: { waveform: NonNullable<ChartDataDto["waveform"]> }) {
   return (
     <Toggle testId="waveform-table">
-      <table className="table-base tabular-nums">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
         <thead>
           <tr>
             <th scope="col">Time (ms)</th>
@@ -88,7 +88,7 @@ export function TrendTable({ channel, windowDurationS }: { channel: ChartDataDto
   if (!s) return null;
   return (
     <Toggle testId="trend-table">
-      <table className="table-base tabular-nums">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
         <thead>
           <tr><th scope="col">Window start (s)</th><th scope="col">RMS ({channel.unit})</th><th scope="col">Fundamental ({channel.unit})</th><th scope="col">THD (%)</th></tr>
         </thead>
@@ -114,7 +114,7 @@ export function OrderTrendTable({ series, order, unit, windowDurationS }: { seri
   const step = windowDurationS * series.windowsPerPoint;
   return (
     <Toggle testId="order-trend-table">
-      <table className="table-base tabular-nums">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
         <thead>
           <tr><th scope="col">From (s)</th><th scope="col">h{order} r.m.s. ({unit}){series.windowsPerPoint > 1 ? ", largest of the group" : ""}</th><th scope="col">1.5 s smoothed ({unit})</th></tr>
         </thead>
