@@ -18,6 +18,7 @@ const sans = localFont({
 export const metadata: Metadata = {
   title: { default: "Ordwise", template: "%s · Ordwise" },
   description: "Harmonic-emission checks of measured waveforms against published limits.",
+  icons: { icon: [{ url: "/favicon.svg", type: "image/svg+xml" }] },
 };
 
 export const viewport: Viewport = { width: "device-width", initialScale: 1 };

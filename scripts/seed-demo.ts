@@ -12,6 +12,7 @@ import { captures, sites, users } from "@/db/schema";
 import { demoCaptures } from "@/db/seed/demo-captures";
 import { seedDemoStudies } from "@/db/seed/demo-studies";
 import { processCapture } from "@/lib/captures/process-capture";
+import { systemReader } from "@/lib/auth/permissions";
 import { inspectIntervalLog } from "@/lib/intervals/inspect-interval-log";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
 import { putObject } from "@/lib/storage/s3";
@@ -42,9 +43,9 @@ for (const demo of demoCaptures) {
     const suggested = inspectIntervalLog(bytes.toString("utf8")).suggestion.mapping;
     if (!suggested) throw new Error(`no column mapping could be suggested for ${demo.file}`);
     const intervalMapping = IntervalMappingSchema.parse(suggested);
-    await saveIntervalSetup({ id: capture.id, setup: { intervalMapping, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician });
+    await saveIntervalSetup({ id: capture.id, setup: { intervalMapping, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician, reader: systemReader });
   } else {
-    await saveCaptureSetup({ id: capture.id, setup: { mapping: demo.mapping ?? { channels: {} }, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician });
+    await saveCaptureSetup({ id: capture.id, setup: { mapping: demo.mapping ?? { channels: {} }, limitSetKey: demo.limitSetKey, context: demo.context }, actorId: technician, reader: systemReader });
   }
   await processCapture({ captureId: capture.id, actorId: technician });
   const [done] = await db.select({ status: captures.status, reason: captures.failureReason }).from(captures).where(eq(captures.id, capture.id));

@@ -10,6 +10,7 @@ const nav: { href: string; label: string; permission: Permission }[] = [
   { href: "/sites", label: "Sites", permission: "sites:read" },
   { href: "/limits", label: "Limit tables", permission: "limits:read" },
   { href: "/admin/users", label: "Users", permission: "users:manage" },
+  { href: "/admin/customers", label: "Customers", permission: "customers:manage" },
   { href: "/dev/mailbox", label: "Mailbox", permission: "mailbox:read" },
 ];
 

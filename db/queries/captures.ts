@@ -1,5 +1,5 @@
 import "server-only";
-import { and, count, desc, eq, gte, inArray, isNull, lt, sql as dsql, type SQL } from "drizzle-orm";
+import { and, count, desc, eq, gte, inArray, isNull, lt, sql as dsql } from "drizzle-orm";
 import { db, type Tx } from "@/db/client";
 import {
   analyses,
@@ -14,7 +14,7 @@ import {
   type Capture,
 } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/types";
-import { can, type Role } from "@/lib/auth/permissions";
+import { can, type Reader } from "@/lib/auth/permissions";
 import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
@@ -23,16 +23,14 @@ import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
 import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
+import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
+import type { HeadlineSource } from "@/lib/reports/headline-numbers";
 import type { Waveform } from "@/lib/pipeline/run-capture";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
+import { capturesVisibleTo } from "./scope";
 
 export const capturesPerPage = 20;
-
-/** Viewers read only what an engineer has signed off; other roles read everything not withdrawn. */
-function visibleTo(role: Role): SQL | undefined {
-  return and(isNull(captures.withdrawnAt), role === "viewer" ? dsql`${captures.approvedEvaluationId} is not null` : undefined);
-}
 
 /** The 409 for a review event the capture's state does not allow, naming the allowed ones. */
 function refuseTransition(state: Capture["reviewState"], event: ReviewEvent, allowed: ReviewEvent[]): AppError {
@@ -53,12 +51,12 @@ async function onNewResult(tx: Tx, captureId: string): Promise<void> {
  * The set-up is frozen once submitted: nobody changes it while in review; after approval only a
  * reviewer may (and the new result starts a new review). Throws otherwise.
  */
-function assertSetupEditable(capture: Capture, role: Role): void {
+function assertSetupEditable(capture: Capture, reader: Reader): void {
   if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is running; wait for it to finish before changing the set-up.");
   if (capture.reviewState === "in_review") {
     throw new AppError("conflict", "The set-up is frozen while the capture is in review. An engineer can send it back to change it.");
   }
-  if (capture.reviewState === "approved" && !can(role, "captures:review")) {
+  if (capture.reviewState === "approved" && !can(reader.role, "captures:review")) {
     throw new AppError("forbidden", "The capture is approved: only an engineer may change its set-up, and the new result needs a new review.");
   }
 }
@@ -88,11 +86,12 @@ export async function registerCapture({ input, actorId }: { input: RegisterCaptu
   });
 }
 
-export async function getCaptureById({ id, role }: { id: string; role: Role }): Promise<Capture> {
+/** One capture as `reader` may see it (viewers: approved sheets of their customers' sites); otherwise not found. */
+export async function getCaptureById({ id, reader }: { id: string; reader: Reader }): Promise<Capture> {
   const [capture] = await db
     .select()
     .from(captures)
-    .where(and(eq(captures.id, id), visibleTo(role)));
+    .where(and(eq(captures.id, id), capturesVisibleTo(reader)));
   if (!capture) throw new AppError("not_found", "No such capture.");
   return capture;
 }
@@ -130,15 +129,15 @@ export async function setCaptureStatus({
  * one wins and queues a job. Refuses (with the reason) a capture that is uploading, already queued or
  * running, has no limit set, is in review, or is approved and the actor is not a reviewer.
  */
-export async function startAnalysis({ id, role }: { id: string; role: Role }): Promise<void> {
-  const reviewer = can(role, "captures:review");
+export async function startAnalysis({ id, reader }: { id: string; reader: Reader }): Promise<void> {
+  const reviewer = can(reader.role, "captures:review");
   const [won] = await db
     .update(captures)
     .set({ status: "queued", progressPercent: 0, failureReason: null, updatedAt: new Date() })
     .where(
       and(
         eq(captures.id, id),
-        visibleTo(role),
+        capturesVisibleTo(reader),
         inArray(captures.status, ["uploaded", "done", "failed"]),
         dsql`${captures.limitSetKey} is not null`,
         dsql`${captures.reviewState} <> 'in_review'`,
@@ -147,7 +146,7 @@ export async function startAnalysis({ id, role }: { id: string; role: Role }): P
     )
     .returning({ id: captures.id });
   if (won) return;
-  const capture = await getCaptureById({ id, role });
+  const capture = await getCaptureById({ id, reader });
   if (capture.status === "uploading") throw new AppError("conflict", "The file has not been uploaded yet.");
   if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is already running.");
   if (!capture.limitSetKey) throw new AppError("conflict", "Save the mapping and choose a limit set first.");
@@ -170,9 +169,9 @@ export async function markUploaded({ id, sizeBytes, sha256, actorId }: { id: str
 }
 
 /** Withdraws a capture before submission (its uploader only): hidden from lists, kept with an audit event. */
-export async function withdrawCapture({ id, actorId, role }: { id: string; actorId: string; role: Role }): Promise<void> {
+export async function withdrawCapture({ id, actorId, reader }: { id: string; actorId: string; reader: Reader }): Promise<void> {
   await db.transaction(async (tx) => {
-    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
     if (!capture) throw new AppError("not_found", "No such capture.");
     if (capture.reviewState !== "draft") throw new AppError("conflict", "A capture that was submitted for review cannot be withdrawn.");
     if (capture.status === "queued" || capture.status === "running") throw new AppError("conflict", "The analysis is running; wait for it to finish before withdrawing.");
@@ -183,9 +182,9 @@ export async function withdrawCapture({ id, actorId, role }: { id: string; actor
 }
 
 /** Switches between waveform record and interval log while nothing has been analysed; the mapping is cleared. */
-export async function switchCaptureKind({ id, kind, actorId, role }: { id: string; kind: Capture["kind"]; actorId: string; role: Role }): Promise<Capture> {
+export async function switchCaptureKind({ id, kind, actorId, reader }: { id: string; kind: Capture["kind"]; actorId: string; reader: Reader }): Promise<Capture> {
   return db.transaction(async (tx) => {
-    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    const [capture] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
     if (!capture) throw new AppError("not_found", "No such capture.");
     const [analysed] = await tx.select({ id: analyses.id }).from(analyses).where(eq(analyses.captureId, id)).limit(1);
     if (analysed || !["uploading", "uploaded", "failed"].includes(capture.status)) {
@@ -220,13 +219,13 @@ export async function setCapturedAt({ id, capturedAt }: { id: string; capturedAt
   await db.update(captures).set({ capturedAt }).where(eq(captures.id, id));
 }
 
-export async function saveCaptureSetup({ id, setup, actorId, role = "technician" }: { id: string; setup: CaptureSetup; actorId: string; role?: Role }): Promise<Capture> {
+export async function saveCaptureSetup({ id, setup, actorId, reader }: { id: string; setup: CaptureSetup; actorId: string; reader: Reader }): Promise<Capture> {
   return db.transaction(async (tx) => {
     const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
     if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
-    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
     if (!current) throw new AppError("not_found", "No such capture.");
-    assertSetupEditable(current, role);
+    assertSetupEditable(current, reader);
     const [capture] = await tx
       .update(captures)
       .set({ mapping: setup.mapping, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })
@@ -239,13 +238,13 @@ export async function saveCaptureSetup({ id, setup, actorId, role = "technician"
 }
 
 /** Saves an interval log's column mapping, limit set and context, and remembers the mapping on its site. */
-export async function saveIntervalSetup({ id, setup, actorId, role = "technician" }: { id: string; setup: IntervalSetup; actorId: string; role?: Role }): Promise<Capture> {
+export async function saveIntervalSetup({ id, setup, actorId, reader }: { id: string; setup: IntervalSetup; actorId: string; reader: Reader }): Promise<Capture> {
   return db.transaction(async (tx) => {
     const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
     if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
-    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), visibleTo(role))).for("update");
+    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
     if (!current) throw new AppError("not_found", "No such capture.");
-    assertSetupEditable(current, role);
+    assertSetupEditable(current, reader);
     const [capture] = await tx
       .update(captures)
       .set({ mapping: { intervalMapping: setup.intervalMapping }, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })
@@ -321,6 +320,7 @@ export async function storeAnalysisResult({
         context: evaluation.context,
         result: evaluation.result,
         verdict: evaluation.result.verdict,
+        charts: buildChartData({ analysis, waveform, trends: trends ?? null, evaluation: evaluation.result }),
         createdBy: actorId,
       })
       .returning({ id: evaluations.id });
@@ -332,6 +332,36 @@ export async function storeAnalysisResult({
     await insertAuditEvent(tx, { actorId, action: "capture.analysed", entityType: "capture", entityId: captureId, details: { verdict: evaluation.result.verdict, evaluationId: e!.id } });
     return { analysisId: a!.id, evaluationId: e!.id };
   });
+}
+
+/**
+ * The newest analysis without its per-order and per-window arrays (built in PostgreSQL, so the large
+ * document never leaves the database): what the sheet, PDF and CSV need for the headline numbers.
+ */
+/** What the sheet needs of an analysis for its headline numbers and set-up, built in PostgreSQL without the per-order data. */
+export type AnalysisSummary = HeadlineSource & { sampleIntervalS: number };
+
+/** One analysis without its per-order arrays (the sheet's headline numbers and set-up), with the set-up and file hash behind it. */
+export async function getAnalysisSummary({ id }: { id: string }): Promise<{
+  id: string;
+  createdAt: Date;
+  result: AnalysisSummary;
+  setup: Record<string, unknown> | null;
+  fileSha256: string | null;
+} | null> {
+  const r = analyses.result;
+  const slim = dsql<AnalysisSummary>`jsonb_build_object(
+    'fundamentalHz', ${r}->'fundamentalHz',
+    'sampleIntervalS', ${r}->'sampleIntervalS',
+    'power', ${r}->'power',
+    'sequence', coalesce((select jsonb_agg(s.v - 'orders' order by s.i) from jsonb_array_elements(coalesce(${r}->'sequence', '[]'::jsonb)) with ordinality as s(v, i)), '[]'::jsonb),
+    'channels', coalesce((select jsonb_agg(c.v - 'harmonics' - 'series' - 'harmonicSeries' - 'groups' order by c.i) from jsonb_array_elements(${r}->'channels') with ordinality as c(v, i)), '[]'::jsonb)
+  )`;
+  const [a] = await db
+    .select({ id: analyses.id, createdAt: analyses.createdAt, result: slim, setup: analyses.setup, fileSha256: analyses.fileSha256 })
+    .from(analyses)
+    .where(eq(analyses.id, id));
+  return a ? { ...a, setup: (a.setup as Record<string, unknown> | null) ?? null, fileSha256: a.fileSha256 ?? null } : null;
 }
 
 export async function latestAnalysis({ captureId }: { captureId: string }) {
@@ -355,9 +385,11 @@ export async function insertEvaluation({
   actorId: string;
 }): Promise<string> {
   return db.transaction(async (tx) => {
+    const [a] = await tx.select({ result: analyses.result, waveform: analyses.waveform, trends: analyses.trends }).from(analyses).where(eq(analyses.id, analysisId));
+    const charts = a ? buildChartData({ analysis: a.result, waveform: a.waveform ?? null, trends: a.trends ?? null, evaluation: result }) : null;
     const [e] = await tx
       .insert(evaluations)
-      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, createdBy: actorId })
+      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, charts, createdBy: actorId })
       .returning({ id: evaluations.id });
     await onNewResult(tx, captureId);
     await insertAuditEvent(tx, { actorId, action: "capture.reevaluate", entityType: "capture", entityId: captureId, details: { evaluationId: e!.id } });
@@ -396,6 +428,25 @@ export async function listEvaluations({ captureId }: { captureId: string }): Pro
     .leftJoin(users, eq(users.id, evaluations.createdBy))
     .where(eq(evaluations.captureId, captureId))
     .orderBy(desc(evaluations.createdAt));
+}
+
+/**
+ * The precomputed chart data of an evaluation of a capture (the newest when no id is given), with its id.
+ * `charts` is null for evaluations stored before the data was precomputed. Reads one row, no analysis.
+ */
+export async function getEvaluationCharts({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {
+  const [row] = await db
+    .select({ id: evaluations.id, analysisId: evaluations.analysisId, charts: evaluations.charts })
+    .from(evaluations)
+    .where(and(eq(evaluations.captureId, captureId), evaluationId ? eq(evaluations.id, evaluationId) : undefined))
+    .orderBy(desc(evaluations.createdAt))
+    .limit(1);
+  return row ?? null;
+}
+
+/** Stores chart data computed late for an older evaluation, so the next request reads it. */
+export async function saveEvaluationCharts({ evaluationId, charts }: { evaluationId: string; charts: ChartData }): Promise<void> {
+  await db.update(evaluations).set({ charts }).where(eq(evaluations.id, evaluationId));
 }
 
 export async function getEvaluation({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {
@@ -506,19 +557,23 @@ export interface CaptureListItem {
   approved: boolean;
   /** An analysis or evaluation newer than the approved one waits for review. */
   newerAwaitsReview: boolean;
+  /** The verdict of the approved evaluation (null when never approved). */
+  approvedVerdict: string | null;
+  /** The newest evaluation's verdict, whether approved or not. */
+  latestVerdict: string | null;
   createdAt: Date;
   uploadedByName: string | null;
 }
 
 /** Server-side filtered, paginated list; the verdict is the approved evaluation's while one exists, else the newest one's. */
-export async function listCaptures({ query, role }: { query: CaptureListQuery; role: Role }): Promise<{ items: CaptureListItem[]; total: number; page: number; pages: number }> {
+export async function listCaptures({ query, reader }: { query: CaptureListQuery; reader: Reader }): Promise<{ items: CaptureListItem[]; total: number; page: number; pages: number }> {
   const latestId = dsql`(select e.id from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1)`;
-  const latestVerdict = dsql<string | null>`coalesce(
-    (select e.verdict from ${evaluations} e where e.id = ${captures.approvedEvaluationId}),
-    (select e.verdict from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1))`;
+  const newestVerdict = dsql<string | null>`(select e.verdict from ${evaluations} e where e.capture_id = ${captures.id} order by e.created_at desc limit 1)`;
+  const approvedVerdict = dsql<string | null>`(select e.verdict from ${evaluations} e where e.id = ${captures.approvedEvaluationId})`;
+  const latestVerdict = dsql<string | null>`coalesce(${approvedVerdict}, ${newestVerdict})`;
   const newer = dsql<boolean>`(${captures.approvedEvaluationId} is not null and ${captures.approvedEvaluationId} is distinct from ${latestId})`;
   const where = and(
-    visibleTo(role),
+    capturesVisibleTo(reader),
     query.site ? eq(captures.siteId, query.site) : undefined,
     query.status ? eq(captures.status, query.status) : undefined,
     query.verdict ? dsql`${latestVerdict} = ${query.verdict}` : undefined,
@@ -539,6 +594,8 @@ export async function listCaptures({ query, role }: { query: CaptureListQuery; r
       verdict: latestVerdict,
       approved: dsql<boolean>`(${captures.approvedEvaluationId} is not null)`,
       newerAwaitsReview: newer,
+      approvedVerdict,
+      latestVerdict: newestVerdict,
       createdAt: captures.createdAt,
       uploadedByName: users.name,
     })
@@ -589,12 +646,12 @@ export async function revokeShareLink({ captureId, shareId, actorId }: { capture
   });
 }
 
-/** The capture a share token opens, or null when unknown, revoked or expired. */
-export async function findSharedCapture({ tokenHash }: { tokenHash: string }): Promise<Capture | null> {
+/** A live share link: the capture it opens and when it stops working; null when unknown, revoked or expired. */
+export async function findShareLink({ tokenHash }: { tokenHash: string }): Promise<{ capture: Capture; expiresAt: Date } | null> {
   const [row] = await db
-    .select({ capture: captures })
+    .select({ capture: captures, expiresAt: shareLinks.expiresAt })
     .from(shareLinks)
     .innerJoin(captures, eq(captures.id, shareLinks.captureId))
     .where(and(eq(shareLinks.tokenHash, tokenHash), dsql`${shareLinks.revokedAt} is null`, gte(shareLinks.expiresAt, new Date()), isNull(captures.withdrawnAt)));
-  return row?.capture ?? null;
+  return row ?? null;
 }

@@ -1,17 +1,21 @@
 import "server-only";
-import { asc, eq } from "drizzle-orm";
+import { and, asc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { sites, type Site } from "@/db/schema";
+import type { Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import type { SiteInput } from "@/lib/validations/site";
 import { insertAuditEvent } from "./audit";
+import { sitesVisibleTo } from "./scope";
 
-export function listSites(): Promise<Site[]> {
-  return db.select().from(sites).orderBy(asc(sites.name));
+/** The sites `reader` may see (viewers: their customers' sites only), by name. */
+export function listSites({ reader }: { reader: Reader }): Promise<Site[]> {
+  return db.select().from(sites).where(sitesVisibleTo(reader)).orderBy(asc(sites.name));
 }
 
-export async function getSiteById({ id }: { id: string }): Promise<Site> {
-  const [site] = await db.select().from(sites).where(eq(sites.id, id));
+/** One site as `reader` may see it; otherwise not found. */
+export async function getSiteById({ id, reader }: { id: string; reader: Reader }): Promise<Site> {
+  const [site] = await db.select().from(sites).where(and(eq(sites.id, id), sitesVisibleTo(reader)));
   if (!site) throw new AppError("not_found", "No such site.");
   return site;
 }

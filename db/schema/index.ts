@@ -1,5 +1,6 @@
 export * from "./enums";
 export * from "./auth";
+export * from "./customers";
 export * from "./sites";
 export * from "./captures";
 export * from "./audit";

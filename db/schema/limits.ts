@@ -1,4 +1,4 @@
-import { boolean, integer, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, date, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
 
 export const limitSets = pgTable("limit_sets", {
@@ -31,5 +31,29 @@ export const limitSetRevisions = pgTable(
   (t) => [unique("limit_set_revisions_set_number").on(t.limitSetId, t.number)],
 );
 
+// Verification of a revision against the printed standard: a note added beside the immutable revision,
+// never an edit of it. A revision without a row is "not yet verified"; the newest row counts.
+export const limitSetVerifications = pgTable(
+  "limit_set_verifications",
+  {
+    id: uuid("id").primaryKey().defaultRandom(),
+    revisionId: uuid("revision_id")
+      .notNull()
+      .references(() => limitSetRevisions.id, { onDelete: "cascade" }),
+    // The printed edition held, e.g. "IEC 61000-3-2:2018 (Edition 5.0)".
+    edition: text("edition").notNull(),
+    // The clause or table checked row by row, e.g. "Table 1".
+    checked: text("checked").notNull(),
+    verifiedById: text("verified_by_id").references(() => users.id),
+    // The verifier's name as printed on sheets (kept even if the account is renamed or removed).
+    verifiedByName: text("verified_by_name").notNull(),
+    verifiedOn: date("verified_on", { mode: "string" }).notNull(),
+    note: text("note").notNull().default(""),
+    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  },
+  (t) => [index("limit_set_verifications_revision_idx").on(t.revisionId)],
+);
+
 export type LimitSet = typeof limitSets.$inferSelect;
+export type LimitSetVerification = typeof limitSetVerifications.$inferSelect;
 export type LimitSetRevision = typeof limitSetRevisions.$inferSelect;

@@ -1,6 +1,7 @@
 import { index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import type { ChartData } from "@/lib/reports/chart-data";
 import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import { users } from "./auth";
 import { captures } from "./captures";
@@ -48,6 +49,8 @@ export const evaluations = pgTable(
     context: jsonb("context").$type<Record<string, unknown>>().notNull(),
     result: jsonb("result").$type<ComplianceResult>().notNull(),
     verdict: text("verdict").notNull(),
+    // The charts' data (lib/reports/chart-data.ts), built when the evaluation is stored; null for older rows.
+    charts: jsonb("charts").$type<ChartData>(),
     createdBy: text("created_by").references(() => users.id),
     createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
   },

@@ -1,5 +1,6 @@
 import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
+import { customers } from "./customers";
 
 // A site is where captures are taken: a facility's PCC or a test bench for equipment.
 export const sites = pgTable("sites", {
@@ -12,6 +13,8 @@ export const sites = pgTable("sites", {
   iscA: doublePrecision("isc_a"),
   ilA: doublePrecision("il_a"),
   notes: text("notes").notNull().default(""),
+  // The organisation that owns the site; null for the lab's own benches. Viewers read only their customers' sites.
+  customerId: uuid("customer_id").references(() => customers.id, { onDelete: "set null" }),
   // The column mapping last used for this site's interval logs, offered again for the next one.
   intervalMapping: jsonb("interval_mapping").$type<Record<string, unknown>>(),
   createdBy: text("created_by").references(() => users.id),

@@ -2,6 +2,7 @@
 // reactor on each drive (predicted still to fail IEEE 519) against a 4.7th-tuned filter at the
 // 11 kV PCC (predicted to pass). Idempotent: a study whose title exists on the capture is skipped.
 import "server-only";
+import { systemReader } from "@/lib/auth/permissions";
 import { and, eq } from "drizzle-orm";
 import { db } from "@/db/client";
 import { insertMitigationStudy } from "@/db/queries/studies";
@@ -32,7 +33,7 @@ export async function seedDemoStudies({ engineerId }: { engineerId: string }): P
       .from(mitigationStudies)
       .where(and(eq(mitigationStudies.captureId, capture.id), eq(mitigationStudies.title, demo.title)));
     if (exists) continue;
-    const { analysisId, evaluationId, result } = await computeMitigationStudy({ captureId: capture.id, role: "engineer", inputs: demo.inputs });
+    const { analysisId, evaluationId, result } = await computeMitigationStudy({ captureId: capture.id, reader: systemReader, inputs: demo.inputs });
     await insertMitigationStudy({ captureId: capture.id, analysisId, evaluationId, title: demo.title, inputs: demo.inputs, result, includeInReport: true, actorId: engineerId });
     console.log(`[ordwise] demo study: ${demo.title} → predicted ${result.compliance?.verdict ?? "not judged"}`);
   }

@@ -39,3 +39,14 @@ export const demoSites = [
     notes: "Single-phase equipment under test against IEC 61000-3-2 (reference source, 230 V 50 Hz).",
   },
 ];
+
+/**
+ * Customers own sites; a viewer reads only the approved sheets of their customers' sites.
+ * The demo viewer (the utility's engineer reviewing Quillbrook's submission) belongs to Quillbrook only,
+ * so the Bench B and Harrowgate sheets stay hidden from her.
+ */
+export const demoCustomers: { name: string; siteNames: string[]; viewerEmails: string[] }[] = [
+  { name: "Quillbrook Cold Store Ltd", siteNames: ["Quillbrook Cold Store — PCC 11 kV"], viewerEmails: ["viewer@ordwise.test"] },
+  { name: "Harrowgate Vale Water Board", siteNames: ["Harrowgate Water Pumping Station No. 3"], viewerEmails: [] },
+  { name: "Brannock Appliances Ltd", siteNames: ["Bench B — product compliance lab"], viewerEmails: [] },
+];

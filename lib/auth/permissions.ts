@@ -5,7 +5,9 @@ export type Role = (typeof roles)[number];
 
 export const permissions = {
   "sites:read": ["admin", "engineer", "technician", "viewer"],
-  "sites:write": ["admin", "engineer", "technician"],
+  // Technicians may add a site; changing an existing one is an engineer's.
+  "sites:create": ["admin", "engineer", "technician"],
+  "sites:write": ["admin", "engineer"],
   "captures:read": ["admin", "engineer", "technician", "viewer"],
   "captures:upload": ["admin", "engineer", "technician"],
   "captures:review": ["admin", "engineer"],
@@ -13,6 +15,7 @@ export const permissions = {
   "limits:read": ["admin", "engineer", "technician", "viewer"],
   "limits:write": ["admin"],
   "users:manage": ["admin"],
+  "customers:manage": ["admin"],
   "mailbox:read": ["admin"],
 } as const satisfies Record<string, readonly Role[]>;
 
@@ -28,3 +31,39 @@ export const roleLabels: Record<Role, string> = {
   technician: "Technician",
   viewer: "Viewer",
 };
+
+/** Who is asking, as far as object-level rules care. */
+export interface Reader {
+  id: string;
+  role: Role;
+}
+
+/**
+ * Which captures and sites a reader may see at all (object level, after the role check).
+ * Viewers are outside parties: only approved captures of sites owned by a customer they belong to.
+ * Everyone else works for the lab and sees everything. Unknown or out-of-scope objects read as "not found".
+ */
+export type ReadScope = { kind: "all" } | { kind: "customer-member"; userId: string; approvedOnly: true };
+
+export function readScope(reader: Reader): ReadScope {
+  return reader.role === "viewer" ? { kind: "customer-member", userId: reader.id, approvedOnly: true } : { kind: "all" };
+}
+
+/** Whether internal review comments and the review history may be shown to this reader. */
+export function canSeeReviewComments(reader: Reader): boolean {
+  return reader.role !== "viewer";
+}
+
+/**
+ * Whether `reader` may change a capture's upload, set-up or run its analysis, or submit it.
+ * Engineers and admins may change any capture; a technician only one they uploaded, until it is submitted
+ * (draft, or sent back to them). Viewers never.
+ */
+export function canEditCapture(reader: Reader, capture: { uploadedBy: string | null; reviewState: "draft" | "in_review" | "approved" | "sent_back" }): boolean {
+  if (reader.role === "admin" || reader.role === "engineer") return true;
+  if (reader.role !== "technician") return false;
+  return capture.uploadedBy === reader.id && (capture.reviewState === "draft" || capture.reviewState === "sent_back");
+}
+
+/** The reader for work the system does on its own behalf (the analysis worker, a valid share link's sheet). */
+export const systemReader: Reader = { id: "system", role: "admin" };

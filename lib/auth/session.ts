@@ -4,7 +4,7 @@ import { cache } from "react";
 import type { Session, User } from "lucia";
 import { AppError } from "@/lib/errors";
 import { lucia } from "./lucia";
-import { can, type Permission } from "./permissions";
+import { can, canEditCapture, type Permission, type Reader } from "./permissions";
 
 export type SessionUser = User;
 
@@ -48,6 +48,20 @@ export async function authorise(permission: Permission | null): Promise<User> {
     throw new AppError("forbidden", "Your role does not allow this.");
   }
   return user;
+}
+
+/**
+ * Object-level check for changing a capture (upload, set-up, analysis, submission): see canEditCapture.
+ * Throws AppError("forbidden") with the reason; the caller has already checked the role's permission.
+ */
+export function authoriseCaptureEdit(reader: Reader, capture: Parameters<typeof canEditCapture>[1]): void {
+  if (canEditCapture(reader, capture)) return;
+  throw new AppError(
+    "forbidden",
+    reader.role === "technician" && capture.uploadedBy === reader.id
+      ? "This capture has been submitted; only an engineer can change it now."
+      : "Technicians change only the captures they uploaded.",
+  );
 }
 
 export async function startSession(userId: string): Promise<void> {

@@ -4,6 +4,7 @@ import os from "node:os";
 import path from "node:path";
 import type { Capture } from "@/db/schema";
 import { getSiteById } from "@/db/queries/sites";
+import { systemReader } from "@/lib/auth/permissions";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { importIntervalLogFile } from "@/lib/intervals/import-interval-log-file";
 import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
@@ -30,7 +31,7 @@ export async function judgeStoredIntervalLog(
   const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-log-"));
   try {
     const file = path.join(dir, "original.csv");
-    const [site, read] = await Promise.all([getSiteById({ id: capture.siteId }), downloadObjectToFile(capture.s3Key, file)]);
+    const [site, read] = await Promise.all([getSiteById({ id: capture.siteId, reader: systemReader }), downloadObjectToFile(capture.s3Key, file)]);
     // The bytes read must be the ones confirmed at upload (also on every "evaluate again").
     checkOriginal(capture.sha256, read.sha256);
     const log = await importIntervalLogFile(file, intervalMapping);

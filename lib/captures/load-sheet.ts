@@ -1,55 +1,63 @@
 import "server-only";
 import {
-  getAnalysisById,
   getApproval,
   getCaptureById,
   getEvaluation,
+  getEvaluationCharts,
   getUserContact,
+  getAnalysisById,
+  getAnalysisSummary,
+  latestAnalysis,
   listEvaluations,
   listReviewEvents,
+  saveEvaluationCharts,
 } from "@/db/queries/captures";
+import { getRevisionVerification } from "@/db/queries/limit-verifications";
 import { getSiteById } from "@/db/queries/sites";
-import type { Role } from "@/lib/auth/permissions";
+import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
-import { decimateSeries } from "@/lib/reports/decimate-series";
+import { buildChartData } from "@/lib/reports/chart-data";
 
 /**
  * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
  * the CSV export and the share page all render from this.
  * By default the approved evaluation while one exists, else the newest. Viewers and share links
  * (`approvedOnly`) see only the approved evaluation of an approved capture — never a newer, unreviewed one.
+ * `reader` limits what is visible (viewers: approved sheets of their customers' sites, no internal review comments).
  */
 export async function loadSheet({
   captureId,
   evaluationId,
-  role,
-  approvedOnly = role === "viewer",
+  reader,
+  approvedOnly = reader.role === "viewer",
 }: {
   captureId: string;
   evaluationId?: string;
-  role: Role;
+  reader: Reader;
   approvedOnly?: boolean;
 }) {
-  const capture = await getCaptureById({ id: captureId, role });
+  const capture = await getCaptureById({ id: captureId, reader });
   if (approvedOnly && capture.approvedEvaluationId && evaluationId && evaluationId !== capture.approvedEvaluationId) {
     throw new AppError("not_found", "No such evaluation of this capture.");
   }
   const shownId = evaluationId ?? capture.approvedEvaluationId ?? undefined;
   const [site, allEvaluations, allReviews, uploader, evaluation, approval] = await Promise.all([
-    getSiteById({ id: capture.siteId }),
+    getSiteById({ id: capture.siteId, reader }),
     listEvaluations({ captureId }),
-    listReviewEvents({ captureId }),
+    canSeeReviewComments(reader) ? listReviewEvents({ captureId }) : Promise.resolve([]),
     getUserContact({ id: capture.uploadedBy }),
     getEvaluation({ captureId, evaluationId: shownId }),
     getApproval({ captureId, evaluationId: capture.approvedEvaluationId }),
   ]);
   if (evaluationId && !evaluation) throw new AppError("not_found", "No such evaluation of this capture.");
-  const analysis = evaluation ? await getAnalysisById({ id: evaluation.analysisId }) : null;
+  const analysis = evaluation ? await getAnalysisSummary({ id: evaluation.analysisId }) : null;
   // Outside the team only the approved result and its history exist.
   const evaluations = approvedOnly && capture.approvedEvaluationId ? allEvaluations.filter((e) => e.id === capture.approvedEvaluationId) : allEvaluations;
   const reviews = approvedOnly && approval ? allReviews.filter((r) => r.createdAt <= approval.createdAt) : allReviews;
   const summary = evaluation ? allEvaluations.find((e) => e.id === evaluation.id) ?? null : null;
   const newest = allEvaluations[0] ?? null;
+  // Whether the revision this evaluation was judged against has been checked against the printed standard.
+  const limitsVerification = summary ? await getRevisionVerification({ revisionId: summary.revisionId }) : null;
   return {
     capture,
     site,
@@ -59,7 +67,7 @@ export async function loadSheet({
           id: analysis.id,
           createdAt: analysis.createdAt,
           result: analysis.result,
-          setup: analysis.setup ?? null,
+          setup: analysis.setup,
           fileSha256: analysis.fileSha256 ?? capture.sha256 ?? null,
         }
       : null,
@@ -70,41 +78,33 @@ export async function loadSheet({
     newerResult: !approvedOnly && capture.approvedEvaluationId && newest && newest.id !== capture.approvedEvaluationId ? { id: newest.id, createdAt: newest.createdAt } : null,
     evaluations,
     reviews,
+    limitsVerification,
   };
 }
 
 export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 
-/** The waveform, spectrum and trend data for the charts (loaded by the client through SWR). */
-export async function loadChartData({ captureId, role, evaluationId }: { captureId: string; role: Role; evaluationId?: string }) {
-  const capture = await getCaptureById({ id: captureId, role });
-  // The charts follow the shown evaluation: the approved one by default, a named one for the team.
-  const chosen = role === "viewer" ? undefined : evaluationId;
-  const evaluation = await getEvaluation({ captureId, evaluationId: chosen ?? capture.approvedEvaluationId ?? undefined });
-  const analysis = evaluation ? await getAnalysisById({ id: evaluation.analysisId }) : null;
+/**
+ * The waveform, spectrum and trend data for the charts (loaded by the client through SWR): the data
+ * precomputed when the evaluation was stored, read in two queries. The charts follow the shown
+ * evaluation: a named one for the team, else the approved one while one exists, else the newest;
+ * viewers always get the approved one. Evaluations stored before precomputation get theirs built once here and saved.
+ */
+export async function loadChartData({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }) {
+  const capture = await getCaptureById({ id: captureId, reader });
+  const named = reader.role === "viewer" && capture.approvedEvaluationId ? undefined : evaluationId;
+  if (reader.role === "viewer" && evaluationId && evaluationId !== capture.approvedEvaluationId) throw new AppError("not_found", "No such evaluation of this capture.");
+  const stored = await getEvaluationCharts({ captureId, evaluationId: named ?? capture.approvedEvaluationId ?? undefined });
+  if (evaluationId && !stored) throw new AppError("not_found", "No such evaluation of this capture.");
+  if (stored?.charts) return { evaluationId: stored.id, ...stored.charts };
+  const [analysis, evaluation] = await Promise.all([
+    stored ? getAnalysisById({ id: stored.analysisId }) : latestAnalysis({ captureId }),
+    stored ? getEvaluation({ captureId, evaluationId: stored.id }) : null,
+  ]);
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
-  const r = analysis.result;
-  const windowDurationS = r.window.cycles / r.fundamentalHz;
-  // Per-order trends only for the orders the latest evaluation judged, so the payload stays small.
-  const judged = new Map<string, number[]>();
-  for (const c of evaluation?.result.channels ?? []) judged.set(c.channel, c.rows.filter((row) => row.limit !== null).map((row) => row.order));
-  return {
-    fundamentalHz: r.fundamentalHz,
-    windowDurationS,
-    waveform: analysis.waveform,
-    intervalTrends: analysis.trends ?? null,
-    channels: r.channels.map((c) => {
-      const orders = judged.get(c.name) ?? [];
-      return {
-        name: c.name,
-        quantity: c.quantity,
-        unit: c.unit,
-        harmonics: c.harmonics.map((h) => ({ order: h.order, rms: h.rms, percentOfFundamental: h.percentOfFundamental })),
-        series: c.series ?? null,
-        harmonicSeries: c.harmonicSeries && orders.length > 0 ? decimateSeries(c.harmonicSeries, orders, windowDurationS) : null,
-      };
-    }),
-  };
+  const charts = buildChartData({ analysis: analysis.result, waveform: analysis.waveform ?? null, trends: analysis.trends ?? null, evaluation: evaluation?.result ?? null });
+  if (stored && stored.analysisId === analysis.id) await saveEvaluationCharts({ evaluationId: stored.id, charts });
+  return { evaluationId: stored?.id ?? null, ...charts };
 }
 
 export type ChartData = Awaited<ReturnType<typeof loadChartData>>;

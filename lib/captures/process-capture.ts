@@ -7,6 +7,7 @@ import os from "node:os";
 import path from "node:path";
 import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
 import { downloadObjectToFile } from "@/lib/storage/s3";
+import { systemReader } from "@/lib/auth/permissions";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { captureMappingSchema } from "@/lib/validations/capture";
 import { judgeStoredIntervalLog } from "./judge-stored-interval-log";
@@ -34,7 +35,7 @@ export async function processCapture({
   beforeStore?: () => Promise<void>;
 }): Promise<void> {
   try {
-    const capture = await getCaptureById({ id: captureId, role: "admin" });
+    const capture = await getCaptureById({ id: captureId, reader: systemReader });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
     const context = EvaluationContextSchema.parse(capture.context ?? {});
     if (!capture.limitSetKey) throw new Error("no limit set chosen");

@@ -234,7 +234,7 @@ function snapshotRow(row: OrderRow, h: number, env: ChannelEnv): ComplianceRow {
       return {
         ...shown,
         verdict: "below-threshold",
-        reason: `${fmt(rms)} A < ${fmt(thresholdA)} A, the greater of ${threshold.percentOfInputCurrent} % of the input current ${fmt(env.channel.rms)} A (${fmt(fromInputA)} A) and ${fmt(threshold.minimumA)} A — disregarded (${threshold.source})`,
+        reason: `${fmt(rms)} A < ${fmt(thresholdA)} A, the greater of ${threshold.percentOfInputCurrent} % of the input current ${fmt(env.channel.rms)} A (${fmt(fromInputA)} A) and ${fmt(threshold.minimumA)} A — disregarded`,
       };
     }
   }
@@ -540,7 +540,7 @@ function applyTimePohcAllowance(rows: Parts<ComplianceRow>[], aggregates: Compli
           verdict: "pass" as const,
           limit: allowedLimit,
           percentOfLimit: (outcome.measured / allowedLimit) * 100,
-          reason: `${text}; ${allowance.aggregate} ${fmt(pohc.measured as number)} A ≤ ${fmt(pohc.limit as number)} A and every other rule passes: allowance applies (${allowance.source})`,
+          reason: `${text}; ${allowance.aggregate} ${fmt(pohc.measured as number)} A ≤ ${fmt(pohc.limit as number)} A and every other rule passes: allowance applies`,
         };
       }
       if (pohc?.verdict === "not-evaluated") {
@@ -620,7 +620,7 @@ function applyPohcAllowance(rows: ComplianceRow[], aggregates: ComplianceAggrega
       return {
         ...row,
         verdict: "pass",
-        reason: `${allowance} and ${rule.aggregate} ${fmt(pohc.measured as number)} A ≤ ${fmt(pohc.limit as number)} A: allowance applies (${rule.source})`,
+        reason: `${allowance} and ${rule.aggregate} ${fmt(pohc.measured as number)} A ≤ ${fmt(pohc.limit as number)} A: allowance applies`,
       };
     }
     if (pohc?.verdict === "not-evaluated") {
@@ -935,9 +935,10 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
 
   const notes: string[] = [];
   const { comparison, threshold, timeRules } = content.rules;
-  notes.push(`${comparison.passAtLimit ? "measured ≤ limit passes" : "measured < limit passes"} (${comparison.source})`);
+  // Sources and their provenance stay in the limit set (limit-table screens, JSON export); the sheet's notes say the rule in plain words.
+  notes.push(comparison.passAtLimit ? "A value exactly at its limit passes (measured ≤ limit)." : "A value exactly at its limit fails (measured < limit passes).");
   if (threshold) {
-    notes.push(`currents below max(${threshold.percentOfInputCurrent} % of the input current, ${threshold.minimumA * 1000} mA) are disregarded (${threshold.source})`);
+    notes.push(`Currents below ${threshold.percentOfInputCurrent} % of the input current or below ${threshold.minimumA * 1000} mA, whichever is greater, are disregarded.`);
   }
   if (!timeRules || timeRules.length === 0) {
     notes.push(

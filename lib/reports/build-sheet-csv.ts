@@ -1,5 +1,7 @@
 import Papa from "papaparse";
 import { formatWhen, summariseContext } from "./format";
+import { headlineNumbers } from "./headline-numbers";
+import { headlineTable } from "./headline-table";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
 
@@ -21,7 +23,8 @@ const line = (cells: Cell[]) => Papa.unparse([cells.map(cell)], { escapeFormulae
 
 /**
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
- * verdict, time rules and their basis), a blank line, then one row per channel and order with
+ * verdict, time rules and their basis), the headline numbers (one small table each for currents,
+ * voltages, power and unbalance, raw values, units in the column labels), a blank line, then one row per channel and order with
  * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (rule id),
  * decided_by_label, table_limit (before a rule's multiplier), reason. When a time rule decided a
  * row, measured/limit/percent/margin are that rule's statistic and limit × multiplier.
@@ -56,6 +59,13 @@ export function buildSheetCsv(sheet: SheetReport): string {
   }
   const blocks = channelBlocks(r);
   const lines = head.map(line);
+  // Headline numbers: one small table per quantity / power / unbalance, raw values, units in the labels.
+  const headline = headlineNumbers(sheet.analysis?.result, r.context);
+  for (const table of headline ? headlineTable(headline) : []) {
+    lines.push("");
+    lines.push(line([`Headline numbers: ${table.title.toLowerCase()}`, ...table.columns.map((c) => c.label)]));
+    for (const row of table.rows) lines.push(line([row.label, ...row.values]));
+  }
   lines.push("");
   lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
   for (const block of blocks) {

@@ -13,6 +13,9 @@ import {
   verdictLabel,
 } from "./format";
 import { addMitigationStudyPages, type StudyForReport } from "./mitigation-study-pages";
+import { headlineNumbers } from "./headline-numbers";
+import { headlineTable } from "./headline-table";
+import { limitsLine } from "./limits-line";
 import { safetyText } from "./safety-text";
 import { describeSetup } from "./describe-setup";
 import { describeSignOff } from "./describe-sign-off";
@@ -167,6 +170,28 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   if (setupRows.length > 0) {
     heading("Set-up behind this result");
     keyValues(setupRows);
+  }
+
+  // The limits line: which table and revision, and whether it was verified against the printed edition.
+  const limits = limitsLine({ standard: result.limitSet.standard, edition: result.limitSet.edition, revisionNumber: evaluation.revisionNumber, verification: sheet.limitsVerification ?? null });
+  {
+    doc.font(limits.verified ? "Helvetica" : "Helvetica-Bold").fontSize(9);
+    const h = doc.heightOfString(pdfSafe(limits.text), { width: width - 20 }) + 10;
+    ensure(h + 6);
+    const y = doc.y + 2;
+    doc.rect(margin, y, width, h).fill(limits.verified ? colours.passLight : colours.cautionLight);
+    doc.fillColor(limits.verified ? colours.pass : colours.caution).text(pdfSafe(limits.text), margin + 10, y + 5, { width: width - 20 });
+    doc.y = y + h + 4;
+    doc.font("Helvetica").fontSize(9).fillColor(colours.ink);
+  }
+
+  // Headline numbers on page 1, one line per channel / pair, labels with units.
+  const headline = headlineNumbers(sheet.analysis?.result, result.context);
+  if (headline) {
+    for (const table of headlineTable(headline)) {
+      heading(`Headline numbers — ${table.title.toLowerCase()}`);
+      keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
+    }
   }
 
   const blocks = channelBlocks(result);

@@ -4,9 +4,9 @@ import { formatNumber } from "./format";
 
 export interface SetupInput {
   analysis?: {
-    result: Pick<AnalysisResult, "fundamentalHz" | "sampleIntervalS" | "channels">;
-    setup: Record<string, unknown> | null;
-    fileSha256: string | null;
+    result: Pick<AnalysisResult, "fundamentalHz" | "sampleIntervalS"> & { channels: Pick<AnalysisResult["channels"][number], "name" | "quantity" | "phase">[] };
+    setup?: Record<string, unknown> | null;
+    fileSha256?: string | null;
   } | null;
 }
 

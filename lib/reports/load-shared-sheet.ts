@@ -1,8 +1,9 @@
 import "server-only";
 import { z } from "zod";
-import { findSharedCapture } from "@/db/queries/captures";
+import { findShareLink } from "@/db/queries/captures";
 import { hashToken } from "@/db/queries/users";
 import { loadChartData, loadSheet } from "@/lib/captures/load-sheet";
+import { systemReader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 
 // Share tokens are 20 random bytes in lower-case base32 (32 characters).
@@ -12,11 +13,15 @@ const gone = () => new AppError("not_found", "This link is no longer valid.");
 
 /** The capture id a share token opens; not_found when unknown, revoked or expired. */
 async function sharedCaptureId(token: string): Promise<string> {
+  return (await sharedLink(token)).captureId;
+}
+
+async function sharedLink(token: string): Promise<{ captureId: string; expiresAt: Date }> {
   if (!tokenSchema.safeParse(token).success) throw gone();
-  const capture = await findSharedCapture({ tokenHash: hashToken(token) });
+  const link = await findShareLink({ tokenHash: hashToken(token) });
   // An approved result stays readable while a newer analysis is queued, running or failed.
-  if (!capture || (capture.status !== "done" && !capture.approvedEvaluationId)) throw gone();
-  return capture.id;
+  if (!link || (link.capture.status !== "done" && !link.capture.approvedEvaluationId)) throw gone();
+  return { captureId: link.capture.id, expiresAt: link.expiresAt };
 }
 
 /**
@@ -24,12 +29,12 @@ async function sharedCaptureId(token: string): Promise<string> {
  * authorisation, so the capture is read with a reviewer's visibility (not a viewer's filter).
  */
 export async function loadSharedSheet({ token }: { token: string }) {
-  const captureId = await sharedCaptureId(token);
-  return loadSheet({ captureId, role: "engineer", approvedOnly: true });
+  const { captureId, expiresAt } = await sharedLink(token);
+  return { ...(await loadSheet({ captureId, reader: systemReader, approvedOnly: true })), shareExpiresAt: expiresAt };
 }
 
 /** Chart data for a share link, with the same check as the sheet. */
 export async function loadSharedChartData({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadChartData({ captureId, role: "engineer" });
+  return loadChartData({ captureId, reader: systemReader });
 }

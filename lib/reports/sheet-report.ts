@@ -2,6 +2,8 @@
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ComplianceResult } from "@/lib/compliance/result";
+import type { HeadlineSource } from "./headline-numbers";
+import type { RevisionVerification } from "./limits-line";
 
 export interface SheetReport {
   capture: {
@@ -27,13 +29,15 @@ export interface SheetReport {
   } | null;
   /** The approval of the shown evaluation, when it is the approved one. */
   approval?: { actorName: string | null; createdAt: Date; comment: string } | null;
-  /** The analysis behind the evaluation, with the set-up and file hash it ran with. */
+  /** The analysis behind the evaluation (headline numbers, lib/reports/headline-numbers.ts), with the set-up and file hash it ran with. */
   analysis?: {
-    result: Pick<AnalysisResult, "fundamentalHz" | "sampleIntervalS" | "channels">;
-    setup: Record<string, unknown> | null;
-    fileSha256: string | null;
+    result: HeadlineSource & Pick<AnalysisResult, "sampleIntervalS">;
+    setup?: Record<string, unknown> | null;
+    fileSha256?: string | null;
   } | null;
   reviews: Array<{ action: string; comment: string; createdAt: Date; actorName: string | null }>;
+  /** The newest verification of the evaluation's limit-set revision; null or absent: not yet verified. */
+  limitsVerification?: RevisionVerification | null;
 }
 
 /** The channel blocks of a result: every evaluated channel, or the top level when none are listed. */

@@ -126,17 +126,19 @@ describe("time rules on the sheet", () => {
     await page.close();
   });
 
-  it("fits a phone: the panel wraps, the table scrolls inside its panel", async () => {
+  it("fits a phone: the panel wraps, the orders are cards that open to every rule's result", async () => {
     const page = await browser.newPage({ viewport: { width: 375, height: 800 } });
     await signInAs(page, "engineer");
     await page.goto(url(`/captures/${timedId}`));
     await page.waitForSelector("[data-testid=chart-order-trend] canvas");
-    await page.click("[data-testid=rules-toggle-7]");
+    expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
+    await page.click("[data-testid=order-card-7] summary");
+    await page.locator("[data-testid=order-card-7] [data-testid=order-card-rule-smoothed-max]").waitFor({ state: "visible" });
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await snapAt(page, "time-rules-phone-panel", "[data-testid=time-rules]");
     await snapAt(page, "time-rules-phone-trend", "[data-testid=order-trend]");
-    await snapAt(page, "time-rules-phone-table", "[data-testid=order-table]");
+    await snapAt(page, "time-rules-phone-cards", "[data-testid=order-card-7]");
     await page.close();
   });
 

@@ -22,12 +22,19 @@ const REVIEW: DemoRole[] = ["admin", "engineer"];
 
 // Write bodies are deliberately invalid: an allowed caller gets 422 (validation runs after
 // authorisation) and nothing changes, a denied one gets 403, an anonymous one 401.
-// :capture is a demo capture an engineer approved, so viewers may read it.
+// :capture is a demo capture an engineer approved at a site of the demo viewer's customer, so that
+// viewer may read it; the technician uploaded and submitted it, so the technician may no longer change it.
+// :site is that capture's site.
+const EDIT_SUBMITTED: DemoRole[] = ["admin", "engineer"];
 const routes: RouteCase[] = [
   { method: "GET", path: "/api/sites", allowed: ALL },
+  // Technicians may add a site; changing one is an engineer's.
   { method: "POST", path: "/api/sites", allowed: ["admin", "engineer", "technician"], body: {} },
   { method: "GET", path: "/api/sites/:site", allowed: ALL },
-  { method: "PUT", path: "/api/sites/:site", allowed: ["admin", "engineer", "technician"], body: {} },
+  { method: "PUT", path: "/api/sites/:site", allowed: ["admin", "engineer"], body: {} },
+  { method: "GET", path: "/api/customers", allowed: ["admin"] },
+  { method: "POST", path: "/api/customers", allowed: ["admin"], body: {} },
+  { method: "PUT", path: "/api/customers/:missing", allowed: ["admin"], body: {} },
   { method: "GET", path: "/api/users", allowed: ["admin"] },
   { method: "POST", path: "/api/users", allowed: ["admin"], body: {} },
   { method: "PATCH", path: "/api/users/:user", allowed: ["admin"], body: {} },
@@ -41,12 +48,12 @@ const routes: RouteCase[] = [
   // Withdrawal and kind switch go to a capture that does not exist (404) so nothing changes.
   { method: "PATCH", path: "/api/captures/:missing", allowed: UPLOAD, body: { kind: "waveform" } },
   { method: "DELETE", path: "/api/captures/:missing", allowed: UPLOAD },
-  { method: "POST", path: "/api/captures/:capture/uploaded", allowed: UPLOAD },
+  { method: "POST", path: "/api/captures/:capture/uploaded", allowed: EDIT_SUBMITTED },
   { method: "GET", path: "/api/captures/:capture/preview", allowed: UPLOAD },
-  { method: "PUT", path: "/api/captures/:capture/setup", allowed: UPLOAD, body: {} },
+  { method: "PUT", path: "/api/captures/:capture/setup", allowed: EDIT_SUBMITTED, body: {} },
   // :capture is a waveform record: an allowed caller is told so (409), nothing else happens.
   { method: "GET", path: "/api/captures/:capture/interval-preview", allowed: UPLOAD },
-  { method: "PUT", path: "/api/captures/:capture/interval-setup", allowed: UPLOAD, body: {} },
+  { method: "PUT", path: "/api/captures/:capture/interval-setup", allowed: EDIT_SUBMITTED, body: {} },
   // An allowed caller would start a real run, so this one goes to a capture that does not exist (404).
   { method: "POST", path: "/api/captures/:missing/analyze", allowed: UPLOAD },
   { method: "GET", path: "/api/captures/:capture/charts", allowed: ALL },
@@ -68,6 +75,8 @@ const routes: RouteCase[] = [
   { method: "PUT", path: "/api/limit-sets/:missing", allowed: ["admin"], body: {} },
   { method: "GET", path: "/api/limit-sets/:missing/revisions", allowed: ALL },
   { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing", allowed: ALL },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ALL },
+  { method: "POST", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ["admin"], body: {} },
   { method: "POST", path: "/api/limit-sets/:missing/clone", allowed: ["admin"], body: {} },
   { method: "GET", path: "/api/limit-sets/:missing/export", allowed: ALL },
   { method: "POST", path: "/api/limit-sets/import", allowed: ["admin"], body: {} },
@@ -82,9 +91,10 @@ const pages: { path: string; allowed: DemoRole[] }[] = [
   { path: "/sites/new", allowed: ["admin", "engineer", "technician"] },
   { path: "/sites/:site", allowed: ALL },
   { path: "/admin/users", allowed: ["admin"] },
+  { path: "/admin/customers", allowed: ["admin"] },
   { path: "/dev/mailbox", allowed: ["admin"] },
   { path: "/captures/new", allowed: UPLOAD },
-  { path: "/captures/:capture/setup", allowed: UPLOAD },
+  { path: "/captures/:capture/setup", allowed: EDIT_SUBMITTED },
   { path: "/captures/:capture", allowed: ALL },
   { path: "/captures/compare?a=:capture", allowed: ALL },
   { path: "/limits", allowed: ALL },
@@ -110,12 +120,13 @@ beforeAll(async () => {
   for (const role of ALL) clients.set(role, await signedIn(role));
   clients.set("anonymous", new Client());
   const admin = clients.get("admin")!;
-  const sites = (await (await admin.request("GET", "/api/sites")).json()) as { sites: { id: string }[] };
-  siteId = sites.sites[0]!.id;
   const users = (await (await admin.request("GET", "/api/users")).json()) as { users: { id: string; email: string }[] };
   userId = users.users.find((u) => u.email === "viewer@ordwise.test")!.id;
-  const list = (await (await admin.request("GET", "/api/captures")).json()) as { items: { id: string; reviewState: string }[] };
-  captureId = list.items.find((c) => c.reviewState === "approved")!.id;
+  // The demo viewer's own list: approved captures of her customer's sites only.
+  const list = (await (await clients.get("viewer")!.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; reviewState: string }[] };
+  const mine = list.items.find((c) => c.reviewState === "approved")!;
+  captureId = mine.id;
+  siteId = mine.siteId;
 });
 
 const missingId = "00000000-0000-4000-8000-000000000000";
@@ -167,4 +178,102 @@ describe("role matrix — pages", () => {
       });
     }
   }
+});
+
+// Object level: roles are not enough. A viewer belongs to a customer and reads only the approved sheets of
+// that customer's sites; a technician changes only the captures they uploaded, until they are submitted.
+describe("role matrix — object level", () => {
+  let otherCaptureId = "";
+  let otherSiteId = "";
+  let otherTitle = "";
+  let ownApprovalComment = "";
+
+  beforeAll(async () => {
+    const admin = clients.get("admin")!;
+    const viewer = clients.get("viewer")!;
+    const all = (await (await admin.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; title: string; reviewState: string }[] };
+    const visible = (await (await viewer.request("GET", "/api/captures")).json()) as { items: { id: string }[] };
+    const visibleIds = new Set(visible.items.map((c) => c.id));
+    // The demo scenario approves a capture at a site of another customer (Bench B); the viewer must not see it.
+    const other = all.items.find((c) => c.reviewState === "approved" && !visibleIds.has(c.id))!;
+    expect(other).toBeDefined();
+    otherCaptureId = other.id;
+    otherSiteId = other.siteId;
+    otherTitle = other.title;
+    const review = (await (await admin.request("GET", `/captures/${captureId}`)).text());
+    // The demo engineer's approval comment on the viewer's own capture (internal; never shown to a viewer).
+    ownApprovalComment = "Approved for the utility submission";
+    expect(review).toContain(ownApprovalComment);
+  });
+
+  const viewerReads = [
+    "/api/captures/:other",
+    "/api/captures/:other/charts",
+    "/api/captures/:other/evaluations",
+    "/api/captures/:other/report",
+    "/api/captures/:other/sheet-csv",
+    "/api/sites/:otherSite",
+  ];
+  for (const p of viewerReads) {
+    it(`a viewer of another customer gets 404 for GET ${p}; an engineer gets 200`, async () => {
+      const real = p.replace(":otherSite", otherSiteId).replace(":other", otherCaptureId);
+      expect((await clients.get("viewer")!.request("GET", real)).status).toBe(404);
+      expect((await clients.get("engineer")!.request("GET", real)).status).toBe(200);
+    });
+  }
+
+  it("a viewer of another customer gets 404 for the sheet and site pages, and the compare page shows nothing of it", async () => {
+    const viewer = clients.get("viewer")!;
+    expect((await viewer.request("GET", `/captures/${otherCaptureId}`)).status).toBe(404);
+    expect((await viewer.request("GET", `/sites/${otherSiteId}`)).status).toBe(404);
+    const compare = await viewer.request("GET", `/captures/compare?a=${otherCaptureId}`);
+    expect(await compare.text()).not.toContain(otherTitle);
+    expect((await clients.get("engineer")!.request("GET", `/captures/${otherCaptureId}`)).status).toBe(200);
+  });
+
+  it("a viewer's lists hold only their customer's sites and captures", async () => {
+    const viewer = clients.get("viewer")!;
+    const sites = (await (await viewer.request("GET", "/api/sites")).json()) as { sites: { id: string }[] };
+    expect(sites.sites.map((s) => s.id)).toContain(siteId);
+    expect(sites.sites.map((s) => s.id)).not.toContain(otherSiteId);
+    const list = (await (await viewer.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string }[] };
+    expect(list.items.map((c) => c.id)).toContain(captureId);
+    expect(list.items.every((c) => c.siteId === siteId)).toBe(true);
+    const byFilter = (await (await viewer.request("GET", `/api/captures?site=${otherSiteId}`)).json()) as { items: unknown[] };
+    expect(byFilter.items).toEqual([]);
+    const sitesPage = await (await viewer.request("GET", "/sites")).text();
+    expect(sitesPage).not.toContain("Bench B");
+    expect(sitesPage).not.toContain("Harrowgate");
+  });
+
+  it("a viewer's own sheet, PDF and CSV carry no internal review comments; the engineer's sheet does", async () => {
+    const viewer = clients.get("viewer")!;
+    const page = await viewer.request("GET", `/captures/${captureId}`);
+    expect(page.status).toBe(200);
+    expect(await page.text()).not.toContain(ownApprovalComment);
+    const csv = await viewer.request("GET", `/api/captures/${captureId}/sheet-csv`);
+    expect(csv.status).toBe(200);
+    expect(await csv.text()).not.toContain(ownApprovalComment);
+  });
+
+  it("a technician changes only the captures they uploaded, and only until submitted", async () => {
+    const engineer = clients.get("engineer")!;
+    const tech = clients.get("technician")!;
+    const register = (who: Client, title: string) =>
+      who.request("POST", "/api/captures", { siteId: otherSiteId, title, filename: "x.csv", sizeBytes: 100 });
+    const theirs = (await (await register(engineer, `Object-level engineer draft ${Date.now()}`)).json()) as { capture: { id: string } };
+    const mine = (await (await register(tech, `Object-level technician draft ${Date.now()}`)).json()) as { capture: { id: string } };
+    // Someone else's draft: refused before anything is read from the body.
+    expect((await tech.request("PUT", `/api/captures/${theirs.capture.id}/setup`, {})).status).toBe(403);
+    expect((await tech.request("PUT", `/api/captures/${theirs.capture.id}/interval-setup`, {})).status).toBe(403);
+    expect((await tech.request("POST", `/api/captures/${theirs.capture.id}/uploaded`)).status).toBe(403);
+    expect((await tech.request("POST", `/api/captures/${theirs.capture.id}/analyze`)).status).toBe(403);
+    expect((await tech.request("POST", `/api/captures/${theirs.capture.id}/review`, { action: "submitted", comment: "" })).status).toBe(403);
+    expect((await tech.request("GET", `/captures/${theirs.capture.id}/setup`)).status).toBe(403);
+    // Their own draft: authorised (the empty body is then invalid).
+    expect((await tech.request("PUT", `/api/captures/${mine.capture.id}/setup`, {})).status).toBe(422);
+    expect((await tech.request("GET", `/captures/${mine.capture.id}/setup`)).status).toBe(200);
+    // The engineer may change anyone's capture.
+    expect((await engineer.request("PUT", `/api/captures/${theirs.capture.id}/setup`, {})).status).toBe(422);
+  });
 });

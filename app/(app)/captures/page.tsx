@@ -28,7 +28,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
   const raw = Object.fromEntries(Object.entries(await searchParams).filter(([, v]) => typeof v === "string" && v !== ""));
   const parsed = captureListQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : { page: 1 };
-  const [{ items, total, page, pages }, sites] = await Promise.all([listCaptures({ query, role: user.role }), listSites()]);
+  const [{ items, total, page, pages }, sites] = await Promise.all([listCaptures({ query, reader: user }), listSites({ reader: user })]);
   const pageHref = (p: number) => `/captures?${new URLSearchParams({ ...(raw as Record<string, string>), page: String(p) })}`;
 
   return (
@@ -102,6 +102,11 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                     {c.verdict ? (
                       <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[c.verdict] ?? ""}`}>{verdictText[c.verdict] ?? c.verdict}</span>
                     ) : "—"}
+                    {c.approvedVerdict && c.approvedVerdict !== c.verdict && (
+                      <span className="mt-1 block text-xs text-ink-soft" data-testid="approved-verdict">
+                        approved as {verdictText[c.approvedVerdict] ?? c.approvedVerdict}; latest differs
+                      </span>
+                    )}
                   </td>
                   <td data-testid="capture-review">
                     {c.approved ? "Approved" : reviewLabels[c.reviewState]}

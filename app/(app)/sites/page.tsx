@@ -11,12 +11,12 @@ function fmt(n: number | null, unit: string) {
 
 export default async function SitesPage() {
   const user = await requirePage("sites:read");
-  const sites = await listSites();
+  const sites = await listSites({ reader: user });
   return (
     <div className="space-y-4">
       <div className="flex items-center justify-between gap-3">
         <h1>Sites</h1>
-        {can(user.role, "sites:write") && (
+        {can(user.role, "sites:create") && (
           <Link href="/sites/new" className="btn-primary" data-testid="new-site">
             New site
           </Link>

@@ -9,7 +9,7 @@ import { captureListQuerySchema, registerCaptureSchema } from "@/lib/validations
 export const GET = withAuth(
   async ({ req, user }) => {
     const query = captureListQuerySchema.parse(Object.fromEntries(req.nextUrl.searchParams));
-    return NextResponse.json(await listCaptures({ query, role: user.role }));
+    return NextResponse.json(await listCaptures({ query, reader: user }));
   },
   { permission: "captures:read" },
 );

@@ -3,8 +3,8 @@ import { createSite, listSites } from "@/db/queries/sites";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { siteInputSchema } from "@/lib/validations/site";
 
-// GET /api/sites — all sites
-export const GET = withAuth(async () => NextResponse.json({ sites: await listSites() }), { permission: "sites:read" });
+// GET /api/sites — the sites the caller may see (viewers: their customers' sites)
+export const GET = withAuth(async ({ user }) => NextResponse.json({ sites: await listSites({ reader: user }) }), { permission: "sites:read" });
 
 // POST /api/sites — create a site
 export const POST = withAuth(
@@ -12,5 +12,5 @@ export const POST = withAuth(
     const input = siteInputSchema.parse(await readJson(req));
     return NextResponse.json({ site: await createSite({ input, actorId: user.id }) }, { status: 201 });
   },
-  { permission: "sites:write" },
+  { permission: "sites:create" },
 );

@@ -4,7 +4,10 @@ import { SafetyNote } from "@/app/_components/safety-note";
 import { AppError } from "@/lib/errors";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
+import { HeadlineSummary } from "@/app/(app)/captures/[id]/_components/headline-summary";
+import { LimitsLine } from "@/app/(app)/captures/[id]/_components/limits-line";
 import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
+import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
 
 export const metadata: Metadata = { title: "Shared sheet", robots: { index: false, follow: false } };
@@ -27,7 +30,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
             <span aria-hidden className="inline-block h-4 w-4 rounded-sm bg-copper" />
             Ordwise
           </span>
-          <span className="text-sm text-paper/80">Shared, read-only sheet</span>
+          <span className="text-sm text-paper/80" data-testid="share-expiry">Shared, read-only sheet · this link works until {formatWhen(sheet.shareExpiresAt)}</span>
           <a href={`/api/shared/${token}/report`} className="ml-auto rounded-md bg-copper px-3 py-1.5 text-sm font-medium text-white hover:bg-copper-dark" data-testid="shared-pdf">
             Download PDF
           </a>
@@ -35,9 +38,11 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 space-y-4 px-4 py-6" data-testid="shared-sheet">
         <SheetHeader sheet={sheet} />
+        <LimitsLine standard={evaluation.result.limitSet.standard} edition={evaluation.result.limitSet.edition} revisionNumber={evaluation.revisionNumber} verification={sheet.limitsVerification} />
         <div className="rounded-md border border-caution/30 bg-caution-light/50 px-3 py-2">
           <SafetyNote />
         </div>
+        <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
         <SheetBody result={evaluation.result} chartsUrl={`/api/shared/${token}/charts`} />
         <SheetNotes notes={evaluation.result.notes} />
         <section className="panel text-sm" data-testid="shared-signoff">

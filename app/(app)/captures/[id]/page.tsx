@@ -9,11 +9,14 @@ import { can } from "@/lib/auth/permissions";
 import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
-import { formatWhen, summariseContext } from "@/lib/reports/format";
+import { formatWhen, reviewStateLabels, summariseContext } from "@/lib/reports/format";
+import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { CaptureActions } from "./_components/capture-actions";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
 import { EvaluationHistory } from "./_components/evaluation-history";
+import { HeadlineSummary } from "./_components/headline-summary";
+import { LimitsLine } from "./_components/limits-line";
 import { ReviewPanel } from "./_components/review-panel";
 import { SharePanel } from "./_components/share-panel";
 import { SheetBody } from "./_components/sheet-body";
@@ -33,7 +36,7 @@ export default async function CaptureSheetPage({
   const query = await searchParams;
   if (!z.uuid().safeParse(id).success) notFound();
   const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
-  const sheet = await loadSheet({ captureId: id, evaluationId: requested, role: user.role }).catch((err) => {
+  const sheet = await loadSheet({ captureId: id, evaluationId: requested, reader: user }).catch((err) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
@@ -79,7 +82,7 @@ export default async function CaptureSheetPage({
   const canShare = can(user.role, "captures:share");
   const [limitSets, siblings] = await Promise.all([
     canReview ? listLimitSetChoices() : Promise.resolve([]),
-    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, role: user.role }),
+    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, reader: user }),
   ]);
   const others = siblings.items.filter((c) => c.id !== capture.id);
   // The sheet's default is the approved evaluation while one exists, else the newest.
@@ -121,6 +124,12 @@ export default async function CaptureSheetPage({
         </p>
       )}
       <SheetHeader sheet={sheet} />
+      <LimitsLine standard={evaluation.result.limitSet.standard} edition={evaluation.result.limitSet.edition} revisionNumber={evaluation.revisionNumber} verification={sheet.limitsVerification} />
+      {/* On narrow screens the review panel sits below the sheet: a way to it near the top. */}
+      <p className="flex flex-wrap items-center gap-2 text-sm lg:hidden" data-testid="review-jump">
+        <span className="text-ink-soft">Review: {reviewStateLabels[capture.reviewState] ?? capture.reviewState}</span>
+        <a href="#review" className="btn-quiet py-1">Go to the review panel</a>
+      </p>
       {previous && previousSummary && (
         <section className="panel grid gap-3 text-sm sm:grid-cols-2" data-testid="evaluation-pair">
           {[
@@ -150,11 +159,13 @@ export default async function CaptureSheetPage({
 
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
-          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts${evalQuery}`} />
+          <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
+          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 
         <aside className="min-w-0 space-y-4">
+          <div id="review" className="scroll-mt-4">
           <ReviewPanel
             captureId={capture.id}
             reviewState={capture.reviewState}
@@ -164,6 +175,7 @@ export default async function CaptureSheetPage({
             evaluationId={evaluation.id}
             newestEvaluationId={latestId}
           />
+          </div>
           <section className="panel space-y-2" data-testid="downloads">
             <h2>Report</h2>
             <div className="flex flex-wrap gap-2">

@@ -4,20 +4,21 @@ import { SafetyNote } from "@/app/_components/safety-note";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { listCaptures } from "@/db/queries/captures";
 import { requirePage } from "@/lib/auth/page";
-import type { Role } from "@/lib/auth/permissions";
+import type { Reader } from "@/lib/auth/permissions";
 import { loadSheet, type Sheet } from "@/lib/captures/load-sheet";
 import type { ChannelCompliance, ComplianceRow } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import { formatNumber, formatPercent, formatWhen, summariseContext } from "@/lib/reports/format";
+import { CompareSpectrum } from "./compare-spectrum";
 
 export const metadata = { title: "Compare captures" };
 
-const querySchema = z.object({ a: z.uuid().optional(), b: z.uuid().optional(), channel: z.string().max(200).optional() });
+const querySchema = z.object({ a: z.uuid().optional(), b: z.uuid().optional(), channel: z.string().max(200).optional(), hide: z.literal("below-threshold").optional() });
 
-async function sheetOrNull(id: string | undefined, role: Role): Promise<Sheet | null> {
+async function sheetOrNull(id: string | undefined, reader: Reader): Promise<Sheet | null> {
   if (!id) return null;
   try {
-    return await loadSheet({ captureId: id, role });
+    return await loadSheet({ captureId: id, reader });
   } catch (err) {
     if (err instanceof AppError && err.code === "not_found") return null;
     throw err;
@@ -50,7 +51,7 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
   const raw = await searchParams;
   const parsed = querySchema.safeParse(Object.fromEntries(Object.entries(raw).filter(([, v]) => typeof v === "string" && v !== "")));
   const query = parsed.success ? parsed.data : {};
-  const [a, b] = await Promise.all([sheetOrNull(query.a, user.role), sheetOrNull(query.b, user.role)]);
+  const [a, b] = await Promise.all([sheetOrNull(query.a, user), sheetOrNull(query.b, user)]);
 
   if (!a || !a.evaluation) {
     return (
@@ -64,7 +65,7 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
     );
   }
 
-  const siblings = await listCaptures({ query: { site: a.capture.siteId, status: "done", page: 1 }, role: user.role });
+  const siblings = await listCaptures({ query: { site: a.capture.siteId, status: "done", page: 1 }, reader: user });
   const others = siblings.items.filter((c) => c.id !== a.capture.id);
   const picker = (
     <form action="/captures/compare" method="get" className="panel flex flex-wrap items-end gap-3" data-testid="compare-form">
@@ -108,11 +109,17 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
   const channel = query.channel && names.includes(query.channel) ? query.channel : (channelsA[0]?.channel ?? names[0] ?? "");
   const ca = channelsA.find((c) => c.channel === channel);
   const cb = channelsB.find((c) => c.channel === channel);
-  const orders = [...new Set([...(ca?.rows ?? []), ...(cb?.rows ?? [])].map((r) => r.order))].sort((x, y) => x - y);
   const rowA = new Map((ca?.rows ?? []).map((r) => [r.order, r]));
   const rowB = new Map((cb?.rows ?? []).map((r) => [r.order, r]));
+  const hideBelow = query.hide === "below-threshold";
+  const belowInBoth = (o: number) => rowA.get(o)?.verdict === "below-threshold" && rowB.get(o)?.verdict === "below-threshold";
+  const orders = [...new Set([...(ca?.rows ?? []), ...(cb?.rows ?? [])].map((r) => r.order))]
+    .sort((x, y) => x - y)
+    .filter((o) => !hideBelow || !belowInBoth(o));
+  const hiddenCount = hideBelow ? new Set([...(ca?.rows ?? []), ...(cb?.rows ?? [])].map((r) => r.order)).size - orders.length : 0;
   const sameLimits = a.evaluation.limitSetKey === b.evaluation.limitSetKey && a.evaluation.revisionNumber === b.evaluation.revisionNumber;
-  const href = (ch: string) => `/captures/compare?${new URLSearchParams({ a: a.capture.id, b: b.capture.id, channel: ch })}`;
+  const href = (ch: string, hide = hideBelow) =>
+    `/captures/compare?${new URLSearchParams({ a: a.capture.id, b: b.capture.id, channel: ch, ...(hide ? { hide: "below-threshold" } : {}) })}`;
 
   return (
     <div className="space-y-4">
@@ -156,6 +163,13 @@ export default async function ComparePage({ searchParams }: { searchParams: Prom
           ))}
         </div>
       )}
+      <p className="flex flex-wrap items-center gap-2 text-sm">
+        <Link href={href(channel, !hideBelow)} className="btn-quiet py-1" data-testid="compare-hide-below" aria-pressed={hideBelow}>
+          {hideBelow ? "Show every order" : "Hide orders below threshold in both"}
+        </Link>
+        {hideBelow && <span className="text-ink-soft">{hiddenCount} order{hiddenCount === 1 ? "" : "s"} below threshold in both hidden.</span>}
+      </p>
+      <CompareSpectrum orders={orders} rowA={rowA} rowB={rowB} unit={ca?.rows[0]?.unit ?? cb?.rows[0]?.unit ?? ""} />
       <section className="panel overflow-x-auto p-0 sm:p-0">
         <table className="table-base min-w-[44rem]" data-testid="compare-table">
           <thead>

@@ -6,8 +6,8 @@ import { UploadForm } from "./upload-form";
 export const metadata = { title: "New capture" };
 
 export default async function NewCapturePage({ searchParams }: { searchParams: Promise<{ site?: string }> }) {
-  await requirePage("captures:upload");
-  const [sites, { site }] = await Promise.all([listSites(), searchParams]);
+  const user = await requirePage("captures:upload");
+  const [sites, { site }] = await Promise.all([listSites({ reader: user }), searchParams]);
   return (
     <div className="max-w-2xl space-y-4">
       <h1>New capture</h1>

@@ -1,6 +1,7 @@
 import { notFound } from "next/navigation";
 import { requirePage } from "@/lib/auth/page";
 import { listCaughtMail } from "@/lib/mail/catcher";
+import { formatWhen } from "@/lib/reports/format";
 
 export const metadata = { title: "Mailbox (development)" };
 
@@ -19,7 +20,7 @@ export default async function MailboxPage() {
           <li key={m.id} className="panel">
             <p className="font-medium">{m.subject}</p>
             <p className="text-xs text-ink-muted">
-              to {m.to.join(", ")} · {new Date(m.receivedAt).toLocaleString("en-GB")}
+              to {m.to.join(", ")} · {formatWhen(m.receivedAt)}
             </p>
             <pre className="mt-2 whitespace-pre-wrap break-words font-mono text-xs">{m.text}</pre>
           </li>

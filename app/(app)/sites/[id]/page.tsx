@@ -12,12 +12,12 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
   const user = await requirePage("sites:read");
   const { id } = await params;
   if (!z.uuid().safeParse(id).success) notFound();
-  const site = await getSiteById({ id }).catch((err) => {
+  const site = await getSiteById({ id, reader: user }).catch((err) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
   const ratio = site.iscA && site.ilA ? site.iscA / site.ilA : null;
-  const captures = await listCaptures({ query: { site: site.id, page: 1 }, role: user.role });
+  const captures = await listCaptures({ query: { site: site.id, page: 1 }, reader: user });
   return (
     <div className="max-w-2xl space-y-4">
       <h1 data-testid="site-title">{site.name}</h1>

@@ -8,7 +8,7 @@ import { switchKindSchema } from "@/lib/validations/capture";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    return NextResponse.json({ capture: await getCaptureById({ id, role: user.role }) });
+    return NextResponse.json({ capture: await getCaptureById({ id, reader: user }) });
   },
   { permission: "captures:read" },
 );
@@ -18,7 +18,7 @@ export const PATCH = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { kind } = switchKindSchema.parse(await readJson(req));
-    return NextResponse.json({ capture: await switchCaptureKind({ id, kind, actorId: user.id, role: user.role }) });
+    return NextResponse.json({ capture: await switchCaptureKind({ id, kind, actorId: user.id, reader: user }) });
   },
   { permission: "captures:upload" },
 );
@@ -27,7 +27,7 @@ export const PATCH = withAuth<{ id: string }>(
 export const DELETE = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await withdrawCapture({ id, actorId: user.id, role: user.role });
+    await withdrawCapture({ id, actorId: user.id, reader: user });
     return NextResponse.json({ withdrawn: true });
   },
   { permission: "captures:upload" },

@@ -8,7 +8,7 @@ const paramsSchema = z.object({ id: z.uuid("Not a site id") });
 
 // GET /api/sites/:id — one site
 export const GET = withAuth<{ id: string }>(
-  async ({ params }) => NextResponse.json({ site: await getSiteById(paramsSchema.parse(params)) }),
+  async ({ params, user }) => NextResponse.json({ site: await getSiteById({ ...paramsSchema.parse(params), reader: user }) }),
   { permission: "sites:read" },
 );
 

@@ -13,6 +13,8 @@ import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
 import { MitigationPanels } from "./mitigation-panels";
+import { FailingOrdersText, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
+import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
 
@@ -69,9 +71,13 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
 
       <TimeRulesPanel key={`rules-${channel.channel}`} rules={rules} basis={result.timeBasis} channelName={channel.channel} />
 
-      <section className="panel p-0 sm:p-0" aria-labelledby="orders-heading">
+      {/* Wide screens: the sortable table. Phones: one card per order, no sideways scrolling. */}
+      <section className="panel hidden p-0 sm:p-0 md:block" aria-labelledby="orders-heading">
         <OrderTable key={channel.channel} rows={channel.rows} channelName={channel.channel} />
       </section>
+      <div className="md:hidden">
+        <OrderCards key={`cards-${channel.channel}`} rows={channel.rows} channelName={channel.channel} />
+      </div>
 
       <MitigationPanels key={`fix-${channel.channel}`} chartsUrl={chartsUrl} channel={channel} result={result} />
       {reasons.length > 0 && (
@@ -154,15 +160,21 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
           <SpectrumChart channel={chartChannel} rows={channel.rows} mode={mode} />
         )}
         <p className="mt-1 text-xs text-ink-muted">Bars: measured r.m.s. per order (red where over the limit). Copper marks: the limit of this evaluation.</p>
+        <FailingOrdersText rows={channel.rows} />
+        {data && chartChannel && <SpectrumTable channel={chartChannel} rows={channel.rows} />}
       </div>
       <div className="panel min-w-0">
         <h2 className="mb-2">Waveform</h2>
         {data ? <WaveformChart data={data} /> : <div className="h-52 animate-pulse rounded bg-paper-sunk" />}
+        {data?.waveform && <WaveformTable waveform={data.waveform} />}
       </div>
       <div className="panel min-w-0">
         <h2 className="mb-2">{ilA !== undefined ? "THD and TDD" : "THD"} over the windows</h2>
         {data && chartChannel ? (
-          <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
+          <>
+            <TrendChart channel={chartChannel} windowDurationS={data.windowDurationS} ilA={ilA} />
+            <TrendTable channel={chartChannel} windowDurationS={data.windowDurationS} />
+          </>
         ) : (
           <div className="h-44 animate-pulse rounded bg-paper-sunk" />
         )}
@@ -210,6 +222,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
               {smoothing ? "; the 1.5 s smoothed line is the IEC 61000-4-7 filter over every window" : ""}. Solid copper: table limit; dashed red: limit × a rule's multiplier.
               {trendRow.decidedBy ? ` Verdict ${trendRow.verdict} decided by ${decidedByLabel(trendRow)}.` : ""}
             </p>
+            <OrderTrendTable series={orderSeries} order={trendRow.order} unit={trendRow.unit} windowDurationS={data.windowDurationS} />
           </>
         )}
       </div>

@@ -55,7 +55,6 @@ export function TimeRulesPanel({ rules, basis, channelName }: { rules: TimeRuleL
             ) : (
               <p className="text-xs text-caution" data-testid="time-rule-reason">Not evaluated: {rule.reason ?? "no reason given"}</p>
             )}
-            {rule.source && <p className="text-xs text-ink-muted">{rule.source}</p>}
           </li>
         ))}
       </ul>

@@ -1,8 +1,9 @@
-import { notFound } from "next/navigation";
+import { forbidden, notFound } from "next/navigation";
 import { z } from "zod";
 import { getCaptureById, listLimitSetChoices } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
 import { requirePage } from "@/lib/auth/page";
+import { canEditCapture } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
@@ -17,11 +18,12 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
   const user = await requirePage("captures:upload");
   const { id } = await params;
   if (!z.uuid().safeParse(id).success) notFound();
-  const capture = await getCaptureById({ id, role: user.role }).catch((err) => {
+  const capture = await getCaptureById({ id, reader: user }).catch((err) => {
     if (err instanceof AppError && err.code === "not_found") notFound();
     throw err;
   });
-  const [site, limitSets] = await Promise.all([getSiteById({ id: capture.siteId }), listLimitSetChoices()]);
+  if (!canEditCapture(user, capture)) forbidden();
+  const [site, limitSets] = await Promise.all([getSiteById({ id: capture.siteId, reader: user }), listLimitSetChoices()]);
   const mapping = captureMappingSchema.safeParse(capture.mapping ?? {});
   const context = EvaluationContextSchema.safeParse(capture.context ?? {});
   const stored = intervalSetupMappingSchema.safeParse(capture.mapping ?? {});

@@ -7,7 +7,7 @@ import { diagnoseCapture } from "@/lib/captures/mitigation-study";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    return NextResponse.json({ diagnosis: await diagnoseCapture({ captureId: id, role: user.role }) });
+    return NextResponse.json({ diagnosis: await diagnoseCapture({ captureId: id, reader: user }) });
   },
   { permission: "captures:read" },
 );

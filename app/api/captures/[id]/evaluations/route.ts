@@ -20,7 +20,7 @@ function rethrowAsConflict(err: unknown): never {
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     return NextResponse.json({ evaluations: await listEvaluations({ captureId: id }) });
   },
   { permission: "captures:read" },
@@ -31,7 +31,7 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { limitSetKey, context } = reevaluateSchema.parse(await readJson(req));
-    const capture = await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, reader: user });
     const analysis = await latestAnalysis({ captureId: id });
     if (!analysis) throw new AppError("conflict", "The capture has not been analysed yet.");
     const revision = await getCurrentRevision({ key: limitSetKey });

@@ -9,7 +9,7 @@ import { AppError } from "@/lib/errors";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const capture = await getCaptureById({ id, role: user.role });
+    const capture = await getCaptureById({ id, reader: user });
     if (capture.kind !== "interval-log") throw new AppError("conflict", "This capture is a waveform record, not an interval log.");
     if (capture.status === "uploading") throw new AppError("conflict", "The file has not been uploaded yet.");
     return NextResponse.json(await previewIntervalLog(capture.s3Key));

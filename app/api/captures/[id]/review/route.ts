@@ -3,6 +3,7 @@ import { getCaptureById, getUserContact, listReviewerContacts, recordReview } fr
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { can } from "@/lib/auth/permissions";
+import { authoriseCaptureEdit } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { appUrl, escapeHtml, sendMail } from "@/lib/mail/send";
 import { reviewActionSchema } from "@/lib/validations/capture";
@@ -36,7 +37,12 @@ export const POST = withAuth<{ id: string }>(
     // Submitting and commenting belong to whoever uploads; the verdicts are the engineer's.
     const needed = action === "approved" || action === "sent_back" ? "captures:review" : "captures:upload";
     if (!can(user.role, needed)) throw new AppError("forbidden", "Your role does not allow this.");
-    await getCaptureById({ id, role: user.role });
+    const current = await getCaptureById({ id, reader: user });
+    // A technician submits only a capture they uploaded, and comments only on their own.
+    if (user.role === "technician") {
+      if (action === "submitted") authoriseCaptureEdit(user, current);
+      else if (current.uploadedBy !== user.id) throw new AppError("forbidden", "Technicians comment only on the captures they uploaded.");
+    }
     const capture = await recordReview({ captureId: id, action, comment, actorId: user.id, evaluationId });
     if (action === "approved" || action === "sent_back") {
       const uploader = await getUserContact({ id: capture.uploadedBy });

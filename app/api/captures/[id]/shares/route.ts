@@ -11,7 +11,7 @@ import { createShareSchema } from "@/lib/validations/capture";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     const links = await listShareLinks({ captureId: id });
     return NextResponse.json({ shares: links.map(({ tokenHash: _t, ...l }) => l) });
   },
@@ -23,7 +23,7 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { label, expiresInDays } = createShareSchema.parse(await readJson(req));
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     const token = encodeBase32LowerCaseNoPadding(crypto.getRandomValues(new Uint8Array(20)));
     const expiresAt = new Date(Date.now() + expiresInDays * 86_400_000);
     const link = await createShareLink({ captureId: id, tokenHash: hashToken(token), label, expiresAt, actorId: user.id });

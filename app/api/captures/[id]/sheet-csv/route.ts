@@ -9,7 +9,7 @@ export const GET = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { evaluation } = reportQuery(req.url);
-    const sheet = await loadSheet({ captureId: id, evaluationId: evaluation, role: user.role });
+    const sheet = await loadSheet({ captureId: id, evaluationId: evaluation, reader: user });
     if (!sheet.evaluation) throw new AppError("conflict", "The capture has not been evaluated yet.");
     return csvResponse(sheet);
   },

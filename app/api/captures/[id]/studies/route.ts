@@ -11,7 +11,7 @@ import { saveStudySchema } from "@/lib/validations/studies";
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await getCaptureById({ id, role: user.role });
+    await getCaptureById({ id, reader: user });
     // canSave tells the sheet whether to offer the save form (the POST checks again).
     return NextResponse.json({ studies: await listMitigationStudies({ captureId: id }), canSave: can(user.role, "captures:review") });
   },
@@ -23,7 +23,7 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { title, includeInReport, inputs } = saveStudySchema.parse(await readJson(req));
-    const { analysisId, evaluationId, result } = await computeMitigationStudy({ captureId: id, role: user.role, inputs });
+    const { analysisId, evaluationId, result } = await computeMitigationStudy({ captureId: id, reader: user, inputs });
     const studyId = await insertMitigationStudy({ captureId: id, analysisId, evaluationId, title, inputs, result, includeInReport, actorId: user.id });
     return NextResponse.json({ studyId, predictedVerdict: result.compliance?.verdict ?? "none" }, { status: 201 });
   },

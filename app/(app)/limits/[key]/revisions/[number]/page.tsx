@@ -1,11 +1,13 @@
 import Link from "next/link";
 import { getRevisionByKeyAndNumber } from "@/db/queries/limit-sets";
+import { listRevisionVerifications } from "@/db/queries/limit-verifications";
 import { requirePage } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
 import type { LimitSetSummaryDto } from "@/lib/swr/use-limit-sets";
 import { LimitSetHeader } from "../../../_components/limit-set-header";
 import { loadOr404, revisionNumberOr404, toWire } from "../../../_components/load-limit-set";
 import { RevisionTable } from "../../../_components/revision-table";
+import { VerificationPanel } from "../../../_components/verification-panel";
 import { formatWhen } from "../../../_components/format-when";
 
 // An old (or the current) revision, read-only: revisions never change once saved.
@@ -15,6 +17,7 @@ export default async function LimitSetRevisionPage({ params }: { params: Promise
   const n = revisionNumberOr404(number);
   const { limitSet, revision } = await loadOr404(key, (k) => getRevisionByKeyAndNumber({ key: k, number: n }));
   const isCurrent = revision.number === limitSet.currentRevisionNumber;
+  const verifications = await listRevisionVerifications({ key: limitSet.key, number: revision.number });
   return (
     <div className="space-y-4">
       <LimitSetHeader limitSet={toWire<LimitSetSummaryDto>(limitSet)} canWrite={can(user.role, "limits:write")} current="old" />
@@ -30,6 +33,13 @@ export default async function LimitSetRevisionPage({ params }: { params: Promise
           </>
         )}
       </p>
+      <VerificationPanel
+        limitSetKey={limitSet.key}
+        revisionNumber={revision.number}
+        verifications={verifications.map(({ createdAt: _c, ...v }) => v)}
+        canVerify={can(user.role, "limits:write")}
+        today={new Date().toISOString().slice(0, 10)}
+      />
       <RevisionTable content={revision.content} />
     </div>
   );

@@ -9,7 +9,7 @@ export const POST = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const inputs = previewStudySchema.parse(await readJson(req));
-    const { result } = await computeMitigationStudy({ captureId: id, role: user.role, inputs });
+    const { result } = await computeMitigationStudy({ captureId: id, reader: user, inputs });
     return NextResponse.json({ result });
   },
   { permission: "captures:read" },

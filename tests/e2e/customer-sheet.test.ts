@@ -1,0 +1,152 @@
+// The sheet a customer reads: the headline numbers at desktop and phone width, and a viewer who sees
+// only their own customer's sheets (a demo capture of another customer's site answers 404).
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import type { Browser, Page } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, url } from "../support/browser";
+import { signedIn } from "../support/http";
+import { json } from "../support/captures";
+
+const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
+
+async function snapAt(page: Page, name: string, selector: string): Promise<void> {
+  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
+  fs.mkdirSync(shotDir, { recursive: true });
+  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
+}
+
+let browser: Browser;
+// The demo scenario: the after-filter capture at Quillbrook (the demo viewer's customer) is approved, and so is
+// the heater controller at Bench B (another customer).
+let ownId = "";
+let otherId = "";
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const engineer = await signedIn("engineer");
+  const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+  ownId = items.find((c) => c.title === "Compressor drives at full load — after filter")!.id;
+  otherId = items.find((c) => c.title === "Heater controller, 1.8 kW")!.id;
+}, 60_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("headline numbers on the sheet", () => {
+  it("at 1280 px: a row per phase with units in the column labels, above the per-order table", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${ownId}`));
+    const table = page.locator("[data-testid=headline-current-table]");
+    await table.waitFor({ state: "visible", timeout: 15_000 });
+    expect(await page.locator("[data-testid=headline-current-cards]").isVisible()).toBe(false);
+    const headers = await table.locator("thead th").allTextContents();
+    expect(headers).toEqual(["Channel", "Fundamental frequency (Hz)", "RMS (A)", "Fundamental RMS (A)", "THD h2–h50 (% of fundamental)", "TDD (% of IL = 260 A)", "Crest factor", "K-factor"]);
+    // Three phase currents; TDD is stated against the IL of the evaluation (260 A in the demo), in the label.
+    expect(await table.locator("tbody tr").count()).toBe(3);
+    await page.locator("[data-testid=headline-voltage-table]").waitFor({ state: "visible" });
+    const power = page.locator("[data-testid=headline-power-table]");
+    expect(await power.textContent()).toContain("Three-phase total");
+    expect(await power.textContent()).toMatch(/0\.\d{3} (lagging|leading|in phase)/);
+    expect(await page.locator("[data-testid=headline-unbalance-table]").textContent()).toContain("Fundamental unbalance");
+    // Above the per-order table.
+    const summaryTop = await page.locator("[data-testid=headline-summary]").evaluate((el) => el.getBoundingClientRect().top);
+    const tableTop = await page.locator("[data-testid=order-table]").first().evaluate((el) => el.getBoundingClientRect().top);
+    expect(summaryTop).toBeLessThan(tableTop);
+    await snapAt(page, "headline-1280", "[data-testid=headline-summary]");
+    await page.close();
+  });
+
+  it("at 390 px: a card per phase, no sideways scrolling", async () => {
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${ownId}`));
+    const cards = page.locator("[data-testid=headline-current-cards]");
+    await cards.waitFor({ state: "visible", timeout: 15_000 });
+    expect(await page.locator("[data-testid=headline-current-table]").isVisible()).toBe(false);
+    expect(await cards.locator("li").count()).toBe(3);
+    expect(await cards.locator("li").first().textContent()).toContain("TDD (% of IL = 260 A)");
+    const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
+    expect(overflow).toBeLessThanOrEqual(0);
+    await snapAt(page, "headline-390", "[data-testid=headline-summary]");
+    await page.close();
+  });
+});
+
+describe("chart values without a mouse", () => {
+  it("the spectrum lists its failing orders in text, and the keyboard reaches and opens each chart's table", async () => {
+    const engineer = await signedIn("engineer");
+    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+    const beforeId = items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${beforeId}`));
+    await page.waitForSelector("[data-testid=spectrum-table]", { timeout: 20_000 });
+    // The demo's before-filter record fails at least one order (the after-filter one is the fix).
+    expect(await page.textContent("[data-testid=spectrum-failing]")).toMatch(/^Over the limit: h\d+ \(/);
+    // Tab from the top of the page until the spectrum's "Show as table" has the focus.
+    await page.locator("body").click({ position: { x: 5, y: 5 } });
+    let reached = false;
+    for (let i = 0; i < 250 && !reached; i++) {
+      await page.keyboard.press("Tab");
+      reached = await page.evaluate(() => document.activeElement?.closest("[data-testid=spectrum-table]") !== null && document.activeElement?.tagName === "SUMMARY");
+    }
+    expect(reached).toBe(true);
+    // A visible focus ring on the focused control.
+    expect(await page.evaluate(() => getComputedStyle(document.activeElement!).outlineStyle)).toBe("solid");
+    await page.keyboard.press("Enter");
+    const table = page.locator("[data-testid=spectrum-table] table");
+    await table.waitFor({ state: "visible" });
+    expect(await table.locator("tbody tr").first().textContent()).toContain("h1");
+    expect(await page.locator("[data-testid=spectrum-table] tbody tr").count()).toBeGreaterThan(10);
+    for (const id of ["waveform-table", "trend-table", "order-trend-table"]) expect(await page.locator(`[data-testid=${id}] summary`).count()).toBe(1);
+    await snapAt(page, "chart-table-keyboard", "[data-testid=spectrum-table]");
+    await page.close();
+  });
+});
+
+describe("compare two captures", () => {
+  it("draws both spectra with their limits and hides orders below threshold in both on request", async () => {
+    const engineer = await signedIn("engineer");
+    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+    const psu = items.find((c) => c.title === "Desktop power supply, 180 W rated")!.id;
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/compare?a=${psu}&b=${otherId}`));
+    await page.waitForSelector("[data-testid=compare-spectrum] svg", { timeout: 15_000 });
+    expect(await page.locator("[data-testid=compare-spectrum] rect").count()).toBeGreaterThan(10);
+    const before = await page.locator("[data-testid=compare-table] tbody tr").count();
+    await page.click("[data-testid=compare-hide-below]");
+    await page.waitForURL(/hide=below-threshold/);
+    const after = await page.locator("[data-testid=compare-table] tbody tr").count();
+    expect(after).toBeLessThan(before);
+    expect(await page.textContent("main")).toContain(`${before - after} order`);
+    await snapAt(page, "compare-spectrum", "[data-testid=compare-spectrum]");
+    await page.close();
+  });
+});
+
+describe("a viewer sees only their own customer's sheets", () => {
+  it("reads the approved sheet of her customer's site, without review comments, and gets 404 for another customer's", async () => {
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "viewer");
+    await page.goto(url(`/captures/${ownId}`));
+    await page.locator("[data-testid=headline-summary]").waitFor({ timeout: 15_000 });
+    expect(await page.textContent("main")).not.toContain("Approved for the utility submission");
+    await page.goto(url("/captures"));
+    const list = (await page.textContent("main")) ?? "";
+    expect(list).toContain("Compressor drives at full load — after filter");
+    expect(list).not.toContain("Heater controller");
+    const res = await page.goto(url(`/captures/${otherId}`));
+    expect(res?.status()).toBe(404);
+    await snapAt(page, "viewer-other-customer-404", "body");
+    await page.goto(url("/sites"));
+    const sites = (await page.textContent("main")) ?? "";
+    expect(sites).toContain("Quillbrook");
+    expect(sites).not.toContain("Bench B");
+    expect(sites).not.toContain("Harrowgate");
+    await page.close();
+  });
+});

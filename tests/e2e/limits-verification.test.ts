@@ -1,0 +1,76 @@
+// The limits line on the sheet and in the PDF: a visible warning while the revision is unverified, and the
+// verifier's line once an admin records a check against the printed edition.
+import fs from "node:fs";
+import os from "node:os";
+import path from "node:path";
+import type { Browser } from "playwright-core";
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { launchBrowser, signInAs, url } from "../support/browser";
+import { signedIn } from "../support/http";
+import { json } from "../support/captures";
+import { pdfText } from "../unit/reports/pdf-text";
+
+const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
+const flat = (pdf: Buffer) => pdfText(pdf).replace(/\s*\n\s*/g, " ");
+
+let browser: Browser;
+let captureId = "";
+let revisionNumber = 0;
+let limitSetKey = "";
+
+beforeAll(async () => {
+  browser = await launchBrowser();
+  const engineer = await signedIn("engineer");
+  const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
+  // A demo capture judged against IEC 61000-3-2 Class D (the desktop power supply).
+  captureId = items.find((c) => c.title === "Desktop power supply, 180 W rated")!.id;
+  const { evaluations } = await json<{ evaluations: { limitSetKey: string; revisionNumber: number }[] }>(
+    await engineer.request("GET", `/api/captures/${captureId}/evaluations`),
+  );
+  limitSetKey = evaluations[0]!.limitSetKey;
+  revisionNumber = evaluations[0]!.revisionNumber;
+}, 60_000);
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("limits line", () => {
+  it("warns while unverified, then shows who verified it against the printed edition, on the sheet and in the PDF", async () => {
+    const engineer = await signedIn("engineer");
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${captureId}`));
+    const line = page.locator("[data-testid=limits-line]");
+    await line.waitFor({ timeout: 15_000 });
+    expect(await line.getAttribute("data-verified")).toBe("false");
+    expect(await line.textContent()).toContain(`revision ${revisionNumber} — not yet verified against the printed standard`);
+    expect(await line.isVisible()).toBe(true);
+    fs.mkdirSync(shotDir, { recursive: true });
+    await page.screenshot({ path: path.join(shotDir, "limits-line-unverified.png") });
+    const before = flat(Buffer.from(await (await engineer.request("GET", `/api/captures/${captureId}/report`)).arrayBuffer()));
+    expect(before).toContain("not yet verified against the printed standard");
+
+    // An engineer may not record a verification; an admin may, in the limit-table screen.
+    expect((await engineer.request("POST", `/api/limit-sets/${limitSetKey}/revisions/${revisionNumber}/verifications`, { edition: "x", checked: "y", verifiedOn: "2026-12-03" })).status).toBe(403);
+    const admin = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(admin, "admin");
+    await admin.goto(url(`/limits/${limitSetKey}/revisions/${revisionNumber}`));
+    expect(await admin.getAttribute("[data-testid=verification-state]", "data-verified")).toBe("false");
+    await admin.fill("#verify-edition", "IEC 61000-3-2:2018");
+    await admin.fill("#verify-checked", "Table 3");
+    await admin.fill("#verify-date", "2026-12-03");
+    await admin.click("[data-testid=verification-submit]");
+    await admin.waitForSelector("[data-testid=verification-state][data-verified=true]", { timeout: 10_000 });
+    await admin.close();
+
+    await page.reload();
+    await line.waitFor({ timeout: 15_000 });
+    expect(await line.getAttribute("data-verified")).toBe("true");
+    expect(await line.textContent()).toBe(`Limits: IEC 61000-3-2:2018 Table 3, revision ${revisionNumber}, verified against the printed edition by I. Marlowe on 2026-12-03`);
+    await page.screenshot({ path: path.join(shotDir, "limits-line-verified.png") });
+    const after = flat(Buffer.from(await (await engineer.request("GET", `/api/captures/${captureId}/report`)).arrayBuffer()));
+    expect(after).toContain(`Limits: IEC 61000-3-2:2018 Table 3, revision ${revisionNumber}, verified against the printed edition by I. Marlowe on 2026-12-03`);
+    expect(after).not.toContain("not yet verified");
+    await page.close();
+  });
+});

@@ -1,0 +1,84 @@
+// The sheet's data paths: chart data precomputed with the evaluation and served with a long cache when
+// keyed by its id; the headline numbers read from the slim analysis summary built in PostgreSQL.
+import { eq } from "drizzle-orm";
+import { beforeAll, describe, expect, it } from "vitest";
+import { db } from "@/db/client";
+import { evaluations } from "@/db/schema";
+import { signedIn, type Client } from "../support/http";
+
+let engineer: Client;
+let captureId = "";
+let evaluationId = "";
+
+beforeAll(async () => {
+  engineer = await signedIn("engineer");
+  const { items } = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; title: string }[] };
+  captureId = items.find((c) => c.title === "Compressor drives at full load — after filter")!.id;
+  const { evaluations: list } = (await (await engineer.request("GET", `/api/captures/${captureId}/evaluations`)).json()) as { evaluations: { id: string }[] };
+  evaluationId = list[0]!.id;
+});
+
+describe("chart data", () => {
+  it("is stored with the evaluation when the analysis is stored", async () => {
+    const [row] = await db.select({ charts: evaluations.charts }).from(evaluations).where(eq(evaluations.id, evaluationId));
+    expect(row?.charts?.channels.map((c) => c.name)).toEqual(["Va (V)", "Vb (V)", "Vc (V)", "Ia (A)", "Ib (A)", "Ic (A)"].filter((n) => row?.charts?.channels.some((c) => c.name === n)));
+    expect(row?.charts?.channels.length).toBeGreaterThan(0);
+  });
+
+  it("keyed by the evaluation id it may be cached for a year; without it, it is revalidated", async () => {
+    const keyed = await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=${evaluationId}`);
+    expect(keyed.status).toBe(200);
+    expect(keyed.headers.get("cache-control")).toBe("private, max-age=31536000, immutable");
+    const body = (await keyed.json()) as { evaluationId: string; channels: { harmonics: unknown[] }[] };
+    expect(body.evaluationId).toBe(evaluationId);
+    expect(body.channels[0]!.harmonics.length).toBeGreaterThan(0);
+    const latest = await engineer.request("GET", `/api/captures/${captureId}/charts`);
+    expect(latest.headers.get("cache-control")).toBe("private, no-cache");
+  });
+
+  it("an evaluation of another capture, or a malformed id, is refused", async () => {
+    expect((await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=00000000-0000-4000-8000-000000000000`)).status).toBe(404);
+    expect((await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=nope`)).status).toBe(422);
+  });
+
+  it("an older evaluation without stored chart data gets it built once and saved", async () => {
+    await db.update(evaluations).set({ charts: null }).where(eq(evaluations.id, evaluationId));
+    const res = await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=${evaluationId}`);
+    expect(res.status).toBe(200);
+    const [row] = await db.select({ charts: evaluations.charts }).from(evaluations).where(eq(evaluations.id, evaluationId));
+    expect(row?.charts).not.toBeNull();
+  });
+});
+
+describe("headline numbers from the slim analysis summary", () => {
+  it("the CSV of a three-phase demo capture carries currents, voltages, power with the total, and unbalance", async () => {
+    const csv = await (await engineer.request("GET", `/api/captures/${captureId}/sheet-csv`)).text();
+    const lines = csv.split("\r\n");
+    expect(lines.some((l) => l.startsWith("Headline numbers: currents,Fundamental frequency (Hz),RMS (A)"))).toBe(true);
+    expect(lines.some((l) => l.startsWith("Headline numbers: voltages,"))).toBe(true);
+    expect(lines.some((l) => l.startsWith("Three-phase total,"))).toBe(true);
+    expect(lines.some((l) => l.startsWith("Headline numbers: unbalance,"))).toBe(true);
+  });
+});
+
+describe("captures list", () => {
+  it("shows the approved verdict beside the latest when a later evaluation differs", async () => {
+    const { items } = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; title: string; verdict: string; approvedVerdict: string | null }[] };
+    const heater = items.find((c) => c.title === "Heater controller, 1.8 kW")!;
+    // The demo approved it as a Class A pass.
+    expect(heater.approvedVerdict).toBe("pass");
+    expect(heater.verdict).toBe("pass");
+    // Judged again as Class D at 100 W (limits 3.4 mA/W × 100 W = 0.34 A at h3, IEC 61000-3-2 Table 3), it is no longer a pass.
+    const again = await engineer.request("POST", `/api/captures/${heater.id}/evaluations`, {
+      limitSetKey: "iec-61000-3-2-class-d",
+      context: { ratedPowerW: 100, nominalVoltageV: 230, phaseConfig: "single-phase" },
+    });
+    expect(again.status).toBe(201);
+    const after = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; verdict: string; approvedVerdict: string | null }[] };
+    const row = after.items.find((c) => c.id === heater.id)!;
+    expect(row.approvedVerdict).toBe("pass");
+    expect(row.verdict).not.toBe("pass");
+    const page = (await (await engineer.request("GET", "/captures?status=done")).text()).replace(/<!-- -->/g, "");
+    expect(page).toContain("approved as ✓ Pass; latest differs");
+  });
+});
