@@ -11,6 +11,7 @@ import { getSiteById } from "@/db/queries/sites";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
+import { CaptureSetupError } from "./capture-setup-error";
 import { decodeText } from "./decode-text";
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
@@ -37,7 +38,7 @@ export async function processCapture({
     const capture = await getCaptureById({ id: captureId, role: "admin" });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
     const context = EvaluationContextSchema.parse(capture.context ?? {});
-    if (!capture.limitSetKey) throw new Error("no limit set chosen");
+    if (!capture.limitSetKey) throw new CaptureSetupError("no-limit-set");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     if (capture.kind === "interval-log") {
       const bytes = await getObjectBytes(capture.s3Key);
@@ -69,8 +70,8 @@ export async function processCapture({
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId });
   } catch (err) {
-    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError;
-    const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");
+    // File and set-up problems are expected (typed errors with a message for the technician).
+    const expected = isAnalysisInputError(err) || err instanceof IntervalLogError || err instanceof CaptureSetupError;
     if (!expected) {
       console.error(err);
       if (!finalAttempt) {
@@ -78,11 +79,7 @@ export async function processCapture({
         throw err;
       }
     }
-    const reason = fileProblem
-      ? err.message
-      : expected
-        ? "Choose a limit set in the mapping form, then run the analysis again."
-        : internalReason;
+    const reason = expected ? err.message : internalReason;
     await setCaptureStatus({ id: captureId, status: "failed", failureReason: reason, progressPercent: 0 }).catch(() => undefined);
   }
 }

@@ -1,14 +1,15 @@
 // Time rules (rules.timeRules): statistics of per-window or per-interval series against table
 // limit × multiplier. capture-mean.ts gives the table limit and the capture-mean comparison;
 // this file adds each rule's judgement and picks the rule that decides the verdict.
-import { evaluateTimeRule, type TimeRuleOutcome } from "./evaluate-time-rule";
-import { recordName, type ChannelContext, type ChannelTimeSeries, type Derived, type JudgedWithRules } from "./evaluation-types";
+import { causeText, describeOrders, notEvaluatedText, partialSumText, ruleStatisticText } from "../reports/result-wording";
+import { evaluateTimeRule, ruleMeasures, type TimeRuleOutcome } from "./evaluate-time-rule";
+import type { ChannelContext, ChannelTimeSeries, Derived, JudgedWithRules } from "./evaluation-types";
 import { captureMeanAggregate, captureMeanRow, missingHarmonic } from "./capture-mean";
 import { formatNumber as fmt } from "./format-number";
 import type { AggregateRow, Band, Basis, OrderRow, TimeRule } from "./model";
 import { pohcAllowance } from "./pohc-allowance";
-import type { ComplianceAggregate, ComplianceRow, RowRuleResult } from "./result";
-import { describeOrders, expandOrders, toBasis } from "./row-limits";
+import type { ComplianceAggregate, ComplianceRow, NotEvaluatedCause, RowRuleResult } from "./result";
+import { expandOrders, toBasis } from "./row-limits";
 
 /** Id of the capture-mean comparison among a row's rule results (stored in results as "snapshot"). */
 export const CAPTURE_MEAN_RULE = "snapshot";
@@ -36,11 +37,12 @@ function rulesFor(ctx: ChannelContext, target: "orders" | "aggregates", name?: s
   );
 }
 
-function notEvaluatedOutcome(rule: TimeRule, tableLimit: number | null, unit: string, reason: string, dataReason?: string): TimeRuleOutcome {
+function notEvaluatedOutcome(rule: TimeRule, tableLimit: number | null, unit: string, cause: NotEvaluatedCause, options: { text?: string; data?: boolean } = {}): TimeRuleOutcome {
+  const text = options.text ?? notEvaluatedText(cause);
   return {
     rule: rule.id,
     label: rule.label,
-    statistic: "",
+    measures: ruleMeasures(rule),
     measured: null,
     limit: tableLimit === null ? null : tableLimit * rule.multiplier,
     tableLimit,
@@ -48,32 +50,35 @@ function notEvaluatedOutcome(rule: TimeRule, tableLimit: number | null, unit: st
     unit,
     percentOfLimit: null,
     verdict: "not-evaluated",
-    reason: reason.startsWith("not evaluated") ? reason : `not evaluated: ${reason}`,
+    reason: text.startsWith("not evaluated") ? text : `not evaluated: ${text}`,
+    cause,
     ...(rule.source ? { source: rule.source } : {}),
     valueCount: 0,
     periodCount: 0,
-    ...(dataReason ? { dataReason } : {}),
+    ...(options.data ? { dataCause: cause } : {}),
   };
 }
 
 /** Apply the rules to a series (channel unit) for a row or aggregate whose capture mean gave `captureMean`. */
 function ruleOutcomes(
   rules: TimeRule[],
-  captureMean: { limit: number | null; unit: string; basis: Basis; verdict: string; reason?: string },
-  series: Derived<Float64Array> | null,
+  captureMean: ComplianceRow | ComplianceAggregate,
+  series: Float64Array | null,
   ctx: ChannelContext,
 ): TimeRuleOutcome[] {
   const time = ctx.time as ChannelTimeSeries;
+  const { limit, unit } = captureMean;
   return rules.map((rule) => {
-    if (!time.timing) return notEvaluatedOutcome(rule, captureMean.limit, captureMean.unit, time.unavailable ?? "no time series", time.unavailable);
-    if (captureMean.verdict === "not-evaluated" && captureMean.limit === null) {
-      return notEvaluatedOutcome(rule, null, captureMean.unit, captureMean.reason ?? "no limit");
+    if (!time.timing) return notEvaluatedOutcome(rule, limit, unit, time.unavailable ?? { code: "no-order-series" }, { data: true });
+    if (captureMean.verdict === "not-evaluated" && limit === null) {
+      return notEvaluatedOutcome(rule, null, unit, captureMean.cause ?? { code: "no-limit" }, { text: captureMean.reason });
     }
-    if (series === null) return notEvaluatedOutcome(rule, captureMean.limit, captureMean.unit, captureMean.reason ?? "no series for this row");
-    if (!series.ok) return notEvaluatedOutcome(rule, captureMean.limit, captureMean.unit, `${series.missing} not given`);
-    const converted = seriesToBasis(series.value, captureMean.basis, ctx);
-    if (!converted.ok) return notEvaluatedOutcome(rule, captureMean.limit, captureMean.unit, `${converted.missing} not given`);
-    return evaluateTimeRule(rule, converted.value, time.timing, captureMean.limit, captureMean.unit, ctx.content.rules.comparison.passAtLimit);
+    if (series === null) {
+      return notEvaluatedOutcome(rule, limit, unit, captureMean.cause ?? { code: "not-in-record", record: ctx.record }, { text: captureMean.reason });
+    }
+    const converted = seriesToBasis(series, captureMean.basis, ctx);
+    if (!converted.ok) return notEvaluatedOutcome(rule, limit, unit, { code: "missing-input", input: converted.missing });
+    return evaluateTimeRule(rule, converted.value, time.timing, limit, unit, ctx.content.rules.comparison.passAtLimit);
   });
 }
 
@@ -82,10 +87,8 @@ export function judgeOrder(row: OrderRow, h: number, ctx: ChannelContext): Judge
   const captureMean = captureMeanRow(row, h, ctx);
   const rules = rulesFor(ctx, "orders");
   if (rules.length === 0) return { captureMean, ruleResults: null };
-  const missing = missingHarmonic(h, ctx);
-  const raw = ctx.time?.orderSeries(h) ?? null;
-  const series: Derived<Float64Array> | null = missing || !raw ? null : { ok: true, value: raw };
-  return { captureMean, ruleResults: ruleOutcomes(rules, captureMean, series, ctx) };
+  const raw = missingHarmonic(h, ctx) ? null : (ctx.time?.orderSeries(h) ?? null);
+  return { captureMean, ruleResults: ruleOutcomes(rules, captureMean, raw, ctx) };
 }
 
 /** Per-value sqrt(Σ w_h·X_h²) of an aggregate, or the logged THD where orders are missing. */
@@ -120,13 +123,13 @@ export function judgeAggregate(aggregate: AggregateRow, band: Band, ctx: Channel
   if (rules.length === 0) return { captureMean, ruleResults: null };
   if (!ctx.time?.timing) return { captureMean, ruleResults: ruleOutcomes(rules, captureMean, null, ctx) };
   const { values, unavailable, note } = aggregateSeries(aggregate, ctx);
-  const ruleResults = ruleOutcomes(rules, captureMean, values ? { ok: true, value: values } : null, ctx).map((outcome) => {
+  const ruleResults = ruleOutcomes(rules, captureMean, values, ctx).map((outcome) => {
     if (note && outcome.verdict !== "not-evaluated") return { ...outcome, reason: [outcome.reason, note].filter(Boolean).join("; ") };
     if (unavailable.length === 0 || outcome.verdict === "not-evaluated") return outcome;
-    const gap = `orders ${describeOrders(unavailable)} unavailable (above Nyquist or not in ${recordName(ctx.record)})`;
     // A partial sum only grows with the missing orders: exceeding already is a fail.
-    if (outcome.verdict === "fail") return { ...outcome, reason: `${gap}; the partial value already exceeds the limit` };
-    return { ...outcome, verdict: "not-evaluated" as const, reason: `not evaluated: ${gap}; the partial value cannot show compliance` };
+    if (outcome.verdict === "fail") return { ...outcome, reason: partialSumText(unavailable, ctx.record, true) };
+    const cause: NotEvaluatedCause = { code: "partial-sum", unavailableOrders: unavailable, record: ctx.record };
+    return { ...outcome, verdict: "not-evaluated" as const, reason: notEvaluatedText(cause), cause };
   });
   return { captureMean, ruleResults };
 }
@@ -147,14 +150,16 @@ export function applyPohcAllowanceToRules(orders: JudgedWithRules<ComplianceRow>
       if (decision.verdict === "pass") {
         return { ...outcome, verdict: "pass" as const, limit: decision.allowedLimit, percentOfLimit: (outcome.measured / decision.allowedLimit) * 100, reason: decision.reason };
       }
-      if (decision.verdict === "not-evaluated") return { ...outcome, verdict: "not-evaluated" as const, reason: `not evaluated: ${decision.reason}` };
+      if (decision.verdict === "not-evaluated") {
+        return { ...outcome, verdict: "not-evaluated" as const, reason: `not evaluated: ${decision.reason}`, cause: { code: "allowance-unchecked" as const, aggregate: allowance.aggregate } };
+      }
       return { ...outcome, reason: decision.reason };
     });
   }
 }
 
 function toRowRule(outcome: TimeRuleOutcome): RowRuleResult {
-  const { dataReason: _internal, ...rest } = outcome;
+  const { dataCause: _internal, ...rest } = outcome;
   return rest;
 }
 
@@ -162,7 +167,8 @@ function captureMeanRuleResult(captureMean: ComplianceRow | ComplianceAggregate,
   return {
     rule: CAPTURE_MEAN_RULE,
     label: "Capture r.m.s. mean ≤ limit",
-    statistic: `r.m.s. mean over the capture's ${windows} window(s)`,
+    statistic: ruleStatisticText({ measures: { kind: "capture-mean", windowCount: windows } }),
+    measures: { kind: "capture-mean", windowCount: windows },
     measured: captureMean.measured,
     limit: captureMean.limit,
     tableLimit: captureMean.limit,
@@ -171,6 +177,7 @@ function captureMeanRuleResult(captureMean: ComplianceRow | ComplianceAggregate,
     percentOfLimit: captureMean.percentOfLimit,
     verdict: captureMean.verdict === "below-threshold" ? "pass" : captureMean.verdict,
     ...(captureMean.reason ? { reason: captureMean.reason } : {}),
+    ...(captureMean.cause ? { cause: captureMean.cause } : {}),
   };
 }
 
@@ -193,15 +200,18 @@ export function decideByRules<T extends ComplianceRow | ComplianceAggregate>(jud
   }
   if (considered.length === 0) {
     if (fallback) return { ...captureMean, rowRules, decidedBy: CAPTURE_MEAN_RULE };
-    const reasons = [...new Set(rowRules.map((result) => (result.reason ?? "").replace(/^not evaluated: /, "")))].filter(Boolean);
-    const reason = captureMean.verdict === "not-evaluated" && captureMean.reason ? captureMean.reason : `not evaluated: ${reasons.join("; ")}`;
-    return { ...captureMean, percentOfLimit: null, margin: null, verdict: "not-evaluated", reason, rowRules };
+    const causes = rowRules.map((result) => result.cause).filter((cause): cause is NotEvaluatedCause => cause !== undefined);
+    const words = [...new Set(causes.map(causeText))];
+    const own = captureMean.verdict === "not-evaluated" && captureMean.reason;
+    const reason = own ? captureMean.reason : `not evaluated: ${words.join("; ")}`;
+    const cause = (own ? captureMean.cause : undefined) ?? causes[0];
+    return { ...captureMean, percentOfLimit: null, margin: null, verdict: "not-evaluated", reason, rowRules, ...(cause ? { cause } : {}) };
   }
   const failing = considered.filter((result) => result.verdict === "fail");
   const pool = failing.length > 0 ? failing : considered;
   const decider = pool.reduce((best, result) => ((result.percentOfLimit ?? -Infinity) > (best.percentOfLimit ?? -Infinity) ? result : best));
-  const skipped = rowRules.filter((result) => result.verdict === "not-evaluated" && result.rule !== CAPTURE_MEAN_RULE).map((result) => result.rule);
-  const skippedText = skipped.length > 0 ? `not evaluated: ${skipped.join(", ")} (see rowRules)` : undefined;
+  const skipped = rowRules.filter((result) => result.verdict === "not-evaluated" && result.rule !== CAPTURE_MEAN_RULE).map((result) => `"${result.label}"`);
+  const skippedText = skipped.length > 0 ? `not evaluated: ${skipped.join(", ")} (see the rules of this order)` : undefined;
   if (decider.rule === CAPTURE_MEAN_RULE) {
     const reason = [captureMean.reason, skippedText].filter(Boolean).join("; ");
     return { ...captureMean, rowRules, decidedBy: CAPTURE_MEAN_RULE, ...(reason ? { reason } : {}) };
@@ -209,7 +219,7 @@ export function decideByRules<T extends ComplianceRow | ComplianceAggregate>(jud
   const measured = decider.measured as number;
   const limit = decider.limit as number;
   const tableLimitText = decider.tableLimit !== null ? fmt(decider.tableLimit) : "?";
-  const decidedText = `decided by "${decider.label}": ${decider.statistic} = ${fmt(measured)} ${decider.unit} vs ${limit === (decider.tableLimit ?? 0) * decider.multiplier ? `${decider.multiplier} × ${tableLimitText}` : "allowance"} = ${fmt(limit)} ${decider.unit}`;
+  const decidedText = `decided by "${decider.label}": ${ruleStatisticText(decider)} = ${fmt(measured)} ${decider.unit} vs ${limit === (decider.tableLimit ?? 0) * decider.multiplier ? `${decider.multiplier} × ${tableLimitText}` : "allowance"} = ${fmt(limit)} ${decider.unit}`;
   const reason = [decidedText, decider.reason, captureMean.verdict !== "not-evaluated" ? captureMean.reason : undefined, skippedText].filter(Boolean).join("; ");
   return {
     ...captureMean,

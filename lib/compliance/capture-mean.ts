@@ -2,14 +2,13 @@
 // capture (or the analysis's single value per order) against its table limit. Time rules
 // (apply-time-rules.ts) add their judgements on top of it.
 import type { HarmonicValue } from "../analysis/types";
+import { causeText, notEvaluatedText, partialSumText, thresholdText } from "../reports/result-wording";
 import type { ChannelContext } from "./evaluation-types";
-import { recordName } from "./evaluation-types";
-import { formatNumber as fmt } from "./format-number";
 import { judge } from "./judge";
 import { approxEqual } from "./approx-equal";
 import type { AggregateRow, Band, OrderRow } from "./model";
-import type { ComplianceAggregate, ComplianceRow } from "./result";
-import { aggregateLimit, describeOrders, expandOrders, rowLimit, toBasis, unitOf } from "./row-limits";
+import type { ComplianceAggregate, ComplianceRow, NotEvaluatedCause, ThresholdApplied } from "./result";
+import { aggregateLimit, expandOrders, rowLimit, toBasis, unitOf } from "./row-limits";
 
 function percentOf(measured: number | null, limit: number | null): number | null {
   if (measured === null || limit === null || limit <= 0) return null;
@@ -27,20 +26,22 @@ export function comparison(measured: number | null, limit: number | null) {
 }
 
 /** Why order h has no measured value (null when it has one). */
-export function missingHarmonic(h: number, ctx: ChannelContext): string | null {
+export function missingHarmonic(h: number, ctx: ChannelContext): NotEvaluatedCause | null {
   const harmonic = ctx.harmonics.get(h);
   if (harmonic && harmonic.rms !== null) return null;
-  // The reasons name no order (the row does), so the sheet can list each distinct reason once.
-  if (h > ctx.maxResolvableOrder || (harmonic && harmonic.rms === null)) {
-    return `above Nyquist (highest resolvable order ${ctx.maxResolvableOrder})`;
-  }
-  if (ctx.record !== "analysis") return `not in ${recordName(ctx.record)}`;
-  return `not in the analysis (orders analysed up to ${ctx.analysedUpTo})`;
+  // The causes name no order (the row does), so the sheet can list each distinct cause once.
+  if (h > ctx.maxResolvableOrder || (harmonic && harmonic.rms === null)) return { code: "above-nyquist", maxResolvableOrder: ctx.maxResolvableOrder };
+  if (ctx.record !== "analysis") return { code: "not-in-record", record: ctx.record };
+  return { code: "not-analysed", analysedUpTo: ctx.analysedUpTo };
 }
 
 /** The capture-mean r.m.s. value of order h in the channel's unit (call after missingHarmonic). */
 export function harmonicRms(h: number, ctx: ChannelContext): number {
   return (ctx.harmonics.get(h) as HarmonicValue).rms as number;
+}
+
+function notEvaluatedRow<T extends ComplianceRow | ComplianceAggregate>(shown: Omit<T, "verdict">, cause: NotEvaluatedCause, note?: string): T {
+  return { ...shown, verdict: "not-evaluated", reason: [notEvaluatedText(cause), note].filter(Boolean).join("; "), cause } as T;
 }
 
 /** One order's capture mean against its table limit (threshold rule included). */
@@ -51,7 +52,7 @@ export function captureMeanRow(row: OrderRow, h: number, ctx: ChannelContext): C
   const limitValue = limit.ok ? limit.value : null;
   const notMeasured = missingHarmonic(h, ctx);
   if (notMeasured) {
-    return { ...base, measured: null, limit: limitValue, percentOfLimit: null, margin: null, verdict: "not-evaluated", reason: notMeasured };
+    return { ...base, measured: null, limit: limitValue, percentOfLimit: null, margin: null, verdict: "not-evaluated", reason: causeText(notMeasured), cause: notMeasured };
   }
   const rms = harmonicRms(h, ctx);
   const measured = toBasis(rms, row.basis, ctx);
@@ -64,15 +65,18 @@ export function captureMeanRow(row: OrderRow, h: number, ctx: ChannelContext): C
     const fromInputA = (threshold.percentOfInputCurrent / 100) * ctx.channel.rms;
     const thresholdA = Math.max(fromInputA, threshold.minimumA);
     if (rms < thresholdA) {
-      return {
-        ...shown,
-        verdict: "below-threshold",
-        reason: `${fmt(rms)} A < ${fmt(thresholdA)} A, the greater of ${threshold.percentOfInputCurrent} % of the input current ${fmt(ctx.channel.rms)} A (${fmt(fromInputA)} A) and ${fmt(threshold.minimumA)} A — disregarded (${threshold.source})`,
+      const applied: ThresholdApplied = {
+        thresholdA,
+        percentOfInputCurrent: threshold.percentOfInputCurrent,
+        inputCurrentA: ctx.channel.rms,
+        minimumA: threshold.minimumA,
+        source: threshold.source,
       };
+      return { ...shown, verdict: "below-threshold", reason: thresholdText(applied, rms), threshold: applied };
     }
   }
-  if (!limit.ok) return { ...shown, verdict: "not-evaluated", reason: `not evaluated: ${limit.missing} not given` };
-  if (!measured.ok) return { ...shown, verdict: "not-evaluated", reason: `not evaluated: ${measured.missing} not given` };
+  if (!limit.ok) return notEvaluatedRow(shown, { code: "missing-input", input: limit.missing });
+  if (!measured.ok) return notEvaluatedRow(shown, { code: "missing-input", input: measured.missing });
   const verdict = judge(measured.value, limit.value, ctx.content.rules.comparison.passAtLimit);
   const atLimit = approxEqual(measured.value, limit.value) ? "exactly at the limit: passes (measured ≤ limit)" : undefined;
   const reason = [limit.derivation, atLimit].filter(Boolean).join("; ");
@@ -110,22 +114,22 @@ export function captureMeanAggregate(aggregate: AggregateRow, band: Band, ctx: C
   const shown = { ...base, ...comparison(measuredValue, limitValue) };
   const roleNote = aggregate.role === "allowance-condition" ? "allowance condition only, not itself a requirement" : undefined;
   const withRole = (text: string): string => [text, roleNote].filter(Boolean).join("; ");
-  if (!limit.ok) return { ...shown, verdict: "not-evaluated", reason: withRole(`not evaluated: ${limit.missing} not given`) };
-  if (!measured.ok) return { ...shown, verdict: "not-evaluated", reason: withRole(`not evaluated: ${measured.missing} not given`) };
+  if (!limit.ok) return notEvaluatedRow(shown, { code: "missing-input", input: limit.missing }, roleNote);
+  if (!measured.ok) return notEvaluatedRow(shown, { code: "missing-input", input: measured.missing }, roleNote);
   const verdict = judge(measured.value, limit.value, ctx.content.rules.comparison.passAtLimit);
   const detail = [limit.derivation, aggregate.note].filter(Boolean).join("; ");
   if (unavailable.length > 0) {
-    const gap = `orders ${describeOrders(unavailable)} unavailable (above Nyquist or not analysed)`;
+    const cause: NotEvaluatedCause = { code: "partial-sum", unavailableOrders: unavailable, record: ctx.record };
     // A partial sum only grows with the missing orders: exceeding the limit already is a fail.
-    if (verdict === "fail") return { ...shown, verdict: "fail", reason: withRole(`${gap}; the partial value already exceeds the limit`) };
-    return { ...shown, verdict: "not-evaluated", reason: withRole(`${gap}; the partial value cannot show compliance`) };
+    if (verdict === "fail") return { ...shown, verdict: "fail", reason: withRole(partialSumText(unavailable, ctx.record, true)) };
+    return { ...shown, verdict: "not-evaluated", reason: withRole(causeText(cause)), cause };
   }
   const reason = withRole(detail);
   return { ...shown, verdict, ...(reason ? { reason } : {}) };
 }
 
 /** Rows for the orders of candidate bands when no band could be chosen: measured only, not evaluated. */
-export function unchosenRows(candidates: Band[], reason: string, ctx: ChannelContext): { rows: ComplianceRow[]; aggregates: ComplianceAggregate[] } {
+export function unchosenRows(candidates: Band[], bandCause: NotEvaluatedCause, ctx: ChannelContext): { rows: ComplianceRow[]; aggregates: ComplianceAggregate[] } {
   const byOrder = new Map<number, OrderRow>();
   for (const band of candidates) for (const row of band.orderRows) for (const h of expandOrders(row)) if (!byOrder.has(h)) byOrder.set(h, row);
   const rows = [...byOrder.entries()]
@@ -142,7 +146,8 @@ export function unchosenRows(candidates: Band[], reason: string, ctx: ChannelCon
         percentOfLimit: null,
         margin: null,
         verdict: "not-evaluated",
-        reason: notMeasured ?? reason,
+        reason: notMeasured ? causeText(notMeasured) : notEvaluatedText(bandCause),
+        cause: notMeasured ?? bandCause,
       };
     });
   const byName = new Map<string, AggregateRow>();
@@ -160,7 +165,8 @@ export function unchosenRows(candidates: Band[], reason: string, ctx: ChannelCon
       margin: null,
       verdict: "not-evaluated",
       role: aggregate.role,
-      reason,
+      reason: notEvaluatedText(bandCause),
+      cause: bandCause,
     };
   });
   return { rows, aggregates };

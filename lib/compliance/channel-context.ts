@@ -19,7 +19,7 @@ function channelTimeSeries(analysis: AnalysisResult, channel: ChannelResult, con
     return {
       rules,
       timing: n > 0 ? { source: "interval-log", valueS: logged.valueS, startsS, clockKnown: true, plans: {} } : null,
-      unavailable: n > 0 ? undefined : "the interval log has no rows",
+      unavailable: n > 0 ? undefined : { code: "no-logged-rows" },
       captureMeanFallback: false,
       orderSeries: (h) => series?.orders.get(h) ?? null,
       fundamental: series?.orders.get(1) ?? null,
@@ -52,7 +52,7 @@ function channelTimeSeries(analysis: AnalysisResult, channel: ChannelResult, con
     return {
       rules,
       timing: null,
-      unavailable: "the analysis has no per-window order series (analyse with includeOrderSeries: true); the capture r.m.s. mean is compared instead",
+      unavailable: { code: "no-order-series" },
       captureMeanFallback: true,
       orderSeries: () => null,
       fundamental: null,

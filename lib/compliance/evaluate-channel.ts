@@ -4,6 +4,7 @@ import type { AnalysisResult, ChannelResult } from "../analysis/types";
 import { unchosenRows } from "./capture-mean";
 import { channelContext } from "./channel-context";
 import { evaluateBand, type BandEvaluation } from "./evaluate-band";
+import { ruleMeasures } from "./evaluate-time-rule";
 import type { EvaluateComplianceInput } from "./evaluation-types";
 import type { EvaluationContext, LimitSetRevisionContent } from "./model";
 import type { BandChoice, ChannelCompliance, TimeBasis, TimeRuleSummary } from "./result";
@@ -40,6 +41,8 @@ export function evaluateChannel(
             multiplier: rule.multiplier,
             status: "not-evaluated" as const,
             reason,
+            cause: { code: "no-band" as const, detail: reason },
+            measures: ruleMeasures(rule),
             valueCount: 0,
             periodCount: 0,
             failures: 0,
@@ -52,7 +55,7 @@ export function evaluateChannel(
     return { ...common, band: { label: null, reason: selection.reason }, rows: [], aggregates: [], conditions: [], verdict: "incomplete", ...unchosenTimeRules(selection.reason) };
   }
   if (selection.status === "missing-context") {
-    const { rows, aggregates } = unchosenRows(selection.candidates, `not evaluated: ${selection.reason}`, ctx);
+    const { rows, aggregates } = unchosenRows(selection.candidates, { code: "no-band", detail: selection.reason }, ctx);
     return { ...common, band: { label: null, reason: selection.reason }, rows, aggregates, conditions: [], verdict: "incomplete", ...unchosenTimeRules(selection.reason) };
   }
   const evaluations = selection.bands.map((band) => evaluateBand(band, ctx));

@@ -4,7 +4,7 @@ import type { AnalysisResult, ChannelResult, HarmonicValue } from "../analysis/t
 import type { TimeSeriesTiming } from "./derive-rule-values";
 import type { TimeRuleOutcome } from "./evaluate-time-rule";
 import type { EvaluationContext, LimitSetRevisionContent, LimitSetRevisionContentInput, TimeRule } from "./model";
-import type { TimeBasis } from "./result";
+import type { ContextInput, NotEvaluatedCause, TimeBasis } from "./result";
 
 export interface EvaluateComplianceInput {
   analysis: AnalysisResult;
@@ -43,14 +43,14 @@ export type RecordKind = "analysis" | "interval-log";
  * A value obtained from the limit set and the context (a limit, or a measured value in a
  * basis): the value and how it was obtained, or which input was missing.
  */
-export type Derived<T> = { ok: true; value: T; derivation?: string } | { ok: false; missing: string };
+export type Derived<T> = { ok: true; value: T; derivation?: string } | { ok: false; missing: ContextInput };
 
 /** The time-rule facts of one channel: its rules, time base and per-order series. */
 export interface ChannelTimeSeries {
   rules: TimeRule[];
   /** Null when there is no series (`unavailable` says why). */
   timing: TimeSeriesTiming | null;
-  unavailable?: string;
+  unavailable?: NotEvaluatedCause;
   /** Analysis captures: the capture-mean comparison stands in for rules that cannot be evaluated. */
   captureMeanFallback: boolean;
   orderSeries: (h: number) => Float64Array | null;

@@ -1,18 +1,16 @@
 // Limits of order rows and aggregates in the row's unit, and measured values converted to a
 // row's basis (A; % of I1, V1, IL, Iref or Vnom).
+import { describeOrders } from "../reports/result-wording";
 import { evaluateFormula } from "./evaluate-formula";
 import type { ChannelContext, Derived } from "./evaluation-types";
 import { formatNumber as fmt } from "./format-number";
 import type { AggregateRow, Band, Basis, OrderRow } from "./model";
 import { orderMatchesParity } from "./order-matches-parity";
 import { FormulaVariableError, type FormulaVariable } from "./parse-formula";
+import type { ContextInput } from "./result";
 
-/** What the user must give for a formula variable. */
-export const VARIABLE_NEEDS: Record<FormulaVariable, string> = {
-  h: "h (harmonic order)",
-  P: "ratedPowerW (rated power, W)",
-  lambda: "lambda (circuit power factor)",
-};
+/** The context input a formula variable stands for. */
+const VARIABLE_INPUT: Record<FormulaVariable, ContextInput> = { h: "h", P: "ratedPowerW", lambda: "lambda" };
 
 /** Unit of a row's measured value and limit: mA/W rows are compared in amperes. */
 export function unitOf(basis: Basis): string {
@@ -26,11 +24,6 @@ export function expandOrders(row: { from: number; to: number; parity: OrderRow["
   return orders;
 }
 
-/** "3, 5, 7" or "21–39 (10 orders)". */
-export function describeOrders(orders: number[]): string {
-  if (orders.length <= 3) return orders.join(", ");
-  return `${orders[0]}–${orders[orders.length - 1]} (${orders.length} orders)`;
-}
 
 /** Convert a value in the channel's unit (A or V) to the basis's unit. */
 export function toBasis(value: number, basis: Basis, ctx: ChannelContext): Derived<number> {
@@ -42,19 +35,19 @@ export function toBasis(value: number, basis: Basis, ctx: ChannelContext): Deriv
     case "%V1":
       return ctx.channel.fundamentalRms > 0
         ? { ok: true, value: (value / ctx.channel.fundamentalRms) * 100 }
-        : { ok: false, missing: "a non-zero measured fundamental" };
+        : { ok: false, missing: "fundamental" };
     case "%IL":
       return ctx.context.ilA !== undefined
         ? { ok: true, value: (value / ctx.context.ilA) * 100 }
-        : { ok: false, missing: "ilA (maximum demand load current at the PCC)" };
+        : { ok: false, missing: "ilA" };
     case "%Iref":
       return ctx.irefA !== undefined && ctx.irefA > 0
         ? { ok: true, value: (value / ctx.irefA) * 100 }
-        : { ok: false, missing: "irefA (reference current)" };
+        : { ok: false, missing: "irefA" };
     case "%Vnom":
       return ctx.context.nominalVoltageV !== undefined
         ? { ok: true, value: (value / ctx.context.nominalVoltageV) * 100 }
-        : { ok: false, missing: "nominalVoltageV (nominal voltage of the measured channel)" };
+        : { ok: false, missing: "nominalVoltageV" };
   }
 }
 
@@ -62,7 +55,7 @@ function evaluateValue(limit: number | undefined, formula: string | undefined, v
   try {
     return { ok: true, value: limit ?? evaluateFormula(formula as string, variables) };
   } catch (error) {
-    if (error instanceof FormulaVariableError) return { ok: false, missing: VARIABLE_NEEDS[error.variable] };
+    if (error instanceof FormulaVariableError) return { ok: false, missing: VARIABLE_INPUT[error.variable] };
     throw error;
   }
 }
@@ -76,7 +69,7 @@ export function rowLimit(row: OrderRow, h: number, ctx: ChannelContext): Derived
   const parts: string[] = [];
   if (row.formula !== undefined) parts.push(`${row.formula} at h = ${h}${row.formula.includes("lambda") && ctx.lambda !== undefined ? `, λ = ${fmt(ctx.lambda)}` : ""}`);
   if (row.basis === "mA/W") {
-    if (P === undefined) return { ok: false, missing: VARIABLE_NEEDS.P };
+    if (P === undefined) return { ok: false, missing: "ratedPowerW" };
     value = (base.value * P) / 1000;
     parts.push(`${fmt(base.value)} mA/W × ${P} W = ${fmt(value)} A`);
   }
@@ -100,7 +93,7 @@ export function aggregateLimit(aggregate: AggregateRow, band: Band, ctx: Channel
     for (const h of expandOrders(aggregate)) {
       const row = band.orderRows.find((candidate) => candidate.from <= h && h <= candidate.to && orderMatchesParity(h, candidate.parity));
       if (!row) continue;
-      if (row.basis !== "A" && row.basis !== "mA/W") return { ok: false, missing: "ampere limits for every order (fromOrderLimits)" };
+      if (row.basis !== "A" && row.basis !== "mA/W") return { ok: false, missing: "ampere-order-limits" };
       const limit = rowLimit(row, h, ctx);
       if (!limit.ok) return limit;
       sum += (aggregate.weighting === "order" ? h : 1) * limit.value * limit.value;
@@ -111,7 +104,7 @@ export function aggregateLimit(aggregate: AggregateRow, band: Band, ctx: Channel
   const base = evaluateValue(aggregate.limit, aggregate.formula, { P: ctx.context.ratedPowerW, lambda: ctx.lambda });
   if (!base.ok || aggregate.basis !== "mA/W") return base;
   const P = ctx.context.ratedPowerW;
-  if (P === undefined) return { ok: false, missing: VARIABLE_NEEDS.P };
+  if (P === undefined) return { ok: false, missing: "ratedPowerW" };
   const value = (base.value * P) / 1000;
   return { ok: true, value, derivation: `${fmt(base.value)} mA/W × ${P} W = ${fmt(value)} A` };
 }

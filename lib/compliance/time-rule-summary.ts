@@ -1,30 +1,41 @@
 // Per channel: how each time rule of the revision fared, and the note saying what the rules
 // were evaluated on.
-import { formatDurationS } from "./derive-rule-values";
+import { accumulationNote, causeText, formatDurationS } from "../reports/result-wording";
+import { ruleMeasures } from "./evaluate-time-rule";
 import type { ChannelContext } from "./evaluation-types";
 import type { TimeRule } from "./model";
-import type { ComplianceAggregate, ComplianceRow, TimeBasis, TimeRuleSummary } from "./result";
+import type { ComplianceAggregate, ComplianceRow, NotEvaluatedCause, TimeBasis, TimeRuleSummary } from "./result";
 
 /** Per rule: applied or not on this channel, from the chosen band's rows and aggregates. */
 export function summarizeTimeRules(rows: ComplianceRow[], aggregates: ComplianceAggregate[], ctx: ChannelContext): TimeRuleSummary[] | undefined {
   if (!ctx.time) return undefined;
-  const results = [...rows, ...aggregates].flatMap((row) => row.rowRules ?? []);
-  return ctx.time.rules.map((rule): TimeRuleSummary => {
+  const time = ctx.time;
+  const judged = [...rows, ...aggregates];
+  const results = judged.flatMap((row) => row.rowRules ?? []);
+  return time.rules.map((rule): TimeRuleSummary => {
     const mine = results.filter((result) => result.rule === rule.id);
     const evaluated = mine.filter((result) => result.verdict !== "not-evaluated");
-    const notes = evaluated.map((result) => result.reason).find((reason) => reason?.includes("accumulates") || reason?.includes("periods from"));
-    const firstReason = mine.find((result) => result.verdict === "not-evaluated")?.reason?.replace(/^not evaluated: /, "");
-    const reason = evaluated.length > 0 ? notes?.split("; ").find((part) => part.includes("accumulates") || part.includes("periods from")) : firstReason ?? ctx.time?.unavailable ?? "no rows or aggregates it applies to";
+    const applied = evaluated.length > 0;
+    // The accumulation of the evaluated result with the most periods (the same record for every order).
+    const accumulation = evaluated.map((result) => result.accumulation).find((candidate) => candidate !== undefined);
+    const cause: NotEvaluatedCause | undefined = applied
+      ? undefined
+      : (mine.find((result) => result.verdict === "not-evaluated")?.cause ?? time.unavailable ?? { code: "no-applicable-row" });
+    const reason = cause ? causeText(cause) : accumulationNote(accumulation);
     return {
       rule: rule.id,
       label: rule.label,
       multiplier: rule.multiplier,
-      status: evaluated.length > 0 ? "applied" : "not-evaluated",
+      status: applied ? "applied" : "not-evaluated",
       ...(reason ? { reason } : {}),
+      measures: ruleMeasures(rule),
+      ...(cause ? { cause } : {}),
+      ...(accumulation ? { accumulation } : {}),
       valueCount: Math.max(0, ...evaluated.map((result) => result.valueCount ?? 0)),
       periodCount: Math.max(0, ...evaluated.map((result) => result.periodCount ?? 0)),
-      failures: [...rows, ...aggregates].filter((row) => row.decidedBy === rule.id && row.verdict === "fail").length +
-        [...rows, ...aggregates].filter((row) => row.decidedBy !== rule.id && row.rowRules?.some((result) => result.rule === rule.id && result.verdict === "fail")).length,
+      failures:
+        judged.filter((row) => row.decidedBy === rule.id && row.verdict === "fail").length +
+        judged.filter((row) => row.decidedBy !== rule.id && row.rowRules?.some((result) => result.rule === rule.id && result.verdict === "fail")).length,
       ...(rule.source ? { source: rule.source } : {}),
     };
   });
@@ -42,7 +53,7 @@ export function timeRulesNote(rules: TimeRule[], basis: TimeBasis, summary: Time
   const fallback = basis.snapshotFallback
     ? "; where a time rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
     : "";
-  return `time rules ${rules.map((rule) => rule.id).join(", ")} evaluated on ${on}${
-    skipped.length > 0 ? `; not evaluated: ${skipped.map((rule) => `${rule.rule} (${rule.reason ?? "no data"})`).join("; ")}` : ""
+  return `time rules ${rules.map((rule) => `"${rule.label}"`).join(", ")} evaluated on ${on}${
+    skipped.length > 0 ? `; not evaluated: ${skipped.map((rule) => `${rule.label} (${rule.cause ? causeText(rule.cause) : (rule.reason ?? "no data")})`).join("; ")}` : ""
   }${fallback}`;
 }

@@ -178,8 +178,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     for (const rule of timeRuleLines(result.timeRules, worst?.rows ?? result.rows, worst?.aggregates ?? result.aggregates)) {
       const status =
         rule.status === "applied"
-          ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.reason ? `; ${rule.reason}` : ""}`
-          : `NOT EVALUATED: ${rule.reason ?? "no reason given"}`;
+          ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.note ? `; ${rule.note}` : ""}`
+          : `NOT EVALUATED: ${rule.note ?? "no reason given"}`;
       keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
     }
   }
