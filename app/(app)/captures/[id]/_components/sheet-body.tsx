@@ -8,7 +8,7 @@ import { TrendChart } from "@/app/_components/charts/trend-chart";
 import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
-import { formatOrders, groupReasons } from "@/lib/reports/format";
+import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -179,7 +179,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
               >
                 {trendRows.map((r) => (
                   <option key={r.order} value={r.order}>
-                    h{r.order} · {r.verdict === "fail" ? "fail" : r.verdict === "pass" ? "pass" : r.verdict.replace("-", " ")}
+                    h{r.order} · {verdictLabel(r.verdict).toLowerCase()}
                   </option>
                 ))}
               </select>
