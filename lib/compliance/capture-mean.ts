@@ -40,6 +40,19 @@ export function harmonicRms(h: number, ctx: ChannelContext): number {
   return (ctx.harmonics.get(h) as HarmonicValue).rms as number;
 }
 
+/** What a not-evaluated comparison shows: no measured value when it (or an input) is not finite, the limit only when finite. */
+function nonFiniteComparison(cause: NotEvaluatedCause, measured: number | null, limit: number | null) {
+  const shownMeasured = cause.code === "non-finite" && cause.quantity === "measured" ? null : measured;
+  return { measured: shownMeasured, limit: limit !== null && Number.isFinite(limit) ? limit : null, percentOfLimit: null, margin: null };
+}
+
+/** A non-finite measured value (or an input it is computed from) or limit, as a cause; null when all are finite. */
+function nonFiniteCause(measured: number | null, limit: number | null, inputs: number[]): NotEvaluatedCause | null {
+  if ((measured !== null && !Number.isFinite(measured)) || inputs.some((x) => !Number.isFinite(x))) return { code: "non-finite", quantity: "measured" };
+  if (limit !== null && !Number.isFinite(limit)) return { code: "non-finite", quantity: "limit" };
+  return null;
+}
+
 function notEvaluatedRow<T extends ComplianceRow | ComplianceAggregate>(shown: Omit<T, "verdict">, cause: NotEvaluatedCause, note?: string): T {
   return { ...shown, verdict: "not-evaluated", reason: [notEvaluatedText(cause), note].filter(Boolean).join("; "), cause } as T;
 }
@@ -57,6 +70,9 @@ export function captureMeanRow(row: OrderRow, h: number, ctx: ChannelContext): C
   const rms = harmonicRms(h, ctx);
   const measured = toBasis(rms, row.basis, ctx);
   const measuredValue = measured.ok ? measured.value : null;
+  // An overflowed or corrupt value (Infinity, NaN) is never judged: it would pass or sit "at the limit".
+  const nonFinite = nonFiniteCause(measuredValue, limitValue, [rms, ctx.channel.rms]);
+  if (nonFinite) return notEvaluatedRow({ ...base, ...nonFiniteComparison(nonFinite, measuredValue, limitValue) }, nonFinite);
   const shown = { ...base, ...comparison(measuredValue, limitValue) };
 
   // IEC 61000-3-2: small currents are disregarded whatever their limit.
@@ -111,8 +127,10 @@ export function captureMeanAggregate(aggregate: AggregateRow, band: Band, ctx: C
   const { total, unavailable } = measuredOrders(aggregate, ctx);
   const measured = toBasis(total, aggregate.basis, ctx);
   const measuredValue = measured.ok ? measured.value : null;
-  const shown = { ...base, ...comparison(measuredValue, limitValue) };
   const roleNote = aggregate.role === "allowance-condition" ? "allowance condition only, not itself a requirement" : undefined;
+  const nonFinite = nonFiniteCause(measuredValue, limitValue, [total]);
+  if (nonFinite) return notEvaluatedRow({ ...base, ...nonFiniteComparison(nonFinite, measuredValue, limitValue) }, nonFinite, roleNote);
+  const shown = { ...base, ...comparison(measuredValue, limitValue) };
   const withRole = (text: string): string => [text, roleNote].filter(Boolean).join("; ");
   if (!limit.ok) return notEvaluatedRow(shown, { code: "missing-input", input: limit.missing }, roleNote);
   if (!measured.ok) return notEvaluatedRow(shown, { code: "missing-input", input: measured.missing }, roleNote);

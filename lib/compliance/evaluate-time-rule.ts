@@ -100,6 +100,7 @@ export function evaluateTimeRule(
     return notEvaluated({ code: "no-complete-interval", intervalS: rule.intervalS, durationS, clockAligned: timing.clockKnown }, true);
   }
   if (tableLimit === null) return notEvaluated({ code: "no-limit" }, false);
+  if (!Number.isFinite(tableLimit)) return notEvaluated({ code: "non-finite", quantity: "limit" }, false);
 
   // Accumulation periods: consecutive spans of accumulationS from the first value.
   const periods: Array<{ from: number; to: number }> = [];
@@ -117,6 +118,8 @@ export function evaluateTimeRule(
   }
   let measured = -Infinity;
   for (const period of periods) measured = Math.max(measured, statisticOf(derived.values.subarray(period.from, period.to), rule));
+  // Math.max(…, NaN) is NaN and an overflowed value is Infinity: neither may pass or fail a rule.
+  if (!Number.isFinite(measured)) return notEvaluated({ code: "non-finite", quantity: "measured" }, false);
 
   const accumulation: RuleAccumulation | undefined =
     rule.accumulationS === undefined
