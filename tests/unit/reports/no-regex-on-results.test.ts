@@ -62,7 +62,8 @@ describe("no regular expression on a result's text", () => {
     expect(regexOnResultText("ok.ts", 'const slug = title.replace(/[^a-z]+/g, "-"); const s = reason.includes("x");')).toEqual([]);
   });
 
-  test("lib/reports and app/ hold none", () => {
+  // Parses every source file of app/ and lib/reports: a generous timeout under load.
+  test("lib/reports and app/ hold none", { timeout: 30_000 }, () => {
     const files = [...sources(path.join(ROOT, "lib/reports")), ...sources(path.join(ROOT, "app"))];
     expect(files.length).toBeGreaterThan(10);
     const found = files.flatMap((file) => regexOnResultText(path.relative(ROOT, file), readFileSync(file, "utf8")));
