@@ -3,6 +3,7 @@
 import type { AnalysisResult, ChannelResult } from "../analysis/types";
 import { unchosenRows } from "./capture-mean";
 import { channelContext } from "./channel-context";
+import { choosePower, measuredActivePowerW, usesRatedPower } from "./declared-power";
 import { evaluateBand, type BandEvaluation } from "./evaluate-band";
 import { ruleMeasures } from "./evaluate-time-rule";
 import type { EvaluateComplianceInput } from "./evaluation-types";
@@ -27,11 +28,14 @@ export function evaluateChannel(
   context: EvaluationContext,
   input: EvaluateComplianceInput,
 ): ChannelCompliance & { timeBasis?: TimeBasis } {
-  const ctx = channelContext(analysis, channel, content, context, input);
+  // Rated power chooses and scales Class C/D limits: the declared value only within ±10 % of the measured.
+  const power = usesRatedPower(content) ? choosePower(context.ratedPowerW, measuredActivePowerW(analysis, channel.name)) : undefined;
+  const judged: EvaluationContext = power ? { ...context, ratedPowerW: power.usedW ?? undefined } : context;
+  const ctx = channelContext(analysis, channel, content, judged, input);
   const timeBasis = ctx.time?.basis;
   const derived = { irefA: ctx.irefA, lambda: ctx.lambda, notes: ctx.notes };
-  const selection = selectBand(content, context);
-  const common = { channel: channel.name, phase: channel.phase, derived };
+  const selection = selectBand(content, judged);
+  const common = { channel: channel.name, phase: channel.phase, derived, ...(power ? { power } : {}) };
   const unchosenTimeRules = (reason: string): { timeRules?: TimeRuleSummary[]; timeBasis?: TimeBasis } =>
     ctx.time
       ? {

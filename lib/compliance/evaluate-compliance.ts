@@ -84,6 +84,7 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
     scope: content.scope,
   };
   const timeFields = timeBasis ? { timeRules: worst?.timeRules, timeBasis } : {};
+  const powerField = worst?.power ? { power: worst.power } : {};
   if (!worst) {
     return {
       limitSet,
@@ -112,5 +113,6 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
     channels: results,
     notes,
     ...timeFields,
+    ...powerField,
   };
 }

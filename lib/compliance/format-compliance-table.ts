@@ -1,4 +1,4 @@
-import { causeText, thresholdText } from "../reports/result-wording";
+import { causeText, powerChoiceRows, thresholdText } from "../reports/result-wording";
 import { formatNumber as num } from "./format-number";
 import type { ChannelCompliance, ComplianceResult } from "./result";
 
@@ -15,6 +15,7 @@ function table(headers: string[], rows: string[][]): string[] {
 
 function channelBlock(channel: ChannelCompliance): string[] {
   const lines = [`channel ${channel.channel}: ${channel.verdict.toUpperCase()}`, `  band: ${channel.band.label ?? "(none)"} — ${channel.band.reason}`];
+  if (channel.power) for (const [label, value] of powerChoiceRows(channel.power)) lines.push(`  ${label.toLowerCase()}: ${value}`);
   for (const note of channel.derived.notes) lines.push(`  ${note}`);
   if (channel.rows.length > 0) {
     lines.push(

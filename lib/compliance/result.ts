@@ -202,6 +202,23 @@ export interface BandChoice {
   options?: Array<{ label: string; verdict: OverallVerdict }>;
 }
 
+/**
+ * Which power chose and scaled the limits (IEC 61000-3-2 Class C/D): the declared (rated) power
+ * within ±10 % of the measured active power, else the measured power.
+ */
+export interface PowerChoice {
+  /** The manufacturer's declared (rated) power from the context, W. */
+  declaredW: number | null;
+  /** Measured active power, W (null when no voltage was recorded). */
+  measuredW: number | null;
+  /** The power the limits used, W. */
+  usedW: number | null;
+  rule: "declared-within-tolerance" | "measured-declared-outside-tolerance" | "declared-not-measured" | "measured-no-declaration" | "none";
+  /** (declared − measured) / measured × 100, when both are known. */
+  deviationPercent?: number;
+  tolerancePercent: number;
+}
+
 export interface ChannelCompliance {
   channel: string;
   phase: string | null;
@@ -214,6 +231,8 @@ export interface ChannelCompliance {
   derived: { irefA?: number; lambda?: number; notes: string[] };
   /** Per time rule of the revision: applied or not and why (absent when the revision has none). */
   timeRules?: TimeRuleSummary[];
+  /** The power that chose and scaled the limits (sets whose limits depend on rated power only). */
+  power?: PowerChoice;
 }
 
 export interface ComplianceResult {
@@ -235,4 +254,6 @@ export interface ComplianceResult {
   timeRules?: TimeRuleSummary[];
   /** What the time rules were evaluated on (absent when the revision has no time rules). */
   timeBasis?: TimeBasis;
+  /** The worst channel's power choice (sets whose limits depend on rated power only). */
+  power?: PowerChoice;
 }

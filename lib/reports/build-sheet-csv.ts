@@ -1,6 +1,7 @@
 import { formatWhen, summariseContext } from "./format";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
+import { powerChoiceRows, timeRuleSummaryNote } from "./result-wording";
 
 function cell(value: string | number | null | undefined): string {
   if (value === null || value === undefined) return "";
@@ -40,11 +41,12 @@ export function buildSheetCsv(sheet: SheetReport): string {
     ["Evaluation", `${evaluation.id} at ${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : ""}`],
     ["Band", `${r.band.label ?? "none"}: ${r.band.reason}`],
     ["Context", summariseContext(r.context)],
+    ...(r.power ? powerChoiceRows(r.power) : []),
     ["Overall verdict", r.verdict],
   ];
   if (r.timeBasis) head.push(...describeTimeBasis(r.timeBasis).map(([k, v]): [string, string] => [`Time basis: ${k.toLowerCase()}`, v]));
   for (const rule of r.timeRules ?? []) {
-    const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${rule.reason ?? "no reason given"}`;
+    const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${timeRuleSummaryNote(rule) ?? "no reason given"}`;
     head.push([`Time rule ${rule.rule}`, `${rule.label} (limit × ${rule.multiplier}) — ${status}`]);
   }
   const blocks = channelBlocks(r);

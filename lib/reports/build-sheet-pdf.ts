@@ -15,6 +15,7 @@ import {
 } from "./format";
 import { safetyText } from "./safety-text";
 import { channelBlocks, type SheetReport } from "./sheet-report";
+import { powerChoiceRows } from "./result-wording";
 import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
 export interface SheetPdfOptions {
@@ -157,6 +158,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
     ["Evaluated", `${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : " (automatic, after analysis)"}`],
     ["Band", `${result.band.label ?? "none chosen"} — ${result.band.reason}`],
+    ...(result.power ? powerChoiceRows(result.power) : []),
     ["Sign-off state", reviewStateLabels[sheet.capture.reviewState] ?? sheet.capture.reviewState],
   ]);
 

@@ -4,7 +4,7 @@
 // CSV all call these; nothing parses the words back. Relative imports: the evaluator and the
 // CLI import this file too.
 import { formatNumber } from "../compliance/format-number";
-import type { ContextInput, NotEvaluatedCause, RowRuleResult, RuleAccumulation, RuleStatistic, ThresholdApplied, TimeRuleSummary } from "../compliance/result";
+import type { ContextInput, NotEvaluatedCause, PowerChoice, RowRuleResult, RuleAccumulation, RuleStatistic, ThresholdApplied, TimeRuleSummary } from "../compliance/result";
 
 type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
 
@@ -195,4 +195,38 @@ export function thresholdText(threshold: ThresholdApplied, measuredA?: number): 
   const fromInputA = (threshold.percentOfInputCurrent / 100) * threshold.inputCurrentA;
   const start = measuredA === undefined ? `below ${formatNumber(threshold.thresholdA)} A` : `${formatNumber(measuredA)} A < ${formatNumber(threshold.thresholdA)} A`;
   return `${start}, the greater of ${threshold.percentOfInputCurrent} % of the input current ${formatNumber(threshold.inputCurrentA)} A (${formatNumber(fromInputA)} A) and ${formatNumber(threshold.minimumA)} A — disregarded (${threshold.source})`;
+}
+
+function watts(x: number | null): string {
+  return x === null ? "—" : `${formatNumber(x)} W`;
+}
+
+/**
+ * Why the limits used the power they used (IEC 61000-3-2 Class C/D), e.g. "declared 600 W
+ * differs from the measured 300 W by +100 % (more than ±10 %): the limits use the measured 300 W".
+ */
+export function powerChoiceText(power: PowerChoice): string {
+  const deviation = power.deviationPercent === undefined ? "" : `${power.deviationPercent >= 0 ? "+" : "−"}${formatNumber(Math.abs(power.deviationPercent))} %`;
+  const tolerance = `±${formatNumber(power.tolerancePercent)} %`;
+  switch (power.rule) {
+    case "declared-within-tolerance":
+      return `declared ${watts(power.declaredW)} is within ${tolerance} of the measured ${watts(power.measuredW)} (${deviation}): the limits use the declared ${watts(power.usedW)}`;
+    case "measured-declared-outside-tolerance":
+      return `declared ${watts(power.declaredW)} differs from the measured ${watts(power.measuredW)} by ${deviation} (more than ${tolerance}): the limits use the measured ${watts(power.usedW)}`;
+    case "declared-not-measured":
+      return `the limits use the declared ${watts(power.declaredW)}: no active power was measured (no voltage channel), so the ${tolerance} check could not be made`;
+    case "measured-no-declaration":
+      return `no declared power given: the limits use the measured ${watts(power.measuredW)}`;
+    case "none":
+      return "no declared power given and none measured: limits that depend on rated power cannot be evaluated";
+  }
+}
+
+/** Declared, measured and used power as label/value pairs for the sheet, PDF and CSV. */
+export function powerChoiceRows(power: PowerChoice): Array<[string, string]> {
+  return [
+    ["Declared power", watts(power.declaredW)],
+    ["Measured active power", watts(power.measuredW)],
+    ["Power used for the limits", `${watts(power.usedW)} — ${powerChoiceText(power)} (IEC 61000-3-2: the declared power only within ${`±${formatNumber(power.tolerancePercent)} %`} of the measured)`],
+  ];
 }

@@ -74,3 +74,20 @@ describe("sheet PDF", () => {
     expect(text).not.toMatch(/[λ≤]/);
   });
 });
+
+describe("sheet PDF: declared and measured power (IEC 61000-3-2 Class D, Table 3)", () => {
+  test("page 1 lists declared, measured and used power with the reason", async () => {
+    const sheet = makeSheet(
+      "iec-61000-3-2-class-d",
+      {
+        channels: [{ name: "I", fundamentalRms: 1.3, harmonics: { 3: 1.5 } }],
+        power: { phases: [{ voltage: "U", current: "I", activePowerW: 300, apparentPowerVA: 300, displacementFactor: 1, distortionFactor: 1, truePowerFactor: 1 }], total: null },
+      },
+      { ratedPowerW: 600 },
+    );
+    const text = pdfText(await buildSheetPdf(sheet, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") })).replace(/\s+/g, " ");
+    expect(text).toContain("Declared power 600 W");
+    expect(text).toContain("Measured active power 300 W");
+    expect(text).toContain("the limits use the measured 300 W");
+  });
+});

@@ -9,6 +9,7 @@ import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
+import { powerChoiceRows } from "@/lib/reports/result-wording";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -55,6 +56,16 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
         <p className="text-sm text-ink-soft" data-testid="channel-band">
           Band for {channel.channel}: <strong>{channel.band.label ?? "none chosen"}</strong> — {channel.band.reason}
         </p>
+      )}
+      {channel.power && (
+        <dl className="grid gap-x-6 gap-y-1 text-sm text-ink-soft sm:grid-cols-3" data-testid="power-choice" data-rule={channel.power.rule}>
+          {powerChoiceRows(channel.power).map(([k, v]) => (
+            <div key={k} className={k === "Power used for the limits" ? "sm:col-span-3" : undefined}>
+              <dt className="inline text-ink-muted">{k}: </dt>
+              <dd className="inline">{v}</dd>
+            </div>
+          ))}
+        </dl>
       )}
       {channel.derived.notes.length > 0 && (
         <ul className="list-disc pl-5 text-sm text-ink-soft">
