@@ -1,6 +1,6 @@
 import { formatWhen, summariseContext } from "./format";
 import { channelBlocks, type SheetReport } from "./sheet-report";
-import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
+import { decidedByLabel, describeTimeBasis, percentOfTableLimit, tableLimitOf } from "./time-rules";
 import { powerChoiceRows, timeRuleSummaryNote } from "./result-wording";
 
 function cell(value: string | number | null | undefined): string {
@@ -17,8 +17,10 @@ const line = (cells: Array<string | number | null | undefined>) => cells.map(cel
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
  * verdict, time rules and their basis), a blank line, then one row per channel and order with
  * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (rule id),
- * decided_by_label, table_limit (before a rule's multiplier), reason. When a time rule decided a
- * row, measured/limit/percent/margin are that rule's statistic and limit × multiplier.
+ * decided_by_label, table_limit (before a rule's multiplier), reason; then, after a blank line,
+ * the aggregates (THD, TDD, THC, PWHC, POHC) in the same columns. When a time rule decided a row,
+ * measured/limit/margin are that rule's statistic and limit × multiplier; percent_of_limit is
+ * always against the table limit (the rule's multiplier is in decided_by_label).
  * Numbers keep eight significant figures (no display rounding). O(channels × orders).
  *
  * @example
@@ -55,7 +57,16 @@ export function buildSheetCsv(sheet: SheetReport): string {
   lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
   for (const block of blocks) {
     for (const row of block.rows) {
-      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, row.percentOfLimit, row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
+      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, percentOfTableLimit(row), row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
+    }
+  }
+  // The aggregates (THD, TDD, THC, PWHC, POHC) with their verdicts, in the same columns.
+  lines.push("");
+  lines.push(line(["channel", "aggregate", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
+  for (const block of blocks) {
+    for (const a of block.aggregates) {
+      const name = a.role === "requirement" ? a.name : `${a.name} (allowance condition)`;
+      lines.push(line([block.channel, name, a.measured, a.limit, a.unit, percentOfTableLimit(a), a.margin, a.verdict, a.decidedBy ?? "", decidedByLabel(a), tableLimitOf(a), a.reason ?? ""]));
     }
   }
   return lines.join("\r\n") + "\r\n";

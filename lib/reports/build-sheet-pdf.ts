@@ -6,7 +6,6 @@ import {
   formatMargin,
   formatNumber,
   formatOrders,
-  formatPercent,
   formatWhen,
   groupReasons,
   reviewActionLabels,
@@ -16,7 +15,7 @@ import {
 import { safetyText } from "./safety-text";
 import { channelBlocks, type SheetReport } from "./sheet-report";
 import { powerChoiceRows } from "./result-wording";
-import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
+import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, tableLimitIfDifferent, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
 export interface SheetPdfOptions {
   /** Deflate page streams (default true). Tests turn it off to read the text. */
@@ -209,6 +208,10 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     if (block.aggregates.length > 0) aggregateTable(block);
     if (index === 0 && block.rows.some((r) => r.order >= 2)) spectrumChart(block.rows);
     orderTable(block.rows);
+    if (block.rows.some((r) => r.decidedBy !== undefined && tableLimitIfDifferent(r) !== null)) {
+      doc.font("Helvetica").fontSize(7.5).fillColor(colours.soft);
+      text("% of limit is against the table limit; where a time rule allows more (e.g. ×1.5 = 150 %), the multiplier is in Decided by and the rule's limit in Limit.");
+    }
     const reasons = groupReasons(block.rows);
     if (reasons.length > 0) {
       doc.moveDown(0.4);
@@ -293,7 +296,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: formatNumber(a.measured), width: widths[1]!, align: "right" },
           { text: formatNumber(a.limit), width: widths[2]!, align: "right" },
           { text: a.unit, width: widths[3]! },
-          { text: formatPercent(a.percentOfLimit), width: widths[4]!, align: "right" },
+          { text: formatPercentOfLimit(a, { compact: true }), width: widths[4]!, align: "right" },
           { text: verdictLabel(a.verdict), width: widths[5]!, colour: v.fg, bold: a.verdict === "fail" },
           { text: decidedByLabel(a) || "—", width: widths[6]!, colour: colours.soft },
         ],
@@ -332,7 +335,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: formatNumber(row.limit), width: widths[2]!, align: "right" },
           { text: formatNumber(tableLimitOf(row)), width: widths[3]!, align: "right", colour: colours.soft },
           { text: row.unit, width: widths[4]! },
-          { text: formatPercent(row.percentOfLimit), width: widths[5]!, align: "right" },
+          { text: formatPercentOfLimit(row, { compact: true }), width: widths[5]!, align: "right" },
           { text: formatMargin(row.margin), width: widths[6]!, align: "right" },
           { text: verdictLabel(row.verdict), width: widths[7]!, colour: v.fg, bold: row.verdict === "fail" },
           { text: decidedByLabel(row) || "—", width: widths[8]!, colour: colours.soft },

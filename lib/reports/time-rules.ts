@@ -1,7 +1,7 @@
 // Time-rule wording shared by the sheet, the share page, the PDF and the CSV: which rule decided a
 // verdict, what each rule measures, and what the rules were evaluated on.
 import type { ComplianceAggregate, ComplianceRow, RowRuleResult, TimeBasis, TimeRuleSummary } from "@/lib/compliance/result";
-import { formatNumber } from "./format";
+import { formatNumber, formatPercent } from "./format";
 import { accumulationText, formatMultiplier, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
 
 /** A rule of the revision as the time-rules panel lists it. */
@@ -112,4 +112,53 @@ export function formatRuleLimit(result: Pick<RowRuleResult, "limit" | "tableLimi
   return plain
     ? `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} ${formatMultiplier(result.multiplier)})`
     : `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} with an allowance)`;
+}
+
+/**
+ * A row's or aggregate's measured value as a percentage of its TABLE limit (before a time rule's
+ * multiplier or an allowance); null where either is unknown.
+ *
+ * @example percentOfTableLimit(h7) // 82.7 — 0.637 A of the 0.77 A table limit, judged against 1.5 × 0.77 A
+ */
+export function percentOfTableLimit(row: Pick<ComplianceRow, "measured" | "limit" | "decidedBy" | "rowRules">): number | null {
+  const table = tableLimitOf(row);
+  if (row.measured === null || table === null || !(table > 0)) return null;
+  return (row.measured / table) * 100;
+}
+
+function overByText(over: number): string {
+  // Enough digits to show the excess that decided the verdict (an at-the-limit fail reads "100.0 %" otherwise).
+  return `over the limit by ${Number(over.toPrecision(2))} %`;
+}
+
+/** Decimals enough for a failing row's percentage to read above the percentage it was allowed. */
+function decimalsToShowExcess(pct: number, allowedPct: number, fails: boolean): number {
+  let digits = 1;
+  while (fails && digits < 8 && Number(pct.toFixed(digits)) <= Number(allowedPct.toFixed(digits))) digits += 1;
+  return digits;
+}
+
+/**
+ * "% of limit" as a reader sees it: against the table limit, with the rule's allowance beside it
+ * where a time rule's multiplier or an allowance applied ("153.9 % of the table limit — rule
+ * allows 150 %"), and — where one decimal would hide why a row failed — the excess in words
+ * ("100.0 % — over the limit by 0.0022 %"). `compact` (narrow PDF cells): the percentage alone,
+ * with as many decimals as it takes to read above the allowed value ("100.0022 %"); the rule's
+ * multiplier is then in the "decided by" column. "—" when unknown.
+ */
+export function formatPercentOfLimit(
+  row: Pick<ComplianceRow, "measured" | "limit" | "percentOfLimit" | "decidedBy" | "rowRules"> & { verdict: string },
+  options: { compact?: boolean } = {},
+): string {
+  const table = tableLimitOf(row);
+  const pct = percentOfTableLimit(row);
+  if (pct === null || table === null || row.limit === null || row.measured === null) return formatPercent(row.percentOfLimit);
+  const allowedPct = (row.limit / table) * 100;
+  const fails = row.verdict === "fail";
+  if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
+  const scaled = Math.abs(allowedPct - 100) > 1e-9;
+  const shown = `${pct.toFixed(1)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : ""}`;
+  if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
+  const over = (row.measured / row.limit - 1) * 100;
+  return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;
 }

@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { decimateSeries } from "@/lib/reports/decimate-series";
 import type { RuleStatistic } from "@/lib/compliance/result";
 import { causeText, statisticText } from "@/lib/reports/result-wording";
-import { decidedByLabel, describeTimeBasis, formatRuleLimit, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
+import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, formatRuleLimit, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
 import { makeSheet } from "./make-sheet";
 
 describe("time-rule wording", () => {
@@ -36,6 +36,22 @@ describe("time-rule wording", () => {
     expect(formatRuleLimit({ limit: 2.3, tableLimit: 2.3, multiplier: 1 })).toBe("2.3");
     // POHC allowance: 1.5 × the limit for odd 21–39 (IEC 61000-3-2 clause 6.2, from memory).
     expect(formatRuleLimit({ limit: 0.1607, tableLimit: 0.1071, multiplier: 1 })).toBe("0.1607 (0.1071 with an allowance)");
+  });
+});
+
+describe("% of limit: against the table limit, with enough digits to explain the verdict", () => {
+  test("at the limit but failing: 0.450008855 A against 0.45 A reads 'over the limit by 0.002 %' (arithmetic: 8.855e-6 / 0.45 = 0.00197 %)", () => {
+    const row = { measured: 0.450008855, limit: 0.45, percentOfLimit: (0.450008855 / 0.45) * 100, verdict: "fail" };
+    expect(formatPercentOfLimit(row)).toBe("100.0 % — over the limit by 0.002 %");
+    expect(formatPercentOfLimit(row, { compact: true })).toBe("100.002 %");
+    expect(formatPercentOfLimit({ ...row, measured: 0.45, percentOfLimit: 100, verdict: "pass" })).toBe("100.0 %");
+  });
+
+  test("a rule with a multiplier: 3.54 A smoothed maximum against 1.5 × 2.3 A (IEC 61000-3-2 Table 1 h3, clause 6.2) reads 153.9 % of the table limit — rule allows 150 %", () => {
+    const rule = { rule: "smoothed-max", label: "max", measured: 3.54, limit: 3.45, tableLimit: 2.3, multiplier: 1.5, unit: "A", percentOfLimit: (3.54 / 3.45) * 100, verdict: "fail" as const };
+    const row = { measured: 3.54, limit: 3.45, percentOfLimit: rule.percentOfLimit, verdict: "fail", decidedBy: "smoothed-max", rowRules: [rule] };
+    expect(formatPercentOfLimit(row)).toBe("153.9 % of the table limit — rule allows 150 %");
+    expect(formatPercentOfLimit(row, { compact: true })).toBe("153.9 %");
   });
 });
 

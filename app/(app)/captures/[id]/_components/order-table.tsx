@@ -5,7 +5,7 @@ import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { formatMargin, formatNumber, formatPercent } from "@/lib/reports/format";
 import { ruleStatisticText } from "@/lib/reports/result-wording";
-import { decidedByLabel, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
+import { decidedByLabel, formatPercentOfLimit, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 type SortKey = "order" | "measured" | "limit" | "percentOfLimit" | "margin" | "verdict";
 type Column = { key: SortKey | null; label: string; numeric?: boolean; rules?: boolean };
@@ -125,7 +125,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                       )}
                     </td>
                     <td className="text-ink-soft">{r.unit}</td>
-                    <td className={`whitespace-nowrap text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
+                    <td className={`whitespace-nowrap text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercentOfLimit(r)}</td>
                     <td className="text-right">{formatMargin(r.margin)}</td>
                     <td>
                       <VerdictBadge verdict={r.verdict} />
