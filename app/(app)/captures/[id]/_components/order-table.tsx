@@ -125,7 +125,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                       )}
                     </td>
                     <td className="text-ink-soft">{r.unit}</td>
-                    <td className={`whitespace-nowrap text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercentOfLimit(r)}</td>
+                    <td className={`min-w-[5.5rem] text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercentOfLimit(r)}</td>
                     <td className="text-right">{formatMargin(r.margin)}</td>
                     <td>
                       <VerdictBadge verdict={r.verdict} />
