@@ -10,9 +10,9 @@ import { downloadObjectToFile } from "@/lib/storage/s3";
 import { systemReader } from "@/lib/auth/permissions";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { captureMappingSchema } from "@/lib/validations/capture";
+import { CaptureSetupError } from "./capture-setup-error";
 import { judgeStoredIntervalLog } from "./judge-stored-interval-log";
 import { checkOriginal, OriginalChangedError } from "./original-changed-error";
-
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
 
@@ -38,7 +38,7 @@ export async function processCapture({
     const capture = await getCaptureById({ id: captureId, reader: systemReader });
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 5, failureReason: null });
     const context = EvaluationContextSchema.parse(capture.context ?? {});
-    if (!capture.limitSetKey) throw new Error("no limit set chosen");
+    if (!capture.limitSetKey) throw new CaptureSetupError("no-limit-set");
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     // What the result is made of, stored beside it so a sign-off names the set-up behind it;
     // the file hash is the one of the bytes this run read (checked against the confirmed one).
@@ -78,8 +78,8 @@ export async function processCapture({
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
   } catch (err) {
-    const fileProblem = isAnalysisInputError(err) || err instanceof IntervalLogError || err instanceof OriginalChangedError;
-    const expected = fileProblem || (err instanceof Error && err.message === "no limit set chosen");
+    // File and set-up problems are expected (typed errors with a message for the technician).
+    const expected = isAnalysisInputError(err) || err instanceof IntervalLogError || err instanceof CaptureSetupError || err instanceof OriginalChangedError;
     if (!expected) {
       console.error(err);
       if (!finalAttempt) {
@@ -87,11 +87,7 @@ export async function processCapture({
         throw err;
       }
     }
-    const reason = fileProblem
-      ? err.message
-      : expected
-        ? "Choose a limit set in the mapping form, then run the analysis again."
-        : internalReason;
+    const reason = expected ? err.message : internalReason;
     await setCaptureStatus({ id: captureId, status: "failed", failureReason: reason, progressPercent: 0 }).catch(() => undefined);
   }
 }

@@ -1,45 +1,29 @@
 // One time rule applied to one order's (or aggregate's) series.
-import { orderStatistic } from "../analysis/order-statistic";
+import { percentile } from "../analysis/percentile";
+import { accumulationNote, formatDurationS, notEvaluatedText, statisticText } from "../reports/result-wording";
 import { approxEqual } from "./approx-equal";
-import { deriveRuleValues, formatDurationS, type TimeSeriesTiming } from "./derive-rule-values";
+import { deriveRuleValues, type TimeSeriesTiming } from "./derive-rule-values";
+import { formatNumber as fmt } from "./format-number";
+import { judge } from "./judge";
 import type { TimeRule } from "./model";
-import type { RowRuleResult } from "./result";
+import type { NotEvaluatedCause, RowRuleResult, RuleAccumulation, RuleStatistic } from "./result";
 
 /** A rule's result with how much data it used. */
 export interface TimeRuleOutcome extends RowRuleResult {
   valueCount: number;
   periodCount: number;
   /** Not-evaluated because of the data, not the limit (the same for every row of a channel). */
-  dataReason?: string;
+  dataCause?: NotEvaluatedCause;
 }
 
-const VALUES_NAME: Record<TimeRule["intervalS"], string> = {
-  0: "10/12-cycle window values",
-  1.5: "1.5 s smoothed values",
-  3: "3 s values",
-  600: "10 min values",
-};
-
-function fmt(x: number): string {
-  if (x === 0) return "0";
-  const magnitude = Math.abs(x);
-  return magnitude >= 1000 || magnitude < 0.001 ? x.toPrecision(4) : String(Number(x.toPrecision(4)));
-}
-
-function ordinal(p: number): string {
-  const n = Math.round(p);
-  if (n !== p) return `${p}th`;
-  const tens = n % 100;
-  if (tens >= 11 && tens <= 13) return `${n}th`;
-  return `${n}${["th", "st", "nd", "rd"][n % 10] ?? "th"}`;
-}
-
-/** Human description of a rule's statistic, e.g. "99th percentile of 3 s values per 24 h period". */
-export function describeTimeRuleStatistic(rule: TimeRule): string {
-  const what =
-    rule.statistic === "mean" ? "average" : rule.statistic === "max" ? "maximum" : `${ordinal(rule.percentile ?? 0)} percentile (nearest rank)`;
-  const over = rule.accumulationS === undefined ? " over the observation period" : ` per ${formatDurationS(rule.accumulationS)} period (worst period)`;
-  return `${what} of ${VALUES_NAME[rule.intervalS]}${over}`;
+/** What a time rule measures, as data. */
+export function ruleMeasures(rule: TimeRule): RuleStatistic {
+  return {
+    kind: rule.statistic,
+    ...(rule.statistic === "percentile" ? { percentile: rule.percentile } : {}),
+    intervalS: rule.intervalS,
+    ...(rule.accumulationS !== undefined ? { accumulationS: rule.accumulationS } : {}),
+  };
 }
 
 function statisticOf(values: Float64Array, rule: TimeRule): number {
@@ -53,13 +37,7 @@ function statisticOf(values: Float64Array, rule: TimeRule): number {
     for (const v of values) if (v > max) max = v;
     return max;
   }
-  const rank = Math.max(1, Math.ceil(((rule.percentile as number) / 100) * values.length - 1e-9));
-  return orderStatistic(Float64Array.from(values), rank - 1);
-}
-
-function judge(measured: number, limit: number, passAtLimit: boolean): "pass" | "fail" {
-  if (approxEqual(measured, limit)) return passAtLimit ? "pass" : "fail";
-  return measured < limit ? "pass" : "fail";
+  return percentile(values, rule.percentile as number);
 }
 
 /**
@@ -86,41 +64,43 @@ export function evaluateTimeRule(
   unit: string,
   passAtLimit: boolean,
 ): TimeRuleOutcome {
-  const statistic = describeTimeRuleStatistic(rule);
+  const measures = ruleMeasures(rule);
   const base = {
     rule: rule.id,
     label: rule.label,
-    statistic,
+    statistic: statisticText(measures),
+    measures,
     tableLimit,
     multiplier: rule.multiplier,
     unit,
     ...(rule.source ? { source: rule.source } : {}),
   };
-  const notEvaluated = (reason: string, isData: boolean): TimeRuleOutcome => ({
+  const notEvaluated = (cause: NotEvaluatedCause, isData: boolean): TimeRuleOutcome => ({
     ...base,
     measured: null,
     limit: tableLimit === null ? null : tableLimit * rule.multiplier,
     percentOfLimit: null,
     verdict: "not-evaluated",
-    reason: `not evaluated: ${reason}`,
+    reason: notEvaluatedText(cause),
+    cause,
     valueCount: 0,
     periodCount: 0,
-    ...(isData ? { dataReason: reason } : {}),
+    ...(isData ? { dataCause: cause } : {}),
   });
 
   const n = timing.startsS.length;
   const durationS = n === 0 ? 0 : timing.startsS[n - 1]! + timing.valueS - timing.startsS[0]!;
   const minimum = rule.minimumDurationS;
   if (n === 0 || durationS < minimum * (1 - 1e-9)) {
-    return notEvaluated(`needs at least ${formatDurationS(minimum)} of record; the record has ${formatDurationS(durationS)}`, true);
+    return notEvaluated({ code: "record-too-short", minimumS: minimum, durationS }, true);
   }
   const derived = deriveRuleValues(values, rule.intervalS, timing);
-  if (!derived.ok) return notEvaluated(derived.reason, true);
+  if (!derived.ok) return notEvaluated(derived.cause, true);
   if (derived.values.length === 0) {
-    const alignment = timing.clockKnown ? "aligned to the clock" : "from the record start";
-    return notEvaluated(`no complete ${VALUES_NAME[rule.intervalS].replace(/ values$/, "")} interval (${alignment}) in ${formatDurationS(durationS)} of record`, true);
+    return notEvaluated({ code: "no-complete-interval", intervalS: rule.intervalS, durationS, clockAligned: timing.clockKnown }, true);
   }
-  if (tableLimit === null) return notEvaluated("no limit for this row", false);
+  if (tableLimit === null) return notEvaluated({ code: "no-limit" }, false);
+  if (!Number.isFinite(tableLimit)) return notEvaluated({ code: "non-finite", quantity: "limit" }, false);
 
   // Accumulation periods: consecutive spans of accumulationS from the first value.
   const periods: Array<{ from: number; to: number }> = [];
@@ -138,17 +118,16 @@ export function evaluateTimeRule(
   }
   let measured = -Infinity;
   for (const period of periods) measured = Math.max(measured, statisticOf(derived.values.subarray(period.from, period.to), rule));
+  // Math.max(…, NaN) is NaN and an overflowed value is Infinity: neither may pass or fail a rule.
+  if (!Number.isFinite(measured)) return notEvaluated({ code: "non-finite", quantity: "measured" }, false);
 
+  const accumulation: RuleAccumulation | undefined =
+    rule.accumulationS === undefined
+      ? undefined
+      : { periodS: rule.accumulationS, periodCount: periods.length, availableS: durationS, valueCount: derived.values.length };
   const notes: string[] = [];
-  if (rule.accumulationS !== undefined) {
-    if (durationS < rule.accumulationS * (1 - 1e-9)) {
-      notes.push(
-        `the standard accumulates over ${formatDurationS(rule.accumulationS)}; evaluated over the available ${formatDurationS(durationS)} (${derived.values.length} values)`,
-      );
-    } else if (periods.length > 1) {
-      notes.push(`worst of ${periods.length} consecutive ${formatDurationS(rule.accumulationS)} periods from the record start`);
-    }
-  }
+  const periodNote = accumulationNote(accumulation);
+  if (periodNote) notes.push(periodNote);
   const limit = tableLimit * rule.multiplier;
   const rulePassAtLimit = rule.passAtLimit ?? passAtLimit;
   let verdict = judge(measured, limit, rulePassAtLimit);
@@ -175,7 +154,7 @@ export function evaluateTimeRule(
       verdict = "pass";
       appliedLimit = relaxedLimit;
       notes.push(
-        `relaxation to ${relaxation.multiplier * 100} % applies: excursions above ${rule.multiplier * 100} % last ${formatDurationS(excursionS)} < ${formatDurationS(allowedS)} and the average ${fmt(average)} ${unit} < ${relaxation.averageBelowFraction * 100} % of the limit (${relaxation.source})`,
+        `relaxation to ${relaxation.multiplier * 100} % applies: excursions above ${rule.multiplier * 100} % last ${formatDurationS(excursionS)} < ${formatDurationS(allowedS)} and the average ${fmt(average)} ${unit} < ${relaxation.averageBelowFraction * 100} % of the limit`,
       );
     } else notes.push(`relaxation to ${relaxation.multiplier * 100} % does not apply: ${failures.join("; ")}`);
   }
@@ -190,5 +169,6 @@ export function evaluateTimeRule(
     ...(reason ? { reason } : {}),
     valueCount: derived.values.length,
     periodCount: periods.length,
+    ...(accumulation ? { accumulation } : {}),
   };
 }

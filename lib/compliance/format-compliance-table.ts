@@ -1,12 +1,6 @@
+import { causeText, powerChoiceRows, thresholdText } from "../reports/result-wording";
+import { formatNumber as num } from "./format-number";
 import type { ChannelCompliance, ComplianceResult } from "./result";
-
-function num(x: number | null): string {
-  if (x === null) return "—";
-  if (x === 0) return "0";
-  const magnitude = Math.abs(x);
-  if (magnitude >= 1e5 || magnitude < 1e-3) return x.toExponential(3);
-  return String(Number(x.toPrecision(4)));
-}
 
 function pct(x: number | null): string {
   return x === null ? "—" : `${x.toFixed(1)} %`;
@@ -21,6 +15,7 @@ function table(headers: string[], rows: string[][]): string[] {
 
 function channelBlock(channel: ChannelCompliance): string[] {
   const lines = [`channel ${channel.channel}: ${channel.verdict.toUpperCase()}`, `  band: ${channel.band.label ?? "(none)"} — ${channel.band.reason}`];
+  if (channel.power) for (const [label, value] of powerChoiceRows(channel.power)) lines.push(`  ${label.toLowerCase()}: ${value}`);
   for (const note of channel.derived.notes) lines.push(`  ${note}`);
   if (channel.rows.length > 0) {
     lines.push(
@@ -47,17 +42,21 @@ function channelBlock(channel: ChannelCompliance): string[] {
     );
   }
   for (const condition of channel.conditions) lines.push(`  condition ${condition.id}: ${condition.verdict} — ${condition.reason}`);
-  const explained = [
-    ...channel.rows.filter((row) => row.verdict !== "pass" && row.reason).map((row) => `  h${row.order}: ${row.reason}`),
-    ...channel.aggregates.filter((aggregate) => aggregate.verdict !== "pass" && aggregate.reason).map((aggregate) => `  ${aggregate.name}: ${aggregate.reason}`),
-  ];
-  // One line per distinct reason keeps "above Nyquist" × 10 readable.
+  // One line per distinct reason keeps "above Nyquist" × 10 readable: rows group by their
+  // cause or threshold (typed fields), else by the reason text itself.
   const seen = new Set<string>();
-  for (const line of explained) {
-    const key = line.replace(/^ {2}h\d+: /, "").replace(/order \d+/, "order n");
-    if (seen.has(key)) continue;
+  const explain = (name: string, key: string, reason: string): void => {
+    if (seen.has(key)) return;
     seen.add(key);
-    lines.push(line);
+    lines.push(`  ${name}: ${reason}`);
+  };
+  for (const row of channel.rows) {
+    if (row.verdict === "pass" || !row.reason) continue;
+    const key = row.threshold ? thresholdText(row.threshold) : row.cause && !row.rowRules ? causeText(row.cause) : row.reason;
+    explain(`h${row.order}`, key, row.reason);
+  }
+  for (const aggregate of channel.aggregates) {
+    if (aggregate.verdict !== "pass" && aggregate.reason) explain(aggregate.name, `${aggregate.name}: ${aggregate.reason}`, aggregate.reason);
   }
   return lines;
 }

@@ -72,6 +72,6 @@ export function interpolateBand(
   });
   return {
     band: { ...band, label: `${band.label} interpolated at Rsce ${rsce}`, orderRows, aggregates },
-    description: `Rsce ${rsce} lies between the rows ${low} and ${high}: limits interpolated linearly (t = ${round(t)}; ${rule.source})`,
+    description: `Rsce ${rsce} lies between the rows ${low} and ${high}: limits interpolated linearly (t = ${round(t)})`,
   };
 }

@@ -2,7 +2,7 @@
 // LimitSetRevisionContentSchema (the database stores it as jsonb); everything the evaluator
 // needs — bands, rows, aggregates, boundary choices and rules — is data in that document.
 import { z } from "zod";
-import { orderMatchesParity } from "./order-matches-parity";
+import { PARITIES, orderMatchesParity } from "./order-matches-parity";
 import { FormulaSyntaxError, parseFormula, type FormulaVariable } from "./parse-formula";
 
 export const QuantitySchema = z.enum(["current", "voltage"]);
@@ -21,7 +21,7 @@ export const BasisSchema = z.enum(["A", "mA/W", "%I1", "%V1", "%IL", "%Iref", "%
  * Which orders of a from..to range a row covers. `triplen` = odd multiples of 3 (3, 9, 15, …,
  * the usual power-system meaning); `non-triplen-odd` = odd and not a multiple of 3.
  */
-export const ParitySchema = z.enum(["all", "odd", "even", "triplen", "non-triplen-odd"]);
+export const ParitySchema = z.enum(PARITIES);
 
 export const PhaseConfigSchema = z.enum(["single-phase", "balanced-three-phase", "other"]);
 

@@ -99,8 +99,25 @@ function tokenize(formula: string): Token[] {
 //   unary  := "-" unary | "+" unary | power
 //   power  := atom ("^" unary)?
 //   atom   := number | variable | "(" expr ")"
+/** Longest formula accepted, characters: a limit formula is a short expression. */
+export const MAX_FORMULA_LENGTH = 2000;
+/** Deepest nesting accepted (parentheses, unary signs and powers, counted together). */
+export const MAX_FORMULA_DEPTH = 64;
+
 function parseTokens(formula: string, tokens: Token[]): Node {
   let index = 0;
+  // The parser recurses once per nesting level: a cap keeps hostile input (10,000 "(" or
+  // 100,000 unary "-") a syntax error instead of a stack overflow.
+  let depth = 0;
+  const nested = <T>(position: number, parse: () => T): T => {
+    depth += 1;
+    if (depth > MAX_FORMULA_DEPTH) throw new FormulaSyntaxError(formula, position, `nested more than ${MAX_FORMULA_DEPTH} levels deep`);
+    try {
+      return parse();
+    } finally {
+      depth -= 1;
+    }
+  };
   const peek = (): Token => tokens[index] as Token;
   const isOperator = (token: Token, operator: string): boolean =>
     token.kind === "operator" && token.operator === operator;
@@ -137,19 +154,20 @@ function parseTokens(formula: string, tokens: Token[]): Node {
     const token = peek();
     if (isOperator(token, "-")) {
       index += 1;
-      return { kind: "negate", operand: unary() };
+      return { kind: "negate", operand: nested(token.position, unary) };
     }
     if (isOperator(token, "+")) {
       index += 1;
-      return unary();
+      return nested(token.position, unary);
     }
     return power();
   };
   const power = (): Node => {
     const base = atom();
-    if (isOperator(peek(), "^")) {
+    const caret = peek();
+    if (isOperator(caret, "^")) {
       index += 1;
-      return { kind: "binary", operator: "^", left: base, right: unary() };
+      return { kind: "binary", operator: "^", left: base, right: nested(caret.position, unary) };
     }
     return base;
   };
@@ -165,7 +183,7 @@ function parseTokens(formula: string, tokens: Token[]): Node {
     }
     if (isOperator(token, "(")) {
       index += 1;
-      const inner = expr();
+      const inner = nested(token.position, expr);
       const close = peek();
       if (!isOperator(close, ")")) {
         throw new FormulaSyntaxError(formula, close.position, `expected ")" but found ${describe(close).replace("unexpected ", "")}`);
@@ -220,7 +238,9 @@ function evaluateNode(formula: string, node: Node, variables: FormulaVariables):
  * Language: decimal numbers (with optional exponent), the variables `h` (harmonic order),
  * `P` (rated power, W) and `lambda` (circuit power factor), `+ - * / ^`, unary minus and
  * parentheses. Anything else — other identifiers, function calls, `;`, quotes — is a
- * {@link FormulaSyntaxError} naming the 1-based character position. Runs in O(length).
+ * {@link FormulaSyntaxError} naming the 1-based character position, as is a formula longer than
+ * {@link MAX_FORMULA_LENGTH} characters or nested deeper than {@link MAX_FORMULA_DEPTH} levels.
+ * Runs in O(length).
  *
  * @example
  * parseFormula("0.15*15/h").evaluate({ h: 21 }) // ≈ 0.1071 (amperes, IEC 61000-3-2 Class A)
@@ -228,6 +248,9 @@ function evaluateNode(formula: string, node: Node, variables: FormulaVariables):
  */
 export function parseFormula(formula: string): CompiledFormula {
   if (formula.trim() === "") throw new FormulaSyntaxError(formula, 1, "empty formula");
+  if (formula.length > MAX_FORMULA_LENGTH) {
+    throw new FormulaSyntaxError(formula.slice(0, 40) + "…", MAX_FORMULA_LENGTH + 1, `longer than ${MAX_FORMULA_LENGTH} characters (${formula.length})`);
+  }
   const root = parseTokens(formula, tokenize(formula));
   const used = new Set<FormulaVariable>();
   collectVariables(root, used);

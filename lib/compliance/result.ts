@@ -1,6 +1,6 @@
 // Shapes of an evaluation result (the `compliance` part of the analysis JSON). Plain data,
 // produced only by evaluateCompliance; the database stores it alongside the revision id.
-import type { AggregateName, Basis, EvaluationContext } from "./model";
+import type { AggregateName, Basis, EvaluationContext, TimeRule } from "./model";
 
 /** Per-order verdict. `below-threshold`: disregarded by a threshold rule (counts as compliant). */
 export type RowVerdict = "pass" | "fail" | "below-threshold" | "not-evaluated";
@@ -13,6 +13,53 @@ export type AggregateVerdict = "pass" | "fail" | "not-evaluated";
  */
 export type OverallVerdict = "pass" | "fail" | "incomplete";
 
+/** An input the user gives in the evaluation context (or a measured value standing in for it). */
+export type ContextInput = "h" | "ratedPowerW" | "lambda" | "ilA" | "irefA" | "nominalVoltageV" | "fundamental" | "ampere-order-limits";
+
+/**
+ * Why a row, aggregate or rule was not evaluated, as a code with its numbers. The words for
+ * people are generated from it in one place (lib/reports/result-wording.ts).
+ */
+export type NotEvaluatedCause =
+  | { code: "missing-input"; input: ContextInput }
+  | { code: "above-nyquist"; maxResolvableOrder: number }
+  | { code: "not-analysed"; analysedUpTo: number }
+  | { code: "not-in-record"; record: "analysis" | "interval-log" }
+  | { code: "partial-sum"; unavailableOrders: number[]; record: "analysis" | "interval-log" }
+  | { code: "no-band"; detail: string }
+  | { code: "no-order-series" }
+  | { code: "no-logged-rows" }
+  | { code: "record-too-short"; minimumS: number; durationS: number }
+  | { code: "no-complete-interval"; intervalS: TimeRule["intervalS"]; durationS: number; clockAligned: boolean }
+  | { code: "needs-other-values"; intervalS: TimeRule["intervalS"]; loggedValueS: number }
+  | { code: "no-limit" }
+  | { code: "no-applicable-row" }
+  | { code: "allowance-unchecked"; aggregate: string }
+  | { code: "non-finite"; quantity: "measured" | "limit" };
+
+/** What a rule takes its statistic of: the kind, over which values, accumulated how. */
+export interface RuleStatistic {
+  /** `capture-mean`: the r.m.s. mean over the capture's windows (the stand-in comparison). */
+  kind: "mean" | "max" | "percentile" | "capture-mean";
+  /** Nearest-rank percentile, % (percentile rules only). */
+  percentile?: number;
+  /** Values the statistic is taken over: 0 window values, 1.5 smoothed, 3 s, 600 s (time rules only). */
+  intervalS?: TimeRule["intervalS"];
+  /** Accumulation period, s; absent: the whole record. */
+  accumulationS?: number;
+  /** Windows the capture mean was taken over (capture-mean only). */
+  windowCount?: number;
+}
+
+/** How a rule's periods covered the record (rules with an accumulation period). */
+export interface RuleAccumulation {
+  periodS: number;
+  periodCount: number;
+  /** Record length the rule's values cover, s; less than `periodS`: evaluated over a partial period. */
+  availableS: number;
+  valueCount: number;
+}
+
 /**
  * One rule's judgement of one order or aggregate: a time rule of the revision
  * (`rules.timeRules`, e.g. "daily-p99-very-short") or `snapshot` — the capture's r.m.s. mean
@@ -22,8 +69,10 @@ export interface RowRuleResult {
   /** Time-rule id, or "snapshot". */
   rule: string;
   label: string;
-  /** What was measured, e.g. "99th percentile of 3 s values (worst 24 h period)". */
-  statistic: string;
+  /** What was measured, in words (generated from `measures`; results stored before it existed carry only this). */
+  statistic?: string;
+  /** What was measured, as data (absent in results stored before it existed). */
+  measures?: RuleStatistic;
   /** The statistic, in `unit`. */
   measured: number | null;
   /** Limit applied = table limit × multiplier (× an allowance factor where one applied). */
@@ -38,6 +87,10 @@ export interface RowRuleResult {
   /** Values the statistic was taken over, and the accumulation periods (time rules only). */
   valueCount?: number;
   periodCount?: number;
+  /** Accumulation periods used, when the rule has one. */
+  accumulation?: RuleAccumulation;
+  /** Why not evaluated (absent when evaluated, and in results stored before it existed). */
+  cause?: NotEvaluatedCause;
 }
 
 /** How one time rule fared on one channel: applied or not, and on what data. */
@@ -55,6 +108,12 @@ export interface TimeRuleSummary {
   /** Rows and aggregates this rule failed. */
   failures: number;
   source?: string;
+  /** What the rule measures (absent in results stored before it existed). */
+  measures?: RuleStatistic;
+  /** Why not evaluated, as a code. */
+  cause?: NotEvaluatedCause;
+  /** Accumulation periods used where the record is shorter than one period or spans several. */
+  accumulation?: RuleAccumulation;
 }
 
 /** The time base the time rules were evaluated on. */
@@ -86,6 +145,10 @@ export interface ComplianceRow {
   margin: number | null;
   verdict: RowVerdict;
   reason?: string;
+  /** Why not evaluated, as a code (absent in results stored before it existed). */
+  cause?: NotEvaluatedCause;
+  /** The threshold that disregarded this order (below-threshold rows). */
+  threshold?: ThresholdApplied;
   limitSource?: string;
   /**
    * Each applicable rule's judgement when the revision has time rules. When time rules decided,
@@ -95,6 +158,15 @@ export interface ComplianceRow {
   rowRules?: RowRuleResult[];
   /** Id of the rule that decided the verdict ("snapshot" for the capture-mean comparison). */
   decidedBy?: string;
+}
+
+/** IEC 61000-3-2 threshold as applied to a row: max(percent × input current, minimum). */
+export interface ThresholdApplied {
+  thresholdA: number;
+  percentOfInputCurrent: number;
+  inputCurrentA: number;
+  minimumA: number;
+  source: string;
 }
 
 export interface ComplianceAggregate {
@@ -109,6 +181,7 @@ export interface ComplianceAggregate {
   /** `allowance-condition` aggregates are reported but do not count towards the verdict. */
   role: "requirement" | "allowance-condition";
   reason?: string;
+  cause?: NotEvaluatedCause;
   limitSource?: string;
   rowRules?: RowRuleResult[];
   decidedBy?: string;
@@ -129,6 +202,23 @@ export interface BandChoice {
   options?: Array<{ label: string; verdict: OverallVerdict }>;
 }
 
+/**
+ * Which power chose and scaled the limits (IEC 61000-3-2 Class C/D): the declared (rated) power
+ * within ±10 % of the measured active power, else the measured power.
+ */
+export interface PowerChoice {
+  /** The manufacturer's declared (rated) power from the context, W. */
+  declaredW: number | null;
+  /** Measured active power, W (null when no voltage was recorded). */
+  measuredW: number | null;
+  /** The power the limits used, W. */
+  usedW: number | null;
+  rule: "declared-within-tolerance" | "measured-declared-outside-tolerance" | "declared-not-measured" | "measured-no-declaration" | "none";
+  /** (declared − measured) / measured × 100, when both are known. */
+  deviationPercent?: number;
+  tolerancePercent: number;
+}
+
 export interface ChannelCompliance {
   channel: string;
   phase: string | null;
@@ -141,6 +231,8 @@ export interface ChannelCompliance {
   derived: { irefA?: number; lambda?: number; notes: string[] };
   /** Per time rule of the revision: applied or not and why (absent when the revision has none). */
   timeRules?: TimeRuleSummary[];
+  /** The power that chose and scaled the limits (sets whose limits depend on rated power only). */
+  power?: PowerChoice;
 }
 
 export interface ComplianceResult {
@@ -162,4 +254,6 @@ export interface ComplianceResult {
   timeRules?: TimeRuleSummary[];
   /** What the time rules were evaluated on (absent when the revision has no time rules). */
   timeBasis?: TimeBasis;
+  /** The worst channel's power choice (sets whose limits depend on rated power only). */
+  power?: PowerChoice;
 }

@@ -3,7 +3,8 @@ import { formatWhen, summariseContext } from "./format";
 import { headlineNumbers } from "./headline-numbers";
 import { headlineTable } from "./headline-table";
 import { channelBlocks, type SheetReport } from "./sheet-report";
-import { decidedByLabel, describeTimeBasis, tableLimitOf } from "./time-rules";
+import { decidedByLabel, describeTimeBasis, percentOfTableLimit, tableLimitOf } from "./time-rules";
+import { powerChoiceRows, timeRuleSummaryNote } from "./result-wording";
 
 type Cell = string | number | null | undefined;
 
@@ -26,8 +27,10 @@ const line = (cells: Cell[]) => Papa.unparse([cells.map(cell)], { escapeFormulae
  * verdict, time rules and their basis), the headline numbers (one small table each for currents,
  * voltages, power and unbalance, raw values, units in the column labels), a blank line, then one row per channel and order with
  * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (rule id),
- * decided_by_label, table_limit (before a rule's multiplier), reason. When a time rule decided a
- * row, measured/limit/percent/margin are that rule's statistic and limit × multiplier.
+ * decided_by_label, table_limit (before a rule's multiplier), reason; then, after a blank line,
+ * the aggregates (THD, TDD, THC, PWHC, POHC) in the same columns. When a time rule decided a row,
+ * measured/limit/margin are that rule's statistic and limit × multiplier; percent_of_limit is
+ * always against the table limit (the rule's multiplier is in decided_by_label).
  * Numbers keep eight significant figures (no display rounding). O(channels × orders).
  *
  * @example
@@ -50,11 +53,12 @@ export function buildSheetCsv(sheet: SheetReport): string {
     ["Evaluation", `${evaluation.id} at ${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : ""}`],
     ["Band", `${r.band.label ?? "none"}: ${r.band.reason}`],
     ["Context", summariseContext(r.context)],
+    ...(r.power ? powerChoiceRows(r.power) : []),
     ["Overall verdict", r.verdict],
   ];
   if (r.timeBasis) head.push(...describeTimeBasis(r.timeBasis).map(([k, v]): [string, string] => [`Time basis: ${k.toLowerCase()}`, v]));
   for (const rule of r.timeRules ?? []) {
-    const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${rule.reason ?? "no reason given"}`;
+    const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${timeRuleSummaryNote(rule) ?? "no reason given"}`;
     head.push([`Time rule ${rule.rule}`, `${rule.label} (limit × ${rule.multiplier}) — ${status}`]);
   }
   const blocks = channelBlocks(r);
@@ -70,7 +74,16 @@ export function buildSheetCsv(sheet: SheetReport): string {
   lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
   for (const block of blocks) {
     for (const row of block.rows) {
-      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, row.percentOfLimit, row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
+      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, percentOfTableLimit(row), row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
+    }
+  }
+  // The aggregates (THD, TDD, THC, PWHC, POHC) with their verdicts, in the same columns.
+  lines.push("");
+  lines.push(line(["channel", "aggregate", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
+  for (const block of blocks) {
+    for (const a of block.aggregates) {
+      const name = a.role === "requirement" ? a.name : `${a.name} (allowance condition)`;
+      lines.push(line([block.channel, name, a.measured, a.limit, a.unit, percentOfTableLimit(a), a.margin, a.verdict, a.decidedBy ?? "", decidedByLabel(a), tableLimitOf(a), a.reason ?? ""]));
     }
   }
   return lines.join("\r\n") + "\r\n";

@@ -6,7 +6,6 @@ import {
   formatMargin,
   formatNumber,
   formatOrders,
-  formatPercent,
   formatWhen,
   groupReasons,
   reviewActionLabels,
@@ -20,7 +19,8 @@ import { safetyText } from "./safety-text";
 import { describeSetup } from "./describe-setup";
 import { describeSignOff } from "./describe-sign-off";
 import { channelBlocks, type SheetReport } from "./sheet-report";
-import { decidedByLabel, describeTimeBasis, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
+import { powerChoiceRows } from "./result-wording";
+import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, tableLimitIfDifferent, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
 export interface SheetPdfOptions {
   /** Deflate page streams (default true). Tests turn it off to read the text. */
@@ -164,6 +164,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
     ["Evaluated", `${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : " (automatic, after analysis)"}`],
     ["Band", `${result.band.label ?? "none chosen"} — ${result.band.reason}`],
+    ...(result.power ? powerChoiceRows(result.power) : []),
     ["Sign-off", describeSignOff(sheet).label],
   ]);
   const setupRows = describeSetup(sheet);
@@ -212,8 +213,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     for (const rule of timeRuleLines(result.timeRules, worst?.rows ?? result.rows, worst?.aggregates ?? result.aggregates)) {
       const status =
         rule.status === "applied"
-          ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.reason ? `; ${rule.reason}` : ""}`
-          : `NOT EVALUATED: ${rule.reason ?? "no reason given"}`;
+          ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.note ? `; ${rule.note}` : ""}`
+          : `NOT EVALUATED: ${rule.note ?? "no reason given"}`;
       keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
     }
   }
@@ -241,6 +242,10 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     if (block.aggregates.length > 0) aggregateTable(block);
     if (index === 0 && block.rows.some((r) => r.order >= 2)) spectrumChart(block.rows);
     orderTable(block.rows);
+    if (block.rows.some((r) => r.decidedBy !== undefined && tableLimitIfDifferent(r) !== null)) {
+      doc.font("Helvetica").fontSize(7.5).fillColor(colours.soft);
+      text("% of limit is against the table limit; where a time rule allows more (e.g. ×1.5 = 150 %), the multiplier is in Decided by and the rule's limit in Limit.");
+    }
     const reasons = groupReasons(block.rows);
     if (reasons.length > 0) {
       doc.moveDown(0.4);
@@ -327,7 +332,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: formatNumber(a.measured), width: widths[1]!, align: "right" },
           { text: formatNumber(a.limit), width: widths[2]!, align: "right" },
           { text: a.unit, width: widths[3]! },
-          { text: formatPercent(a.percentOfLimit), width: widths[4]!, align: "right" },
+          { text: formatPercentOfLimit(a, { compact: true }), width: widths[4]!, align: "right" },
           { text: verdictLabel(a.verdict), width: widths[5]!, colour: v.fg, bold: a.verdict === "fail" },
           { text: decidedByLabel(a) || "—", width: widths[6]!, colour: colours.soft },
         ],
@@ -366,7 +371,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
           { text: formatNumber(row.limit), width: widths[2]!, align: "right" },
           { text: formatNumber(tableLimitOf(row)), width: widths[3]!, align: "right", colour: colours.soft },
           { text: row.unit, width: widths[4]! },
-          { text: formatPercent(row.percentOfLimit), width: widths[5]!, align: "right" },
+          { text: formatPercentOfLimit(row, { compact: true }), width: widths[5]!, align: "right" },
           { text: formatMargin(row.margin), width: widths[6]!, align: "right" },
           { text: verdictLabel(row.verdict), width: widths[7]!, colour: v.fg, bold: row.verdict === "fail" },
           { text: decidedByLabel(row) || "—", width: widths[8]!, colour: colours.soft },

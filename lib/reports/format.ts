@@ -1,7 +1,9 @@
 // Number, verdict and context wording shared by the sheet page, the share page, the PDF and the CSV,
 // so every rendering of a sheet says the same thing in the same words.
 import type { EvaluationContext } from "@/lib/compliance/model";
+import { formatNumber } from "@/lib/compliance/format-number";
 import type { AggregateVerdict, ComplianceRow, OverallVerdict, RowVerdict } from "@/lib/compliance/result";
+import { causeText, thresholdText } from "./result-wording";
 
 export type AnyVerdict = RowVerdict | AggregateVerdict | OverallVerdict;
 
@@ -32,20 +34,8 @@ export const reviewActionLabels: Record<string, string> = {
   comment: "Comment",
 };
 
-/**
- * A measured value or limit for display: about four significant figures, no exponent for the
- * magnitudes met in harmonic work (mA to kA), "—" when absent.
- *
- * @example formatNumber(2.30000001) // "2.3"
- */
-export function formatNumber(x: number | null | undefined): string {
-  if (x === null || x === undefined || !Number.isFinite(x)) return "—";
-  if (x === 0) return "0";
-  const magnitude = Math.abs(x);
-  if (magnitude >= 1e6 || magnitude < 1e-4) return x.toExponential(3);
-  if (magnitude >= 1000) return x.toFixed(0);
-  return String(Number(x.toPrecision(4)));
-}
+/** The one number formatter (lib/compliance/format-number.ts), under the name the renderers use. */
+export { formatNumber };
 
 /** Percent of limit with one decimal, "—" when absent. */
 export function formatPercent(x: number | null | undefined): string {
@@ -108,24 +98,20 @@ export function summariseContext(context: EvaluationContext | Record<string, unk
 
 /**
  * Rows that are not a plain pass/fail, grouped by their reason so ten "above Nyquist" rows read as
- * one line: [[orders], reason].
+ * one line: [[orders], reason]. Below-threshold rows group by their threshold (the sentence
+ * without the row's own value); other rows by their cause, or by the reason stored with results
+ * that predate causes.
  */
 export function groupReasons(rows: ComplianceRow[]): Array<{ orders: number[]; reason: string }> {
   const groups = new Map<string, number[]>();
   for (const row of rows) {
     if (!row.reason || row.verdict === "pass") continue;
-    const reason = generalReason(row.reason);
+    const reason = row.threshold ? thresholdText(row.threshold) : row.cause && !row.rowRules ? causeText(row.cause) : row.reason;
     const list = groups.get(reason) ?? [];
     list.push(row.order);
     groups.set(reason, list);
   }
   return [...groups.entries()].map(([reason, orders]) => ({ orders, reason }));
-}
-
-// Threshold reasons start with the row's own value ("0.0012 A < 0.0627 A, …"); without it the
-// reason is the same for every disregarded order and reads once.
-function generalReason(reason: string): string {
-  return reason.replace(/^-?[\d.]+(?:e[-+]?\d+)?\s*(A|V|%\w*)\s*<\s*/, "below ");
 }
 
 /** "3, 5, 7–11" style list of orders (consecutive odd or all orders collapse into ranges). */

@@ -1,80 +1,48 @@
 // Time-rule wording shared by the sheet, the share page, the PDF and the CSV: which rule decided a
 // verdict, what each rule measures, and what the rules were evaluated on.
 import type { ComplianceAggregate, ComplianceRow, RowRuleResult, TimeBasis, TimeRuleSummary } from "@/lib/compliance/result";
-import { formatNumber } from "./format";
+import { formatNumber, formatPercent } from "./format";
+import { accumulationText, formatMultiplier, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
 
 /** A rule of the revision as the time-rules panel lists it. */
-export interface TimeRuleLine extends TimeRuleSummary {
+export interface TimeRuleLine extends Omit<TimeRuleSummary, "accumulation" | "reason"> {
   /** What the rule takes, e.g. "99th percentile (nearest rank) of 3 s values per 24 h period (worst period)"; "" when unknown. */
   statistic: string;
-  /** The values the statistic is taken over, e.g. "1.5 s smoothed", "3 s", "10 min". */
+  /** The values the statistic is taken over, e.g. "1.5 s smoothed", "3 s", "10 min"; null when unknown. */
   interval: string | null;
-  /** Accumulation period, e.g. "24 h", or "whole record". */
-  accumulation: string | null;
-}
-
-// The evaluator writes the statistic as "<what> of <values> values <over …>" (describeTimeRuleStatistic).
-const STATISTIC_PATTERN = /^(.+?) of (.+?) values(?: (?:per (.+?) period.*|over the observation period))?$/;
-
-/** Pieces of an evaluator statistic text: the kind ("average", "99th percentile"), values and period. */
-export function parseStatistic(statistic: string): { what: string; interval: string; accumulation: string } | null {
-  const m = STATISTIC_PATTERN.exec(statistic.trim());
-  if (!m) return null;
-  return { what: m[1]!.replace(/ \(nearest rank\)$/, ""), interval: m[2]!.replace(/^10\/12-cycle window$/, "window"), accumulation: m[3] ?? "whole record" };
+  /** Accumulation period, e.g. "24 h", or "whole record"; null when unknown. */
+  period: string | null;
+  /** Why the rule was not evaluated, or how its periods covered the record. */
+  note?: string;
 }
 
 /**
- * The channel's time rules with the statistic each one takes (read from the first row result that
- * carries it), for the panel and the PDF. Empty when the revision has no time rules.
+ * The channel's time rules with what each one measures, for the panel and the PDF — from the
+ * summary's typed fields, else (results stored before them) from the first row result that
+ * carries them; the statistic text stored with older results is shown as it is. Empty when the
+ * revision has no time rules.
  *
  * @example timeRuleLines(channel.timeRules, channel.rows, channel.aggregates)[0].interval // "1.5 s smoothed"
  */
 export function timeRuleLines(summaries: TimeRuleSummary[] | undefined, rows: ComplianceRow[], aggregates: ComplianceAggregate[] = []): TimeRuleLine[] {
   if (!summaries) return [];
   const results = [...rows, ...aggregates].flatMap((r) => r.rowRules ?? []);
-  return summaries.map((summary) => {
-    const statistic = results.find((r) => r.rule === summary.rule && r.statistic)?.statistic ?? "";
-    const parsed = parseStatistic(statistic);
-    return { ...summary, statistic, interval: parsed?.interval ?? null, accumulation: parsed?.accumulation ?? null };
+  return summaries.map(({ accumulation: _periods, reason: _reason, ...summary }) => {
+    const first = results.find((r) => r.rule === summary.rule && (r.measures || r.statistic));
+    const measures = summary.measures ?? first?.measures;
+    const statistic = measures ? statisticText(measures) : (first?.statistic ?? "");
+    const note = timeRuleSummaryNote({ status: summary.status, cause: summary.cause, accumulation: _periods, measures: summary.measures, reason: _reason });
+    return {
+      ...summary,
+      statistic,
+      interval: measures ? intervalText(measures) : null,
+      period: measures ? accumulationText(measures) : null,
+      ...(note ? { note } : {}),
+    };
   });
 }
 
-/** "×1.5" — the multiplier as printed next to a limit. */
-export function formatMultiplier(multiplier: number): string {
-  return `×${Number(multiplier.toPrecision(4))}`;
-}
-
-const WHAT_SHORT: Array<[RegExp, (m: RegExpExecArray) => string]> = [
-  [/^average$/, () => "mean"],
-  [/^maximum$/, () => "max"],
-  [/^(\d+(?:\.\d+)?)(?:st|nd|rd|th) percentile$/, (m) => `p${m[1]}`],
-];
-
-/**
- * A short name of a rule for the "decided by" column, built from what the evaluator measured:
- * "mean 1.5 s smoothed", "max 1.5 s smoothed ×1.5", "p99 3 s / 24 h ×2", "capture mean", "threshold".
- *
- * @example shortRuleLabel({ rule: "smoothed-max", statistic: "maximum of 1.5 s smoothed values over the observation period", multiplier: 1.5, label: "…" }) // "max 1.5 s smoothed ×1.5"
- */
-export function shortRuleLabel(rule: Pick<RowRuleResult, "rule" | "statistic" | "multiplier" | "label"> | undefined, id?: string): string {
-  const ruleId = rule?.rule ?? id;
-  if (ruleId === "snapshot") return "capture mean";
-  if (ruleId === "threshold") return "threshold";
-  if (!rule) return ruleId ?? "—";
-  const parsed = parseStatistic(rule.statistic);
-  if (!parsed) return rule.label || rule.rule;
-  let what = parsed.what;
-  for (const [re, short] of WHAT_SHORT) {
-    const m = re.exec(what);
-    if (m) {
-      what = short(m);
-      break;
-    }
-  }
-  const period = parsed.accumulation === "whole record" ? "" : ` / ${parsed.accumulation}`;
-  const times = rule.multiplier === 1 ? "" : ` ${formatMultiplier(rule.multiplier)}`;
-  return `${what} ${parsed.interval}${period}${times}`;
-}
+export { formatMultiplier, shortRuleLabel };
 
 /** The result of the rule that decided a row or aggregate, when it decided by a rule. */
 export function decidingRule(row: Pick<ComplianceRow, "decidedBy" | "rowRules">): RowRuleResult | undefined {
@@ -144,4 +112,53 @@ export function formatRuleLimit(result: Pick<RowRuleResult, "limit" | "tableLimi
   return plain
     ? `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} ${formatMultiplier(result.multiplier)})`
     : `${formatNumber(result.limit)} (${formatNumber(result.tableLimit)} with an allowance)`;
+}
+
+/**
+ * A row's or aggregate's measured value as a percentage of its TABLE limit (before a time rule's
+ * multiplier or an allowance); null where either is unknown.
+ *
+ * @example percentOfTableLimit(h7) // 82.7 — 0.637 A of the 0.77 A table limit, judged against 1.5 × 0.77 A
+ */
+export function percentOfTableLimit(row: Pick<ComplianceRow, "measured" | "limit" | "decidedBy" | "rowRules">): number | null {
+  const table = tableLimitOf(row);
+  if (row.measured === null || table === null || !(table > 0)) return null;
+  return (row.measured / table) * 100;
+}
+
+function overByText(over: number): string {
+  // Enough digits to show the excess that decided the verdict (an at-the-limit fail reads "100.0 %" otherwise).
+  return `over the limit by ${Number(over.toPrecision(2))} %`;
+}
+
+/** Decimals enough for a failing row's percentage to read above the percentage it was allowed. */
+function decimalsToShowExcess(pct: number, allowedPct: number, fails: boolean): number {
+  let digits = 1;
+  while (fails && digits < 8 && Number(pct.toFixed(digits)) <= Number(allowedPct.toFixed(digits))) digits += 1;
+  return digits;
+}
+
+/**
+ * "% of limit" as a reader sees it: against the table limit, with the rule's allowance beside it
+ * where a time rule's multiplier or an allowance applied ("153.9 % of the table limit — rule
+ * allows 150 %"), and — where one decimal would hide why a row failed — the excess in words
+ * ("100.0 % — over the limit by 0.0022 %"). `compact` (narrow PDF cells): the percentage alone,
+ * with as many decimals as it takes to read above the allowed value ("100.0022 %"); the rule's
+ * multiplier is then in the "decided by" column. "—" when unknown.
+ */
+export function formatPercentOfLimit(
+  row: Pick<ComplianceRow, "measured" | "limit" | "percentOfLimit" | "decidedBy" | "rowRules"> & { verdict: string },
+  options: { compact?: boolean } = {},
+): string {
+  const table = tableLimitOf(row);
+  const pct = percentOfTableLimit(row);
+  if (pct === null || table === null || row.limit === null || row.measured === null) return formatPercent(row.percentOfLimit);
+  const allowedPct = (row.limit / table) * 100;
+  const fails = row.verdict === "fail";
+  if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
+  const scaled = Math.abs(allowedPct - 100) > 1e-9;
+  const shown = `${pct.toFixed(1)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : ""}`;
+  if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
+  const over = (row.measured / row.limit - 1) * 100;
+  return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;
 }

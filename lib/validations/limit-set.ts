@@ -1,6 +1,7 @@
 // Bodies of the limit-set editor's requests, shared by the editor forms, the route handlers and
 // the SWR hooks. Revision content itself is LimitSetRevisionContentSchema (lib/compliance/model).
 import { z } from "zod";
+import { formulaValueIssues } from "@/lib/compliance/check-formula-values";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
 import { multiLineText, singleLineText } from "./text";
@@ -21,10 +22,19 @@ export const revisionReasonSchema = multiLineText({ error: "Give a reason for th
   .min(3, "Give a reason for this revision (at least 3 characters)")
   .max(1000, "Reason is too long (max 1000)");
 
+/**
+ * Revision content as it may be saved: the model, plus every limit its formulas give (for each
+ * order they cover) finite and ≥ 0. Checked on save and import only, so a revision stored
+ * before this check still evaluates (its bad values are "not evaluated", never a pass).
+ */
+export const SavableRevisionContentSchema = LimitSetRevisionContentSchema.superRefine((content, ctx) => {
+  for (const issue of formulaValueIssues(content)) ctx.addIssue({ code: "custom", message: issue.message, path: issue.path });
+});
+
 /** PUT /api/limit-sets/[key]: a new revision of the set `key`; the content must keep the set's key. */
 export function reviseLimitSetSchemaFor(key: string) {
   return z.object({
-    content: LimitSetRevisionContentSchema.refine((c) => c.key === key, {
+    content: SavableRevisionContentSchema.refine((c) => c.key === key, {
       message: `key must stay "${key}" (clone the set to make one with a new key)`,
       path: ["key"],
     }),
@@ -43,7 +53,7 @@ export const importLimitSetSchema = z
   .object({
     key: limitSetKeySchema,
     name: limitSetNameSchema,
-    content: LimitSetRevisionContentSchema,
+    content: SavableRevisionContentSchema,
     reason: revisionReasonSchema.optional(),
   })
   .refine((doc) => doc.content.key === doc.key, { message: "content.key must equal key", path: ["content", "key"] });

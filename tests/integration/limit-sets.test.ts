@@ -254,3 +254,50 @@ describe("revisions below the application", () => {
     await expect(sql`update limit_set_revisions set reason = reason where number = 1`).rejects.toThrow(/immutable/);
   });
 });
+
+describe("limit formulas must give usable limits (422, never 500)", () => {
+  type Errors = { error: { fieldErrors: Record<string, string[]> } };
+
+  it("refuses 1/0, 0/0 and -1 on save, naming the order and the value, and saves nothing", async () => {
+    const { limitSet, revision } = await cloneClassA("nonfinite");
+    // Row 7 is the odd 15–39 formula row (IEC 61000-3-2 Table 1: 0.15 × 15/n), first order 15.
+    for (const [formula, value] of [["1/0", "Infinity"], ["0/0", "NaN"], ["-1", "-1"]] as const) {
+      const content = structuredClone(revision.content);
+      content.bands[0]!.orderRows[6]!.formula = formula;
+      const res = await admin.request("PUT", `/api/limit-sets/${limitSet.key}`, { content, reason: "bad value" });
+      expect(res.status).toBe(422);
+      const { error } = await json<Errors>(res);
+      expect(error.fieldErrors["content.bands.0.orderRows.6.formula"]).toEqual([
+        `Band 'Class A', row 7: formula: order 15: formula "${formula}" gives ${value}; a limit must be a finite number ≥ 0`,
+      ]);
+    }
+    const now = await json<Detail>(await admin.request("GET", `/api/limit-sets/${limitSet.key}`));
+    expect(now.limitSet.currentRevisionNumber).toBe(1);
+  });
+
+  it("answers 422 for 10,000 nested parentheses and 100,000 unary minus (a stack overflow gave 500)", async () => {
+    const { limitSet, revision } = await cloneClassA("nested");
+    for (const formula of [`${"(".repeat(10_000)}1${")".repeat(10_000)}`, `${"-".repeat(100_000)}1`, `${"(".repeat(100)}1${")".repeat(100)}`]) {
+      const content = structuredClone(revision.content);
+      content.bands[0]!.orderRows[6]!.formula = formula;
+      const res = await admin.request("PUT", `/api/limit-sets/${limitSet.key}`, { content, reason: "hostile formula" });
+      expect(res.status).toBe(422);
+      const message = (await json<Errors>(res)).error.fieldErrors["content.bands.0.orderRows.6.formula"]?.[0] ?? "";
+      expect(message).toMatch(/longer than 2000 characters|nested more than 64 levels deep/);
+      expect(message.length).toBeLessThan(400);
+    }
+  });
+
+  it("import refuses a formula whose value is not finite with the same message", async () => {
+    const { revision } = await cloneClassA("importnan");
+    const key = unique("import-nan");
+    const content = { ...structuredClone(revision.content), key };
+    content.bands[0]!.orderRows[6]!.formula = "0/0";
+    const res = await admin.request("POST", "/api/limit-sets/import", { key, name: "Broken import", content });
+    expect(res.status).toBe(422);
+    expect(Object.values((await json<Errors>(res)).error.fieldErrors).flat()).toContain(
+      `Band 'Class A', row 7: formula: order 15: formula "0/0" gives NaN; a limit must be a finite number ≥ 0`,
+    );
+    expect((await admin.request("GET", `/api/limit-sets/${key}`)).status).toBe(404);
+  });
+});

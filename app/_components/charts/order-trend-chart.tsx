@@ -7,6 +7,7 @@ import type { ComplianceRow } from "@/lib/compliance/result";
 import type { DecimatedSeries } from "@/lib/reports/decimate-series";
 import { formatMultiplier, tableLimitOf } from "@/lib/reports/time-rules";
 import { axisStyle, UPlotChart } from "./uplot-chart";
+import { formatNumber } from "@/lib/reports/format";
 
 /**
  * Window values (channel unit) in the row's unit, value by value as the evaluator does: % of I1
@@ -60,7 +61,7 @@ export function OrderTrendChart({
     const times = values.map((_, i) => i * step + windowDurationS / 2);
     const tableLimit = tableLimitOf(row);
     const multipliers = [...new Set((row.rowRules ?? []).map((r) => r.multiplier).filter((m) => m !== 1))].sort((a, b) => a - b);
-    const fmt = (v: number | null | undefined) => (v == null ? "—" : `${Number(v.toPrecision(4))} ${row.unit}`);
+    const fmt = (v: number | null | undefined) => (v == null ? "—" : `${formatNumber(v)} ${row.unit}`);
     const many = values.length >= 40;
     const uSeries: uPlot.Series[] = [
       { label: "t (s)", value: (_u, v) => (v == null ? "—" : v.toFixed(2)) },

@@ -16,8 +16,25 @@ function limitInChannelUnit(row: ComplianceRow, rms: number | null, fundamentalR
   if (row.limit === null) return null;
   if (row.unit === "A" || row.unit === "V") return row.limit;
   if (row.unit === "%I1" || row.unit === "%V1") return (row.limit / 100) * fundamentalRms;
-  if (row.measured !== null && row.measured > 0 && rms !== null && rms > 0) return row.limit * (rms / row.measured);
+  // The ratio holds only while the row's measured value is the capture mean (rms).
+  if (!decidedByTimeRule(row) && row.measured !== null && row.measured > 0 && rms !== null && rms > 0) return row.limit * (rms / row.measured);
   return null;
+}
+
+function decidedByTimeRule(row: ComplianceRow): boolean {
+  return row.decidedBy !== undefined && row.decidedBy !== "snapshot" && row.decidedBy !== "threshold";
+}
+
+/**
+ * The bar: the value the verdict compared (issue 11: value shown = value judged) — a time rule's
+ * statistic where one decided, else the capture mean. Bases other than A, V, %I1 and %V1 keep
+ * the capture mean (their scale to amperes is not known here).
+ */
+function judgedInChannelUnit(row: ComplianceRow | undefined, rms: number | null, fundamentalRms: number): number | null {
+  if (!row || !decidedByTimeRule(row) || row.measured === null) return rms;
+  if (row.unit === "A" || row.unit === "V") return row.measured;
+  if (row.unit === "%I1" || row.unit === "%V1") return (row.measured / 100) * fundamentalRms;
+  return rms;
 }
 
 /** Draws each limit as a short horizontal mark across its order's slot. */
@@ -54,7 +71,7 @@ export function SpectrumChart({ channel, rows, mode }: { channel: ChartDataDto["
     const limits: (number | null)[] = [];
     for (const h of harmonics) {
       const row = byOrder.get(h.order);
-      const value = toMode(h.rms);
+      const value = toMode(judgedInChannelUnit(row, h.rms, fundamental));
       const failing = row?.verdict === "fail";
       within.push(failing ? null : value);
       over.push(failing ? value : null);

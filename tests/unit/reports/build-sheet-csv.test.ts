@@ -10,7 +10,8 @@ const csv = buildSheetCsv(sheet);
 const lines = csv.trimEnd().split("\r\n");
 const HEADER = "channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason";
 const headerAt = lines.indexOf(HEADER);
-const rows = lines.slice(headerAt + 1).map((l) => l.split(","));
+const orderLines = lines.slice(headerAt + 1, lines.indexOf("", headerAt));
+const rows = orderLines.map((l) => l.split(","));
 
 describe("sheet CSV", () => {
   test("header block names the capture, limit set and revision", () => {
@@ -51,7 +52,7 @@ describe("sheet CSV", () => {
       "I (A)": { 3: Array(10).fill(2.5), 7: [...Array(9).fill(0.3), 3.0] },
     });
     const text = buildSheetCsv(timed).trimEnd().split("\r\n");
-    const body = text.slice(text.indexOf(HEADER) + 1).map((l) => l.split(","));
+    const body = text.slice(text.indexOf(HEADER) + 1, text.indexOf("", text.indexOf(HEADER))).map((l) => l.split(","));
     const h3 = body.find((r) => r[1] === "3")!;
     expect(h3[7]).toBe("fail");
     expect(h3.slice(8, 11)).toEqual(["smoothed-average", "mean 1.5 s smoothed", "2.3"]);
@@ -60,6 +61,8 @@ describe("sheet CSV", () => {
     expect(h7[8]).toBe("smoothed-max");
     expect(h7[9]).toBe("max 1.5 s smoothed ×1.5");
     expect(Number(h7[3])).toBeCloseTo(1.155, 9);
+    // % of the TABLE limit: 0.637 / 0.77 = 82.7 %, not 0.637 / 1.155 = 55 % (the multiplier is in the label).
+    expect(Number(h7[5])).toBeCloseTo((Number(h7[2]) / 0.77) * 100, 6);
     expect(Number(h7[10])).toBeCloseTo(0.77, 9);
     expect(Number(h7[2])).toBeCloseTo(0.637, 3);
     expect(text).toContain("Time basis: coverage,every time rule applied; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit");
@@ -70,6 +73,16 @@ describe("sheet CSV", () => {
     const raw = lines.slice(headerAt + 1).find((l) => l.startsWith("I (A),9,"))!;
     expect(raw).toContain("below-threshold");
     expect(raw).toMatch(/,"[^"]*disregarded[^"]*"$/);
+  });
+
+  test("the aggregates follow with their verdicts and the deciding rule in words (POHC of Table 1, h21–h39)", () => {
+    const start = lines.indexOf("channel,aggregate,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason");
+    expect(start).toBeGreaterThan(headerAt);
+    const aggregates = lines.slice(start + 1).map((l) => l.split(","));
+    const pohc = aggregates.find((a) => a[1]?.startsWith("POHC"))!;
+    expect(pohc[0]).toBe("I (A)");
+    expect(pohc[7]).toBe("pass"); // no orders 21–39 measured: 0 A ≤ 0.2514 A
+    expect(pohc[9]).toBe("capture mean");
   });
 
   test("refuses a sheet without an evaluation", () => {

@@ -26,7 +26,7 @@ describe("sheet PDF", () => {
     expect(text).toContain("Decided by");
     // Without per-window series the smoothed rules cannot be applied; the PDF says why.
     expect(text).toContain("Time rules");
-    expect(text).toMatch(/NOT EVALUATED: the analysis has no per-window order series/);
+    expect(text).toMatch(/NOT EVALUATED: the\s+analysis\s+has\s+no\s+per-window\s+order\s+series/);
     expect(text).toContain("Below threshold");
     expect(text).toContain("qualified engineer");
     expect(text).toContain("Approved by Teodor Vance");
@@ -41,7 +41,9 @@ describe("sheet PDF", () => {
     const lines = pdfText(await buildSheetPdf(timed, { compress: false })).split("\n");
     const h7 = lines.indexOf("h7");
     // 0.637 A smoothed peak against 1.5 × 0.77 A = 1.155 A (hand calculation, α = 8.011).
-    expect(lines.slice(h7, h7 + 9)).toEqual(["h7", "0.637", "1.155", "0.77", "A", "55.2 %", "+0.518", "Pass", "max 1.5 s smoothed ×1.5"]);
+    expect(lines.slice(h7, h7 + 5)).toEqual(["h7", "0.637", "1.155", "0.77", "A"]);
+    // % of the TABLE limit: 0.637 / 0.77 = 82.7 % (not 0.637 / 1.155 = 55.2 %), the rule's 150 % beside it (issue 11 §2).
+    expect(lines.slice(h7 + 5, h7 + 9)).toEqual(["82.7 %", "+0.518", "Pass", "max 1.5 s smoothed ×1.5"]);
     const h3 = lines.indexOf("h3");
     expect(lines[h3 + 8]).toBe("mean 1.5 s smoothed");
     expect(lines.join("\n")).toContain("applied over 10 values");
@@ -72,5 +74,22 @@ describe("sheet PDF", () => {
     expect(text).toContain("Isc/IL");
     expect(text).toContain("31.5");
     expect(text).not.toMatch(/[λ≤]/);
+  });
+});
+
+describe("sheet PDF: declared and measured power (IEC 61000-3-2 Class D, Table 3)", () => {
+  test("page 1 lists declared, measured and used power with the reason", async () => {
+    const sheet = makeSheet(
+      "iec-61000-3-2-class-d",
+      {
+        channels: [{ name: "I", fundamentalRms: 1.3, harmonics: { 3: 1.5 } }],
+        power: { phases: [{ voltage: "U", current: "I", activePowerW: 300, apparentPowerVA: 300, displacementFactor: 1, distortionFactor: 1, truePowerFactor: 1 }], total: null },
+      },
+      { ratedPowerW: 600 },
+    );
+    const text = pdfText(await buildSheetPdf(sheet, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") })).replace(/\s+/g, " ");
+    expect(text).toContain("Declared power 600 W");
+    expect(text).toContain("Measured active power 300 W");
+    expect(text).toContain("the limits use the measured 300 W");
   });
 });

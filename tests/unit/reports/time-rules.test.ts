@@ -1,25 +1,34 @@
 import { describe, expect, test } from "vitest";
 import { decimateSeries } from "@/lib/reports/decimate-series";
-import { decidedByLabel, describeTimeBasis, formatRuleLimit, parseStatistic, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
+import type { RuleStatistic } from "@/lib/compliance/result";
+import { causeText, statisticText } from "@/lib/reports/result-wording";
+import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, formatRuleLimit, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
 import { makeSheet } from "./make-sheet";
 
 describe("time-rule wording", () => {
-  test.each([
-    // Statistic texts as the evaluator writes them (describeTimeRuleStatistic).
-    ["average of 1.5 s smoothed values over the observation period", 1, "mean 1.5 s smoothed"],
-    ["maximum of 1.5 s smoothed values over the observation period", 1.5, "max 1.5 s smoothed ×1.5"],
-    ["99th percentile (nearest rank) of 3 s values per 24 h period (worst period)", 2, "p99 3 s / 24 h ×2"],
-    ["95th percentile (nearest rank) of 10 min values per 7 days period (worst period)", 1, "p95 10 min / 7 days"],
-    ["average of 10/12-cycle window values over the observation period", 1, "mean window"],
-  ])("%s ×%d → %s", (statistic, multiplier, expected) => {
-    expect(shortRuleLabel({ rule: "r", statistic, multiplier, label: "Rule" })).toBe(expected);
+  // Rules as the seed sets define them (IEC 61000-3-2 clause 6.2 smoothing, 150 %; IEEE 519-2014
+  // §5.2 daily p99 of 3 s values ×2 for currents, weekly p95 of 10 min values).
+  test.each<[RuleStatistic, number, string, string]>([
+    [{ kind: "mean", intervalS: 1.5 }, 1, "mean 1.5 s smoothed", "average of 1.5 s smoothed values over the observation period"],
+    [{ kind: "max", intervalS: 1.5 }, 1.5, "max 1.5 s smoothed ×1.5", "maximum of 1.5 s smoothed values over the observation period"],
+    [{ kind: "percentile", percentile: 99, intervalS: 3, accumulationS: 86_400 }, 2, "p99 3 s / 24 h ×2", "99th percentile (nearest rank) of 3 s values per 24 h period (worst period)"],
+    [{ kind: "percentile", percentile: 95, intervalS: 600, accumulationS: 604_800 }, 1, "p95 10 min / 7 days", "95th percentile (nearest rank) of 10 min values per 7 days period (worst period)"],
+    [{ kind: "mean", intervalS: 0 }, 1, "mean window", "average of 10/12-cycle window values over the observation period"],
+  ])("%o ×%d → %s", (measures, multiplier, short, long) => {
+    expect(shortRuleLabel({ rule: "r", measures, multiplier, label: "Rule" })).toBe(short);
+    expect(statisticText(measures)).toBe(long);
   });
 
-  test("snapshot and threshold deciders have fixed names; an unknown statistic falls back to the label", () => {
+  test("capture mean and threshold deciders have fixed names; a result stored without typed fields shows its label", () => {
     expect(shortRuleLabel(undefined, "snapshot")).toBe("capture mean");
     expect(shortRuleLabel(undefined, "threshold")).toBe("threshold");
-    expect(shortRuleLabel({ rule: "x", statistic: "", multiplier: 1, label: "Custom rule" })).toBe("Custom rule");
-    expect(parseStatistic("99th percentile (nearest rank) of 3 s values per 24 h period (worst period)")).toEqual({ what: "99th percentile", interval: "3 s", accumulation: "24 h" });
+    expect(shortRuleLabel({ rule: "x", multiplier: 1, label: "Custom rule" })).toBe("Custom rule");
+  });
+
+  test("not-evaluated causes read as sentences with their numbers", () => {
+    expect(causeText({ code: "record-too-short", minimumS: 600, durationS: 120 })).toBe("needs at least 10 min of record; the record has 2 min");
+    expect(causeText({ code: "missing-input", input: "ilA" })).toBe("ilA (maximum demand load current at the PCC) not given");
+    expect(causeText({ code: "above-nyquist", maxResolvableOrder: 25 })).toBe("above Nyquist (highest resolvable order 25)");
   });
 
   test("a limit shows its table limit and multiplier, or the allowance that raised it", () => {
@@ -27,6 +36,22 @@ describe("time-rule wording", () => {
     expect(formatRuleLimit({ limit: 2.3, tableLimit: 2.3, multiplier: 1 })).toBe("2.3");
     // POHC allowance: 1.5 × the limit for odd 21–39 (IEC 61000-3-2 clause 6.2, from memory).
     expect(formatRuleLimit({ limit: 0.1607, tableLimit: 0.1071, multiplier: 1 })).toBe("0.1607 (0.1071 with an allowance)");
+  });
+});
+
+describe("% of limit: against the table limit, with enough digits to explain the verdict", () => {
+  test("at the limit but failing: 0.450008855 A against 0.45 A reads 'over the limit by 0.002 %' (arithmetic: 8.855e-6 / 0.45 = 0.00197 %)", () => {
+    const row = { measured: 0.450008855, limit: 0.45, percentOfLimit: (0.450008855 / 0.45) * 100, verdict: "fail" };
+    expect(formatPercentOfLimit(row)).toBe("100.0 % — over the limit by 0.002 %");
+    expect(formatPercentOfLimit(row, { compact: true })).toBe("100.002 %");
+    expect(formatPercentOfLimit({ ...row, measured: 0.45, percentOfLimit: 100, verdict: "pass" })).toBe("100.0 %");
+  });
+
+  test("a rule with a multiplier: 3.54 A smoothed maximum against 1.5 × 2.3 A (IEC 61000-3-2 Table 1 h3, clause 6.2) reads 153.9 % of the table limit — rule allows 150 %", () => {
+    const rule = { rule: "smoothed-max", label: "max", measured: 3.54, limit: 3.45, tableLimit: 2.3, multiplier: 1.5, unit: "A", percentOfLimit: (3.54 / 3.45) * 100, verdict: "fail" as const };
+    const row = { measured: 3.54, limit: 3.45, percentOfLimit: rule.percentOfLimit, verdict: "fail", decidedBy: "smoothed-max", rowRules: [rule] };
+    expect(formatPercentOfLimit(row)).toBe("153.9 % of the table limit — rule allows 150 %");
+    expect(formatPercentOfLimit(row, { compact: true })).toBe("153.9 %");
   });
 });
 
@@ -47,7 +72,7 @@ describe("rows decided by time rules (IEC 61000-3-2 Class A Table 1, clause 6.2)
 
   test("the panel lines carry the statistic, values and accumulation of each rule", () => {
     const lines = timeRuleLines(result.timeRules, result.rows, result.aggregates);
-    expect(lines.map((l) => [l.rule, l.status, l.interval, l.accumulation, l.valueCount])).toEqual([
+    expect(lines.map((l) => [l.rule, l.status, l.interval, l.period, l.valueCount])).toEqual([
       ["smoothed-average", "applied", "1.5 s smoothed", "whole record", 10],
       ["smoothed-max", "applied", "1.5 s smoothed", "whole record", 10],
     ]);

@@ -215,7 +215,8 @@ describe("records too short for a rule → not-evaluated with the minimum durati
     const result = run("iec-61000-3-2-class-a", analysis);
     expect(row(result, 3)).toMatchObject({ verdict: "fail", decidedBy: "snapshot" });
     expect(result.timeBasis).toMatchObject({ source: "none", coverage: "none" });
-    expect(result.timeRules?.[0]?.reason).toContain("includeOrderSeries");
+    expect(result.timeRules?.[0]).toMatchObject({ status: "not-evaluated", cause: { code: "no-order-series" } });
+    expect(result.timeRules?.[0]?.reason).toContain("no per-window order series");
   });
 });
 

@@ -1,7 +1,7 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceAggregate } from "@/lib/compliance/result";
-import { formatNumber, formatPercent } from "@/lib/reports/format";
-import { decidedByLabel, tableLimitIfDifferent } from "@/lib/reports/time-rules";
+import { formatNumber } from "@/lib/reports/format";
+import { decidedByLabel, formatPercentOfLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 /** THD, TDD, THC… of one channel, each with measured, limit, % of limit and verdict. */
 export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate[] }) {
@@ -21,7 +21,7 @@ export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate
             {formatNumber(a.measured)} <span className="text-sm font-normal text-ink-muted">{a.unit}</span>
           </p>
           <p className="text-sm text-ink-soft tabular-nums">
-            limit {formatNumber(a.limit)} {a.unit} · {formatPercent(a.percentOfLimit)} of limit
+            limit {formatNumber(a.limit)} {a.unit} · % of limit: {formatPercentOfLimit(a)}
           </p>
           {a.decidedBy && (
             <p className="mt-1 text-xs text-ink-soft" data-testid={`aggregate-${a.name}-decided-by`}>

@@ -4,7 +4,8 @@ import { Fragment, useMemo, useState } from "react";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { formatMargin, formatNumber, formatPercent } from "@/lib/reports/format";
-import { decidedByLabel, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
+import { ruleStatisticText } from "@/lib/reports/result-wording";
+import { decidedByLabel, formatPercentOfLimit, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 type SortKey = "order" | "measured" | "limit" | "percentOfLimit" | "margin" | "verdict";
 type Column = { key: SortKey | null; label: string; numeric?: boolean; rules?: boolean };
@@ -124,7 +125,7 @@ export function OrderTable({ rows, channelName }: { rows: ComplianceRow[]; chann
                       )}
                     </td>
                     <td className="text-ink-soft">{r.unit}</td>
-                    <td className={`whitespace-nowrap text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercent(r.percentOfLimit)}</td>
+                    <td className={`min-w-[5.5rem] text-right ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : ""}`}>{formatPercentOfLimit(r)}</td>
                     <td className="text-right">{formatMargin(r.margin)}</td>
                     <td>
                       <VerdictBadge verdict={r.verdict} />
@@ -201,7 +202,7 @@ function RuleResults({ row }: { row: ComplianceRow }) {
               {result.rule === row.decidedBy && <span className="text-copper">decides</span>}
             </div>
             <div className="mt-0.5 grid gap-x-4 text-ink-soft sm:grid-cols-[minmax(0,2fr)_repeat(3,minmax(0,1fr))]">
-              <span>{result.statistic || "—"}</span>
+              <span>{ruleStatisticText(result) || "—"}</span>
               <span>measured {formatNumber(result.measured)} {result.unit}</span>
               <span>limit {formatRuleLimit(result)} {result.unit}</span>
               <span>{formatPercent(result.percentOfLimit)} of limit</span>

@@ -8,7 +8,8 @@ import { TrendChart } from "@/app/_components/charts/trend-chart";
 import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
-import { formatOrders, groupReasons } from "@/lib/reports/format";
+import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
+import { powerChoiceRows } from "@/lib/reports/result-wording";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -58,6 +59,16 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
         <p className="text-sm text-ink-soft" data-testid="channel-band">
           Band for {channel.channel}: <strong>{channel.band.label ?? "none chosen"}</strong> — {channel.band.reason}
         </p>
+      )}
+      {channel.power && (
+        <dl className="grid gap-x-6 gap-y-1 text-sm text-ink-soft sm:grid-cols-3" data-testid="power-choice" data-rule={channel.power.rule}>
+          {powerChoiceRows(channel.power).map(([k, v]) => (
+            <div key={k} className={k === "Power used for the limits" ? "sm:col-span-3" : undefined}>
+              <dt className="inline text-ink-muted">{k}: </dt>
+              <dd className="inline">{v}</dd>
+            </div>
+          ))}
+        </dl>
       )}
       {channel.derived.notes.length > 0 && (
         <ul className="list-disc pl-5 text-sm text-ink-soft">
@@ -193,7 +204,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
               >
                 {trendRows.map((r) => (
                   <option key={r.order} value={r.order}>
-                    h{r.order} · {r.verdict === "fail" ? "fail" : r.verdict === "pass" ? "pass" : r.verdict.replace("-", " ")}
+                    h{r.order} · {verdictLabel(r.verdict).toLowerCase()}
                   </option>
                 ))}
               </select>

@@ -42,7 +42,7 @@ export function TimeRulesPanel({ rules, basis, channelName }: { rules: TimeRuleL
               {rule.statistic ? `${rule.statistic.charAt(0).toUpperCase()}${rule.statistic.slice(1)}` : rule.rule}
               {" · "}limit {formatMultiplier(rule.multiplier)}
               {rule.interval && <> · values: {rule.interval}</>}
-              {rule.accumulation && <> · accumulated over: {rule.accumulation}</>}
+              {rule.period && <> · accumulated over: {rule.period}</>}
             </p>
             {rule.status === "applied" ? (
               <p className="text-xs text-ink-muted">
@@ -50,10 +50,10 @@ export function TimeRulesPanel({ rules, basis, channelName }: { rules: TimeRuleL
                 {rule.periodCount > 0 ? ` in ${rule.periodCount} period${rule.periodCount === 1 ? "" : "s"}` : ""}
                 {" · "}
                 {rule.failures === 0 ? "no order or aggregate over this rule's limit" : `${rule.failures} over this rule's limit`}
-                {rule.reason ? ` · ${rule.reason}` : ""}
+                {rule.note ? ` · ${rule.note}` : ""}
               </p>
             ) : (
-              <p className="text-xs text-caution" data-testid="time-rule-reason">Not evaluated: {rule.reason ?? "no reason given"}</p>
+              <p className="text-xs text-caution" data-testid="time-rule-reason">Not evaluated: {rule.note ?? "no reason given"}</p>
             )}
           </li>
         ))}

@@ -1,0 +1,232 @@
+// The one place where an evaluation's typed fields become words: not-evaluated causes, what a
+// time rule measures, its short name, accumulation notes and the threshold sentence. The
+// evaluator (for its `reason` texts and the CLI), the sheet, the share page, the PDF and the
+// CSV all call these; nothing parses the words back. Relative imports: the evaluator and the
+// CLI import this file too.
+import { formatNumber } from "../compliance/format-number";
+import type { ContextInput, NotEvaluatedCause, PowerChoice, RowRuleResult, RuleAccumulation, RuleStatistic, ThresholdApplied, TimeRuleSummary } from "../compliance/result";
+
+type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
+
+/** "600 s" → "10 min", 86400 → "24 h", 604800 → "7 days", 2.04 → "2.04 s". */
+export function formatDurationS(seconds: number): string {
+  if (seconds >= 86_400 && Number.isInteger(seconds / 86_400)) return seconds / 86_400 === 7 ? "7 days" : `${seconds / 3600} h`;
+  if (seconds >= 3600) {
+    const h = Math.floor(seconds / 3600);
+    const min = Math.round((seconds - h * 3600) / 60);
+    return min === 0 ? `${h} h` : `${h} h ${min} min`;
+  }
+  if (seconds >= 60) {
+    const min = Math.floor(seconds / 60);
+    const s = Math.round(seconds - min * 60);
+    return s === 0 ? `${min} min` : `${min} min ${s} s`;
+  }
+  return `${Number(seconds.toPrecision(3))} s`;
+}
+
+/** What the user must give for each context input. */
+export const INPUT_NEEDS: Record<ContextInput, string> = {
+  h: "h (harmonic order)",
+  ratedPowerW: "ratedPowerW (rated power, W)",
+  lambda: "lambda (circuit power factor)",
+  ilA: "ilA (maximum demand load current at the PCC)",
+  irefA: "irefA (reference current)",
+  nominalVoltageV: "nominalVoltageV (nominal voltage of the measured channel)",
+  fundamental: "a non-zero measured fundamental",
+  "ampere-order-limits": "ampere limits for every order (fromOrderLimits)",
+};
+
+const VALUES_NAME: Record<IntervalS, string> = {
+  0: "10/12-cycle window values",
+  1.5: "1.5 s smoothed values",
+  3: "3 s values",
+  600: "10 min values",
+};
+
+const INTERVAL_SHORT: Record<IntervalS, string> = { 0: "window", 1.5: "1.5 s smoothed", 3: "3 s", 600: "10 min" };
+const INTERVAL_ONE: Record<IntervalS, string> = { 0: "10/12-cycle window", 1.5: "1.5 s smoothed", 3: "3 s", 600: "10 min" };
+
+function recordWords(record: "analysis" | "interval-log"): string {
+  return record === "interval-log" ? "the interval log" : "the analysis";
+}
+
+/**
+ * A not-evaluated cause in words (without a "not evaluated:" prefix).
+ *
+ * @example causeText({ code: "record-too-short", minimumS: 600, durationS: 120 }) // "needs at least 10 min of record; the record has 2 min"
+ */
+export function causeText(cause: NotEvaluatedCause): string {
+  switch (cause.code) {
+    case "missing-input":
+      return `${INPUT_NEEDS[cause.input]} not given`;
+    case "above-nyquist":
+      return `above Nyquist (highest resolvable order ${cause.maxResolvableOrder})`;
+    case "not-analysed":
+      return `not in the analysis (orders analysed up to ${cause.analysedUpTo})`;
+    case "not-in-record":
+      return `not in ${recordWords(cause.record)}`;
+    case "partial-sum":
+      return partialSumText(cause.unavailableOrders, cause.record, false);
+    case "no-band":
+      return cause.detail;
+    case "no-order-series":
+      return "the analysis has no per-window order series (analyse the capture again to apply the time rules); the capture r.m.s. mean is compared instead";
+    case "no-logged-rows":
+      return "the interval log has no rows";
+    case "record-too-short":
+      return `needs at least ${formatDurationS(cause.minimumS)} of record; the record has ${formatDurationS(cause.durationS)}`;
+    case "no-complete-interval":
+      return `no complete ${INTERVAL_ONE[cause.intervalS]} interval (${cause.clockAligned ? "aligned to the clock" : "from the record start"}) in ${formatDurationS(cause.durationS)} of record`;
+    case "needs-other-values": {
+      const logged = `the interval log holds ${formatDurationS(cause.loggedValueS)} values`;
+      if (cause.intervalS === 0 || cause.intervalS === 1.5) return `needs 10/12-cycle window values${cause.intervalS === 1.5 ? " (for the 1.5 s smoothing)" : ""}; ${logged}`;
+      if (cause.intervalS === 3) return `needs 3 s (150/180-cycle) values; ${logged}`;
+      return `needs 10-minute values (or shorter values that divide 10 min); ${logged}`;
+    }
+    case "no-limit":
+      return "no limit for this row";
+    case "no-applicable-row":
+      return "no rows or aggregates it applies to";
+    case "allowance-unchecked":
+      return `the ${cause.aggregate} allowance could not be checked`;
+    case "non-finite":
+      return cause.quantity === "measured" ? "the measured value is not a finite number (overflow or a bad input value)" : "the limit is not a finite number (check the limit formula)";
+  }
+}
+
+/** An aggregate summed without some orders: the partial value either already fails or cannot show compliance. */
+export function partialSumText(unavailableOrders: number[], record: "analysis" | "interval-log", alreadyFails: boolean): string {
+  const gap = `orders ${describeOrders(unavailableOrders)} unavailable (above Nyquist or ${record === "analysis" ? "not analysed" : `not in ${recordWords(record)}`})`;
+  return `${gap}; the partial value ${alreadyFails ? "already exceeds the limit" : "cannot show compliance"}`;
+}
+
+/** "not evaluated: " + the cause. */
+export function notEvaluatedText(cause: NotEvaluatedCause): string {
+  return `not evaluated: ${causeText(cause)}`;
+}
+
+/** "3, 5, 7" or "21–39 (10 orders)". */
+export function describeOrders(orders: number[]): string {
+  if (orders.length <= 3) return orders.join(", ");
+  return `${orders[0]}–${orders[orders.length - 1]} (${orders.length} orders)`;
+}
+
+function ordinal(p: number): string {
+  const n = Math.round(p);
+  if (n !== p) return `${p}th`;
+  const tens = n % 100;
+  if (tens >= 11 && tens <= 13) return `${n}th`;
+  return `${n}${["th", "st", "nd", "rd"][n % 10] ?? "th"}`;
+}
+
+/**
+ * What a rule measures, e.g. "99th percentile (nearest rank) of 3 s values per 24 h period (worst period)".
+ *
+ * @example statisticText({ kind: "max", intervalS: 1.5 }) // "maximum of 1.5 s smoothed values over the observation period"
+ */
+export function statisticText(measures: RuleStatistic): string {
+  if (measures.kind === "capture-mean") return `r.m.s. mean over the capture's ${measures.windowCount ?? 0} window(s)`;
+  const what = measures.kind === "mean" ? "average" : measures.kind === "max" ? "maximum" : `${ordinal(measures.percentile ?? 0)} percentile (nearest rank)`;
+  const over = measures.accumulationS === undefined ? " over the observation period" : ` per ${formatDurationS(measures.accumulationS)} period (worst period)`;
+  return `${what} of ${VALUES_NAME[measures.intervalS ?? 0]}${over}`;
+}
+
+/** A rule result's statistic in words: from its typed fields, else the text stored with it. */
+export function ruleStatisticText(result: Pick<RowRuleResult, "measures" | "statistic">): string {
+  return result.measures ? statisticText(result.measures) : (result.statistic ?? "");
+}
+
+/** "window", "1.5 s smoothed", "3 s", "10 min"; null for the capture mean. */
+export function intervalText(measures: RuleStatistic): string | null {
+  return measures.intervalS === undefined ? null : INTERVAL_SHORT[measures.intervalS];
+}
+
+/** "24 h" or "whole record". */
+export function accumulationText(measures: RuleStatistic): string {
+  return measures.accumulationS === undefined ? "whole record" : formatDurationS(measures.accumulationS);
+}
+
+/** "×1.5" — the multiplier as printed next to a limit. */
+export function formatMultiplier(multiplier: number): string {
+  return `×${Number(multiplier.toPrecision(4))}`;
+}
+
+/**
+ * A short name of a rule for the "decided by" column: "mean 1.5 s smoothed",
+ * "max 1.5 s smoothed ×1.5", "p99 3 s / 24 h ×2", "capture mean", "threshold". Results stored
+ * before rules carried `measures` show the rule's label.
+ */
+export function shortRuleLabel(rule: Pick<RowRuleResult, "rule" | "measures" | "multiplier" | "label"> | undefined, id?: string): string {
+  const ruleId = rule?.rule ?? id;
+  if (ruleId === "snapshot" || rule?.measures?.kind === "capture-mean") return "capture mean";
+  if (ruleId === "threshold") return "threshold";
+  if (!rule) return ruleId ?? "—";
+  const m = rule.measures;
+  if (!m) return rule.label || rule.rule;
+  const what = m.kind === "mean" ? "mean" : m.kind === "max" ? "max" : `p${m.percentile ?? ""}`;
+  const period = m.accumulationS === undefined ? "" : ` / ${formatDurationS(m.accumulationS)}`;
+  const times = rule.multiplier === 1 ? "" : ` ${formatMultiplier(rule.multiplier)}`;
+  return `${what} ${intervalText(m) ?? ""}${period}${times}`;
+}
+
+/** How a rule's accumulation periods covered the record, or undefined when there is nothing to say. */
+export function accumulationNote(accumulation: RuleAccumulation | undefined): string | undefined {
+  if (!accumulation) return undefined;
+  const { periodS, availableS, periodCount, valueCount } = accumulation;
+  if (availableS < periodS * (1 - 1e-9)) {
+    return `the standard accumulates over ${formatDurationS(periodS)}; evaluated over the available ${formatDurationS(availableS)} (${valueCount} values)`;
+  }
+  if (periodCount > 1) return `worst of ${periodCount} consecutive ${formatDurationS(periodS)} periods from the record start`;
+  return undefined;
+}
+
+/** A rule summary's note: why not evaluated, or how the periods covered the record (stored text for older results). */
+export function timeRuleSummaryNote(summary: Pick<TimeRuleSummary, "status" | "cause" | "accumulation" | "measures" | "reason">): string | undefined {
+  if (summary.status === "not-evaluated") return summary.cause ? causeText(summary.cause) : summary.reason;
+  if (summary.accumulation) return accumulationNote(summary.accumulation);
+  return summary.measures ? undefined : summary.reason;
+}
+
+/**
+ * The threshold sentence of a below-threshold row; with `measuredA` it starts with the row's own
+ * value, without it the sentence is the same for every disregarded order.
+ */
+export function thresholdText(threshold: ThresholdApplied, measuredA?: number): string {
+  const fromInputA = (threshold.percentOfInputCurrent / 100) * threshold.inputCurrentA;
+  const start = measuredA === undefined ? `below ${formatNumber(threshold.thresholdA)} A` : `${formatNumber(measuredA)} A < ${formatNumber(threshold.thresholdA)} A`;
+  return `${start}, the greater of ${threshold.percentOfInputCurrent} % of the input current ${formatNumber(threshold.inputCurrentA)} A (${formatNumber(fromInputA)} A) and ${formatNumber(threshold.minimumA)} A — disregarded`;
+}
+
+function watts(x: number | null): string {
+  return x === null ? "—" : `${formatNumber(x)} W`;
+}
+
+/**
+ * Why the limits used the power they used (IEC 61000-3-2 Class C/D), e.g. "declared 600 W
+ * differs from the measured 300 W by +100 % (more than ±10 %): the limits use the measured 300 W".
+ */
+export function powerChoiceText(power: PowerChoice): string {
+  const deviation = power.deviationPercent === undefined ? "" : `${power.deviationPercent >= 0 ? "+" : "−"}${formatNumber(Math.abs(power.deviationPercent))} %`;
+  const tolerance = `±${formatNumber(power.tolerancePercent)} %`;
+  switch (power.rule) {
+    case "declared-within-tolerance":
+      return `declared ${watts(power.declaredW)} is within ${tolerance} of the measured ${watts(power.measuredW)} (${deviation}): the limits use the declared ${watts(power.usedW)}`;
+    case "measured-declared-outside-tolerance":
+      return `declared ${watts(power.declaredW)} differs from the measured ${watts(power.measuredW)} by ${deviation} (more than ${tolerance}): the limits use the measured ${watts(power.usedW)}`;
+    case "declared-not-measured":
+      return `the limits use the declared ${watts(power.declaredW)}: no active power was measured (no voltage channel), so the ${tolerance} check could not be made`;
+    case "measured-no-declaration":
+      return `no declared power given: the limits use the measured ${watts(power.measuredW)}`;
+    case "none":
+      return "no declared power given and none measured: limits that depend on rated power cannot be evaluated";
+  }
+}
+
+/** Declared, measured and used power as label/value pairs for the sheet, PDF and CSV. */
+export function powerChoiceRows(power: PowerChoice): Array<[string, string]> {
+  return [
+    ["Declared power", watts(power.declaredW)],
+    ["Measured active power", watts(power.measuredW)],
+    ["Power used for the limits", `${watts(power.usedW)} — ${powerChoiceText(power)} (IEC 61000-3-2: the declared power only within ${`±${formatNumber(power.tolerancePercent)} %`} of the measured)`],
+  ];
+}
