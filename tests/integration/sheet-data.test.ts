@@ -42,11 +42,16 @@ describe("chart data", () => {
   });
 
   it("an older evaluation without stored chart data gets it built once and saved", async () => {
-    await db.update(evaluations).set({ charts: null }).where(eq(evaluations.id, evaluationId));
-    const res = await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=${evaluationId}`);
+    // An evaluation as stored before chart data was precomputed: a copy of this one without it.
+    const [stored] = await db.select().from(evaluations).where(eq(evaluations.id, evaluationId));
+    const { id: _id, createdAt: _createdAt, charts: _charts, ...rest } = stored!;
+    const [older] = await db.insert(evaluations).values({ ...rest, charts: null }).returning({ id: evaluations.id });
+    const res = await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=${older!.id}`);
     expect(res.status).toBe(200);
-    const [row] = await db.select({ charts: evaluations.charts }).from(evaluations).where(eq(evaluations.id, evaluationId));
+    const [row] = await db.select({ charts: evaluations.charts }).from(evaluations).where(eq(evaluations.id, older!.id));
     expect(row?.charts).not.toBeNull();
+    // Once filled, the cache is as immutable as the rest of the evaluation.
+    await expect(db.update(evaluations).set({ charts: null }).where(eq(evaluations.id, older!.id))).rejects.toThrow();
   });
 });
 
@@ -74,10 +79,12 @@ describe("captures list", () => {
       context: { ratedPowerW: 100, nominalVoltageV: 230, phaseConfig: "single-phase" },
     });
     expect(again.status).toBe(201);
-    const after = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; verdict: string; approvedVerdict: string | null }[] };
+    const after = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; verdict: string; approvedVerdict: string | null; latestVerdict: string | null }[] };
     const row = after.items.find((c) => c.id === heater.id)!;
     expect(row.approvedVerdict).toBe("pass");
-    expect(row.verdict).not.toBe("pass");
+    // The list's verdict stays the approved one (what customers see); the latest is beside it.
+    expect(row.verdict).toBe("pass");
+    expect(row.latestVerdict).not.toBe("pass");
     const page = (await (await engineer.request("GET", "/captures?status=done")).text()).replace(/<!-- -->/g, "");
     expect(page).toContain("approved as ✓ Pass; latest differs");
   });

@@ -99,10 +99,12 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                   <td className="text-ink-soft">{c.siteName}</td>
                   <td>{statusLabels[c.status]}</td>
                   <td>
-                    {c.verdict ? (
-                      <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[c.verdict] ?? ""}`}>{verdictText[c.verdict] ?? c.verdict}</span>
-                    ) : "—"}
-                    {c.approvedVerdict && c.approvedVerdict !== c.verdict && (
+                    {/* The team sees the latest verdict; a viewer only ever the approved one. */}
+                    {(() => {
+                      const shown = user.role === "viewer" ? c.verdict : (c.latestVerdict ?? c.verdict);
+                      return shown ? <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[shown] ?? ""}`}>{verdictText[shown] ?? shown}</span> : "—";
+                    })()}
+                    {user.role !== "viewer" && c.approvedVerdict && c.approvedVerdict !== (c.latestVerdict ?? c.verdict) && (
                       <span className="mt-1 block text-xs text-ink-soft" data-testid="approved-verdict">
                         approved as {verdictText[c.approvedVerdict] ?? c.approvedVerdict}; latest differs
                       </span>

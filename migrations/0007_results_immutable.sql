@@ -9,6 +9,18 @@ BEGIN
 END;
 $$ LANGUAGE plpgsql;
 --> statement-breakpoint
+-- An evaluation's chart series are a cache derived from its stored analysis and result: one stored
+-- before they were precomputed may have them filled in once. Nothing else of an evaluation changes.
+CREATE FUNCTION evaluation_immutable() RETURNS trigger AS $$
+BEGIN
+  IF TG_OP = 'UPDATE' AND OLD.charts IS NULL AND (to_jsonb(NEW) - 'charts') = (to_jsonb(OLD) - 'charts') THEN
+    RETURN NEW;
+  END IF;
+  RAISE EXCEPTION '% of % refused: stored % are immutable; insert a new one instead', TG_OP, TG_TABLE_NAME, TG_TABLE_NAME
+    USING ERRCODE = 'restrict_violation';
+END;
+$$ LANGUAGE plpgsql;
+--> statement-breakpoint
 CREATE TRIGGER limit_set_revisions_no_delete
   BEFORE DELETE ON limit_set_revisions
   FOR EACH ROW EXECUTE FUNCTION stored_record_immutable();
@@ -19,7 +31,7 @@ CREATE TRIGGER limit_set_revisions_no_truncate
 --> statement-breakpoint
 CREATE TRIGGER evaluations_no_update_or_delete
   BEFORE UPDATE OR DELETE ON evaluations
-  FOR EACH ROW EXECUTE FUNCTION stored_record_immutable();
+  FOR EACH ROW EXECUTE FUNCTION evaluation_immutable();
 --> statement-breakpoint
 CREATE TRIGGER evaluations_no_truncate
   BEFORE TRUNCATE ON evaluations
