@@ -7,7 +7,7 @@ import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, url } from "../support/browser";
 import { signedIn } from "../support/http";
-import { json } from "../support/captures";
+import { demoCaptureId } from "../support/captures";
 
 const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
 
@@ -26,9 +26,8 @@ let otherId = "";
 beforeAll(async () => {
   browser = await launchBrowser();
   const engineer = await signedIn("engineer");
-  const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
-  ownId = items.find((c) => c.title === "Compressor drives at full load — after filter")!.id;
-  otherId = items.find((c) => c.title === "Heater controller, 1.8 kW")!.id;
+  ownId = await demoCaptureId(engineer, "Compressor drives at full load — after filter");
+  otherId = await demoCaptureId(engineer, "Heater controller, 1.8 kW");
 }, 60_000);
 afterAll(async () => {
   await browser?.close();
@@ -78,8 +77,7 @@ describe("headline numbers on the sheet", () => {
 describe("chart values without a mouse", () => {
   it("the spectrum lists its failing orders in text, and the keyboard reaches and opens each chart's table", async () => {
     const engineer = await signedIn("engineer");
-    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
-    const beforeId = items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+    const beforeId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signInAs(page, "engineer");
     await page.goto(url(`/captures/${beforeId}`));
@@ -110,8 +108,7 @@ describe("chart values without a mouse", () => {
 describe("compare two captures", () => {
   it("draws both spectra with their limits and hides orders below threshold in both on request", async () => {
     const engineer = await signedIn("engineer");
-    const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
-    const psu = items.find((c) => c.title === "Desktop power supply, 180 W rated")!.id;
+    const psu = await demoCaptureId(engineer, "Desktop power supply, 180 W rated");
     const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
     await signInAs(page, "engineer");
     await page.goto(url(`/captures/compare?a=${psu}&b=${otherId}`));

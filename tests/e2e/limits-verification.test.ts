@@ -7,7 +7,7 @@ import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, url } from "../support/browser";
 import { signedIn } from "../support/http";
-import { json } from "../support/captures";
+import { demoCaptureId, json } from "../support/captures";
 import { pdfText } from "../unit/reports/pdf-text";
 
 const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
@@ -21,9 +21,8 @@ let limitSetKey = "";
 beforeAll(async () => {
   browser = await launchBrowser();
   const engineer = await signedIn("engineer");
-  const { items } = await json<{ items: { id: string; title: string }[] }>(await engineer.request("GET", "/api/captures?status=done"));
   // A demo capture judged against IEC 61000-3-2 Class D (the desktop power supply).
-  captureId = items.find((c) => c.title === "Desktop power supply, 180 W rated")!.id;
+  captureId = await demoCaptureId(engineer, "Desktop power supply, 180 W rated");
   const { evaluations } = await json<{ evaluations: { limitSetKey: string; revisionNumber: number }[] }>(
     await engineer.request("GET", `/api/captures/${captureId}/evaluations`),
   );

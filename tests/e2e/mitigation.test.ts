@@ -3,6 +3,7 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { demoCaptureId } from "../support/captures";
 import { signedIn } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 
@@ -12,8 +13,7 @@ let captureId = "";
 beforeAll(async () => {
   browser = await launchBrowser();
   const engineer = await signedIn("engineer");
-  const list = (await (await engineer.request("GET", "/api/captures")).json()) as { items: { id: string; title: string }[] };
-  captureId = list.items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+  captureId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
 });
 afterAll(async () => {
   await browser?.close();

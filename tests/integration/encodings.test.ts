@@ -6,6 +6,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { analyses } from "@/db/schema";
+import { postUpload, type PresignedUpload } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let tech: Client;
@@ -23,8 +24,8 @@ async function uploadAndPreview(file: string): Promise<{ id: string; preview: Pr
   const bytes = readFileSync(file);
   const res = await tech.request("POST", "/api/captures", { siteId, title: `Encoding ${file} ${Date.now()}`, filename: file.split("/").pop(), sizeBytes: bytes.length });
   expect(res.status).toBe(201);
-  const { capture, uploadUrl } = (await res.json()) as { capture: { id: string }; uploadUrl: string };
-  expect((await fetch(uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } })).status).toBe(200);
+  const { capture, upload } = (await res.json()) as { capture: { id: string }; upload: PresignedUpload };
+  expect((await postUpload(upload, bytes)).ok).toBe(true);
   const confirmed = await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
   expect(confirmed.status).toBe(200);
   return { id: capture.id, preview: (await confirmed.json()) as Preview };

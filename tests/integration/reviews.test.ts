@@ -70,7 +70,8 @@ async function failingCapture(title: string): Promise<string> {
 beforeAll(async () => {
   [tech, engineer, admin, viewer] = await Promise.all([signedIn("technician"), signedIn("engineer"), signedIn("admin"), signedIn("viewer")]);
   const { sites } = await json<{ sites: { id: string; name: string }[] }>(await tech.request("GET", "/api/sites"));
-  siteId = (sites.find((s) => s.name.startsWith("Bench B")) ?? sites[0]!).id;
+  // A site of the demo viewer's customer, so the viewer's side of each rule can be checked.
+  siteId = sites.find((s) => s.name.startsWith("Quillbrook Cold Store"))!.id;
 });
 
 describe("review state machine", () => {
@@ -171,11 +172,14 @@ describe("an approval covers exactly one result", () => {
     const id = await failingCapture("Scale swap");
     expect((await review(tech, id, { action: "submitted" })).status).toBe(200);
     const scaled = { mapping: { channels: { "I (A)": { quantity: "current", scale: 0.1 } } }, limitSetKey: "iec-61000-3-2-class-a", context: {} };
-    // Frozen while in review, for everyone.
-    const inReview = await tech.request("PUT", `/api/captures/${id}/setup`, scaled);
+    // Frozen while in review: the technician may no longer change it at all (403), and for an engineer
+    // the set-up is frozen until the review sends it back (409).
+    expect((await tech.request("PUT", `/api/captures/${id}/setup`, scaled)).status).toBe(403);
+    expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(403);
+    const inReview = await engineer.request("PUT", `/api/captures/${id}/setup`, scaled);
     expect(inReview.status).toBe(409);
     expect(JSON.stringify(await inReview.json())).toContain("frozen");
-    expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(409);
+    expect((await engineer.request("POST", `/api/captures/${id}/analyze`)).status).toBe(409);
     const [approved] = await evaluationsOf(id);
     expect((await review(engineer, id, { action: "approved", evaluationId: approved!.id })).status).toBe(200);
     const token = await shareLink(id);

@@ -4,6 +4,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { evaluations } from "@/db/schema";
+import { demoCaptureId, listedCapture } from "../support/captures";
 import { signedIn, type Client } from "../support/http";
 
 let engineer: Client;
@@ -12,8 +13,7 @@ let evaluationId = "";
 
 beforeAll(async () => {
   engineer = await signedIn("engineer");
-  const { items } = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; title: string }[] };
-  captureId = items.find((c) => c.title === "Compressor drives at full load — after filter")!.id;
+  captureId = await demoCaptureId(engineer, "Compressor drives at full load — after filter");
   const { evaluations: list } = (await (await engineer.request("GET", `/api/captures/${captureId}/evaluations`)).json()) as { evaluations: { id: string }[] };
   evaluationId = list[0]!.id;
 });
@@ -68,8 +68,7 @@ describe("headline numbers from the slim analysis summary", () => {
 
 describe("captures list", () => {
   it("shows the approved verdict beside the latest when a later evaluation differs", async () => {
-    const { items } = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; title: string; verdict: string; approvedVerdict: string | null }[] };
-    const heater = items.find((c) => c.title === "Heater controller, 1.8 kW")!;
+    const heater = await listedCapture<{ id: string; title: string; verdict: string; approvedVerdict: string | null }>(engineer, "Heater controller, 1.8 kW");
     // The demo approved it as a Class A pass.
     expect(heater.approvedVerdict).toBe("pass");
     expect(heater.verdict).toBe("pass");
@@ -79,13 +78,13 @@ describe("captures list", () => {
       context: { ratedPowerW: 100, nominalVoltageV: 230, phaseConfig: "single-phase" },
     });
     expect(again.status).toBe(201);
-    const after = (await (await engineer.request("GET", "/api/captures?status=done")).json()) as { items: { id: string; verdict: string; approvedVerdict: string | null; latestVerdict: string | null }[] };
-    const row = after.items.find((c) => c.id === heater.id)!;
+    const row = await listedCapture<{ id: string; title: string; verdict: string; approvedVerdict: string | null; latestVerdict: string | null }>(engineer, "Heater controller, 1.8 kW");
     expect(row.approvedVerdict).toBe("pass");
     // The list's verdict stays the approved one (what customers see); the latest is beside it.
     expect(row.verdict).toBe("pass");
     expect(row.latestVerdict).not.toBe("pass");
-    const page = (await (await engineer.request("GET", "/captures?status=done")).text()).replace(/<!-- -->/g, "");
+    const { capture } = (await (await engineer.request("GET", `/api/captures/${heater.id}`)).json()) as { capture: { siteId: string } };
+    const page = (await (await engineer.request("GET", `/captures?status=done&site=${capture.siteId}`)).text()).replace(/<!-- -->/g, "");
     expect(page).toContain("approved as ✓ Pass; latest differs");
   });
 });

@@ -1,5 +1,6 @@
 // Front-end diagnosis and mitigation studies through the API, on the demo compressor-drive capture.
 import { beforeAll, describe, expect, it } from "vitest";
+import { demoCaptureId } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let engineer: Client;
@@ -9,8 +10,7 @@ let captureId: string;
 beforeAll(async () => {
   engineer = await signedIn("engineer");
   tech = await signedIn("technician");
-  const list = (await (await engineer.request("GET", "/api/captures")).json()) as { items: { id: string; title: string }[] };
-  captureId = list.items.find((c) => c.title === "Compressor drives at full load — before filter")!.id;
+  captureId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
 });
 
 describe("diagnosis and mitigation studies", () => {

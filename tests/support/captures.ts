@@ -51,3 +51,19 @@ export async function waitForCapture(api: Client, id: string, timeoutMs = 60_000
     await new Promise((r) => setTimeout(r, 250));
   }
 }
+
+/** A demo capture as the captures list shows it, found by its title page by page (other tests add captures in front of it). */
+export async function listedCapture<T extends { id: string; title: string }>(api: Client, title: string): Promise<T> {
+  for (let page = 1; page <= 50; page++) {
+    const { items, pages } = await json<{ items: T[]; pages: number }>(await api.request("GET", `/api/captures?status=done&page=${page}`));
+    const found = items.find((c) => c.title === title);
+    if (found) return found;
+    if (page >= pages) break;
+  }
+  throw new Error(`no analysed capture titled "${title}"`);
+}
+
+/** The id of a demo capture by its title. */
+export async function demoCaptureId(api: Client, title: string): Promise<string> {
+  return (await listedCapture(api, title)).id;
+}

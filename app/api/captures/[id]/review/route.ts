@@ -3,7 +3,6 @@ import { getCaptureById, getUserContact, listReviewerContacts, recordReview } fr
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { can } from "@/lib/auth/permissions";
-import { authoriseCaptureEdit } from "@/lib/auth/session";
 import { AppError } from "@/lib/errors";
 import { appUrl, escapeHtml, sendMail } from "@/lib/mail/send";
 import { reviewActionSchema } from "@/lib/validations/capture";
@@ -38,10 +37,10 @@ export const POST = withAuth<{ id: string }>(
     const needed = action === "approved" || action === "sent_back" ? "captures:review" : "captures:upload";
     if (!can(user.role, needed)) throw new AppError("forbidden", "Your role does not allow this.");
     const current = await getCaptureById({ id, reader: user });
-    // A technician submits only a capture they uploaded, and comments only on their own.
-    if (user.role === "technician") {
-      if (action === "submitted") authoriseCaptureEdit(user, current);
-      else if (current.uploadedBy !== user.id) throw new AppError("forbidden", "Technicians comment only on the captures they uploaded.");
+    // A technician submits and comments only on captures they uploaded; whether the capture's state
+    // allows a submission is the review state machine's answer (409 naming what is allowed).
+    if (user.role === "technician" && current.uploadedBy !== user.id) {
+      throw new AppError("forbidden", action === "submitted" ? "Technicians submit only the captures they uploaded." : "Technicians comment only on the captures they uploaded.");
     }
     const capture = await recordReview({ captureId: id, action, comment, actorId: user.id, evaluationId });
     if (action === "approved" || action === "sent_back") {
