@@ -24,7 +24,8 @@ const signatures: { kind: BinaryKind; bytes: number[] }[] = [
 
 /**
  * What binary format `head` (the first bytes of a file, a few KB) starts with, or null when it may
- * be text. Any NUL byte counts as binary data: the CSV importer reads UTF-8 and Latin-1, never UTF-16.
+ * be text. A file starting with a UTF-16 byte-order mark is text (the importer decodes it); otherwise
+ * any NUL byte counts as binary data (UTF-8 and Windows-1252 text never holds one).
  * O(n) in `head.length`.
  *
  * @example sniffBinary(new TextEncoder().encode("t,I\n0,1\n")) // null
@@ -34,5 +35,7 @@ export function sniffBinary(head: Uint8Array): BinaryKind | null {
   for (const s of signatures) {
     if (head.length >= s.bytes.length && s.bytes.every((b, i) => head[i] === b)) return s.kind;
   }
+  // UTF-16 LE (FF FE) or BE (FE FF) byte-order mark (Unicode Standard §3.10): text with NUL high/low bytes.
+  if (head.length >= 2 && ((head[0] === 0xff && head[1] === 0xfe) || (head[0] === 0xfe && head[1] === 0xff))) return null;
   return head.includes(0) ? "binary data" : null;
 }

@@ -22,8 +22,13 @@ describe("sniffBinary", () => {
     expect(sniffBinary(head)).toBe(kind);
   });
 
-  it("calls anything with a NUL byte binary data (UTF-16 text is not read by the importer)", () => {
-    expect(sniffBinary(bytes(0xff, 0xfe, 0x74, 0x00))).toBe("binary data");
+  it("calls a NUL byte without a UTF-16 byte-order mark binary data", () => {
+    expect(sniffBinary(bytes(0x74, 0x00, 0x2c, 0x00))).toBe("binary data");
+  });
+
+  it("lets UTF-16 text with its byte-order mark through (LE FF FE, BE FE FF; Unicode Standard §3.10)", () => {
+    expect(sniffBinary(bytes(0xff, 0xfe, 0x74, 0x00, 0x2c, 0x00))).toBeNull();
+    expect(sniffBinary(bytes(0xfe, 0xff, 0x00, 0x74, 0x00, 0x2c))).toBeNull();
   });
 
   it("lets CSV text through, in UTF-8 with BOM and in Latin-1", () => {
