@@ -1,5 +1,6 @@
-// Worked evaluator cases, computed by hand from the printed tables (sources beside each check;
-// markers from /work/shared/reference/standards.md).
+// Worked evaluator cases, computed by hand from the printed tables (sources beside each check).
+// Markers after a citation: C = the value as printed in that standard (IEC 61000-3-2:2018+A1:2020,
+// IEC 61000-3-12:2011, IEEE Std 519-2014); M = from memory; X = arithmetic from the stated formula.
 import { describe, expect, test } from "vitest";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { evaluateCompliance } from "@/lib/compliance/evaluate-compliance";

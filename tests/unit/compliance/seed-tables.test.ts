@@ -1,6 +1,7 @@
-// The seeded limit sets against the published tables. Expected values and their markers come
-// from /work/shared/reference/standards.md: confirmed (C), secondary source (C*), from memory (M),
-// computed from formula (X).
+// The seeded limit sets against the published tables (IEC 61000-3-2:2018+A1:2020 Tables 1–4,
+// IEC 61000-3-12:2011 Tables 2–4, IEEE Std 519-2014 Tables 1–4 / 519-2022). Markers beside each
+// value: C = as printed in the standard named; C* = confirmed only by a secondary engineering note
+// reproducing the standard; M = from memory; X = computed from the standard's formula in the test.
 import { describe, expect, test } from "vitest";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { LimitSetRevisionContentSchema, type EvaluationContext } from "@/lib/compliance/model";
@@ -46,7 +47,7 @@ describe("seed limit sets validate against the schema", () => {
     expect(getSeedLimitSet("nope")).toBeUndefined();
   });
 
-  test("IEC 61000-3-12 seed says Table 5 is left out (reference marks it UNVERIFIED)", () => {
+  test("IEC 61000-3-12 seed says Table 5 is left out (its conditions (d)(e)(f) are from memory only, not verified against the printed IEC 61000-3-12:2011)", () => {
     const set = getSeedLimitSet("iec-61000-3-12");
     expect(set?.content.description).toMatch(/Table 5 .*NOT included/);
     expect(set?.content.bands.some((band) => band.label.includes("Table 5"))).toBe(false);
