@@ -73,5 +73,5 @@ describe("the command line and the worker run one pipeline", () => {
     expect(h3).toMatchObject({ verdict: "fail", decidedBy: "smoothed-max" });
     expect(stored.result.timeBasis?.startMs).toBe(Date.parse(capturedAt));
     expect(stored.result.verdict).toBe("fail");
-  });
+  }, 240_000); // spawns the CLI (up to 120 s under load) after an upload and a worker run
 });
