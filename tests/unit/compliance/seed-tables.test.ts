@@ -74,7 +74,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A (A)", () => {
     expect(limitOf("iec-61000-3-2-class-a", order)).toBeCloseTo(expected, 4);
   });
 
-  test("POHC limit = 0.2514 A (IEC 61000-3-2 POHC over orders 21–39; formula from memory, number computed from formula)", () => {
+  test("POHC limit = 0.2514 A (IEC 61000-3-2:2018+A1:2020 clause 7 POHC over orders 21–39; formula from memory, number computed from formula)", () => {
     expect(aggregateLimitOf("iec-61000-3-2-class-a", "POHC")).toBeCloseTo(0.2514, 4);
   });
 });
@@ -192,7 +192,7 @@ describe("IEC 61000-3-12 Ed 2.0 (2011) Tables 2–4 (% of Iref)", () => {
   });
 });
 
-describe("IEEE 519 current limits, Tables 2–4 (% of IL)", () => {
+describe("IEEE Std 519-2014 current limits, Tables 2–4 (% of IL)", () => {
   const table2 = (iscOverIl: number) => ({ busVoltageV: 480, iscA: iscOverIl * 100, ilA: 100 });
   test.each([
     ["2014 Table 2, Isc/IL 20–50, 3 ≤ h < 11 (C)", "ieee-519-2014-current", table2(30), 5, 7.0],

@@ -55,7 +55,7 @@ describe("seed time rules", () => {
     expect(getSeedLimitSet("iec-61000-3-2-class-b")!.content.rules.timeRules!.find((rule) => rule.id === "smoothed-max")!.relaxation).toBeUndefined();
   });
 
-  test("IEEE 519 percentile rules: nearest rank, '<' (passAtLimit false), daily / weekly accumulation, minimum one value", () => {
+  test("IEEE Std 519-2014 §5.2 percentile rules: nearest rank, '<' (passAtLimit false), daily / weekly accumulation, minimum one value", () => {
     const rules = getSeedLimitSet("ieee-519-2014-current")!.content.rules.timeRules!;
     expect(rules.map((rule) => [rule.percentile, rule.accumulationS, rule.minimumDurationS, rule.passAtLimit])).toEqual([
       [99, 86_400, 3, false],
