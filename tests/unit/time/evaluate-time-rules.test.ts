@@ -50,7 +50,7 @@ describe("IEC 61000-3-2:2018+A1:2020 Class A: average of 1.5 s smoothed values a
     expect(result.verdict).toBe("fail");
   });
 
-  test("fails the average but passes the maximum: a steady 0.36 A = 109 % (IEC 61000-3-2:2018+A1:2020 clause 6.2 average ≤ 100 % — averaging as printed, "≤" from memory)", () => {
+  test("fails the average but passes the maximum: a steady 0.36 A = 109 % (IEC 61000-3-2:2018+A1:2020 clause 6.2 average ≤ 100 % — averaging as printed, '≤' from memory)", () => {
     const result = run("iec-61000-3-2-class-a", classA({ 11: () => 0.36 }));
     const h11 = row(result, 11);
     expect(rule(h11, "smoothed-max").verdict).toBe("pass");
