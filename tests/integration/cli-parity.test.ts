@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { evaluations } from "@/db/schema";
 import { writeClassABurst } from "@/fixtures/burst/class-a-burst";
-import { json } from "../support/captures";
+import { json, postUpload, type PresignedUpload } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 import { runAnalyzeCli } from "../support/run-analyze-cli";
 
@@ -31,10 +31,11 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 /** Uploads, maps and analyses through the app and its worker; returns the stored first evaluation. */
 async function throughWorker(context: Record<string, unknown>) {
   const bytes = readFileSync(file);
-  const { capture, uploadUrl } = await json<{ capture: { id: string }; uploadUrl: string }>(
+  const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
     await tech.request("POST", "/api/captures", { siteId, title: `Parity ${Date.now()}`, filename: "class-a-burst.csv", sizeBytes: bytes.length, capturedAt }),
   );
-  expect((await fetch(uploadUrl, { method: "PUT", body: bytes, headers: { "content-type": "text/csv" } })).status).toBe(200);
+  // The browser's path: a form POST straight to the bucket with the presigned policy.
+  expect((await postUpload(upload, bytes)).ok).toBe(true);
   await json(await tech.request("POST", `/api/captures/${capture.id}/uploaded`));
   await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: { "I (A)": { scale: 1 } } }, limitSetKey: "iec-61000-3-2-class-a", context }));
   expect((await tech.request("POST", `/api/captures/${capture.id}/analyze`)).status).toBe(202);

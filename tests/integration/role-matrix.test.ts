@@ -71,13 +71,14 @@ const routes: RouteCase[] = [
   { method: "GET", path: "/api/captures/:capture/studies", allowed: ALL, status: 200 },
   { method: "POST", path: "/api/captures/:capture/studies", allowed: REVIEW, body: {}, status: 422 },
   { method: "POST", path: "/api/captures/:capture/studies/preview", allowed: ALL, body: {}, status: 422 },
-  // Limit sets: :missing is a well-formed key of no set, so an allowed caller gets 404 or 422 and nothing changes.
+  // Limit sets: :missing is a well-formed key of no set and :revision a well-formed revision number, so an allowed
+  // reader gets 404; a write gets 422 (its body or its revision segment is invalid) and nothing changes.
   { method: "GET", path: "/api/limit-sets", allowed: ALL, status: 200 },
   { method: "GET", path: "/api/limit-sets/:missing", allowed: ALL, status: 404 },
   { method: "PUT", path: "/api/limit-sets/:missing", allowed: ["admin"], body: {}, status: 422 },
   { method: "GET", path: "/api/limit-sets/:missing/revisions", allowed: ALL, status: 404 },
-  { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing", allowed: ALL, status: 404 },
-  { method: "GET", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ALL, status: 404 },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions/:revision", allowed: ALL, status: 404 },
+  { method: "GET", path: "/api/limit-sets/:missing/revisions/:revision/verifications", allowed: ALL, status: 404 },
   { method: "POST", path: "/api/limit-sets/:missing/revisions/:missing/verifications", allowed: ["admin"], body: {}, status: 422 },
   { method: "POST", path: "/api/limit-sets/:missing/clone", allowed: ["admin"], body: {}, status: 422 },
   { method: "GET", path: "/api/limit-sets/:missing/export", allowed: ALL, status: 404 },
@@ -133,7 +134,7 @@ beforeAll(async () => {
 
 const missingId = "00000000-0000-4000-8000-000000000000";
 const fill = (p: string) =>
-  p.replace(":site", siteId).replace(":user", userId).replace(":capture", captureId).replaceAll(":missing", missingId);
+  p.replace(":site", siteId).replace(":user", userId).replace(":capture", captureId).replaceAll(":missing", missingId).replace(":revision", "1");
 
 describe("role matrix — route handlers", () => {
   it("covers every exported method of every route handler", () => {
@@ -143,7 +144,7 @@ describe("role matrix — route handlers", () => {
       const url = "/api/" + path.relative(root, path.dirname(file)).split(path.sep).join("/");
       return [...src.matchAll(/export const (GET|POST|PUT|PATCH|DELETE)\b/g)].map((m) => `${m[1]} ${url}`);
     });
-    const normalise = (s: string) => s.replace(/\[[^\]]+\]/g, ":param").replace(/:(site|user|capture|missing)\b/g, ":param");
+    const normalise = (s: string) => s.replace(/\[[^\]]+\]/g, ":param").replace(/:(site|user|capture|missing|revision)\b/g, ":param");
     const listed = [...routes.map((r) => `${r.method} ${r.path}`), ...publicRoutes].map(normalise).sort();
     expect(found.map(normalise).sort()).toEqual(listed);
   });
