@@ -12,7 +12,7 @@ import { analysedCapture, json, postUpload, type PresignedUpload } from "../supp
 
 /**
  * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
- * With 3 A the IEC 61000-3-2 Class A h3 limit of 2.30 A (Table 1) fails; with 1 A it passes.
+ * With 3 A the IEC 61000-3-2:2018+A1:2020 Class A h3 limit of 2.30 A (Table 1) fails; with 1 A it passes.
  */
 function currentCsv(i3Rms: number): string {
   const perCycle = 256;

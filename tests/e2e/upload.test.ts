@@ -53,7 +53,7 @@ describe("a technician uploads a capture in the browser", () => {
     }
     expect(status).toBe("done");
     await page.reload();
-    // IEC 61000-3-2 Table 3 (Class D) at 180 W: h3 ≤ 3.4 mA/W × 180 W = 0.612 A; the PSU draws ≈ 0.69 A.
+    // IEC 61000-3-2:2018+A1:2020 Table 3 (Class D) at 180 W: h3 ≤ 3.4 mA/W × 180 W = 0.612 A; the PSU draws ≈ 0.69 A.
     await page.waitForSelector("[data-testid=order-row-3][data-verdict=fail]", { timeout: 15_000 });
     expect(await page.textContent("[data-testid=order-row-3]")).toContain("Fail");
     await snap(page, "sheet-after-upload");
@@ -84,7 +84,7 @@ describe("an interval log's sheet", () => {
     expect(options).toContain("TDD");
     expect(options).toContain("h5");
     expect(await page.textContent("[data-testid=sheet-charts]")).toContain("1008 logged values");
-    // TDD over the week is judged by the IEEE 519 weekly 95th percentile of 10-minute values.
+    // TDD over the week is judged by the IEEE Std 519-2014 §5.2 weekly 95th percentile of 10-minute values.
     expect(await page.textContent("[data-testid=aggregate-TDD-decided-by]")).toMatch(/10 min/);
     await snap(page, "interval-log-sheet");
     await page.close();

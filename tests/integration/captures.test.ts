@@ -65,7 +65,11 @@ describe("capture workflow against PostgreSQL and s3rver", () => {
       .innerJoin(limitSetRevisions, eq(limitSetRevisions.id, limitSets.currentRevisionId))
       .where(eq(limitSets.key, "iec-61000-3-2-class-a"));
     expect(evaluation?.limitSetRevisionId).toBe(current!.id);
-    expect(evaluation?.result.rows.find((r) => r.order === 3)).toBeDefined();
+    // fixtures/generate.ts: the current's 3rd is 4.2 A peak = 2.970 A r.m.s. (analytic Fourier series of the
+    // test signal) against the Class A limit 2.30 A (IEC 61000-3-2:2018+A1:2020 Table 1) → fail.
+    const h3 = evaluation?.result.rows.find((r) => r.order === 3);
+    expect(h3).toMatchObject({ limit: 2.3, verdict: "fail" });
+    expect(h3!.measured!).toBeCloseTo(2.97, 2);
 
     // The original object is byte-identical to the file on disk.
     const [row] = await db.select().from(captures).where(eq(captures.id, id));

@@ -34,6 +34,7 @@ async function throughWorker(context: Record<string, unknown>) {
   const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
     await tech.request("POST", "/api/captures", { siteId, title: `Parity ${Date.now()}`, filename: "class-a-burst.csv", sizeBytes: bytes.length, capturedAt }),
   );
+  // The browser's path: a form POST straight to the bucket with the presigned policy.
   expect((await postUpload(upload, bytes)).ok).toBe(true);
   await json(await tech.request("POST", `/api/captures/${capture.id}/uploaded`));
   await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: { "I (A)": { scale: 1 } } }, limitSetKey: "iec-61000-3-2-class-a", context }));
@@ -73,5 +74,5 @@ describe("the command line and the worker run one pipeline", () => {
     expect(h3).toMatchObject({ verdict: "fail", decidedBy: "smoothed-max" });
     expect(stored.result.timeBasis?.startMs).toBe(Date.parse(capturedAt));
     expect(stored.result.verdict).toBe("fail");
-  });
+  }, 240_000); // spawns the CLI (up to 120 s under load) after an upload and a worker run
 });

@@ -129,7 +129,7 @@ describe("sheet CSV through the app", () => {
     const sites = await json<{ sites: { id: string }[] }>(await engineer.request("GET", "/api/sites"));
     const technician = await signedIn("technician");
     const lines = ["Time (s),I (A)"];
-    // 20 cycles of 50 Hz, 10 A fundamental plus 3 A third harmonic (fails IEC 61000-3-2 Class A h3 2.30 A, Table 1).
+    // 20 cycles of 50 Hz, 10 A fundamental plus 3 A third harmonic (fails IEC 61000-3-2:2018+A1:2020 Class A h3 2.30 A, Table 1).
     for (let k = 0; k < 20 * 256; k++) {
       const t = k / (256 * 50);
       lines.push(`${t.toFixed(7)},${(Math.SQRT2 * (10 * Math.sin(2 * Math.PI * 50 * t) + 3 * Math.sin(2 * Math.PI * 150 * t))).toFixed(4)}`);

@@ -37,7 +37,7 @@ async function evaluate(id: string): Promise<{ status: string; failureReason: st
 }
 
 describe("interval logs through the queue", () => {
-  it("suggests a mapping, remembers it for the site, and judges a week with the IEEE 519 percentile rules", async () => {
+  it("suggests a mapping, remembers it for the site, and judges a week with the IEEE Std 519-2014 §5.2 percentile rules", async () => {
     const id = await uploadLog("fixtures/intervals/week-10min-3ch.csv");
     const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as {
       preview: { suggestion: { mapping: { timestamp: { column: string }; columns: { column: string; order?: number }[] } } };

@@ -89,5 +89,5 @@ describe("analysis jobs in the PostgreSQL-backed queue", () => {
     const [job] = await sql`select state, retry_count from pgboss.job where id = ${jobId!}`;
     expect(job).toMatchObject({ state: "completed", retry_count: 1 });
     await boss.stop({ graceful: false });
-  });
+  }, 150_000); // spawns two worker processes and waits for a retry
 });

@@ -64,7 +64,7 @@ describe("editing makes a new revision", () => {
     const { limitSet, revision } = await cloneClassA("edit");
     expect(revision.number).toBe(1);
     const content = structuredClone(revision.content);
-    // Row 2 is order 5, 1.14 A (IEC 61000-3-2 Table 1).
+    // Row 2 is order 5, 1.14 A (IEC 61000-3-2:2018+A1:2020 Table 1).
     expect(content.bands[0]!.orderRows[1]).toMatchObject({ from: 5, to: 5, limit: 1.14 });
     content.bands[0]!.orderRows[1]!.limit = 1.1;
 
@@ -260,7 +260,7 @@ describe("limit formulas must give usable limits (422, never 500)", () => {
 
   it("refuses 1/0, 0/0 and -1 on save, naming the order and the value, and saves nothing", async () => {
     const { limitSet, revision } = await cloneClassA("nonfinite");
-    // Row 7 is the odd 15–39 formula row (IEC 61000-3-2 Table 1: 0.15 × 15/n), first order 15.
+    // Row 7 is the odd 15–39 formula row (IEC 61000-3-2:2018+A1:2020 Table 1: 0.15 × 15/n), first order 15.
     for (const [formula, value] of [["1/0", "Infinity"], ["0/0", "NaN"], ["-1", "-1"]] as const) {
       const content = structuredClone(revision.content);
       content.bands[0]!.orderRows[6]!.formula = formula;

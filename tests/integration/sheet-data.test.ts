@@ -72,7 +72,7 @@ describe("captures list", () => {
     // The demo approved it as a Class A pass.
     expect(heater.approvedVerdict).toBe("pass");
     expect(heater.verdict).toBe("pass");
-    // Judged again as Class D at 100 W (limits 3.4 mA/W × 100 W = 0.34 A at h3, IEC 61000-3-2 Table 3), it is no longer a pass.
+    // Judged again as Class D at 100 W (limits 3.4 mA/W × 100 W = 0.34 A at h3, IEC 61000-3-2:2018+A1:2020 Table 3), it is no longer a pass.
     const again = await engineer.request("POST", `/api/captures/${heater.id}/evaluations`, {
       limitSetKey: "iec-61000-3-2-class-d",
       context: { ratedPowerW: 100, nominalVoltageV: 230, phaseConfig: "single-phase" },

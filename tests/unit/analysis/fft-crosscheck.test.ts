@@ -74,7 +74,7 @@ test("engine per-order values equal the naive DFT of the raw window when the win
     const window = x.subarray(w * 2048, (w + 1) * 2048);
     for (let h = 1; h <= 40; h++) {
       const d = naiveBin(window, 10 * h);
-      const rms = (Math.SQRT2 * Math.hypot(d.re, d.im)) / 2048; // rms = √2·|X_k|/N (fft.js scaling, toolchain notes)
+      const rms = (Math.SQRT2 * Math.hypot(d.re, d.im)) / 2048; // rms = √2·|X_k|/N (unnormalised forward DFT X_k = Σ x_n·e^(−2πikn/N), as fft.js computes it; one-sided peak 2|X_k|/N, r.m.s. = peak/√2)
       expect(Math.abs(series[h - 1]![w]! - rms)).toBeLessThan(1e-5 * 10);
     }
   }

@@ -45,23 +45,23 @@ describe("square wave (±Id)", () => {
     for (let h = 2; h <= 50; h += 2) expect(rmsOf(c, h)).toBeLessThan(1e-5 * c.fundamentalRms);
   });
 
-  test("I1 = 0.9003·Id r.m.s. (reference sheet §5.2: 4/(π√2), X)", () => {
+  test("I1 = 0.9003·Id r.m.s. (analytic Fourier series of the square wave: b_1 = 4/π, r.m.s. 4/(π√2))", () => {
     expect(c.fundamentalRms).toBeCloseTo(0.9003, 3);
   });
 
-  test("THD 47.03 % to h = 40 and 47.30 % to h = 50 (reference sheet §5.2, X from b_n = 4/(nπ))", () => {
+  test("THD 47.03 % to h = 40 and 47.30 % to h = 50 (analytic Fourier series b_n = 4/(nπ), summed by hand)", () => {
     expect(c.thdMaxOrder).toBe(40);
     expect(c.thdPercent).toBeCloseTo(47.03, 1);
     expect(c.thd40Percent!).toBeCloseTo(47.03, 1);
     expect(c.thd50Percent!).toBeCloseTo(47.3, 1);
   });
 
-  test("THD over all orders ≈ 48.3 % = √(π²/8 − 1) from Irms/I1 (reference sheet §5.2, X; the engine's rms is band-limited to ~order 200, hence 0.5 pp)", () => {
+  test("THD over all orders ≈ 48.3 % = √(π²/8 − 1) from Irms/I1 (analytic: Irms = Id, I1 = 4Id/(π√2); the engine's rms is band-limited to ~order 200, hence 0.5 pp)", () => {
     const thdInfinity = 100 * Math.sqrt((c.rms / c.fundamentalRms) ** 2 - 1);
     expect(Math.abs(thdInfinity - 48.34)).toBeLessThan(0.5);
   });
 
-  test("crest factor of a square wave is 1.0 (reference sheet §5.1, C)", () => {
+  test("crest factor of a square wave is 1.0 (analytic: peak = r.m.s. = Id)", () => {
     expect(Math.abs(c.crestFactor - 1)).toBeLessThan(0.01);
   });
 });
@@ -70,12 +70,12 @@ describe("ideal six-pulse line current (quasi-square, β = 120°)", () => {
   const c = analyseQuasiSquare(120, 10);
   const beta = (2 * Math.PI) / 3;
 
-  test("I1 = (√6/π)·Id (reference sheet §5.2, C for the 1/h rule; X for the number)", () => {
+  test("I1 = (√6/π)·Id (Mohan, Undeland & Robbins, Power Electronics 3rd ed. §5-6; analytic Fourier series of the 120° block)", () => {
     expect(c.fundamentalRms / ((Math.sqrt(6) / Math.PI) * 10) - 1).toBeCloseTo(0, 3);
   });
 
   test.each([5, 7, 11, 13, 17, 19, 23, 25, 29, 31, 35, 37, 41, 43, 47, 49])(
-    "order %i: I_h = I1/h (h = 6k ± 1; reference sheet §5.2), exact with the alias correction",
+    "order %i: I_h = I1/h (h = 6k ± 1; Mohan, Undeland & Robbins, Power Electronics 3rd ed. §5-6), exact with the alias correction",
     (h) => {
       const expected = sampledPeak(h, beta, 10) / Math.SQRT2;
       expect(Math.abs(rmsOf(c, h) / expected - 1)).toBeLessThan(5e-4);
@@ -83,34 +83,34 @@ describe("ideal six-pulse line current (quasi-square, β = 120°)", () => {
     },
   );
 
-  test("no triplen and no even orders (reference sheet §5.2, C)", () => {
+  test("no triplen and no even orders (Mohan, Undeland & Robbins, Power Electronics 3rd ed. §5-6; analytic Fourier series)", () => {
     for (let h = 2; h <= 50; h++) {
       if (h % 2 === 0 || h % 3 === 0) expect(rmsOf(c, h)).toBeLessThan(1e-5 * c.fundamentalRms);
     }
   });
 
-  test("THD 29.68 % to h = 40 and 30.02 % to h = 50 (reference sheet §5.2, X)", () => {
+  test("THD 29.68 % to h = 40 and 30.02 % to h = 50 (analytic I_h = I1/h summed by hand)", () => {
     expect(c.thd40Percent!).toBeCloseTo(29.68, 1);
     expect(c.thd50Percent!).toBeCloseTo(30.02, 1);
   });
 
-  test("K-factor 15.60 over h ≤ 49 (reference sheet E7, X from the UL 1561 / IEEE C57.110 formula)", () => {
+  test("K-factor 15.60 over h ≤ 49 (K = Σ h²·Ih² / Σ Ih², IEEE Std C57.110-2018 / UL 1561 form, from memory; with I_h = I1/h, analytic)", () => {
     expect(c.kFactor).toBeCloseTo(15.6, 1);
   });
 
-  test("distortion factor I1/Irms = 3/π = 0.9549 and crest factor 1.2247 (reference sheet §5.2, X)", () => {
+  test("distortion factor I1/Irms = 3/π = 0.9549 and crest factor 1.2247 (analytic: Irms = Id·√(2/3), I1 = (√6/π)·Id, peak Id)", () => {
     expect(Math.abs(c.fundamentalRms / c.rms - 3 / Math.PI)).toBeLessThan(3e-3);
     expect(Math.abs(c.crestFactor - 1.2247)).toBeLessThan(5e-3);
   });
 });
 
-describe("quasi-square wave, β = 150°: b_n = 4Id/(nπ)·sin(nβ/2) (general form, reference sheet §5.2, M)", () => {
+describe("quasi-square wave, β = 150°: b_n = 4Id/(nπ)·sin(nβ/2) (analytic Fourier series of a centred block of width β)", () => {
   const c = analyseQuasiSquare(150);
   const beta = (150 * Math.PI) / 180;
   test.each([1, 3, 5, 7, 9, 11, 13, 15, 17, 19, 21, 23, 25, 27, 29, 31, 33, 35, 37, 39])("order %i", (h) => {
     expect(Math.abs(rmsOf(c, h) - sampledPeak(h, beta) / Math.SQRT2)).toBeLessThan(5e-4 * c.fundamentalRms);
   });
-  test("THD over all orders 31.92 % (reference sheet §5.2, X); band-limited rms, hence 0.5 pp", () => {
+  test("THD over all orders 31.92 % (analytic: Irms = Id·√(β/π) against I1 from the series); band-limited rms, hence 0.5 pp", () => {
     expect(Math.abs(100 * Math.sqrt((c.rms / c.fundamentalRms) ** 2 - 1) - 31.92)).toBeLessThan(0.5);
   });
 });

@@ -9,17 +9,17 @@ const spectrum = (entries: Record<number, number>, top = 50): number[] => Array.
 const sixPulse = (top: number): number[] => Array.from({ length: 51 }, (_, h) => (h === 1 ? 1 : h <= top && h % 2 === 1 && h % 3 !== 0 ? 1 / h : 0));
 
 describe("computeIndices", () => {
-  test("THD of I3 20 %, I5 12 %, I7 4 %, I9 2 % is 23.75 % (reference sheet E1, C: published 23.8 %)", () => {
+  test("THD of I3 20 %, I5 12 %, I7 4 %, I9 2 % is 23.75 % (THD as defined in IEEE Std 519-2014 §3.1; by hand √(0.2² + 0.12² + 0.04² + 0.02²) = √0.0564 = 23.75 %)", () => {
     expect(computeIndices(spectrum({ 1: 1, 3: 0.2, 5: 0.12, 7: 0.04, 9: 0.02 }), params).thdPercent).toBeCloseTo(23.75, 2);
   });
 
-  test("ideal six-pulse to h = 25: K = 8.30, THD 29.04 % (reference sheet E7, X from IEEE C57.110 / UL 1561 form)", () => {
+  test("ideal six-pulse to h = 25: K = 8.30, THD 29.04 % (K = Σ h²·Ih² / Σ Ih², IEEE Std C57.110-2018 / UL 1561 form, from memory; I_h = I1/h: Mohan, Undeland & Robbins, Power Electronics 3rd ed. §5-6; numbers by hand)", () => {
     const r = computeIndices(sixPulse(25), { ...params, resolvableOrder: 25 });
     expect(r.kFactor).toBeCloseTo(8.3, 2);
     expect(r.thdPercent).toBeCloseTo(29.04, 2);
   });
 
-  test("ideal six-pulse to h = 49: K = 15.60, THD 30.02 % (reference sheet E7, X)", () => {
+  test("ideal six-pulse to h = 49: K = 15.60, THD 30.02 % (same definitions; by hand Σ_{h≤49} h²·(1/h)² = 17 terms / Σ (1/h)², analytic)", () => {
     const r = computeIndices(sixPulse(49), params);
     expect(r.kFactor).toBeCloseTo(15.6, 2);
     expect(r.thd50Percent!).toBeCloseTo(30.02, 2);
@@ -31,13 +31,13 @@ describe("computeIndices", () => {
     expect(r.factorK).toBe(1);
   });
 
-  test("BS 7821 factor K = √(1 + e/(1+e)·(I1/I)²·Σ h^q (Ih/I1)²) for I5 = 20 %, e = 0.1, q = 1.7 (BS 7821 form, reference sheet §5.1)", () => {
+  test("BS 7821 factor K = √(1 + e/(1+e)·(I1/I)²·Σ h^q (Ih/I1)²) for I5 = 20 %, e = 0.1, q = 1.7 (BS 7821-4:1995 / EN 50464-3:2007 form, from memory)", () => {
     const r = computeIndices(spectrum({ 1: 1, 5: 0.2 }), params);
     const expected = Math.sqrt(1 + (0.1 / 1.1) * (1 / 1.04) * 5 ** 1.7 * 0.04);
     expect(r.factorK).toBeCloseTo(expected, 12);
   });
 
-  test("PWHD = √Σ_{14..40} h·(Ih/I1)² and PWHC in A (IEC 61000-3-12 definitions; reference sheet §2.1, §4.3)", () => {
+  test("PWHD = √Σ_{14..40} h·(Ih/I1)² and PWHC in A (IEC 61000-3-12:2011 clause 3 definitions; IEC 61000-4-7:2002+A1:2008 Annex A form — from memory)", () => {
     const r = computeIndices(spectrum({ 1: 10, 13: 1, 17: 0.5, 41: 3 }), { ...params, irefA: 20 });
     expect(r.pwhcA!).toBeCloseTo(Math.sqrt(17 * 0.25), 12); // orders 13 and 41 are outside 14..40
     expect(r.pwhdPercent!).toBeCloseTo((100 * Math.sqrt(17 * 0.25)) / 10, 12);
@@ -45,7 +45,7 @@ describe("computeIndices", () => {
     expect(r.thcPercentOfIref!).toBeCloseTo((100 * Math.sqrt(1.25)) / 20, 12);
   });
 
-  test("TDD = √Σ_{2..50} Ih² / IL (IEEE 519-2014 §3, reference sheet §3.3)", () => {
+  test("TDD = √Σ_{2..50} Ih² / IL (IEEE Std 519-2014 §3.1 definition of TDD)", () => {
     const r = computeIndices(spectrum({ 1: 80, 5: 6, 7: 8 }), { ...params, ilA: 100 });
     expect(r.tddPercent!).toBeCloseTo(10, 12);
   });
@@ -85,7 +85,7 @@ describe("power of a V–I pair from time-domain samples", () => {
     [0.05, 0.9988, 0.8989],
     [0.31, 0.9552, 0.8596],
     [1.0, 0.7071, 0.6364],
-  ])("THD %s at DPF 0.9: DF = 1/√(1+THD²) = %s, PF = DPF·DF = %s (reference sheet E8, X; §5.1 C)", (thd, df, pf) => {
+  ])("THD %s at DPF 0.9: DF = 1/√(1+THD²) = %s, PF = DPF·DF = %s (IEEE Std 1459-2010 §3.1 with sinusoidal voltage — from memory; numbers by hand)", (thd, df, pf) => {
     const p = run(thd, 0.9);
     expect(p.displacementFactor).toBeCloseTo(0.9, 3);
     expect(p.distortionFactor).toBeCloseTo(df, 3);

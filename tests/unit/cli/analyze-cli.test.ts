@@ -28,7 +28,7 @@ interface Row {
 }
 interface Out {
   file: string;
-  channels: { name: string; scale?: number; tddPercent?: number; thdMaxOrder: number }[];
+  channels: { name: string; scale?: number; fundamentalRms: number; tddPercent?: number; thdMaxOrder: number }[];
   compliance: { verdict: string; rows: Row[]; band: { label: string; reason: string }; context: Record<string, unknown> };
   limitSetSource: string;
 }
@@ -78,7 +78,13 @@ describe("npm run analyze -- FILE --limits KEY", () => {
     expect(lines).toHaveLength(2);
     const [a, b] = lines.map((l) => JSON.parse(l) as Out & { error?: string });
     expect(a!.file).toBe("fixtures/three-phase-abc.csv");
-    expect(a!.channels.find((c) => c.name === "Ia")).toMatchObject({ scale: 2, tddPercent: expect.any(Number) });
+    // fixtures/generate.ts writes Ia as a finite Fourier series: 14.1 A peak fundamental and 4.2, 2.8,
+    // 1.4, 0.6 A peak at orders 3, 5, 7, 11 (plus 0.01 A noise). Scaled ×2 (analytic Fourier series):
+    // I1 = 2·14.1/√2 = 19.94 A; TDD = 2·√((4.2² + 2.8² + 1.4² + 0.6²)/2) / 20 A = 7.457/20 = 37.28 %
+    // (TDD as defined in IEEE Std 519-2014 §3.1, IL given by --il).
+    const ia = a!.channels.find((c) => c.name === "Ia")!;
+    expect(ia.fundamentalRms).toBeCloseTo(19.94, 1);
+    expect(ia.tddPercent!).toBeCloseTo(37.28, 1);
     // --scale names Ia, which the second file does not have.
     expect(b).toMatchObject({ file: "fixtures/single-phase-50hz.csv", error: expect.stringContaining('"Ia"') });
     expect(res.stderr).toContain("the file's columns are: Time (s), V (V), I (A)");

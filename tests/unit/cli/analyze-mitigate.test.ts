@@ -12,6 +12,7 @@ describe("npm run analyze -- FILE --diagnose --mitigate SPEC", () => {
     expect(res.status).toBe(0);
     const out = JSON.parse(res.stdout) as {
       compliance: { limitSet: { key: string }; revision: { number: number } };
+      channels: { name: string; harmonics: { order: number; rms: number | null }[] }[];
       diagnosis: { channels: { name: string; candidates: { family: string; parameters: Record<string, number>; fitErrorPercent: number; description: string }[] }[] };
       whatIf: { mitigations: { kind: string }[]; channels: { name: string; harmonics: { order: number; rms: number | null }[]; thdPercent: number; tddPercent: number | null }[]; compliance: { limitSet: { key: string }; revision: { number: number }; verdict: string }; warnings: string[] };
     };
@@ -20,10 +21,12 @@ describe("npm run analyze -- FILE --diagnose --mitigate SPEC", () => {
     expect(candidates.length).toBe(3);
     expect(candidates[0]!.fitErrorPercent).toBeLessThanOrEqual(candidates[1]!.fitErrorPercent);
     expect(out.whatIf.mitigations.map((m) => m.kind)).toEqual(["reactor", "passive-filter"]);
-    expect(out.whatIf.channels[0]!.harmonics.find((h) => h.order === 5)).toBeDefined();
+    // A shunt filter tuned just below the 5th sinks most of the 5th (common practice, no source):
+    // the predicted 5th is below the measured one.
+    const measured5 = out.channels[0]!.harmonics.find((h) => h.order === 5)!.rms!;
+    expect(out.whatIf.channels[0]!.harmonics.find((h) => h.order === 5)!.rms!).toBeLessThan(0.5 * measured5);
     expect(out.whatIf.compliance.limitSet.key).toBe(out.compliance.limitSet.key);
     expect(out.whatIf.compliance.revision).toEqual(out.compliance.revision);
-    expect(Array.isArray(out.whatIf.warnings)).toBe(true);
   }, 150_000);
 
   it("a filter without --isc exits 1 with one line naming it; a bad spec names the spec", () => {

@@ -32,7 +32,7 @@ describe("evaluator: an overflowed measurement is not evaluated, never a pass", 
     expect(JSON.parse(JSON.stringify(result))).toEqual(result);
   });
 
-  test("an order whose value is ∞ is not evaluated; its neighbours are still judged (IEC 61000-3-2 Table 1 h5 1.14 A)", () => {
+  test("an order whose value is ∞ is not evaluated; its neighbours are still judged (IEC 61000-3-2:2018+A1:2020 Table 1 h5 1.14 A)", () => {
     const analysis = makeAnalysis({ channels: [{ name: "I", fundamentalRms: 8, harmonics: { 5: 1.0 } }] });
     analysis.channels[0]!.harmonics[2]!.rms = Infinity; // order 3
     const result = judgeWithSeed(analysis, "iec-61000-3-2-class-a");
@@ -84,7 +84,7 @@ describe("limit formulas checked for every order they cover", () => {
     }
   });
 
-  test("a formula of λ is checked at λ = 0.05, 0.5 and 1 (30·λ % of I1, IEC 61000-3-2 Class C h3, stays ≥ 0)", () => {
+  test("a formula of λ is checked at λ = 0.05, 0.5 and 1 (30·λ % of I1, IEC 61000-3-2:2018+A1:2020 Table 2 Class C h3, stays ≥ 0)", () => {
     expect(formulaValueIssues(withFormula("30*lambda", 3, 3))).toEqual([]);
     expect(formulaValueIssues(withFormula("1/(1-lambda)", 3, 3))[0]!.message).toBe('order 3, λ = 1: formula "1/(1-lambda)" gives Infinity; a limit must be a finite number ≥ 0');
   });

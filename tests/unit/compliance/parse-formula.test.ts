@@ -5,18 +5,18 @@ import { FormulaSyntaxError, FormulaVariableError, parseFormula, type FormulaVar
 describe("evaluateFormula — valid formulas", () => {
   test.each<[string, FormulaVariables, number, string]>([
     // formula, variables, expected, source of the expected value
-    ["0.15*15/h", { h: 15 }, 0.15, "IEC 61000-3-2 Ed 5.0 Table 1 Class A formula, n = 15 (computed from formula)"],
-    ["0.15*15/h", { h: 21 }, 0.10714, "IEC 61000-3-2 Ed 5.0 Table 1 Class A, n = 21 → 0.1071 A (computed from formula)"],
-    ["0.23*8/h", { h: 40 }, 0.046, "IEC 61000-3-2 Ed 5.0 Table 1 Class A, n = 40 → 0.046 A (computed from formula)"],
-    ["30*lambda", { lambda: 0.9 }, 27, "IEC 61000-3-2 Ed 5.0 Table 2 Class C third harmonic 30·λ % (arithmetic)"],
-    ["3.85/h", { h: 11 }, 0.35, "IEC 61000-3-2 Class D: 3.85/11 = 0.35 mA/W (computed from formula)"],
-    ["1.5*(0.15*15/h)", { h: 21 }, 0.16071, "Class B = 1.5 × Class A, n = 21 → 0.1607 A (computed from formula)"],
-    ["2+3*4", {}, 14, "arithmetic precedence"],
-    ["(2+3)*4", {}, 20, "parentheses"],
+    ["0.15*15/h", { h: 15 }, 0.15, "IEC 61000-3-2:2018+A1:2020 Table 1 Class A formula, n = 15 (computed from formula)"],
+    ["0.15*15/h", { h: 21 }, 0.10714, "IEC 61000-3-2:2018+A1:2020 Table 1 Class A, n = 21 → 0.1071 A (computed from formula)"],
+    ["0.23*8/h", { h: 40 }, 0.046, "IEC 61000-3-2:2018+A1:2020 Table 1 Class A, n = 40 → 0.046 A (computed from formula)"],
+    ["30*lambda", { lambda: 0.9 }, 27, "IEC 61000-3-2:2018+A1:2020 Table 2 Class C third harmonic 30·λ % (arithmetic)"],
+    ["3.85/h", { h: 11 }, 0.35, "IEC 61000-3-2:2018+A1:2020 Table 3 Class D: 3.85/11 = 0.35 mA/W (computed from formula)"],
+    ["1.5*(0.15*15/h)", { h: 21 }, 0.16071, "IEC 61000-3-2:2018+A1:2020 Class B = 1.5 × Table 1, n = 21 → 0.1607 A (computed from formula)"],
+    ["2+3*4", {}, 14, "arithmetic precedence, common practice, no source"],
+    ["(2+3)*4", {}, 20, "parentheses, common practice, no source"],
     ["-2^2", {}, -4, "^ binds tighter than unary minus (common practice)"],
     ["2^3^2", {}, 512, "^ is right-associative (common practice)"],
-    ["1e-3*P", { P: 500 }, 0.5, "exponent notation; P in W"],
-    [".5 + h", { h: 2 }, 2.5, "leading-dot decimal and whitespace"],
+    ["1e-3*P", { P: 500 }, 0.5, "exponent notation, common practice, no source; P in W"],
+    [".5 + h", { h: 2 }, 2.5, "leading-dot decimal and whitespace, common practice, no source"],
   ])("%s with %o = %d (%s)", (formula, variables, expected) => {
     expect(evaluateFormula(formula, variables)).toBeCloseTo(expected, 4);
   });

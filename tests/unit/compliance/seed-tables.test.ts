@@ -1,6 +1,7 @@
-// The seeded limit sets against the published tables. Expected values and their markers come
-// from /work/shared/reference/standards.md: confirmed (C), secondary source (C*), from memory (M),
-// computed from formula (X).
+// The seeded limit sets against the published tables (IEC 61000-3-2:2018+A1:2020 Tables 1–4,
+// IEC 61000-3-12:2011 Tables 2–4, IEEE Std 519-2014 Tables 1–4 / 519-2022). Markers beside each
+// value: C = as printed in the standard named; C* = confirmed only by a secondary engineering note
+// reproducing the standard; M = from memory; X = computed from the standard's formula in the test.
 import { describe, expect, test } from "vitest";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { LimitSetRevisionContentSchema, type EvaluationContext } from "@/lib/compliance/model";
@@ -46,7 +47,7 @@ describe("seed limit sets validate against the schema", () => {
     expect(getSeedLimitSet("nope")).toBeUndefined();
   });
 
-  test("IEC 61000-3-12 seed says Table 5 is left out (reference marks it UNVERIFIED)", () => {
+  test("IEC 61000-3-12 seed says Table 5 is left out (its conditions (d)(e)(f) are from memory only, not verified against the printed IEC 61000-3-12:2011)", () => {
     const set = getSeedLimitSet("iec-61000-3-12");
     expect(set?.content.description).toMatch(/Table 5 .*NOT included/);
     expect(set?.content.bands.some((band) => band.label.includes("Table 5"))).toBe(false);
@@ -73,7 +74,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A (A)", () => {
     expect(limitOf("iec-61000-3-2-class-a", order)).toBeCloseTo(expected, 4);
   });
 
-  test("POHC limit = 0.2514 A (IEC 61000-3-2 POHC over orders 21–39; formula from memory, number computed from formula)", () => {
+  test("POHC limit = 0.2514 A (IEC 61000-3-2:2018+A1:2020 clause 7 POHC over orders 21–39; formula from memory, number computed from formula)", () => {
     expect(aggregateLimitOf("iec-61000-3-2-class-a", "POHC")).toBeCloseTo(0.2514, 4);
   });
 });
@@ -191,7 +192,7 @@ describe("IEC 61000-3-12 Ed 2.0 (2011) Tables 2–4 (% of Iref)", () => {
   });
 });
 
-describe("IEEE 519 current limits, Tables 2–4 (% of IL)", () => {
+describe("IEEE Std 519-2014 current limits, Tables 2–4 (% of IL)", () => {
   const table2 = (iscOverIl: number) => ({ busVoltageV: 480, iscA: iscOverIl * 100, ilA: 100 });
   test.each([
     ["2014 Table 2, Isc/IL 20–50, 3 ≤ h < 11 (C)", "ieee-519-2014-current", table2(30), 5, 7.0],

@@ -1,5 +1,6 @@
-// Interval logs: mapping suggestions, timestamp formats, import errors and gaps, and the IEEE 519
-// percentile rules over a week of 10-minute values. Fixtures: fixtures/intervals/generate.ts.
+// Interval logs: mapping suggestions, timestamp formats, import errors and gaps, and the IEEE Std
+// 519-2014 §5.2 percentile rules over a week of 10-minute values. Fixtures: fixtures/intervals/generate.ts
+// writes known values (written out beside each check); expected statistics are worked by hand from them.
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
@@ -17,7 +18,7 @@ const limitSet = (key: string) => {
   const set = getSeedLimitSet(key)!;
   return { key, name: set.name, revision: { id: `seed:${key}`, number: 1 }, content: set.content };
 };
-// Isc/IL = 100 at 480 V → IEEE 519-2014 Table 2 row 100 ≤ Isc/IL < 1000: odd 3 ≤ h < 11 → 12 % of IL (confirmed).
+// Isc/IL = 100 at 480 V → IEEE 519-2014 Table 2 row 100 ≤ Isc/IL < 1000: odd 3 ≤ h < 11 → 12 % of IL (as printed in the standard).
 const CONTEXT = { iscA: 10_000, ilA: 100, busVoltageV: 480 };
 
 describe("parseTimestamp (accepted: ISO 8601, YYYY-MM-DD HH:MM:SS, DD.MM.YYYY HH:MM:SS)", () => {
@@ -162,7 +163,7 @@ describe("importIntervalLog", () => {
 
 describe("evaluateIntervalLog: IEEE 519-2014 weekly percentiles of 10-minute values (§5.2, multipliers from memory)", () => {
   // h5 = 0.0125·r A and h7 = 0.013·r A, r a permutation of 1..1008, I1 = 100 A, IL = 100 A (so A = % of IL).
-  // Nearest rank: p95 = the ⌈0.95·1008⌉ = 958th value, p99 = the ⌈0.99·1008⌉ = 998th.
+  // Nearest rank (common practice, no source; IEEE Std 519-2014 §5.2 names the percentile, not the method): p95 = the ⌈0.95·1008⌉ = 958th value, p99 = the ⌈0.99·1008⌉ = 998th.
   const rank = (k: number): number => ((k * 389) % 1008) + 1;
   const lines = ["Timestamp,I1 H1 avg [A],I1 H5 avg [A],I1 H7 avg [A]"];
   for (let k = 0; k < 1008; k++) {

@@ -23,7 +23,12 @@ describe("importIntervalLogFile", () => {
     const file = "fixtures/intervals/week-10min-3ch.csv";
     const text = readFileSync(file, "utf8");
     const mapping = inspectIntervalLog(text).suggestion.mapping!;
-    expect(await importIntervalLogFile(file, mapping)).toEqual(importIntervalLog(text, mapping));
+    const fromFile = await importIntervalLogFile(file, mapping);
+    // Anchored to the fixture itself (fixtures/intervals/generate.ts): 7 days × 144 ten-minute rows.
+    expect(fromFile.timestampsMs.length).toBe(7 * 144);
+    expect(fromFile.intervalS).toBe(600);
+    // …and the streamed chunks change nothing against the whole text read at once.
+    expect(fromFile).toEqual(importIntervalLog(text, mapping));
   });
 
   test("a Latin-1 log with a preamble, ';' cells, decimal commas and a quoted header holding the delimiter", async () => {

@@ -36,7 +36,7 @@ describe("parseMitigationSpec", () => {
 describe("buildWhatIfReport", () => {
   const set = getSeedLimitSet("ieee-519-2014-current")!;
   const limitSet = { key: set.key, name: set.name, revision: { id: "r1", number: 1 }, content: set.content };
-  // A drive of 100 A fundamental on a 480 V bus with Isc = 5 kA and IL = 150 A (Isc/IL 33: 7 % per order below the 11th, TDD 8 %).
+  // A drive of 100 A fundamental on a 480 V bus with Isc = 5 kA and IL = 150 A (Isc/IL 33: 7 % per order below the 11th, TDD 8 % — IEEE Std 519-2014 Table 2, row 20 ≤ Isc/IL < 50).
   const context = { iscA: 5000, ilA: 150, busVoltageV: 480 };
   const drive = FAMILY_MODELS["six-pulse-capacitor"].exact({ acInductancePercent: 0.5, dcChokePercent: 0 });
   const analysis = syntheticAnalysis(drive, { noise: 0.01, seed: 3 });
@@ -49,7 +49,7 @@ describe("buildWhatIfReport", () => {
     const h5 = ch.harmonics.find((h) => h.order === 5)!;
     expect(h5.rms!).toBeLessThan(h5.measuredRms! * 0.6);
     expect(ch.thdPercent).toBeLessThan(ch.measuredThdPercent * 0.5);
-    // 5.5 % total reactance: between the 3 % and 5 % rows of common practice (THD 30–45 %), ±30 %.
+    // 5.5 % total reactance: between the 3 % and 5 % rows of common practice, no source (THD 30–45 %), ±30 %.
     expect(ch.thdPercent).toBeGreaterThan(30 * 0.7);
     expect(ch.thdPercent).toBeLessThan(45 * 1.3);
     expect(ch.tddPercent).toBeCloseTo((ch.thdPercent * 100) / 150, 6);

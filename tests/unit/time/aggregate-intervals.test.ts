@@ -1,5 +1,5 @@
-// 150/180-cycle (≈ 3 s) and 10-minute aggregation of window values (IEC 61000-4-30 r.m.s.
-// aggregation — from memory; reference §3.3 and §4.5).
+// 150/180-cycle (≈ 3 s) and 10-minute aggregation of window values (IEC 61000-4-30:2015
+// §4.5.2–4.5.3 r.m.s. aggregation: square root of the mean of the squared inputs — from memory).
 import { describe, expect, test } from "vitest";
 import { aggregateIntervals } from "@/lib/analysis/aggregate-intervals";
 import { planIntervals } from "@/lib/analysis/plan-intervals";

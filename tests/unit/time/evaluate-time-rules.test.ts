@@ -1,5 +1,5 @@
-// Time rules in the evaluator: IEC 61000-3-2 smoothed average / 150 % maximum / POHC allowance /
-// Class A 200 % relaxation, IEEE 519 percentiles, and records too short for a rule.
+// Time rules in the evaluator: IEC 61000-3-2:2018+A1:2020 clause 6.2 smoothed average / 150 % maximum / POHC allowance /
+// Class A 200 % relaxation, IEEE Std 519-2014 §5.2 percentiles, and records too short for a rule.
 import { describe, expect, test } from "vitest";
 import { evaluateCompliance } from "@/lib/compliance/evaluate-compliance";
 import type { EvaluationContext, LimitSetRevisionContentInput } from "@/lib/compliance/model";
@@ -33,11 +33,11 @@ const SECONDS = (s: number): number => Math.round(s / 0.2);
 const classA = (orders: SeriesChannelSpec["orders"], seconds = 120): AnalysisResult =>
   makeSeriesAnalysis(SECONDS(seconds), [{ name: "I", fundamental: 5, orders }]);
 
-describe("IEC 61000-3-2 Class A: average of 1.5 s smoothed values and the 150 % rule (order 11, limit 0.33 A — Table 1, confirmed)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 Class A: average of 1.5 s smoothed values and the 150 % rule (order 11, limit 0.33 A — Table 1, as printed)", () => {
   test("passes the average but fails the maximum: 20 s at 0.6 A in 120 s at 0.2 A (clause 6.2: smoothed values ≤ 150 % — from memory)", () => {
     const result = run("iec-61000-3-2-class-a", classA({ 11: burst(50, 70, 0.6, 0.2) }));
     const h11 = row(result, 11);
-    // Average ≈ (100·0.2 + 20·0.6)/120 = 0.267 A ≤ 0.33 A (clause 6.2, averaging confirmed).
+    // Average ≈ (100·0.2 + 20·0.6)/120 = 0.267 A ≤ 0.33 A (IEC 61000-3-2:2018+A1:2020 clause 6.2, averaging as printed).
     expect(rule(h11, "smoothed-average").verdict).toBe("pass");
     expect(rule(h11, "smoothed-average").measured).toBeCloseTo(0.2667, 2);
     // Smoothed maximum = 0.2 + 0.4·(1 − e^(−20/1.5)) ≈ 0.6 A > 1.5 × 0.33 = 0.495 A.
@@ -50,7 +50,7 @@ describe("IEC 61000-3-2 Class A: average of 1.5 s smoothed values and the 150 % 
     expect(result.verdict).toBe("fail");
   });
 
-  test("fails the average but passes the maximum: a steady 0.36 A = 109 % (clause 6.2 average ≤ 100 % — averaging confirmed)", () => {
+  test("fails the average but passes the maximum: a steady 0.36 A = 109 % (IEC 61000-3-2:2018+A1:2020 clause 6.2 average ≤ 100 % — averaging as printed, '≤' from memory)", () => {
     const result = run("iec-61000-3-2-class-a", classA({ 11: () => 0.36 }));
     const h11 = row(result, 11);
     expect(rule(h11, "smoothed-max").verdict).toBe("pass");
@@ -60,7 +60,7 @@ describe("IEC 61000-3-2 Class A: average of 1.5 s smoothed values and the 150 % 
     expect(h11.percentOfLimit).toBeCloseTo(109.09, 2);
   });
 
-  test("a single 200 ms spike to 0.8 A is attenuated by the 1.5 s filter to 0.2 + 0.6/α ≈ 0.275 A and passes (IEC 61000-4-7 smoothing)", () => {
+  test("a single 200 ms spike to 0.8 A is attenuated by the 1.5 s filter to 0.2 + 0.6/α ≈ 0.275 A and passes (IEC 61000-4-7:2002+A1:2008 §5.5.1 smoothing)", () => {
     const result = run("iec-61000-3-2-class-a", classA({ 11: burst(60, 60.2, 0.8, 0.2) }));
     const h11 = row(result, 11);
     expect(rule(h11, "smoothed-max").measured).toBeCloseTo(0.2 + 0.6 / 8.0111, 4);
@@ -80,8 +80,8 @@ describe("IEC 61000-3-2 Class A: average of 1.5 s smoothed values and the 150 % 
   });
 });
 
-describe("IEC 61000-3-2 POHC allowance on the smoothed average (odd 21–39, 50 %, from memory; POHC limit Class A 0.2514 A — computed)", () => {
-  const limit21 = (0.15 * 15) / 21; // 0.10714 A, Table 1 formula (confirmed)
+describe("IEC 61000-3-2:2018+A1:2020 clause 7 POHC allowance on the smoothed average (odd 21–39, 50 %, from memory; POHC limit Class A √Σ_{n=21,23…39} (2.25/n)² = 0.2514 A, by hand from Table 1)", () => {
+  const limit21 = (0.15 * 15) / 21; // 0.10714 A, IEC 61000-3-2:2018+A1:2020 Table 1 formula 0.15·15/n
 
   test("I21 = 0.14 A (130.7 %) alone: POHC 0.14 A ≤ 0.2514 A and every smoothed value ≤ 150 % → passes by the allowance", () => {
     const h21 = row(run("iec-61000-3-2-class-a", classA({ 21: () => 0.14 })), 21);
@@ -111,7 +111,7 @@ describe("IEC 61000-3-2 POHC allowance on the smoothed average (odd 21–39, 50 
   });
 });
 
-describe("IEC 61000-3-2 Class A 200 % relaxation (from memory; data, off unless enabled)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 clause 6.2 Class A 200 % relaxation (from memory; data, off unless enabled)", () => {
   // 5 s at 0.6 A (182 %) in 120 s at 0.25 A: excursion above 150 % < min(10 % of 120 s, 10 min); average ≈ 0.265 A < 90 % of 0.33 A.
   const analysis = classA({ 11: burst(60, 65, 0.6, 0.25) });
   const seed = getSeedLimitSet("iec-61000-3-2-class-a")!.content;
@@ -141,7 +141,7 @@ describe("IEC 61000-3-2 Class A 200 % relaxation (from memory; data, off unless 
 });
 
 describe("IEEE 519-2014 current percentiles on a 20-minute capture (§5.2 multipliers from memory)", () => {
-  // Isc/IL = 100 at 480 V → Table 2 row 100 ≤ Isc/IL < 1000: h5 limit 12 % of IL (confirmed). IL = 100 A so A = % of IL.
+  // Isc/IL = 100 at 480 V → Table 2 row 100 ≤ Isc/IL < 1000: h5 limit 12 % of IL (IEEE Std 519-2014 Table 2, as printed). IL = 100 A so A = % of IL.
   const context: EvaluationContext = { iscA: 10_000, ilA: 100, busVoltageV: 480 };
   // 400 three-second blocks (15 windows each); block i (1-based) carries 0.05·i A of h5.
   const analysis = makeSeriesAnalysis(6000, [{ name: "Ia", fundamental: 100, orders: { 5: (k) => 0.05 * (Math.floor(k / 15) + 1) } }]);
@@ -220,7 +220,7 @@ describe("records too short for a rule → not-evaluated with the minimum durati
   });
 });
 
-describe("IEEE 519 voltage (Table 1 statistics, confirmed): daily p99 of 3 s < 1.5 ×, weekly p95 of 10 min < 1.0 ×", () => {
+describe("IEEE Std 519-2014 voltage (§5.1 and Table 1 statistics — from memory): daily p99 of 3 s < 1.5 ×, weekly p95 of 10 min < 1.0 ×", () => {
   test("a 12-minute 230 V record with h5 at 4 % of nominal passes both; h7 at 5.5 % fails the 10-minute p95 (limit 5 %)", () => {
     const analysis = makeSeriesAnalysis(3600, [{ name: "Va", quantity: "voltage", fundamental: 230, orders: { 5: () => 9.2, 7: () => 12.65 } }]);
     const result = run("ieee-519-2014-voltage", analysis, { busVoltageV: 400, nominalVoltageV: 230 });
