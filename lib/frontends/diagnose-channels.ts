@@ -1,5 +1,6 @@
 import type { AnalysisResult } from "../analysis/types";
 import { describeCandidate } from "./describe-candidate";
+import { FAMILY_LABELS } from "./family-labels";
 import { fitFamily } from "./fit-family";
 import { measuredSpectrum } from "./measured-spectrum";
 import { FRONT_END_FAMILIES, FRONT_END_MODEL_VERSION, type FrontEndFamily, type FrontEndParameters } from "./types";
@@ -62,7 +63,7 @@ export function diagnoseChannels(analysis: AnalysisResult, channelName?: string)
     const good = best.fitErrorPercent <= GOOD_FIT_PERCENT;
     const summary = good
       ? `The spectrum ${best.description} (fit error ${best.fitErrorPercent.toFixed(1)} % of fundamental).`
-      : `No model fits within ${GOOD_FIT_PERCENT} % (best: ${best.family}, ${best.fitErrorPercent.toFixed(1)} % of fundamental); the load may be a mix of front ends.`;
+      : `No model fits within ${GOOD_FIT_PERCENT} % (best: ${FAMILY_LABELS[best.family]}, ${best.fitErrorPercent.toFixed(1)} % of fundamental); the load may be a mix of front ends.`;
     return { name: channel.name, candidates, fits: good, summary, usedVoltage: measured.hasVoltage };
   });
   return { modelVersion: FRONT_END_MODEL_VERSION, channels };

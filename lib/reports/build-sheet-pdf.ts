@@ -127,7 +127,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     const keyWidth = 120;
     for (const [k, v] of pairs) {
       doc.font("Helvetica").fontSize(9);
-      const h = Math.max(doc.heightOfString(pdfSafe(v), { width: width - keyWidth }), 11);
+      // The taller of the two columns: a long key (e.g. "Voltages Va (V), Vb (V), Vc (V)") wraps too.
+      const h = Math.max(doc.heightOfString(pdfSafe(v), { width: width - keyWidth }), doc.heightOfString(pdfSafe(k), { width: keyWidth - 8 }), 11);
       ensure(h + 2);
       const y = doc.y;
       doc.fillColor(colours.muted).text(pdfSafe(k), margin, y, { width: keyWidth - 8 });

@@ -82,7 +82,8 @@ export function describeContext(context: EvaluationContext | Record<string, unkn
     const from = c.busVoltageSource === "system-nominal" ? " (the system's nominal voltage; no bus voltage given)" : "";
     out.push(["Bus voltage", `${formatNumber(c.busVoltageV)} V${from}`]);
   }
-  if (c.nominalVoltageV !== undefined) out.push(["Nominal voltage", `${formatNumber(c.nominalVoltageV)} V`]);
+  // The measured channels' own nominal (line-to-neutral on a three-phase set), not the system's: say so beside the bus voltage.
+  if (c.nominalVoltageV !== undefined) out.push(["Nominal voltage of the channels", `${formatNumber(c.nominalVoltageV)} V`]);
   if (c.phaseConfig !== undefined) out.push(["Phase configuration", phaseConfigLabels[c.phaseConfig] ?? c.phaseConfig]);
   if (c.isGenerator) out.push(["Generator", "yes"]);
   if (c.interpolate === false) out.push(["Rsce interpolation", "off"]);

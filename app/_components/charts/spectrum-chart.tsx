@@ -12,7 +12,7 @@ export type SpectrumMode = "amperes" | "percent";
  * The limit of a row in the channel's own unit (A or V). Measured and limit share the row's unit and
  * every basis is linear in amperes, so limit / measured = limitA / rmsA whatever the basis.
  */
-function limitInChannelUnit(row: ComplianceRow, rms: number | null, fundamentalRms: number): number | null {
+export function limitInChannelUnit(row: ComplianceRow, rms: number | null, fundamentalRms: number): number | null {
   if (row.limit === null) return null;
   if (row.unit === "A" || row.unit === "V") return row.limit;
   if (row.unit === "%I1" || row.unit === "%V1") return (row.limit / 100) * fundamentalRms;
@@ -30,7 +30,7 @@ function decidedByTimeRule(row: ComplianceRow): boolean {
  * statistic where one decided, else the capture mean. Bases other than A, V, %I1 and %V1 keep
  * the capture mean (their scale to amperes is not known here).
  */
-function judgedInChannelUnit(row: ComplianceRow | undefined, rms: number | null, fundamentalRms: number): number | null {
+export function judgedInChannelUnit(row: ComplianceRow | undefined, rms: number | null, fundamentalRms: number): number | null {
   if (!row || !decidedByTimeRule(row) || row.measured === null) return rms;
   if (row.unit === "A" || row.unit === "V") return row.measured;
   if (row.unit === "%I1" || row.unit === "%V1") return (row.measured / 100) * fundamentalRms;

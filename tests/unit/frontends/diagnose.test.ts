@@ -101,6 +101,8 @@ describe("diagnosis of synthetic spectra (1 % noise)", () => {
     const channel = diagnoseChannels(syntheticAnalysis({ magnitude, phaseRad })).channels[0]!;
     expect(channel.fits).toBe(false);
     expect(channel.summary).toMatch(/^No model fits within 5 %/);
+    // The best family is named in words for people, not by its key (e.g. "thyristor-bridge").
+    expect(channel.summary).not.toContain(`best: ${channel.candidates[0]!.family},`);
   });
 
   test("a named channel that is not a current channel is refused with its name", () => {

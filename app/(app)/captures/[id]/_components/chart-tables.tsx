@@ -1,5 +1,6 @@
 "use client";
 
+import { judgedInChannelUnit, limitInChannelUnit } from "@/app/_components/charts/spectrum-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { formatNumber, formatPercent } from "@/lib/reports/format";
@@ -29,9 +30,14 @@ export function FailingOrdersText({ rows }: { rows: ComplianceRow[] }) {
   );
 }
 
-/** The spectrum's bars and limit marks as rows: order, measured, limit, % of limit, verdict. */
+/**
+ * The spectrum's bars and limit marks as rows: order, measured, limit, % of limit, verdict — the same
+ * values the chart draws, in the channel's unit (the value a deciding time rule compared, and the
+ * row's limit converted from its basis; "—" where the chart has no conversion either).
+ */
 export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channels"][number]; rows: ComplianceRow[] }) {
   const byOrder = new Map(rows.map((r) => [r.order, r]));
+  const fundamental = channel.harmonics.find((h) => h.order === 1)?.rms ?? null;
   return (
     <Toggle testId="spectrum-table">
       <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
@@ -41,12 +47,14 @@ export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channe
         <tbody>
           {channel.harmonics.map((h) => {
             const row = byOrder.get(h.order);
+            const shown = fundamental ? judgedInChannelUnit(row, h.rms, fundamental) : h.rms;
+            const limit = row && fundamental ? limitInChannelUnit(row, h.rms, fundamental) : null;
             return (
               <tr key={h.order}>
                 <th scope="row">h{h.order}</th>
-                <td>{formatNumber(h.rms)}</td>
-                <td>{formatPercent(h.percentOfFundamental)}</td>
-                <td>{formatNumber(row?.limit ?? null)}</td>
+                <td>{formatNumber(shown)}</td>
+                <td>{formatPercent(shown !== null && fundamental ? (shown / fundamental) * 100 : h.percentOfFundamental)}</td>
+                <td>{formatNumber(limit)}</td>
                 <td>{formatPercent(row?.percentOfLimit ?? null)}</td>
                 <td>{row ? <VerdictBadge verdict={row.verdict} /> : "—"}</td>
               </tr>

@@ -21,9 +21,9 @@ const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "
  * Nothing shows on share pages (their charts URL is not a capture's).
  */
 export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult }) {
-  // The capture's API base from its charts URL (which may name an evaluation: "…/charts?evaluation=ID").
-  const path = chartsUrl.split("?")[0]!;
-  const base = path.startsWith("/api/captures/") && path.endsWith("/charts") ? path.slice(0, -"/charts".length) : null;
+  // The sheet's charts URL carries the shown evaluation as a query (…/charts?evaluation=…); only its path names the capture.
+  const chartsPath = chartsUrl.split("?")[0]!;
+  const base = chartsPath.startsWith("/api/captures/") && chartsPath.endsWith("/charts") ? chartsPath.slice(0, -"/charts".length) : null;
   // Interval logs have no waveform to diagnose (409): the panels stay away.
   const { error } = useCaptureDiagnosis(base);
   if (!base || (error instanceof FetchError && error.status === 409)) return null;

@@ -79,7 +79,10 @@ export function ReviewPanel({
         </span>
       </div>
       {events.length === 0 ? (
-        <p className="text-sm text-ink-muted">No review activity yet.</p>
+        <p className="text-sm text-ink-muted">
+          {/* A viewer is not shown the team's review history: do not claim there is none under "Approved". */}
+          {canAct || reviewState === "draft" ? "No review activity yet." : "The review history stays with the team; the sign-off above names the approver."}
+        </p>
       ) : (
         <ol className="space-y-2 border-l-2 border-line pl-3 text-sm" data-testid="review-history">
           {events.map((e) => (

@@ -15,7 +15,7 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
   return (
     <section className="panel space-y-4" data-testid="sheet-header">
       <div className="flex flex-wrap items-start justify-between gap-3">
-        <div className="min-w-0">
+        <div className="min-w-0 flex-1 basis-80">
           <p className="text-sm text-ink-soft" data-testid="sheet-site">{site.name}</p>
           <h1 className="break-words" data-testid="sheet-title">{capture.title}</h1>
           <p className="mt-1 text-sm text-ink-soft">
@@ -23,7 +23,7 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
             {sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""} · {capture.originalFilename}
           </p>
         </div>
-        <div className="flex flex-col items-start gap-1 sm:items-end">
+        <div className="flex flex-col items-start gap-1 sm:max-w-64 sm:items-end sm:text-right">
           <span className="text-xs uppercase tracking-wide text-ink-muted">Overall verdict</span>
           <VerdictBadge verdict={result.verdict} size="lg" testId="sheet-verdict" />
           <span className={`text-xs ${signOff.approved ? "font-semibold text-pass" : "text-ink-muted"}`} data-testid="review-state-chip" data-approved={signOff.approved}>
