@@ -46,12 +46,15 @@ beforeAll(async () => {
 
 /**
  * Fills the dynamic segments. Reads go to a real capture and limit set; writes go to records that do not
- * exist, so a request that slipped through validation could still change nothing.
+ * exist, so a request that slipped through validation could still change nothing. The set-up writes are
+ * the exception: they authorise against the capture before reading the body (a missing one is 404), so
+ * they go to a real capture — an approved one, whose set-up no hostile body could change anyway.
  */
 function fill(url: string, method: string): string {
   const write = method !== "GET";
+  const setupWrite = /\/(interval-)?setup$/.test(url);
   return url
-    .replace("[id]", url.startsWith("/api/users") ? "no-such-user" : write ? missingId : captureId)
+    .replace("[id]", url.startsWith("/api/users") ? "no-such-user" : write && !setupWrite ? missingId : captureId)
     .replace("[shareId]", missingId)
     .replace("[key]", write ? "no-such-set" : "iec-61000-3-2-class-a")
     .replace("[number]", "1")

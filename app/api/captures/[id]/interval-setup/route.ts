@@ -9,8 +9,8 @@ import { intervalSetupSchema } from "@/lib/validations/capture";
 export const PUT = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const setup = intervalSetupSchema.parse(await readJson(req));
     authoriseCaptureEdit(user, await getCaptureById({ id, reader: user }));
+    const setup = intervalSetupSchema.parse(await readJson(req));
     return NextResponse.json({ capture: await saveIntervalSetup({ id, setup, actorId: user.id, reader: user }) });
   },
   { permission: "captures:upload" },

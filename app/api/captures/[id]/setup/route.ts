@@ -9,8 +9,8 @@ import { captureSetupSchema } from "@/lib/validations/capture";
 export const PUT = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    const setup = captureSetupSchema.parse(await readJson(req));
     authoriseCaptureEdit(user, await getCaptureById({ id, reader: user }));
+    const setup = captureSetupSchema.parse(await readJson(req));
     return NextResponse.json({ capture: await saveCaptureSetup({ id, setup, actorId: user.id, reader: user }) });
   },
   { permission: "captures:upload" },
