@@ -1,6 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { SafetyNote } from "@/app/_components/safety-note";
+import { SafetyFooter, SafetyNote } from "@/app/_components/safety-note";
 import { AppError } from "@/lib/errors";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
@@ -60,11 +60,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
           )}
         </section>
       </main>
-      <footer className="border-t border-line">
-        <div className="mx-auto max-w-6xl px-4 py-3">
-          <SafetyNote compact />
-        </div>
-      </footer>
+      <SafetyFooter />
     </div>
   );
 }
