@@ -8,6 +8,7 @@ import path from "node:path";
 import S3rver from "s3rver";
 import { SMTPServer } from "smtp-server";
 import { simpleParser } from "mailparser";
+import type { CaughtMail } from "../lib/mail/caught-mail";
 
 function required(name: string): string {
   const value = process.env[name];
@@ -44,19 +45,9 @@ const s3 = new S3rver({
   configureBuckets: [{ name: bucket, configs: [cors] }],
 });
 
-interface CaughtMessage {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-  html: string | null;
-}
-
 const mailFile = path.join(path.dirname(s3Dir), "mailbox.json");
-const messages: CaughtMessage[] = fs.existsSync(mailFile)
-  ? (JSON.parse(fs.readFileSync(mailFile, "utf8")) as CaughtMessage[])
+const messages: CaughtMail[] = fs.existsSync(mailFile)
+  ? (JSON.parse(fs.readFileSync(mailFile, "utf8")) as CaughtMail[])
   : [];
 let nextId = messages.length + 1;
 

@@ -1,7 +1,7 @@
 import Link from "next/link";
 import type { User } from "lucia";
 import { can, roleLabels, type Permission } from "@/lib/auth/permissions";
-import { SafetyNote } from "./safety-note";
+import { SafetyFooter } from "./safety-note";
 import { SignOutButton } from "./sign-out-button";
 import { NavLinks } from "./nav-links";
 
@@ -36,11 +36,7 @@ export function AppShell({ user, children }: { user: User; children: React.React
         </div>
       </header>
       <main className="mx-auto w-full max-w-6xl flex-1 px-4 py-6">{children}</main>
-      <footer className="border-t border-line">
-        <div className="mx-auto max-w-6xl px-4 py-3">
-          <SafetyNote compact />
-        </div>
-      </footer>
+      <SafetyFooter />
     </div>
   );
 }

@@ -8,3 +8,14 @@ export function SafetyNote({ compact = false }: { compact?: boolean }) {
     </p>
   );
 }
+
+/** The page footer carrying the compact caution (signed-in pages and the shared sheet). */
+export function SafetyFooter() {
+  return (
+    <footer className="border-t border-line">
+      <div className="mx-auto max-w-6xl px-4 py-3">
+        <SafetyNote compact />
+      </div>
+    </footer>
+  );
+}

@@ -219,13 +219,18 @@ export async function setCapturedAt({ id, capturedAt }: { id: string; capturedAt
   await db.update(captures).set({ capturedAt }).where(eq(captures.id, id));
 }
 
+/** Checks the chosen limit set exists, then locks the capture row for a set-up save (visible and still editable by this reader). */
+async function lockSetupEditable(tx: Tx, { id, limitSetKey, reader }: { id: string; limitSetKey: string; reader: Reader }): Promise<void> {
+  const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, limitSetKey));
+  if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
+  const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
+  if (!current) throw new AppError("not_found", "No such capture.");
+  assertSetupEditable(current, reader);
+}
+
 export async function saveCaptureSetup({ id, setup, actorId, reader }: { id: string; setup: CaptureSetup; actorId: string; reader: Reader }): Promise<Capture> {
   return db.transaction(async (tx) => {
-    const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
-    if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
-    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
-    if (!current) throw new AppError("not_found", "No such capture.");
-    assertSetupEditable(current, reader);
+    await lockSetupEditable(tx, { id, limitSetKey: setup.limitSetKey, reader });
     const [capture] = await tx
       .update(captures)
       .set({ mapping: setup.mapping, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })
@@ -240,11 +245,7 @@ export async function saveCaptureSetup({ id, setup, actorId, reader }: { id: str
 /** Saves an interval log's column mapping, limit set and context, and remembers the mapping on its site. */
 export async function saveIntervalSetup({ id, setup, actorId, reader }: { id: string; setup: IntervalSetup; actorId: string; reader: Reader }): Promise<Capture> {
   return db.transaction(async (tx) => {
-    const [set] = await tx.select({ id: limitSets.id }).from(limitSets).where(eq(limitSets.key, setup.limitSetKey));
-    if (!set) throw new AppError("validation", "Choose a limit set", { limitSetKey: ["No such limit set"] });
-    const [current] = await tx.select().from(captures).where(and(eq(captures.id, id), capturesVisibleTo(reader))).for("update");
-    if (!current) throw new AppError("not_found", "No such capture.");
-    assertSetupEditable(current, reader);
+    await lockSetupEditable(tx, { id, limitSetKey: setup.limitSetKey, reader });
     const [capture] = await tx
       .update(captures)
       .set({ mapping: { intervalMapping: setup.intervalMapping }, context: setup.context, limitSetKey: setup.limitSetKey, setupBy: actorId, updatedAt: new Date() })

@@ -1,5 +1,6 @@
-import { boolean, integer, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { boolean, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 import { roleEnum } from "./enums";
+import { createdAtColumn, idColumn } from "./columns";
 
 export const users = pgTable("users", {
   id: text("id").primaryKey(),
@@ -9,7 +10,7 @@ export const users = pgTable("users", {
   // Null until an invited user sets a password.
   passwordHash: text("password_hash"),
   active: boolean("active").notNull().default(true),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
 });
 
 // Shape required by @lucia-auth/adapter-drizzle.
@@ -24,7 +25,7 @@ export const sessions = pgTable("sessions", {
 });
 
 export const invitations = pgTable("invitations", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: idColumn(),
   // SHA-256 of the token sent by e-mail; the token itself is never stored.
   tokenHash: text("token_hash").notNull().unique(),
   userId: text("user_id")
@@ -33,7 +34,7 @@ export const invitations = pgTable("invitations", {
   invitedBy: text("invited_by").references(() => users.id),
   expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
   acceptedAt: timestamp("accepted_at", { withTimezone: true }),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
 });
 
 // Sign-in throttling: one row per key ("account:<e-mail>" or "client:<address>"), claimed atomically by an

@@ -2,12 +2,11 @@ import { bigint, integer, jsonb, pgTable, text, timestamp, uuid } from "drizzle-
 import { users } from "./auth";
 import { captureKindEnum, captureStatusEnum, reviewStateEnum } from "./enums";
 import { sites } from "./sites";
+import { createdAtColumn, idColumn, requiredRef } from "./columns";
 
 export const captures = pgTable("captures", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  siteId: uuid("site_id")
-    .notNull()
-    .references(() => sites.id, { onDelete: "restrict" }),
+  id: idColumn(),
+  siteId: requiredRef("site_id", () => sites.id, "restrict"),
   title: text("title").notNull(),
   // A waveform record (scope/analyser samples) or an interval log (per-interval values from a logger).
   kind: captureKindEnum("kind").notNull().default("waveform"),
@@ -36,7 +35,7 @@ export const captures = pgTable("captures", {
   withdrawnAt: timestamp("withdrawn_at", { withTimezone: true }),
   capturedAt: timestamp("captured_at", { withTimezone: true }),
   uploadedBy: text("uploaded_by").references(() => users.id),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

@@ -1,21 +1,20 @@
-import { pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { pgTable, primaryKey, text } from "drizzle-orm/pg-core";
 import { users } from "./auth";
+import { createdAtColumn, idColumn, requiredRef } from "./columns";
 
 // An organisation that owns sites (a facility operator, an equipment maker). Outside readers
 // (viewers) belong to one or more customers and read only the approved sheets of those sites.
 export const customers = pgTable("customers", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: idColumn(),
   name: text("name").notNull().unique(),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
 });
 
 // Which viewers belong to which customer.
 export const customerMembers = pgTable(
   "customer_members",
   {
-    customerId: uuid("customer_id")
-      .notNull()
-      .references(() => customers.id, { onDelete: "cascade" }),
+    customerId: requiredRef("customer_id", () => customers.id, "cascade"),
     userId: text("user_id")
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),

@@ -1,8 +1,9 @@
-import { boolean, date, index, integer, jsonb, pgTable, text, timestamp, unique, uuid } from "drizzle-orm/pg-core";
+import { boolean, date, index, integer, jsonb, pgTable, text, unique, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
+import { createdAtColumn, idColumn, requiredRef } from "./columns";
 
 export const limitSets = pgTable("limit_sets", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: idColumn(),
   key: text("key").notNull().unique(),
   name: text("name").notNull(),
   standard: text("standard").notNull(),
@@ -10,23 +11,21 @@ export const limitSets = pgTable("limit_sets", {
   // Sets cloned by an admin (e.g. a utility's own limits) are custom; seeded ones are published.
   custom: boolean("custom").notNull().default(false),
   currentRevisionId: uuid("current_revision_id"),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
 });
 
 // A revision's content is immutable: an edit always inserts a new revision.
 export const limitSetRevisions = pgTable(
   "limit_set_revisions",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    limitSetId: uuid("limit_set_id")
-      .notNull()
-      .references(() => limitSets.id, { onDelete: "cascade" }),
+    id: idColumn(),
+    limitSetId: requiredRef("limit_set_id", () => limitSets.id, "cascade"),
     number: integer("number").notNull(),
     // Validated by LimitSetRevisionContentSchema (lib/compliance/model.ts).
     content: jsonb("content").$type<unknown>().notNull(),
     reason: text("reason").notNull(),
     authorId: text("author_id").references(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [unique("limit_set_revisions_set_number").on(t.limitSetId, t.number)],
 );
@@ -36,10 +35,8 @@ export const limitSetRevisions = pgTable(
 export const limitSetVerifications = pgTable(
   "limit_set_verifications",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    revisionId: uuid("revision_id")
-      .notNull()
-      .references(() => limitSetRevisions.id, { onDelete: "cascade" }),
+    id: idColumn(),
+    revisionId: requiredRef("revision_id", () => limitSetRevisions.id, "cascade"),
     // The printed edition held, e.g. "IEC 61000-3-2:2018 (Edition 5.0)".
     edition: text("edition").notNull(),
     // The clause or table checked row by row, e.g. "Table 1".
@@ -49,7 +46,7 @@ export const limitSetVerifications = pgTable(
     verifiedByName: text("verified_by_name").notNull(),
     verifiedOn: date("verified_on", { mode: "string" }).notNull(),
     note: text("note").notNull().default(""),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("limit_set_verifications_revision_idx").on(t.revisionId)],
 );

@@ -7,15 +7,14 @@ import { users } from "./auth";
 import { captures } from "./captures";
 import { reviewActionEnum } from "./enums";
 import { limitSetRevisions } from "./limits";
+import { createdAtColumn, idColumn, requiredRef } from "./columns";
 
 // One row per analysis run of a capture; the newest is the one the sheet shows.
 export const analyses = pgTable(
   "analyses",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    captureId: uuid("capture_id")
-      .notNull()
-      .references(() => captures.id, { onDelete: "cascade" }),
+    id: idColumn(),
+    captureId: requiredRef("capture_id", () => captures.id, "cascade"),
     // The whole engine result including the per-window series for the charts.
     result: jsonb("result").$type<AnalysisResult>().notNull(),
     // A few cycles of each channel's samples for the waveform chart.
@@ -27,7 +26,7 @@ export const analyses = pgTable(
     setupBy: text("setup_by").references(() => users.id),
     fileSha256: text("file_sha256"),
     createdBy: text("created_by").references(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("analyses_capture_idx").on(t.captureId)],
 );
@@ -36,23 +35,17 @@ export const analyses = pgTable(
 export const evaluations = pgTable(
   "evaluations",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    captureId: uuid("capture_id")
-      .notNull()
-      .references(() => captures.id, { onDelete: "cascade" }),
-    analysisId: uuid("analysis_id")
-      .notNull()
-      .references(() => analyses.id, { onDelete: "cascade" }),
-    limitSetRevisionId: uuid("limit_set_revision_id")
-      .notNull()
-      .references(() => limitSetRevisions.id, { onDelete: "restrict" }),
+    id: idColumn(),
+    captureId: requiredRef("capture_id", () => captures.id, "cascade"),
+    analysisId: requiredRef("analysis_id", () => analyses.id, "cascade"),
+    limitSetRevisionId: requiredRef("limit_set_revision_id", () => limitSetRevisions.id, "restrict"),
     context: jsonb("context").$type<Record<string, unknown>>().notNull(),
     result: jsonb("result").$type<ComplianceResult>().notNull(),
     verdict: text("verdict").notNull(),
     // The charts' data (lib/reports/chart-data.ts), built when the evaluation is stored; null for older rows.
     charts: jsonb("charts").$type<ChartData>(),
     createdBy: text("created_by").references(() => users.id),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("evaluations_capture_idx").on(t.captureId)],
 );
@@ -60,30 +53,26 @@ export const evaluations = pgTable(
 export const reviewEvents = pgTable(
   "review_events",
   {
-    id: uuid("id").primaryKey().defaultRandom(),
-    captureId: uuid("capture_id")
-      .notNull()
-      .references(() => captures.id, { onDelete: "cascade" }),
+    id: idColumn(),
+    captureId: requiredRef("capture_id", () => captures.id, "cascade"),
     evaluationId: uuid("evaluation_id").references(() => evaluations.id, { onDelete: "set null" }),
     actorId: text("actor_id").references(() => users.id),
     action: reviewActionEnum("action").notNull(),
     comment: text("comment").notNull().default(""),
-    createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+    createdAt: createdAtColumn(),
   },
   (t) => [index("review_events_capture_idx").on(t.captureId)],
 );
 
 export const shareLinks = pgTable("share_links", {
-  id: uuid("id").primaryKey().defaultRandom(),
-  captureId: uuid("capture_id")
-    .notNull()
-    .references(() => captures.id, { onDelete: "cascade" }),
+  id: idColumn(),
+  captureId: requiredRef("capture_id", () => captures.id, "cascade"),
   tokenHash: text("token_hash").notNull().unique(),
   label: text("label").notNull().default(""),
   createdBy: text("created_by").references(() => users.id),
   expiresAt: timestamp("expires_at", { withTimezone: true }).notNull(),
   revokedAt: timestamp("revoked_at", { withTimezone: true }),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
 });
 
 export type Analysis = typeof analyses.$inferSelect;

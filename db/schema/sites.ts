@@ -1,10 +1,11 @@
 import { doublePrecision, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import { users } from "./auth";
 import { customers } from "./customers";
+import { createdAtColumn, idColumn } from "./columns";
 
 // A site is where captures are taken: a facility's PCC or a test bench for equipment.
 export const sites = pgTable("sites", {
-  id: uuid("id").primaryKey().defaultRandom(),
+  id: idColumn(),
   name: text("name").notNull(),
   address: text("address").notNull().default(""),
   nominalVoltageV: doublePrecision("nominal_voltage_v").notNull(),
@@ -18,7 +19,7 @@ export const sites = pgTable("sites", {
   // The column mapping last used for this site's interval logs, offered again for the next one.
   intervalMapping: jsonb("interval_mapping").$type<Record<string, unknown>>(),
   createdBy: text("created_by").references(() => users.id),
-  createdAt: timestamp("created_at", { withTimezone: true }).notNull().defaultNow(),
+  createdAt: createdAtColumn(),
   updatedAt: timestamp("updated_at", { withTimezone: true }).notNull().defaultNow(),
 });
 

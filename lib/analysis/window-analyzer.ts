@@ -1,15 +1,14 @@
 // Per-window analysis and the whole-capture aggregation, fed one window at a time: the in-memory
 // path hands it windows cut from arrays, the streaming path windows cut from a ring buffer.
-import { summarizeWindows } from "./summarize-windows";
+import { aggregateWindows } from "./aggregate-windows";
 import { getFft } from "./get-fft";
-import { computeIndices } from "./indices";
 import { pairPhases } from "./pair-phases";
-import { pairPower } from "./power";
 import { applyResample, planResample, type ResamplePlan } from "./resample";
 import { sequenceComponents } from "./sequence";
-import type { AnalysisOptions, ChannelResult, HarmonicGroupValue, HarmonicValue, PhaseLabel, PowerPhase, Quantity, SequenceSet } from "./types";
+import type { AnalyzerChannel, ChannelState, WindowAggregate, WindowShape } from "./window-types";
+import type { AnalysisOptions } from "./types";
 
-const DC_WARNING_FRACTION = 0.02;
+export type { AnalyzerChannel, WindowAggregate, WindowShape } from "./window-types";
 
 /** Where a window's samples come from. */
 export interface WindowSource {
@@ -19,58 +18,6 @@ export interface WindowSource {
    * samples (the window spans whole cycles), the way the in-memory path always did.
    */
   copyWindow(channel: number, first: number, span: number, period: number, target: Float64Array): void;
-}
-
-/** Shape of the windows, fixed for a capture. */
-export interface WindowShape {
-  /** Cycles per window: 10 at 50 Hz, 12 at 60 Hz. */
-  cycles: number;
-  /** Points each window is resampled to (a power of two). */
-  points: number;
-  /** Orders stored per window (≥ 50). */
-  orders: number;
-  maxOrder: number;
-  resolvableOrder: number;
-  thdMaxOrder: number;
-  /** Half-width of the resampling kernel, in source samples (one for the whole capture). */
-  halfWidth: number;
-  /** Samples copied before a window's first sample for the interpolator. */
-  padding: number;
-  /** Samples copied per window (window + both paddings). */
-  span: number;
-}
-
-export interface AnalyzerChannel {
-  name: string;
-  quantity: Quantity;
-  phase: PhaseLabel | null;
-  scale: number;
-}
-
-interface ChannelState extends AnalyzerChannel {
-  points: Float64Array;
-  spectrum: Float64Array;
-  /** Per window × order (0..orders) r.m.s.; order 0 holds the signed DC. */
-  orderRms: Float64Array;
-  phasorSumRe: Float64Array;
-  phasorSumIm: Float64Array;
-  /** Sums of squares over windows of group, subgroup, interharmonic group and subgroup per order. */
-  groupSq: Float64Array;
-  subgroupSq: Float64Array;
-  interGroupSq: Float64Array;
-  interSubgroupSq: Float64Array;
-  windowRms: Float64Array;
-  windowThd: Float64Array;
-  windowPeak: Float64Array;
-  windowRe: Float64Array;
-  windowIm: Float64Array;
-}
-
-/** What {@link WindowAnalyzer.finish} returns: the channel results, power and sequence sets. */
-export interface WindowAggregate {
-  channels: ChannelResult[];
-  power: { phases: PowerPhase[]; total: { activePowerW: number; apparentPowerVA: number; truePowerFactor: number } | null };
-  sequence: SequenceSet[];
 }
 
 function grow(values: Float64Array, length: number): Float64Array {
@@ -278,157 +225,7 @@ export class WindowAnalyzer {
    * Complexity O(channels · orders · W log W) for the percentiles.
    */
   finish(options: AnalysisOptions, warnings: string[]): WindowAggregate {
-    const { channels, stride, pairs, sets, pairActive, pairProduct, sequenceSq } = this;
-    const { orders, maxOrder, resolvableOrder, thdMaxOrder } = this.shape;
-    const windowCount = this.count;
-  const eddyLossRatio = options.factorKEddyLossRatio ?? 0.1;
-  const exponent = options.factorKExponent ?? 1.7;
-  const meanRoot = (sumSq: number): number => Math.sqrt(sumSq / windowCount);
-  const results: ChannelResult[] = channels.map((ch) => {
-    const unit = ch.quantity === "current" ? "A" : "V";
-    const aggregated = new Float64Array(stride);
-    const harmonics: HarmonicValue[] = [];
-    for (let h = 1; h <= orders; h++) {
-      if (h > resolvableOrder) {
-        if (h <= maxOrder) harmonics.push({ order: h, rms: null, phaseDeg: null, percentOfFundamental: null, max: null, p95: null });
-        continue;
-      }
-      const summary = summarizeWindows(ch.orderRms, h, stride, windowCount);
-      aggregated[h] = summary.rmsMean;
-      if (h <= maxOrder) {
-        harmonics.push({
-          order: h,
-          rms: summary.rmsMean,
-          phaseDeg: (Math.atan2(ch.phasorSumIm[h]!, ch.phasorSumRe[h]!) * 180) / Math.PI,
-          percentOfFundamental: 0,
-          max: summary.max,
-          p95: summary.p95,
-        });
-      }
-    }
-    const fundamentalRms = aggregated[1]!;
-    for (const value of harmonics) {
-      if (value.rms !== null) value.percentOfFundamental = fundamentalRms > 0 ? (100 * value.rms) / fundamentalRms : 0;
-    }
-    const indices = computeIndices(aggregated, {
-      resolvableOrder,
-      thdMaxOrder,
-      eddyLossRatio,
-      exponent,
-      ...(ch.quantity === "current" && options.ilA !== undefined ? { ilA: options.ilA } : {}),
-      ...(ch.quantity === "current" && options.irefA !== undefined ? { irefA: options.irefA } : {}),
-    });
-    let dcSum = 0;
-    let crestSum = 0;
-    let sumSquares = 0;
-    let peak = 0;
-    for (let w = 0; w < windowCount; w++) {
-      dcSum += ch.orderRms[w * stride]!;
-      const rms = ch.windowRms[w]!;
-      sumSquares += rms * rms;
-      crestSum += rms > 0 ? ch.windowPeak[w]! / rms : 0;
-      if (ch.windowPeak[w]! > peak) peak = ch.windowPeak[w]!;
-    }
-    const rms = meanRoot(sumSquares);
-    const dc = dcSum / windowCount;
-    if (Math.abs(dc) > DC_WARNING_FRACTION * fundamentalRms) {
-      warnings.push(`channel ${ch.name}: DC offset of ${dc.toPrecision(3)} ${unit} (${((100 * Math.abs(dc)) / fundamentalRms).toFixed(1)} % of the fundamental)`);
-    }
-    const groups: HarmonicGroupValue[] = [];
-    for (let h = 1; h <= maxOrder; h++) {
-      const ok = h <= resolvableOrder;
-      groups.push({
-        order: h,
-        groupRms: ok ? meanRoot(ch.groupSq[h]!) : null,
-        subgroupRms: ok ? meanRoot(ch.subgroupSq[h]!) : null,
-        interharmonicGroupRms: ok ? meanRoot(ch.interGroupSq[h]!) : null,
-        interharmonicSubgroupRms: ok ? meanRoot(ch.interSubgroupSq[h]!) : null,
-      });
-    }
-    const result: ChannelResult = {
-      name: ch.name,
-      quantity: ch.quantity,
-      unit,
-      phase: ch.phase,
-      rms,
-      dc,
-      fundamentalRms,
-      thdPercent: indices.thdPercent,
-      thdMaxOrder: indices.thdMaxOrder,
-      crestFactor: crestSum / windowCount,
-      kFactor: indices.kFactor,
-      harmonics,
-      thd40Percent: indices.thd40Percent,
-      thd50Percent: indices.thd50Percent,
-      factorK: indices.factorK,
-      factorKParameters: { eddyLossRatio, exponent, maxOrder: indices.kMaxOrder },
-      peak,
-      scale: ch.scale,
-      groups,
-      series: {
-        rms: Array.from(ch.windowRms.subarray(0, windowCount)),
-        thdPercent: Array.from(ch.windowThd.subarray(0, windowCount)),
-        fundamentalRms: Array.from({ length: windowCount }, (_, w) => ch.orderRms[w * stride + 1]!),
-      },
-    };
-    if (indices.pwhdPercent !== null) result.pwhdPercent = indices.pwhdPercent;
-    if (ch.quantity === "current") {
-      result.thcA = indices.thcA;
-      if (indices.pwhcA !== null) result.pwhcA = indices.pwhcA;
-      if (indices.tddPercent !== undefined) result.tddPercent = indices.tddPercent;
-      if (indices.thcPercentOfIref !== undefined) result.thcPercentOfIref = indices.thcPercentOfIref;
-      if (indices.pwhcPercentOfIref !== undefined) result.pwhcPercentOfIref = indices.pwhcPercentOfIref;
-    }
-    if (options.includeOrderSeries) {
-      result.harmonicSeries = Array.from({ length: maxOrder }, (_, i) =>
-        i + 1 > resolvableOrder ? null : Array.from({ length: windowCount }, (_, w) => ch.orderRms[w * stride + i + 1]!),
-      );
-    }
-    return result;
-  });
-
-  const phases: PowerPhase[] = pairs.map((pair, p) => {
-    const v = results[pair.voltage]!;
-    const i = results[pair.current]!;
-    const power = pairPower({
-      activePowerW: pairActive[p]! / windowCount,
-      voltageRms: v.rms,
-      currentRms: i.rms,
-      currentFundamentalRms: i.fundamentalRms,
-      fundamentalProduct: pairProduct[p]!,
-    });
-    return { voltage: v.name, current: i.name, phase: pair.phase, ...power };
-  });
-  let total: WindowAggregate["power"]["total"] = null;
-  if (phases.length >= 2) {
-    const activePowerW = phases.reduce((s, p) => s + p.activePowerW, 0);
-    const apparentPowerVA = phases.reduce((s, p) => s + p.apparentPowerVA, 0);
-    total = { activePowerW, apparentPowerVA, truePowerFactor: apparentPowerVA > 0 ? activePowerW / apparentPowerVA : 0 };
-  }
-
-  const sequence: SequenceSet[] = sets.map((set, s) => {
-    const acc = sequenceSq[s]!;
-    const orderValues = [];
-    for (let h = 1; h <= maxOrder; h++) {
-      const ok = h <= resolvableOrder;
-      orderValues.push({
-        order: h,
-        positiveRms: ok ? meanRoot(acc.pos[h]!) : null,
-        negativeRms: ok ? meanRoot(acc.neg[h]!) : null,
-        zeroRms: ok ? meanRoot(acc.zero[h]!) : null,
-      });
-    }
-    const positive = meanRoot(acc.pos[1]!);
-    return {
-      quantity: set.quantity,
-      unit: set.quantity === "current" ? "A" : "V",
-      channels: [results[set.a]!.name, results[set.b]!.name, results[set.c]!.name],
-      unbalancePercent: positive > 0 ? (100 * meanRoot(acc.neg[1]!)) / positive : 0,
-      orders: orderValues,
-    };
-  });
-
-
-    return { channels: results, power: { phases, total }, sequence };
+    const { channels, stride, pairs, sets, pairActive, pairProduct, sequenceSq, shape, count } = this;
+    return aggregateWindows({ channels, stride, pairs, sets, pairActive, pairProduct, sequenceSq, shape, windowCount: count }, options, warnings);
   }
 }

@@ -132,17 +132,22 @@ export interface TimeBasis {
   coverage: "all" | "partial" | "none";
 }
 
-/** One harmonic order. `measured`, `limit` and `margin` are in `unit`. */
-export interface ComplianceRow {
-  order: number;
+/** A measured value beside its limit, as rows and aggregates carry it. `measured`, `limit` and `margin` are in `unit`. */
+export interface JudgedValue {
   measured: number | null;
   limit: number | null;
-  /** "A" for A and mA/W rows (mA/W × P is converted to amperes), else the basis (e.g. "%IL"). */
+  /** Unit of `measured`, `limit` and `margin`; on rows "A" for A and mA/W limits (mA/W × P is converted to amperes), else the basis (e.g. "%IL"). */
   unit: string;
   basis: Basis;
+  /** measured / limit × 100. */
   percentOfLimit: number | null;
   /** limit − measured (positive = headroom). */
   margin: number | null;
+}
+
+/** One harmonic order. `measured`, `limit` and `margin` are in `unit`. */
+export interface ComplianceRow extends JudgedValue {
+  order: number;
   verdict: RowVerdict;
   reason?: string;
   /** Why not evaluated, as a code (absent in results stored before it existed). */
@@ -169,14 +174,8 @@ export interface ThresholdApplied {
   source: string;
 }
 
-export interface ComplianceAggregate {
+export interface ComplianceAggregate extends JudgedValue {
   name: AggregateName;
-  measured: number | null;
-  limit: number | null;
-  unit: string;
-  basis: Basis;
-  percentOfLimit: number | null;
-  margin: number | null;
   verdict: AggregateVerdict;
   /** `allowance-condition` aggregates are reported but do not count towards the verdict. */
   role: "requirement" | "allowance-condition";

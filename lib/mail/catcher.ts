@@ -1,14 +1,8 @@
 import "server-only";
 import { AppError } from "@/lib/errors";
+import type { CaughtMail } from "./caught-mail";
 
-export interface CaughtMail {
-  id: string;
-  receivedAt: string;
-  from: string;
-  to: string[];
-  subject: string;
-  text: string;
-}
+export type { CaughtMail };
 
 /** Messages from the local mail catcher (only present where MAIL_CATCHER_URL is set: dev and test). */
 export async function listCaughtMail(): Promise<CaughtMail[]> {

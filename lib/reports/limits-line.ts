@@ -10,6 +10,14 @@ export interface RevisionVerification {
   verifiedOn: string;
 }
 
+/** What the limits line is made from: the limit set's standard and edition, its revision, and the verification if any. */
+export interface LimitsLineInput {
+  standard: string;
+  edition: string;
+  revisionNumber: number;
+  verification: RevisionVerification | null;
+}
+
 export interface LimitsLine {
   verified: boolean;
   text: string;
@@ -31,17 +39,7 @@ function shortName(name: string): string {
  *   verification: { edition: "IEC 61000-3-2:2018", checked: "Table 1", verifiedByName: "Ines Marlowe", verifiedOn: "2026-12-03" } }).text
  * // "Limits: IEC 61000-3-2:2018 Table 1, revision 3, verified against the printed edition by I. Marlowe on 2026-12-03"
  */
-export function limitsLine({
-  standard,
-  edition,
-  revisionNumber,
-  verification,
-}: {
-  standard: string;
-  edition: string;
-  revisionNumber: number;
-  verification: RevisionVerification | null;
-}): LimitsLine {
+export function limitsLine({ standard, edition, revisionNumber, verification }: LimitsLineInput): LimitsLine {
   if (verification) {
     return {
       verified: true,

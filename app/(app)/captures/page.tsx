@@ -1,6 +1,7 @@
 import Link from "next/link";
 import { listCaptures } from "@/db/queries/captures";
 import { listSites } from "@/db/queries/sites";
+import { PageHeader } from "@/app/_components/page-header";
 import { requirePage } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
 import { captureListQuerySchema } from "@/lib/validations/capture";
@@ -22,6 +23,20 @@ const verdictStyle: Record<string, string> = {
   incomplete: "bg-caution-light text-caution",
 };
 const verdictText: Record<string, string> = { pass: "✓ Pass", fail: "✗ Fail", incomplete: "? Incomplete" };
+const verdictFilterLabels: Record<string, string> = { pass: "Pass", fail: "Fail", incomplete: "Incomplete" };
+
+/** A filter's choice among `options` (value → label), or "Any". */
+function AnyOfSelect({ name, label, value, options }: { name: string; label: string; value: string | undefined; options: Record<string, string> }) {
+  return (
+    <div>
+      <label htmlFor={`f-${name}`} className="field-label">{label}</label>
+      <select id={`f-${name}`} name={name} defaultValue={value ?? ""} className="field-input">
+        <option value="">Any</option>
+        {Object.entries(options).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
+      </select>
+    </div>
+  );
+}
 
 export default async function CapturesPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const user = await requirePage("captures:read");
@@ -33,14 +48,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
 
   return (
     <div className="space-y-4">
-      <div className="flex flex-wrap items-center justify-between gap-3">
-        <h1>Captures</h1>
-        {can(user.role, "captures:upload") && (
-          <Link href="/captures/new" className="btn-primary" data-testid="new-capture">
-            New capture
-          </Link>
-        )}
-      </div>
+      <PageHeader title="Captures" add={can(user.role, "captures:upload") ? { href: "/captures/new", label: "New capture", testId: "new-capture" } : null} />
       {!parsed.success && <p className="text-sm text-fail">Some filters were not understood and were ignored.</p>}
       <form className="panel grid gap-3 sm:grid-cols-5 sm:items-end" method="get" data-testid="capture-filters">
         <div>
@@ -50,22 +58,8 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
             {sites.map((s) => <option key={s.id} value={s.id}>{s.name}</option>)}
           </select>
         </div>
-        <div>
-          <label htmlFor="f-verdict" className="field-label">Verdict</label>
-          <select id="f-verdict" name="verdict" defaultValue={query.verdict ?? ""} className="field-input">
-            <option value="">Any</option>
-            <option value="pass">Pass</option>
-            <option value="fail">Fail</option>
-            <option value="incomplete">Incomplete</option>
-          </select>
-        </div>
-        <div>
-          <label htmlFor="f-status" className="field-label">Status</label>
-          <select id="f-status" name="status" defaultValue={query.status ?? ""} className="field-input">
-            <option value="">Any</option>
-            {Object.entries(statusLabels).map(([v, l]) => <option key={v} value={v}>{l}</option>)}
-          </select>
-        </div>
+        <AnyOfSelect name="verdict" label="Verdict" value={query.verdict} options={verdictFilterLabels} />
+        <AnyOfSelect name="status" label="Status" value={query.status} options={statusLabels} />
         <div className="grid grid-cols-2 gap-2">
           <div>
             <label htmlFor="f-from" className="field-label">From</label>

@@ -1,5 +1,6 @@
 import Link from "next/link";
 import { listSites } from "@/db/queries/sites";
+import { PageHeader } from "@/app/_components/page-header";
 import { requirePage } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
 
@@ -14,14 +15,7 @@ export default async function SitesPage() {
   const sites = await listSites({ reader: user });
   return (
     <div className="space-y-4">
-      <div className="flex items-center justify-between gap-3">
-        <h1>Sites</h1>
-        {can(user.role, "sites:create") && (
-          <Link href="/sites/new" className="btn-primary" data-testid="new-site">
-            New site
-          </Link>
-        )}
-      </div>
+      <PageHeader title="Sites" add={can(user.role, "sites:create") ? { href: "/sites/new", label: "New site", testId: "new-site" } : null} />
       {sites.length === 0 ? (
         <p className="panel text-sm text-ink-soft">No sites yet.</p>
       ) : (

@@ -1,7 +1,6 @@
 import type { Metadata } from "next";
 import { notFound } from "next/navigation";
-import { SafetyNote } from "@/app/_components/safety-note";
-import { AppError } from "@/lib/errors";
+import { SafetyFooter, SafetyNote } from "@/app/_components/safety-note";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
 import { HeadlineSummary } from "@/app/(app)/captures/[id]/_components/headline-summary";
@@ -9,16 +8,14 @@ import { LimitsLine } from "@/app/(app)/captures/[id]/_components/limits-line";
 import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
+import { orNotFound } from "@/lib/auth/page";
 
 export const metadata: Metadata = { title: "Shared sheet", robots: { index: false, follow: false } };
 
 /** A read-only sheet opened with a share link: no session, no actions, no way into the rest of the app. */
 export default async function SharedSheetPage({ params }: { params: Promise<{ token: string }> }) {
   const { token } = await params;
-  const sheet = await loadSharedSheet({ token }).catch((err) => {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  });
+  const sheet = await orNotFound(loadSharedSheet({ token }));
   const evaluation = sheet.evaluation;
   if (!evaluation) notFound();
   const signOffs = sheet.reviews.filter((r) => r.action !== "comment");
@@ -60,11 +57,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
           )}
         </section>
       </main>
-      <footer className="border-t border-line">
-        <div className="mx-auto max-w-6xl px-4 py-3">
-          <SafetyNote compact />
-        </div>
-      </footer>
+      <SafetyFooter />
     </div>
   );
 }

@@ -1,14 +1,12 @@
 import Link from "next/link";
-import { notFound } from "next/navigation";
 import { z } from "zod";
 import { SafetyNote } from "@/app/_components/safety-note";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { getEvaluation, listCaptures, listLimitSetChoices } from "@/db/queries/captures";
-import { requirePage } from "@/lib/auth/page";
+import { orNotFound, requirePage, uuidOr404 } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
 import { loadSheet } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
-import { AppError } from "@/lib/errors";
 import { formatWhen, reviewStateLabels, summariseContext } from "@/lib/reports/format";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
 import { CaptureActions } from "./_components/capture-actions";
@@ -34,12 +32,9 @@ export default async function CaptureSheetPage({
   const user = await requirePage("captures:read");
   const { id } = await params;
   const query = await searchParams;
-  if (!z.uuid().safeParse(id).success) notFound();
+  uuidOr404(id);
   const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
-  const sheet = await loadSheet({ captureId: id, evaluationId: requested, reader: user }).catch((err) => {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  });
+  const sheet = await orNotFound(loadSheet({ captureId: id, evaluationId: requested, reader: user }));
   const { capture, evaluation } = sheet;
 
   // An approved result stays on show while a newer analysis is queued, running or failed.

@@ -1,15 +1,12 @@
 import "server-only";
 import { notFound } from "next/navigation";
-import { AppError } from "@/lib/errors";
+import { orNotFound } from "@/lib/auth/page";
 import { limitSetKeySchema, revisionNumberSchema } from "@/lib/validations/limit-set";
 
 /** Validates the route's key (and revision number) and turns "no such set" into the 404 page. */
 export async function loadOr404<T>(key: string, load: (key: string) => Promise<T>): Promise<T> {
   if (!limitSetKeySchema.safeParse(key).success) notFound();
-  return load(key).catch((err: unknown) => {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  });
+  return orNotFound(load(key));
 }
 
 export function revisionNumberOr404(number: string): number {

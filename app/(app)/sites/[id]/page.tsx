@@ -1,21 +1,15 @@
-import { notFound } from "next/navigation";
-import { z } from "zod";
 import Link from "next/link";
 import { listCaptures } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
-import { requirePage } from "@/lib/auth/page";
+import { orNotFound, requirePage, uuidOr404 } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
 import { SiteForm } from "../_components/site-form";
 
 export default async function SitePage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePage("sites:read");
   const { id } = await params;
-  if (!z.uuid().safeParse(id).success) notFound();
-  const site = await getSiteById({ id, reader: user }).catch((err) => {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  });
+  uuidOr404(id);
+  const site = await orNotFound(getSiteById({ id, reader: user }));
   const ratio = site.iscA && site.ilA ? site.iscA / site.ilA : null;
   const captures = await listCaptures({ query: { site: site.id, page: 1 }, reader: user });
   return (

@@ -6,6 +6,7 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { reevaluateSchema } from "@/lib/validations/capture";
 import { contextNumberFields } from "@/lib/validations/context-fields";
+import { PhaseConfigSelect } from "./phase-config-select";
 
 const numberFields = contextNumberFields;
 
@@ -104,12 +105,7 @@ export function ContextForm({
       </div>
       <div>
         <label htmlFor="ctx-phaseConfig" className="field-label">Phase configuration</label>
-        <select id="ctx-phaseConfig" name="phaseConfig" defaultValue={initialContext.phaseConfig ?? ""} className="field-input">
-          <option value="">Not given</option>
-          <option value="single-phase">Single-phase</option>
-          <option value="balanced-three-phase">Balanced three-phase</option>
-          <option value="other">Other</option>
-        </select>
+        <PhaseConfigSelect id="ctx-phaseConfig" name="phaseConfig" defaultValue={initialContext.phaseConfig ?? ""} />
       </div>
       <label className="flex items-center gap-2 text-sm">
         <input type="checkbox" name="isGenerator" defaultChecked={initialContext.isGenerator === true} className="h-4 w-4 accent-copper" />

@@ -3,6 +3,7 @@
 import { useState } from "react";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { contextNumberFields } from "@/lib/validations/context-fields";
+import { PhaseConfigSelect } from "../_components/phase-config-select";
 
 const contextFields = contextNumberFields;
 
@@ -67,12 +68,7 @@ export function ContextSection({
         ))}
         <div>
           <label htmlFor="ctx-phase" className="field-label">Phase configuration</label>
-          <select id="ctx-phase" className="field-input" value={state.phaseConfig} onChange={(e) => state.setPhaseConfig(e.target.value)}>
-            <option value="">Not stated</option>
-            <option value="single-phase">Single-phase</option>
-            <option value="balanced-three-phase">Balanced three-phase</option>
-            <option value="other">Other</option>
-          </select>
+          <PhaseConfigSelect id="ctx-phase" value={state.phaseConfig} onChange={(e) => state.setPhaseConfig(e.target.value)} />
         </div>
         <label className="flex items-center gap-2 self-end text-sm">
           <input type="checkbox" checked={state.isGenerator} onChange={(e) => state.setIsGenerator(e.target.checked)} />

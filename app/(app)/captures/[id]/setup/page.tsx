@@ -1,11 +1,9 @@
 import Link from "next/link";
-import { forbidden, notFound } from "next/navigation";
-import { z } from "zod";
+import { forbidden } from "next/navigation";
 import { getCaptureById, listLimitSetChoices } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
-import { requirePage } from "@/lib/auth/page";
+import { orNotFound, requirePage, uuidOr404 } from "@/lib/auth/page";
 import { canEditCapture } from "@/lib/auth/permissions";
-import { AppError } from "@/lib/errors";
 import { IntervalMappingSchema } from "@/lib/intervals/types";
 import { captureMappingSchema, intervalSetupMappingSchema } from "@/lib/validations/capture";
 import { IntervalMappingForm } from "./interval-mapping-form";
@@ -18,11 +16,8 @@ export const metadata = { title: "Map channels" };
 export default async function CaptureSetupPage({ params }: { params: Promise<{ id: string }> }) {
   const user = await requirePage("captures:upload");
   const { id } = await params;
-  if (!z.uuid().safeParse(id).success) notFound();
-  const capture = await getCaptureById({ id, reader: user }).catch((err) => {
-    if (err instanceof AppError && err.code === "not_found") notFound();
-    throw err;
-  });
+  uuidOr404(id);
+  const capture = await orNotFound(getCaptureById({ id, reader: user }));
   if (!canEditCapture(user, capture)) {
     // The uploader's own capture, frozen by its review: say so rather than "not available to your role".
     if (user.role === "technician" && capture.uploadedBy === user.id && (capture.reviewState === "in_review" || capture.reviewState === "approved")) {

@@ -1,0 +1,160 @@
+// Pass 1 of the streaming CSV analysis (see stream-csv-analysis.ts): parse and check every row, fit the time
+// axis, and measure and track the fundamental per segment.
+import { ChannelScan } from "./channel-scan";
+import { AnalysisInputError } from "./errors";
+import { estimateFundamental } from "./estimate-fundamental";
+import { backwardsTimeError } from "./fit-sample-interval";
+import { MemorySink } from "./import-csv";
+import { LineFit } from "./line-fit";
+import { PhaseTracker } from "./phase-tracker";
+import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
+
+export interface PendingError {
+  row: number;
+  error: AnalysisInputError;
+}
+
+/**
+ * Pass 1 sink. Keeps rows in memory up to the look-ahead (two frequency segments); a file that
+ * ends within it is analysed by the in-memory path (identical results). Beyond it, switches to
+ * streaming: time-axis fit and monotonic/step checks, per-channel extremes and r.m.s., and the
+ * fundamental of each finished segment of the estimation channels, whose phase is then tracked
+ * through that segment (the windows' boundaries come from the reference channel's track).
+ */
+export class FirstPass implements RowSink {
+  memory: MemorySink | null;
+  streaming = false;
+  /** Least-squares line t = start + interval·row over the whole time column. */
+  readonly fit = new LineFit();
+  firstTimeS = Number.NaN;
+  rows = 0;
+  readonly scans: ChannelScan[];
+  /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
+  readonly ratios: (number | AnalysisInputError)[][];
+  /** The fundamental's phase through the record, per estimation channel (fed segment by segment, as the in-memory path does). */
+  readonly trackers: PhaseTracker[];
+  fundamentalMs = 0;
+  private provisionalRateHz = 0;
+  private previousTimeS = Number.NaN;
+  monotonicError: PendingError | null = null;
+  stepError: { row: number; stepS: number } | null = null;
+  private readonly segmentBuffers: Float64Array[];
+  private segmentFill = 0;
+
+  constructor(
+    private readonly collector: () => RowCollector,
+    private readonly channelCount: number,
+    private readonly hasTime: boolean,
+    /** Indices of the channels whose fundamental is measured (the first voltage, else every current). */
+    readonly estimation: number[],
+    private readonly segmentSamples: number,
+    private readonly statedIntervalS: number | null,
+    private readonly timeColumn: number,
+  ) {
+    this.memory = new MemorySink(channelCount, hasTime, 2 * segmentSamples + ROW_CHUNK);
+    this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
+    this.ratios = estimation.map(() => []);
+    this.trackers = estimation.map(() => new PhaseTracker());
+    this.segmentBuffers = estimation.map(() => new Float64Array(2 * segmentSamples));
+  }
+
+  accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    this.rows = firstRow + count;
+    if (this.memory) {
+      this.memory.accept(timesS, values, count);
+      if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
+      return;
+    }
+    this.stream(timesS, values, count, firstRow);
+  }
+
+  private switchToStreaming(): void {
+    const memory = this.memory!;
+    this.memory = null;
+    this.streaming = true;
+    const rows = this.rows;
+    const times = memory.times?.values() ?? null;
+    // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
+    if (times) {
+      const fit = new LineFit();
+      for (let r = 0; r < rows; r++) fit.add(r, times[r]!);
+      this.provisionalRateHz = 1 / fit.slope();
+    } else {
+      this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
+    }
+    if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
+    this.stream(
+      times,
+      memory.channels.map((c) => c.values()),
+      rows,
+      0,
+    );
+  }
+
+  private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    if (timesS && this.hasTime) {
+      if (firstRow === 0 && count > 0) this.firstTimeS = timesS[0]!;
+      for (let r = 0; r < count; r++) this.fit.add(firstRow + r, timesS[r]!);
+      const intervalS = 1 / this.provisionalRateHz;
+      let previous = this.previousTimeS;
+      for (let r = 0; r < count; r++) {
+        const t = timesS[r]!;
+        if (r + firstRow > 0) {
+          if (t < previous && !this.monotonicError) {
+            const row = firstRow + r;
+            const line = this.collector().lineOfRow(row);
+            this.monotonicError = { row, error: backwardsTimeError(line, this.timeColumn, t, previous) };
+          }
+          // Provisional: against the look-ahead's interval; re-checked exactly in pass 2.
+          if (!this.stepError && Math.abs(t - previous - intervalS) > 0.5 * intervalS) this.stepError = { row: firstRow + r, stepS: t - previous };
+        }
+        previous = t;
+      }
+      this.previousTimeS = previous;
+    }
+    for (let c = 0; c < this.channelCount; c++) this.scans[c]!.add(values[c]!, count);
+    let offset = 0;
+    while (offset < count) {
+      const take = Math.min(count - offset, 2 * this.segmentSamples - this.segmentFill);
+      for (let e = 0; e < this.estimation.length; e++) {
+        this.segmentBuffers[e]!.set(values[this.estimation[e]!]!.subarray(offset, offset + take), this.segmentFill);
+      }
+      this.segmentFill += take;
+      offset += take;
+      // A full look-ahead means its first segment is not the last one (the last takes the remainder).
+      if (this.segmentFill === 2 * this.segmentSamples) {
+        this.estimate(this.segmentSamples);
+        for (const buffer of this.segmentBuffers) buffer.copyWithin(0, this.segmentSamples, this.segmentFill);
+        this.segmentFill -= this.segmentSamples;
+      }
+    }
+  }
+
+  private estimate(length: number): void {
+    const started = performance.now();
+    for (let e = 0; e < this.estimation.length; e++) {
+      const list = this.ratios[e]!;
+      if (list.some((r) => r instanceof AnalysisInputError)) continue;
+      // No usable rate yet (no interval stated, or a broken time axis): the error is reported after pass 1.
+      if (!(this.provisionalRateHz > 0)) {
+        list.push(Number.NaN);
+        continue;
+      }
+      try {
+        const segment = this.segmentBuffers[e]!.subarray(0, length);
+        const ratio = estimateFundamental(segment, this.provisionalRateHz) / this.provisionalRateHz;
+        list.push(ratio);
+        this.trackers[e]!.feed(segment, length, ratio);
+      } catch (error) {
+        if (!(error instanceof AnalysisInputError)) throw error;
+        list.push(error);
+      }
+    }
+    this.fundamentalMs += performance.now() - started;
+  }
+
+  /** The last segment: whatever the look-ahead holds at the end (one to two segments). */
+  end(): void {
+    if (this.streaming && this.segmentFill > 0) this.estimate(this.segmentFill);
+  }
+}
