@@ -134,6 +134,9 @@ describe("time rules on the sheet", () => {
     expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
     await page.click("[data-testid=order-card-7] summary");
     await page.locator("[data-testid=order-card-7] [data-testid=order-card-rule-smoothed-max]").waitFor({ state: "visible" });
+    // The card reads as the wide table does: % of the TABLE limit with the rule's allowance beside it.
+    expect(await page.textContent("[data-testid=order-card-percent-7]")).toMatch(/^\d+\.\d % of the table limit — rule allows 150 %$/);
+    expect(await page.textContent("[data-testid=order-card-7] [data-testid=order-card-rule-smoothed-max]")).toContain("of the table limit — rule allows 150 %");
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await snapAt(page, "time-rules-phone-panel", "[data-testid=time-rules]");
