@@ -3,6 +3,8 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { formatNumber, formatPercent } from "@/lib/reports/format";
+import { spectrumBars, type SpectrumScale } from "@/lib/reports/spectrum-bars";
+import { decidedByLabel, formatPercentOfLimit } from "@/lib/reports/time-rules";
 import type { ChartDataDto } from "@/lib/swr/use-capture-charts";
 
 // Every chart's values without a mouse: a native disclosure ("Show as table") that a keyboard opens,
@@ -24,14 +26,19 @@ export function FailingOrdersText({ rows }: { rows: ComplianceRow[] }) {
     <p className="mt-1 text-sm" data-testid="spectrum-failing">
       {failing.length === 0
         ? "No order is over its limit."
-        : `Over the limit: ${failing.map((r) => `h${r.order} (${formatNumber(r.measured)} ${r.unit} against ${formatNumber(r.limit)} ${r.unit}, ${formatPercent(r.percentOfLimit)})`).join("; ")}.`}
+        : `Over the limit: ${failing.map((r) => `h${r.order} (${formatNumber(r.measured)} ${r.unit} against ${formatNumber(r.limit)} ${r.unit}, ${formatPercentOfLimit(r, { standalone: true })})`).join("; ")}.`}
     </p>
   );
 }
 
-/** The spectrum's bars and limit marks as rows: order, measured, limit, % of limit, verdict. */
-export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channels"][number]; rows: ComplianceRow[] }) {
+/**
+ * The spectrum's bars and limit marks as rows: order, the value the verdict compared and its limit
+ * (both in the channel's unit, as the bars draw them), % of the table limit, verdict.
+ */
+export function SpectrumTable({ channel, rows, scale = {} }: { channel: ChartDataDto["channels"][number]; rows: ComplianceRow[]; scale?: Omit<SpectrumScale, "fundamentalRms"> }) {
   const byOrder = new Map(rows.map((r) => [r.order, r]));
+  const fundamentalRms = channel.harmonics.find((h) => h.order === 1)?.rms ?? 0;
+  const bars = new Map(spectrumBars(channel.harmonics, rows, { ...scale, fundamentalRms }).map((b) => [b.order, b]));
   return (
     <Toggle testId="spectrum-table">
       <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
@@ -41,13 +48,17 @@ export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channe
         <tbody>
           {channel.harmonics.map((h) => {
             const row = byOrder.get(h.order);
+            const bar = bars.get(h.order);
             return (
-              <tr key={h.order}>
+              <tr key={h.order} data-testid={`spectrum-table-row-${h.order}`}>
                 <th scope="row">h{h.order}</th>
-                <td>{formatNumber(h.rms)}</td>
+                <td>
+                  {formatNumber(bar?.value ?? h.rms)}
+                  {bar?.byTimeRule && row && <span className="block text-xs text-ink-muted">{decidedByLabel(row)}</span>}
+                </td>
                 <td>{formatPercent(h.percentOfFundamental)}</td>
-                <td>{formatNumber(row?.limit ?? null)}</td>
-                <td>{formatPercent(row?.percentOfLimit ?? null)}</td>
+                <td>{formatNumber(bar?.limit ?? null)}</td>
+                <td>{row ? formatPercentOfLimit(row) : "—"}</td>
                 <td>{row ? <VerdictBadge verdict={row.verdict} /> : "—"}</td>
               </tr>
             );
