@@ -2,7 +2,8 @@
 
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
-import { formatNumber, formatPercent } from "@/lib/reports/format";
+import type { IntervalTrend, IntervalTrendSeries } from "@/lib/intervals/evaluate-interval-log";
+import { formatNumber, formatPercent, formatWhen } from "@/lib/reports/format";
 import { spectrumBars, type SpectrumScale } from "@/lib/reports/spectrum-bars";
 import { decidedByLabel, formatPercentOfLimit } from "@/lib/reports/time-rules";
 import type { ChartDataDto } from "@/lib/swr/use-capture-charts";
@@ -135,6 +136,41 @@ export function OrderTrendTable({ series, order, unit, windowDurationS }: { seri
               <th scope="row">{(i * step).toFixed(2)}</th>
               <td>{formatNumber(v)}</td>
               <td>{formatNumber(o.smoothed[i] ?? null)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </Toggle>
+  );
+}
+
+/**
+ * The interval log's chosen value over the logged period as rows: time (UTC), the value, the table
+ * limit and each time rule's limit (table limit × multiplier), as the trend chart draws them.
+ */
+export function IntervalTrendTable({ trend, series }: { trend: IntervalTrend; series: IntervalTrendSeries }) {
+  const ruleLimits = series.ruleLimits.filter((r) => r.limit !== series.limit);
+  const grouped = (trend.rowsPerPoint ?? 1) > 1;
+  return (
+    <Toggle testId="interval-trend-table">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
+        <thead>
+          <tr>
+            <th scope="col">Time</th>
+            <th scope="col">
+              {series.name} ({series.unit}){grouped ? `, largest of ${trend.rowsPerPoint} logged values` : ""}
+            </th>
+            {series.limit !== null && <th scope="col">Table limit ({series.unit})</th>}
+            {ruleLimits.map((r) => <th key={r.rule} scope="col">{r.label} ({series.unit})</th>)}
+          </tr>
+        </thead>
+        <tbody>
+          {series.values.map((v, i) => (
+            <tr key={i}>
+              <th scope="row">{formatWhen(new Date(trend.timestampsMs[i] ?? 0))}</th>
+              <td>{formatNumber(v)}</td>
+              {series.limit !== null && <td>{formatNumber(series.limit)}</td>}
+              {ruleLimits.map((r) => <td key={r.rule}>{formatNumber(r.limit)}</td>)}
             </tr>
           ))}
         </tbody>

@@ -14,7 +14,7 @@ import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
 import { MitigationPanels } from "./mitigation-panels";
-import { FailingOrdersText, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
+import { FailingOrdersText, IntervalTrendTable, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
 import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
@@ -144,7 +144,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
     return (
       <section className="panel min-w-0" aria-label="Charts" data-testid="sheet-charts">
         <h2 className="mb-2">{trend?.channel ?? channel.channel} over the logged period</h2>
-        {trend ? <IntervalTrendChart trend={trend} /> : <p className="text-sm text-ink-muted">No trend data.</p>}
+        {trend ? <IntervalTrendChart trend={trend} table={(series) => <IntervalTrendTable trend={trend} series={series} />} /> : <p className="text-sm text-ink-muted">No trend data.</p>}
       </section>
     );
   }
