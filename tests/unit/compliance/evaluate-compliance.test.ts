@@ -147,11 +147,18 @@ describe("IEEE 519-2014 at the PCC, Isc/IL in the 20–50 band (Table 2, C)", ()
     expect(row(run("ieee-519-2022-current", spec, context), 4).verdict).toBe("pass");
   });
 
-  test("Isc/IL = 50 exactly → band 50 ≤ Isc/IL < 100, and the reason quotes the boundary rule (printed '20 < 50'; Ordwise choice)", () => {
+  test("Isc/IL = 50 exactly → band 50 ≤ Isc/IL < 100; the reason says so in plain words and the notes list the reading once (printed '20 < 50'; Ordwise choice)", () => {
     const result = run("ieee-519-2014-current", { channels: [{ name: "Ia", fundamentalRms: 80, harmonics: {} }] }, { ...context, iscA: 5000 });
     expect(result.band.label).toBe("Table 2 (120 V–69 kV), 50 ≤ Isc/IL < 100");
     expect(result.band.reason).toContain("exactly at the bound 50");
     expect(result.band.reason).toContain("higher row");
+    // The seeded boundary text carries its provenance; the sheet's reason and notes never quote it.
+    for (const marker of ["from memory", "common practice", "Ordwise choice", "(confirmed)"]) {
+      expect(result.band.reason).not.toContain(marker);
+      for (const note of result.notes) expect(note).not.toContain(marker);
+    }
+    expect(result.notes.filter((n) => n.startsWith("Isc/IL exactly on a row boundary"))).toHaveLength(1);
+    expect(result.notes.filter((n) => n.startsWith("Order 2 lies below the printed 3 ≤ h < 11 range"))).toHaveLength(1);
     expect(row(result, 5).limit).toBe(10);
   });
 
