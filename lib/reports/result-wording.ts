@@ -24,16 +24,16 @@ export function formatDurationS(seconds: number): string {
   return `${Number(seconds.toPrecision(3))} s`;
 }
 
-/** What the user must give for each context input. */
+/** What the user must give for each context input, in a reader's words (never the field name). */
 export const INPUT_NEEDS: Record<ContextInput, string> = {
-  h: "h (harmonic order)",
-  ratedPowerW: "ratedPowerW (rated power, W)",
-  lambda: "lambda (circuit power factor)",
-  ilA: "ilA (maximum demand load current at the PCC)",
-  irefA: "irefA (reference current)",
-  nominalVoltageV: "nominalVoltageV (nominal voltage of the measured channel)",
+  h: "the harmonic order",
+  ratedPowerW: "the rated power P (W)",
+  lambda: "the circuit power factor λ",
+  ilA: "IL (maximum demand load current at the PCC)",
+  irefA: "Iref (reference current)",
+  nominalVoltageV: "the nominal voltage of the measured channel",
   fundamental: "a non-zero measured fundamental",
-  "ampere-order-limits": "ampere limits for every order (fromOrderLimits)",
+  "ampere-order-limits": "ampere limits for every order",
 };
 
 const VALUES_NAME: Record<IntervalS, string> = {

@@ -200,7 +200,7 @@ describe("missing context → not evaluated, never pass", () => {
   test("Class C > 25 W without λ and without measured power: h3 (30·λ %) not evaluated naming lambda; others judged", () => {
     const result = run("iec-61000-3-2-class-c", { channels: [{ name: "I", fundamentalRms: 0.3, harmonics: { 3: 0.06, 5: 0.02 } }] }, { ratedPowerW: 60 });
     expect(row(result, 3).verdict).toBe("not-evaluated");
-    expect(row(result, 3).reason).toContain("lambda");
+    expect(row(result, 3).reason).toContain("circuit power factor λ not given");
     expect(row(result, 5).verdict).toBe("pass"); // 6.67 % ≤ 10 % (Table 2, C)
     expect(result.verdict).toBe("incomplete");
   });
@@ -229,7 +229,7 @@ describe("missing context → not evaluated, never pass", () => {
       { busVoltageV: 400 },
     );
     expect(row(result, 5).verdict).toBe("not-evaluated");
-    expect(row(result, 5).reason).toContain("nominalVoltageV");
+    expect(row(result, 5).reason).toContain("nominal voltage of the measured channel not given");
     expect(aggregate(result, "THD").verdict).toBe("pass");
     expect(result.verdict).toBe("incomplete");
   });

@@ -27,7 +27,7 @@ describe("time-rule wording", () => {
 
   test("not-evaluated causes read as sentences with their numbers", () => {
     expect(causeText({ code: "record-too-short", minimumS: 600, durationS: 120 })).toBe("needs at least 10 min of record; the record has 2 min");
-    expect(causeText({ code: "missing-input", input: "ilA" })).toBe("ilA (maximum demand load current at the PCC) not given");
+    expect(causeText({ code: "missing-input", input: "ilA" })).toBe("IL (maximum demand load current at the PCC) not given");
     expect(causeText({ code: "above-nyquist", maxResolvableOrder: 25 })).toBe("above Nyquist (highest resolvable order 25)");
   });
 
