@@ -105,7 +105,7 @@ export function channelContext(
   if (irefA === undefined && usesBasis("%Iref") && channel.rms > 0) {
     // IEC 61000-3-12: Iref is the measured average r.m.s. input current unless a value is declared.
     irefA = channel.rms;
-    notes.push(`Iref = measured r.m.s. current ${fmt(channel.rms)} A (no irefA given; IEC 61000-3-12 Ed 2.0 definition of Iref)`);
+    notes.push(`Iref = measured r.m.s. current ${fmt(channel.rms)} A (no Iref given)`);
   }
   let lambda = context.lambda;
   if (lambda === undefined && usesLambda) {
@@ -113,7 +113,7 @@ export function channelContext(
     if (phase) {
       // IEC 61000-3-2: λ is the measured circuit power factor P / (U·I) (from memory).
       lambda = phase.truePowerFactor;
-      notes.push(`λ = measured true power factor ${fmt(phase.truePowerFactor)} of ${phase.voltage} × ${phase.current} (no lambda given)`);
+      notes.push(`λ = measured true power factor ${fmt(phase.truePowerFactor)} of ${phase.voltage} × ${phase.current} (no λ given)`);
     }
   }
   const orders = channel.harmonics.map((harmonic) => harmonic.order);

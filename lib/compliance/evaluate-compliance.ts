@@ -59,6 +59,8 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
   const { comparison, threshold, timeRules } = content.rules;
   // Sources and their provenance stay in the limit set (limit-table screens, JSON export); the sheet's notes say the rule in plain words.
   notes.push(comparison.passAtLimit ? "A value exactly at its limit passes (measured ≤ limit)." : "A value exactly at its limit fails (measured < limit passes).");
+  // The limit set's interpretation choices, once per sheet (not per channel or row).
+  notes.push(...(content.notes ?? []));
   if (threshold) {
     notes.push(`Currents below ${threshold.percentOfInputCurrent} % of the input current or below ${threshold.minimumA * 1000} mA, whichever is greater, are disregarded.`);
   }

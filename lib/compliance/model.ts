@@ -266,6 +266,12 @@ export const LimitSetRevisionContentSchema = z
     description: z.string().min(1),
     quantity: QuantitySchema,
     appliesTo: z.string().min(1),
+    /**
+     * Interpretation choices of this limit set in plain words (e.g. which Isc/IL row a value on a
+     * bound uses, which range h2 falls in, the Iref fallback), listed once on the sheet's and the
+     * PDF's notes. No provenance markers here: per-row sources stay on the rows and rules.
+     */
+    notes: z.array(z.string().min(1)).optional(),
     bands: z.array(BandSchema).min(1),
     rules: RulesSchema.default({ comparison: { passAtLimit: true, source: "measured ≤ limit passes" } }),
   })

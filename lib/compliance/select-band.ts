@@ -109,8 +109,10 @@ function checkBand(band: Band, context: EvaluationContext, generatorOverride: bo
     let text = `${shown} is in ${describeRange(range, name, unit)}`;
     const atBound = value === range.min || value === range.max;
     if (atBound) {
-      const rule = range.boundaryRule ?? "the band's bounds are inclusive/exclusive as stated in the limit set";
-      text += ` — exactly at the bound ${formatNumber(value)}: ${rule}`;
+      // Plain words from the typed bounds; the limit set's own boundary text (with its provenance)
+      // stays in the limit-table screens, and its interpretation is in the limit set's notes.
+      const atLower = value === range.min;
+      text += ` — exactly at the bound ${formatNumber(value)}, which this band includes as its ${atLower ? "lower" : "upper"} bound, so a value on the bound uses the ${atLower ? "higher" : "lower"} row (this one)`;
     }
     checks.push({ result: "match", text });
   }

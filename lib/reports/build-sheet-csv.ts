@@ -26,11 +26,12 @@ const line = (cells: Cell[]) => Papa.unparse([cells.map(cell)], { escapeFormulae
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
  * verdict, time rules and their basis), the headline numbers (one small table each for currents,
  * voltages, power and unbalance, raw values, units in the column labels), a blank line, then one row per channel and order with
- * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (rule id),
- * decided_by_label, table_limit (before a rule's multiplier), reason; then, after a blank line,
+ * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (the deciding
+ * rule in words, e.g. "max 1.5 s smoothed ×1.5" — never an internal id), table_limit (before a
+ * rule's multiplier), reason; then, after a blank line,
  * the aggregates (THD, TDD, THC, PWHC, POHC) in the same columns. When a time rule decided a row,
  * measured/limit/margin are that rule's statistic and limit × multiplier; percent_of_limit is
- * always against the table limit (the rule's multiplier is in decided_by_label).
+ * always against the table limit (the rule's multiplier is in decided_by).
  * Numbers keep eight significant figures (no display rounding). O(channels × orders).
  *
  * @example
@@ -59,7 +60,7 @@ export function buildSheetCsv(sheet: SheetReport): string {
   if (r.timeBasis) head.push(...describeTimeBasis(r.timeBasis).map(([k, v]): [string, string] => [`Time basis: ${k.toLowerCase()}`, v]));
   for (const rule of r.timeRules ?? []) {
     const status = rule.status === "applied" ? `applied, ${rule.failures} over its limit` : `not evaluated: ${timeRuleSummaryNote(rule) ?? "no reason given"}`;
-    head.push([`Time rule ${rule.rule}`, `${rule.label} (limit × ${rule.multiplier}) — ${status}`]);
+    head.push(["Time rule", `${rule.label} (limit × ${rule.multiplier}) — ${status}`]);
   }
   const blocks = channelBlocks(r);
   const lines = head.map(line);
@@ -71,19 +72,19 @@ export function buildSheetCsv(sheet: SheetReport): string {
     for (const row of table.rows) lines.push(line([row.label, ...row.values]));
   }
   lines.push("");
-  lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
+  lines.push(line(["channel", "order", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "table_limit", "reason"]));
   for (const block of blocks) {
     for (const row of block.rows) {
-      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, percentOfTableLimit(row), row.margin, row.verdict, row.decidedBy ?? "", decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
+      lines.push(line([block.channel, row.order, row.measured, row.limit, row.unit, percentOfTableLimit(row), row.margin, row.verdict, decidedByLabel(row), tableLimitOf(row), row.reason ?? ""]));
     }
   }
   // The aggregates (THD, TDD, THC, PWHC, POHC) with their verdicts, in the same columns.
   lines.push("");
-  lines.push(line(["channel", "aggregate", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "decided_by_label", "table_limit", "reason"]));
+  lines.push(line(["channel", "aggregate", "measured", "limit", "unit", "percent_of_limit", "margin", "verdict", "decided_by", "table_limit", "reason"]));
   for (const block of blocks) {
     for (const a of block.aggregates) {
       const name = a.role === "requirement" ? a.name : `${a.name} (allowance condition)`;
-      lines.push(line([block.channel, name, a.measured, a.limit, a.unit, percentOfTableLimit(a), a.margin, a.verdict, a.decidedBy ?? "", decidedByLabel(a), tableLimitOf(a), a.reason ?? ""]));
+      lines.push(line([block.channel, name, a.measured, a.limit, a.unit, percentOfTableLimit(a), a.margin, a.verdict, decidedByLabel(a), tableLimitOf(a), a.reason ?? ""]));
     }
   }
   return lines.join("\r\n") + "\r\n";

@@ -24,16 +24,16 @@ export function formatDurationS(seconds: number): string {
   return `${Number(seconds.toPrecision(3))} s`;
 }
 
-/** What the user must give for each context input. */
+/** What the user must give for each context input, in a reader's words (never the field name). */
 export const INPUT_NEEDS: Record<ContextInput, string> = {
-  h: "h (harmonic order)",
-  ratedPowerW: "ratedPowerW (rated power, W)",
-  lambda: "lambda (circuit power factor)",
-  ilA: "ilA (maximum demand load current at the PCC)",
-  irefA: "irefA (reference current)",
-  nominalVoltageV: "nominalVoltageV (nominal voltage of the measured channel)",
+  h: "the harmonic order",
+  ratedPowerW: "the rated power P (W)",
+  lambda: "the circuit power factor λ",
+  ilA: "IL (maximum demand load current at the PCC)",
+  irefA: "Iref (reference current)",
+  nominalVoltageV: "the nominal voltage of the measured channel",
   fundamental: "a non-zero measured fundamental",
-  "ampere-order-limits": "ampere limits for every order (fromOrderLimits)",
+  "ampere-order-limits": "ampere limits for every order",
 };
 
 const VALUES_NAME: Record<IntervalS, string> = {
@@ -154,15 +154,16 @@ export function formatMultiplier(multiplier: number): string {
 /**
  * A short name of a rule for the "decided by" column: "mean 1.5 s smoothed",
  * "max 1.5 s smoothed ×1.5", "p99 3 s / 24 h ×2", "capture mean", "threshold". Results stored
- * before rules carried `measures` show the rule's label.
+ * before rules carried `measures` show the rule's label; the rule's id is never shown.
  */
 export function shortRuleLabel(rule: Pick<RowRuleResult, "rule" | "measures" | "multiplier" | "label"> | undefined, id?: string): string {
   const ruleId = rule?.rule ?? id;
   if (ruleId === "snapshot" || rule?.measures?.kind === "capture-mean") return "capture mean";
   if (ruleId === "threshold") return "threshold";
-  if (!rule) return ruleId ?? "—";
+  // A rule's id is internal: without its result (or label) the column says "time rule", never the id.
+  if (!rule) return ruleId === undefined ? "—" : "time rule";
   const m = rule.measures;
-  if (!m) return rule.label || rule.rule;
+  if (!m) return rule.label || "time rule";
   const what = m.kind === "mean" ? "mean" : m.kind === "max" ? "max" : `p${m.percentile ?? ""}`;
   const period = m.accumulationS === undefined ? "" : ` / ${formatDurationS(m.accumulationS)}`;
   const times = rule.multiplier === 1 ? "" : ` ${formatMultiplier(rule.multiplier)}`;

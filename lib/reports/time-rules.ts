@@ -144,21 +144,40 @@ function decimalsToShowExcess(pct: number, allowedPct: number, fails: boolean): 
  * allows 150 %"), and — where one decimal would hide why a row failed — the excess in words
  * ("100.0 % — over the limit by 0.0022 %"). `compact` (narrow PDF cells): the percentage alone,
  * with as many decimals as it takes to read above the allowed value ("100.0022 %"); the rule's
- * multiplier is then in the "decided by" column. "—" when unknown.
+ * multiplier is then in the "decided by" column; `standalone` (order cards, rule lines): an
+ * unscaled percentage reads "87.7 % of the limit". "—" when unknown. The order table, the phone
+ * order cards, the aggregate cards and the PDF all call this one function.
  */
 export function formatPercentOfLimit(
   row: Pick<ComplianceRow, "measured" | "limit" | "percentOfLimit" | "decidedBy" | "rowRules"> & { verdict: string },
-  options: { compact?: boolean } = {},
+  options: { compact?: boolean; standalone?: boolean } = {},
 ): string {
   const table = tableLimitOf(row);
   const pct = percentOfTableLimit(row);
-  if (pct === null || table === null || row.limit === null || row.measured === null) return formatPercent(row.percentOfLimit);
+  // `standalone` (a card or a line of text, no "% of limit" column heading above): "87.7 % of the limit".
+  const noun = options.standalone ? " of the limit" : "";
+  if (pct === null || table === null || row.limit === null || row.measured === null) return `${formatPercent(row.percentOfLimit)}${row.percentOfLimit === null ? "" : noun}`;
   const allowedPct = (row.limit / table) * 100;
   const fails = row.verdict === "fail";
   if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
   const scaled = Math.abs(allowedPct - 100) > 1e-9;
-  const shown = `${pct.toFixed(1)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : ""}`;
+  const shown = `${pct.toFixed(1)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : noun}`;
   if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
   const over = (row.measured / row.limit - 1) * 100;
   return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;
+}
+
+/**
+ * One rule's result as "% of limit" text, the same way as a row's: against the table limit with the
+ * rule's allowance beside it ("153.9 % of the table limit — rule allows 150 %"), never as a
+ * percentage of the multiplied limit. Used by the order table's rule list and the phone cards.
+ *
+ * @example formatRulePercentOfLimit({ rule: "r", measured: 3.54, limit: 3.45, tableLimit: 2.3, multiplier: 1.5, verdict: "fail", … })
+ * // "153.9 % of the table limit — rule allows 150 %"
+ */
+export function formatRulePercentOfLimit(result: RowRuleResult): string {
+  return formatPercentOfLimit(
+    { measured: result.measured, limit: result.limit, percentOfLimit: result.percentOfLimit, verdict: result.verdict, decidedBy: result.rule, rowRules: [result] },
+    { standalone: true },
+  );
 }

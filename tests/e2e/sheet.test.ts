@@ -305,6 +305,26 @@ describe("the pass/fail sheet", () => {
     await viewerPage.close();
   });
 
+  it("the interval log's trend has a keyboard-reachable table of the chosen value and its limits", async () => {
+    const page = await browser.newPage();
+    await signInAs(page, "engineer");
+    await page.goto(url("/captures"));
+    await page.click("text=Drive 2 feeder, one week of 10-minute values");
+    await page.waitForSelector("[data-testid=chart-interval-trend]");
+    await page.selectOption("[data-testid=interval-trend-select]", "TDD");
+    await page.focus("[data-testid=interval-trend-table] summary");
+    await page.keyboard.press("Enter");
+    const table = page.locator("[data-testid=interval-trend-table] table");
+    await table.waitFor({ state: "visible" });
+    const headers = await table.locator("thead th").allTextContents();
+    expect(headers[0]).toBe("Time");
+    expect(headers[1]).toMatch(/^TDD \(%IL\)/);
+    expect(headers).toContain("Table limit (%IL)");
+    expect(await table.locator("tbody tr").count()).toBeGreaterThan(10);
+    expect(await table.locator("tbody tr th").first().textContent()).toMatch(/^\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC$/);
+    await page.close();
+  });
+
   it("a capture still being set up shows its status instead of a sheet", async () => {
     const tech = await signedIn("technician");
     const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));

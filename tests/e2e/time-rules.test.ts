@@ -134,6 +134,9 @@ describe("time rules on the sheet", () => {
     expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
     await page.click("[data-testid=order-card-7] summary");
     await page.locator("[data-testid=order-card-7] [data-testid=order-card-rule-smoothed-max]").waitFor({ state: "visible" });
+    // The card reads as the wide table does: % of the TABLE limit with the rule's allowance beside it.
+    expect(await page.textContent("[data-testid=order-card-percent-7]")).toMatch(/^\d+\.\d % of the table limit — rule allows 150 %$/);
+    expect(await page.textContent("[data-testid=order-card-7] [data-testid=order-card-rule-smoothed-max]")).toContain("of the table limit — rule allows 150 %");
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await snapAt(page, "time-rules-phone-panel", "[data-testid=time-rules]");
@@ -152,17 +155,22 @@ describe("time rules on the sheet", () => {
     expect(await shared.getAttribute("[data-testid=time-rule-smoothed-max]", "data-status")).toBe("applied");
     expect(await shared.textContent("[data-testid=decided-by-7]")).toBe("max 1.5 s smoothed ×1.5");
     await shared.waitForSelector("[data-testid=chart-order-trend] canvas");
+    const sharedText = await shared.innerText("body");
+    for (const internal of ["smoothed-max", "smoothed-average", "snapshot", "rowRules"]) expect(sharedText).not.toContain(internal);
     await snapAt(shared, "time-rules-share", "[data-testid=time-rules]");
     await outsider.close();
 
     const csv = await (await engineer.request("GET", `/api/captures/${timedId}/sheet-csv`)).text();
-    expect(csv).toContain("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason");
-    expect(csv).toMatch(/\r\n[^,\r\n]+,7,[\d.]+,1\.155,A,[\d.]+,[\d.]+,pass,smoothed-max,max 1\.5 s smoothed ×1\.5,0\.77,/);
-    expect(csv).toContain("Time rule smoothed-max,");
+    expect(csv).toContain("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,table_limit,reason");
+    expect(csv).toMatch(/\r\n[^,\r\n]+,7,[\d.]+,1\.155,A,[\d.]+,[\d.]+,pass,max 1\.5 s smoothed ×1\.5,0\.77,/);
+    expect(csv).toMatch(/\r\nTime rule,"?Every 1\.5 s smoothed value ≤ 150 % of the limit \(limit × 1\.5\) — applied, /);
+    // Internal rule ids and field names never reach a reader of the CSV or the PDF.
+    for (const internal of ["smoothed-max", "smoothed-average", "snapshot", "rowRules"]) expect(csv).not.toContain(internal);
 
     const pdf = Buffer.from(await (await engineer.request("GET", `/api/captures/${timedId}/report`)).arrayBuffer());
     const lines = pdfText(pdf).split("\n");
     expect(lines).toContain("Time rules");
+    for (const internal of ["smoothed-max", "smoothed-average", "snapshot", "rowRules"]) expect(pdfText(pdf)).not.toContain(internal);
     const h7 = lines.indexOf("h7");
     expect(lines[h7 + 2]).toBe("1.155");
     expect(lines[h7 + 3]).toBe("0.77");

@@ -2,14 +2,15 @@
 
 import { useMemo, useState } from "react";
 import type uPlot from "uplot";
-import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import type { IntervalTrend, IntervalTrendSeries } from "@/lib/intervals/evaluate-interval-log";
 import { axisStyle, UPlotChart } from "./uplot-chart";
 
 /**
  * An interval log's values over its whole period for one order or aggregate (TDD, THD), with the
- * table limit and each time rule's limit (table limit × multiplier) drawn as lines.
+ * table limit and each time rule's limit (table limit × multiplier) drawn as lines. `table` renders
+ * the chosen series' values as a table (the "Show as table" toggle) under the chart.
  */
-export function IntervalTrendChart({ trend }: { trend: IntervalTrend }) {
+export function IntervalTrendChart({ trend, table }: { trend: IntervalTrend; table?: (series: IntervalTrendSeries) => React.ReactNode }) {
   const choices = useMemo(() => [...trend.aggregates, ...trend.orders].filter((s) => s.values.length > 0), [trend]);
   // Start with the series furthest over (or closest to) its table limit.
   const worst = useMemo(
@@ -66,6 +67,7 @@ export function IntervalTrendChart({ trend }: { trend: IntervalTrend }) {
       <p className="text-xs text-ink-muted">
         {trend.timestampsMs.length} logged values. Solid copper: table limit; dashed red: the limit each time rule compares its statistic with (table limit × multiplier).
       </p>
+      {table?.(series)}
     </div>
   );
 }

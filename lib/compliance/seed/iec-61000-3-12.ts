@@ -123,6 +123,11 @@ export const iec61000312: LimitSetRevisionContentInput = {
     "PWHC over 14–40. Rsce below 33 is outside the tables (conditional connection). Table 5 (conditions d/e/f) is " +
     "NOT included: its rows are unverified in our reference. Iref defaults to the measured r.m.s. current.",
   quantity: "current",
+  notes: [
+    "Iref (reference current): the measured r.m.s. current when none is given.",
+    "Rsce exactly equal to a row value uses that row; between two rows the limits are interpolated linearly in Rsce (the default; an evaluation may switch it off and use the lower row).",
+    "Time rules as IEC 61000-3-2: the average of the 1.5 s smoothed values is compared with the limit and each smoothed value with 150 % of it.",
+  ],
   appliesTo:
     "Public LV systems: ≤ 240 V single-phase, ≤ 690 V three-phase, 50/60 Hz; the limits are given for 230/400 V 50 Hz.",
   bands: [...table2, ...table3, ...table4],

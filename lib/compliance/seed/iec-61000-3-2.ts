@@ -128,6 +128,12 @@ const classBRows: OrderRowInput[] = classARows.map((row) => ({
   source: `${ED} Table 1 × 1.5 (Class B = 1.5 × Class A, confirmed)`,
 }));
 
+// Interpretation choices in plain words, listed once on the sheet's notes (per-row sources stay on the rows).
+const TIME_NOTE =
+  "Time rules: the average of the 1.5 s smoothed values is compared with the limit and each smoothed value with 150 % of it; " +
+  "a record shorter than one 1.5 s time constant is not judged by them (the standard sets the observation period by the equipment's cycle).";
+const POWER_NOTE = "Rated power P: the declared value when it is within ±10 % of the measured active power, else the measured active power.";
+
 export const iec6100032ClassA: LimitSetRevisionContentInput = {
   key: "iec-61000-3-2-class-a",
   standard: STANDARD,
@@ -139,6 +145,7 @@ export const iec6100032ClassA: LimitSetRevisionContentInput = {
     "controlled heating elements ≤ 200 W and independent dimmers for incandescent lamps ≤ 1 kW have no limits; " +
     "the evaluator does not apply these exemptions for Class A.",
   quantity: "current",
+  notes: [TIME_NOTE],
   appliesTo:
     "Equipment ≤ 16 A per phase on public LV systems (≥ 220 V line-to-neutral) not in Class B, C or D: balanced " +
     "three-phase equipment, household appliances, vacuum cleaners, high-pressure cleaners, non-portable tools, " +
@@ -162,6 +169,7 @@ export const iec6100032ClassB: LimitSetRevisionContentInput = {
   scope: "Class B",
   description: "Class B limits = 1.5 × the Class A values of Table 1, amperes, orders 2–40.",
   quantity: "current",
+  notes: [TIME_NOTE],
   appliesTo: "Portable tools; arc-welding equipment that is not professional equipment (≤ 16 A per phase).",
   bands: [
     {
@@ -193,6 +201,7 @@ export const iec6100032ClassC: LimitSetRevisionContentInput = {
     "lamps and built-in phase-control dimming > 25 W use Class A instead. Dimmable/colour-controlled lighting: " +
     "derive the limits at the Pmax condition and apply them in all control conditions.",
   quantity: "current",
+  notes: [TIME_NOTE, POWER_NOTE, "λ (circuit power factor) for the third-harmonic limit: the measured true power factor when none is given."],
   appliesTo:
     "Lighting equipment: lamps, luminaires, independent control gear, UV/IR radiation equipment, illuminated " +
     "signs, non-phase-control dimmers, DLT control devices (AMD1 2020 list).",
@@ -279,6 +288,7 @@ export const iec6100032ClassD: LimitSetRevisionContentInput = {
     "\"always use the lower figure\". Even orders have no Class D limit (from memory). P is the specified " +
     "power (the maximum of the 1.5 s smoothed active power during the test, or a declared value within ±10 %).",
   quantity: "current",
+  notes: [TIME_NOTE, POWER_NOTE, "Class D limits apply for 75 W < P ≤ 600 W; at or below 75 W there are no limits. Even orders have no Class D limit."],
   appliesTo:
     "Specified power ≤ 600 W: personal computers and PC monitors, television receivers, and (Ed 5) refrigerators " +
     "and freezers with variable-speed compressor drives. Above 600 W such equipment is Class A.",

@@ -9,6 +9,14 @@ const ISC_IL_RULE =
   "so the lower row applies only when Isc/IL is strictly below its upper bound and a value exactly at a bound " +
   "uses the higher row (common practice, from memory).";
 
+/** How a value exactly on an Isc/IL row boundary is read (the interpretation, in plain words for the sheet). */
+const ISC_IL_NOTE =
+  "Isc/IL exactly on a row boundary (e.g. 20, 50, 100 or 1000 in Table 2) uses the higher row: each row is read as lower ≤ Isc/IL < upper.";
+const H2_NOTE = "Order 2 lies below the printed 3 ≤ h < 11 range; it is judged against that range's limit, reduced as for the other even orders.";
+const CURRENT_TIME_NOTE =
+  "Time-varying harmonics: the daily 99th percentile of 3 s values is compared with 2 × the table limit and the weekly " +
+  "99th percentile of 10 min values with 1.5 × and their weekly 95th percentile with 1.0 × the table limit; each must stay below it.";
+
 /** Odd-order ranges of Tables 2–4: 3 ≤ h < 11, 11 ≤ h < 17, 17 ≤ h < 23, 23 ≤ h < 35, 35 ≤ h ≤ 50. */
 const ODD_RANGES: Array<[number, number]> = [
   [3, 9],
@@ -218,6 +226,7 @@ export const ieee5192014Current: LimitSetRevisionContentInput = {
     "2–50 in % of IL. Even orders at 25 % of the odd limit of their range (note a); h = 2 uses the 3 ≤ h < 11 range.",
   quantity: "current",
   appliesTo: CURRENT_APPLIES_TO,
+  notes: [ISC_IL_NOTE, `${H2_NOTE} Even orders are limited to 25 % of the odd limit of their range.`, CURRENT_TIME_NOTE],
   bands: currentTables("IEEE Std 519-2014").flatMap((table) =>
     currentBands(table, even2014, `IEEE Std 519-2014 ${table.source.replace(/^IEEE Std 519-2014 /, "")} note (a)`),
   ),
@@ -239,6 +248,11 @@ export const ieee5192022Current: LimitSetRevisionContentInput = {
     "orders 2–50; TDD over orders 2–50 in % of IL. Even orders: h ≤ 6 at 50 %, h > 6 at 100 % of the odd limit " +
     "of their range; h = 2 uses the 3 ≤ h < 11 range. IBR/DER installations with generation ≥ 10 % of annual " +
     "average demand fall under IEEE 1547 / IEEE 2800 instead.",
+  notes: [
+    ISC_IL_NOTE,
+    `${H2_NOTE} Even orders up to 6 are limited to 50 % and higher even orders to 100 % of the odd limit of their range.`,
+    `${CURRENT_TIME_NOTE} The 2022 edition is taken to use the same time rules as the 2014 edition.`,
+  ],
   bands: currentTables("IEEE Std 519-2022").flatMap((table) =>
     currentBands(table, even2022, `IEEE Std 519-2022 even-harmonic rule (${table.name})`),
   ),
@@ -288,6 +302,7 @@ export const ieee5192014Voltage: LimitSetRevisionContentInput = {
     "(orders 2–50) in % of the measured fundamental, by bus voltage. THD uses the fundamental because the standard " +
     "defines THD relative to the fundamental; the difference from % of nominal is small near rated voltage. " +
     "Apply to line-to-neutral voltages.",
+  notes: ["Individual voltage harmonics are judged in % of the nominal voltage of the measured channel; voltage THD in % of the measured fundamental."],
   quantity: "voltage",
   appliesTo: "Voltage at the PCC. Context needed: bus (system) voltage and the nominal voltage of the measured channels.",
   bands: voltageRows.map((row) => ({

@@ -148,11 +148,18 @@ describe("IEEE 519-2014 at the PCC, Isc/IL in the 20–50 band (Table 2, C)", ()
     expect(row(run("ieee-519-2022-current", spec, context), 4).verdict).toBe("pass");
   });
 
-  test("Isc/IL = 50 exactly → band 50 ≤ Isc/IL < 100, and the reason quotes the boundary rule (printed '20 < 50'; Ordwise choice)", () => {
+  test("Isc/IL = 50 exactly → band 50 ≤ Isc/IL < 100; the reason says so in plain words and the notes list the reading once (printed '20 < 50'; Ordwise choice)", () => {
     const result = run("ieee-519-2014-current", { channels: [{ name: "Ia", fundamentalRms: 80, harmonics: {} }] }, { ...context, iscA: 5000 });
     expect(result.band.label).toBe("Table 2 (120 V–69 kV), 50 ≤ Isc/IL < 100");
     expect(result.band.reason).toContain("exactly at the bound 50");
     expect(result.band.reason).toContain("higher row");
+    // The seeded boundary text carries its provenance; the sheet's reason and notes never quote it.
+    for (const marker of ["from memory", "common practice", "Ordwise choice", "(confirmed)"]) {
+      expect(result.band.reason).not.toContain(marker);
+      for (const note of result.notes) expect(note).not.toContain(marker);
+    }
+    expect(result.notes.filter((n) => n.startsWith("Isc/IL exactly on a row boundary"))).toHaveLength(1);
+    expect(result.notes.filter((n) => n.startsWith("Order 2 lies below the printed 3 ≤ h < 11 range"))).toHaveLength(1);
     expect(row(result, 5).limit).toBe(10);
   });
 
@@ -194,7 +201,7 @@ describe("missing context → not evaluated, never pass", () => {
   test("Class C > 25 W without λ and without measured power: h3 (30·λ %) not evaluated naming lambda; others judged", () => {
     const result = run("iec-61000-3-2-class-c", { channels: [{ name: "I", fundamentalRms: 0.3, harmonics: { 3: 0.06, 5: 0.02 } }] }, { ratedPowerW: 60 });
     expect(row(result, 3).verdict).toBe("not-evaluated");
-    expect(row(result, 3).reason).toContain("lambda");
+    expect(row(result, 3).reason).toContain("circuit power factor λ not given");
     expect(row(result, 5).verdict).toBe("pass"); // 6.67 % ≤ 10 % (Table 2, C)
     expect(result.verdict).toBe("incomplete");
   });
@@ -223,7 +230,7 @@ describe("missing context → not evaluated, never pass", () => {
       { busVoltageV: 400 },
     );
     expect(row(result, 5).verdict).toBe("not-evaluated");
-    expect(row(result, 5).reason).toContain("nominalVoltageV");
+    expect(row(result, 5).reason).toContain("nominal voltage of the measured channel not given");
     expect(aggregate(result, "THD").verdict).toBe("pass");
     expect(result.verdict).toBe("incomplete");
   });

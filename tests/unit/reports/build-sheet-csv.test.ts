@@ -8,7 +8,7 @@ const sheet = makeSheet("iec-61000-3-2-class-a", {
 });
 const csv = buildSheetCsv(sheet);
 const lines = csv.trimEnd().split("\r\n");
-const HEADER = "channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason";
+const HEADER = "channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,table_limit,reason";
 const headerAt = lines.indexOf(HEADER);
 const orderLines = lines.slice(headerAt + 1, lines.indexOf("", headerAt));
 const rows = orderLines.map((l) => l.split(","));
@@ -39,8 +39,8 @@ describe("sheet CSV", () => {
 
   test("without per-window series the capture mean decides and the table limit equals the limit", () => {
     const h3 = rows.find((r) => r[1] === "3")!;
-    expect(h3.slice(8, 11)).toEqual(["snapshot", "capture mean", "2.3"]);
-    expect(csv).toMatch(/Time rule smoothed-average,"?Average of 1\.5 s smoothed values[^\r\n]*not evaluated: /);
+    expect(h3.slice(8, 10)).toEqual(["capture mean", "2.3"]);
+    expect(csv).toMatch(/\r\nTime rule,"?Average of 1\.5 s smoothed values[^\r\n]*not evaluated: /);
     expect(csv).toContain("Time basis: coverage,no time rule applied");
   });
 
@@ -55,15 +55,14 @@ describe("sheet CSV", () => {
     const body = text.slice(text.indexOf(HEADER) + 1, text.indexOf("", text.indexOf(HEADER))).map((l) => l.split(","));
     const h3 = body.find((r) => r[1] === "3")!;
     expect(h3[7]).toBe("fail");
-    expect(h3.slice(8, 11)).toEqual(["smoothed-average", "mean 1.5 s smoothed", "2.3"]);
+    expect(h3.slice(8, 10)).toEqual(["mean 1.5 s smoothed", "2.3"]);
     const h7 = body.find((r) => r[1] === "7")!;
     expect(h7[7]).toBe("pass");
-    expect(h7[8]).toBe("smoothed-max");
-    expect(h7[9]).toBe("max 1.5 s smoothed ×1.5");
+    expect(h7[8]).toBe("max 1.5 s smoothed ×1.5");
     expect(Number(h7[3])).toBeCloseTo(1.155, 9);
     // % of the TABLE limit: 0.637 / 0.77 = 82.7 %, not 0.637 / 1.155 = 55 % (the multiplier is in the label).
     expect(Number(h7[5])).toBeCloseTo((Number(h7[2]) / 0.77) * 100, 6);
-    expect(Number(h7[10])).toBeCloseTo(0.77, 9);
+    expect(Number(h7[9])).toBeCloseTo(0.77, 9);
     expect(Number(h7[2])).toBeCloseTo(0.637, 3);
     expect(text).toContain("Time basis: coverage,every time rule applied; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit");
   });
@@ -76,13 +75,22 @@ describe("sheet CSV", () => {
   });
 
   test("the aggregates follow with their verdicts and the deciding rule in words (POHC of Table 1, h21–h39)", () => {
-    const start = lines.indexOf("channel,aggregate,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason");
+    const start = lines.indexOf("channel,aggregate,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,table_limit,reason");
     expect(start).toBeGreaterThan(headerAt);
     const aggregates = lines.slice(start + 1).map((l) => l.split(","));
     const pohc = aggregates.find((a) => a[1]?.startsWith("POHC"))!;
     expect(pohc[0]).toBe("I (A)");
     expect(pohc[7]).toBe("pass"); // no orders 21–39 measured: 0 A ≤ 0.2514 A
-    expect(pohc[9]).toBe("capture mean");
+    expect(pohc[8]).toBe("capture mean");
+  });
+
+  test("no internal rule id or field name reaches the CSV (only the rules' words)", () => {
+    const timed = makeSheet("iec-61000-3-2-class-a", { channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 7: 0.33 } }] }, {}, {
+      "I (A)": { 3: Array(10).fill(2.5), 7: [...Array(9).fill(0.3), 3.0] },
+    });
+    for (const text of [csv, buildSheetCsv(timed)]) {
+      for (const internal of ["snapshot", "smoothed-average", "smoothed-max", "rowRules", "decidedBy", "includeOrderSeries"]) expect(text).not.toContain(internal);
+    }
   });
 
   test("refuses a sheet without an evaluation", () => {

@@ -8,6 +8,17 @@ const single = makeSheet("iec-61000-3-2-class-a", {
 });
 
 describe("sheet PDF", () => {
+  test("the notes list the limit set's interpretation choices once, without provenance markers or internal names", async () => {
+    const pdf = await buildSheetPdf(single, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") });
+    const flat = pdfText(pdf).replace(/\s+/g, " ");
+    const phrase = "the average of the 1.5 s smoothed values is compared with the limit and each smoothed value with 150 % of it";
+    expect(flat).toContain(phrase);
+    expect(flat.split(phrase).length - 1).toBe(1);
+    for (const marker of ["from memory", "(confirmed)", "Ordwise choice", "common practice", "snapshot", "smoothed-average", "smoothed-max", "rowRules"]) {
+      expect(flat).not.toContain(marker);
+    }
+  });
+
   test("is a PDF whose text holds the summary, per-order table, revision and safety caution", async () => {
     const pdf = await buildSheetPdf(single, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") });
     expect(pdf.subarray(0, 4).toString()).toBe("%PDF");

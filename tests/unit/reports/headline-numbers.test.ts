@@ -169,7 +169,7 @@ describe("headline numbers in the PDF (page 1) and the CSV", () => {
     const total = lines.find((l) => l.startsWith("Three-phase total,"))!.split(",");
     expect(Number(total[1])).toBeCloseTo((3 * 1991.858) / 1000, 2);
     // The per-order table still follows, after a blank line.
-    expect(lines).toContain("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,decided_by_label,table_limit,reason");
+    expect(lines).toContain("channel,order,measured,limit,unit,percent_of_limit,margin,verdict,decided_by,table_limit,reason");
   });
 
   test("page 1 of the PDF lists them, before the evaluation context", async () => {

@@ -2,7 +2,7 @@ import { describe, expect, test } from "vitest";
 import { decimateSeries } from "@/lib/reports/decimate-series";
 import type { RuleStatistic } from "@/lib/compliance/result";
 import { causeText, statisticText } from "@/lib/reports/result-wording";
-import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, formatRuleLimit, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
+import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, formatRuleLimit, formatRulePercentOfLimit, shortRuleLabel, tableLimitIfDifferent, timeRuleLines } from "@/lib/reports/time-rules";
 import { makeSheet } from "./make-sheet";
 
 describe("time-rule wording", () => {
@@ -27,7 +27,7 @@ describe("time-rule wording", () => {
 
   test("not-evaluated causes read as sentences with their numbers", () => {
     expect(causeText({ code: "record-too-short", minimumS: 600, durationS: 120 })).toBe("needs at least 10 min of record; the record has 2 min");
-    expect(causeText({ code: "missing-input", input: "ilA" })).toBe("ilA (maximum demand load current at the PCC) not given");
+    expect(causeText({ code: "missing-input", input: "ilA" })).toBe("IL (maximum demand load current at the PCC) not given");
     expect(causeText({ code: "above-nyquist", maxResolvableOrder: 25 })).toBe("above Nyquist (highest resolvable order 25)");
   });
 
@@ -52,6 +52,17 @@ describe("% of limit: against the table limit, with enough digits to explain the
     const row = { measured: 3.54, limit: 3.45, percentOfLimit: rule.percentOfLimit, verdict: "fail", decidedBy: "smoothed-max", rowRules: [rule] };
     expect(formatPercentOfLimit(row)).toBe("153.9 % of the table limit — rule allows 150 %");
     expect(formatPercentOfLimit(row, { compact: true })).toBe("153.9 %");
+    // The phone card and each rule's line in the table read the same, never 3.54 / 3.45 = 102.6 %.
+    expect(formatPercentOfLimit(row, { standalone: true })).toBe("153.9 % of the table limit — rule allows 150 %");
+    expect(formatRulePercentOfLimit(rule)).toBe("153.9 % of the table limit — rule allows 150 %");
+  });
+
+  test("standalone text (phone cards) names the limit; an at-the-limit fail keeps its excess in words", () => {
+    // Arithmetic: 1.0 / 1.14 = 87.72 % (IEC 61000-3-2 Table 1 h5 limit 1.14 A).
+    expect(formatPercentOfLimit({ measured: 1.0, limit: 1.14, percentOfLimit: (1.0 / 1.14) * 100, verdict: "pass" }, { standalone: true })).toBe("87.7 % of the limit");
+    const atLimit = { measured: 0.450008855, limit: 0.45, percentOfLimit: (0.450008855 / 0.45) * 100, verdict: "fail" };
+    expect(formatPercentOfLimit(atLimit, { standalone: true })).toBe("100.0 % of the limit — over the limit by 0.002 %");
+    expect(formatPercentOfLimit({ measured: null, limit: 0.45, percentOfLimit: null, verdict: "not-evaluated" }, { standalone: true })).toBe("—");
   });
 });
 

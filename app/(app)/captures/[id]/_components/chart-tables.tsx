@@ -1,9 +1,11 @@
 "use client";
 
-import { judgedInChannelUnit, limitInChannelUnit } from "@/app/_components/charts/spectrum-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
-import { formatNumber, formatPercent } from "@/lib/reports/format";
+import type { IntervalTrend, IntervalTrendSeries } from "@/lib/intervals/evaluate-interval-log";
+import { formatNumber, formatPercent, formatWhen } from "@/lib/reports/format";
+import { spectrumBars, type SpectrumScale } from "@/lib/reports/spectrum-bars";
+import { decidedByLabel, formatPercentOfLimit } from "@/lib/reports/time-rules";
 import type { ChartDataDto } from "@/lib/swr/use-capture-charts";
 
 // Every chart's values without a mouse: a native disclosure ("Show as table") that a keyboard opens,
@@ -25,19 +27,19 @@ export function FailingOrdersText({ rows }: { rows: ComplianceRow[] }) {
     <p className="mt-1 text-sm" data-testid="spectrum-failing">
       {failing.length === 0
         ? "No order is over its limit."
-        : `Over the limit: ${failing.map((r) => `h${r.order} (${formatNumber(r.measured)} ${r.unit} against ${formatNumber(r.limit)} ${r.unit}, ${formatPercent(r.percentOfLimit)})`).join("; ")}.`}
+        : `Over the limit: ${failing.map((r) => `h${r.order} (${formatNumber(r.measured)} ${r.unit} against ${formatNumber(r.limit)} ${r.unit}, ${formatPercentOfLimit(r, { standalone: true })})`).join("; ")}.`}
     </p>
   );
 }
 
 /**
- * The spectrum's bars and limit marks as rows: order, measured, limit, % of limit, verdict — the same
- * values the chart draws, in the channel's unit (the value a deciding time rule compared, and the
- * row's limit converted from its basis; "—" where the chart has no conversion either).
+ * The spectrum's bars and limit marks as rows: order, the value the verdict compared and its limit
+ * (both in the channel's unit, as the bars draw them), % of the table limit, verdict.
  */
-export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channels"][number]; rows: ComplianceRow[] }) {
+export function SpectrumTable({ channel, rows, scale = {} }: { channel: ChartDataDto["channels"][number]; rows: ComplianceRow[]; scale?: Omit<SpectrumScale, "fundamentalRms"> }) {
   const byOrder = new Map(rows.map((r) => [r.order, r]));
-  const fundamental = channel.harmonics.find((h) => h.order === 1)?.rms ?? null;
+  const fundamentalRms = channel.harmonics.find((h) => h.order === 1)?.rms ?? 0;
+  const bars = new Map(spectrumBars(channel.harmonics, rows, { ...scale, fundamentalRms }).map((b) => [b.order, b]));
   return (
     <Toggle testId="spectrum-table">
       <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
@@ -47,15 +49,17 @@ export function SpectrumTable({ channel, rows }: { channel: ChartDataDto["channe
         <tbody>
           {channel.harmonics.map((h) => {
             const row = byOrder.get(h.order);
-            const shown = fundamental ? judgedInChannelUnit(row, h.rms, fundamental) : h.rms;
-            const limit = row && fundamental ? limitInChannelUnit(row, h.rms, fundamental) : null;
+            const bar = bars.get(h.order);
             return (
-              <tr key={h.order}>
+              <tr key={h.order} data-testid={`spectrum-table-row-${h.order}`}>
                 <th scope="row">h{h.order}</th>
-                <td>{formatNumber(shown)}</td>
-                <td>{formatPercent(shown !== null && fundamental ? (shown / fundamental) * 100 : h.percentOfFundamental)}</td>
-                <td>{formatNumber(limit)}</td>
-                <td>{formatPercent(row?.percentOfLimit ?? null)}</td>
+                <td>
+                  {formatNumber(bar?.value ?? h.rms)}
+                  {bar?.byTimeRule && row && <span className="block text-xs text-ink-muted">{decidedByLabel(row)}</span>}
+                </td>
+                <td>{formatPercent(h.percentOfFundamental)}</td>
+                <td>{formatNumber(bar?.limit ?? null)}</td>
+                <td>{row ? formatPercentOfLimit(row) : "—"}</td>
                 <td>{row ? <VerdictBadge verdict={row.verdict} /> : "—"}</td>
               </tr>
             );
@@ -132,6 +136,41 @@ export function OrderTrendTable({ series, order, unit, windowDurationS }: { seri
               <th scope="row">{(i * step).toFixed(2)}</th>
               <td>{formatNumber(v)}</td>
               <td>{formatNumber(o.smoothed[i] ?? null)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </Toggle>
+  );
+}
+
+/**
+ * The interval log's chosen value over the logged period as rows: time (UTC), the value, the table
+ * limit and each time rule's limit (table limit × multiplier), as the trend chart draws them.
+ */
+export function IntervalTrendTable({ trend, series }: { trend: IntervalTrend; series: IntervalTrendSeries }) {
+  const ruleLimits = series.ruleLimits.filter((r) => r.limit !== series.limit);
+  const grouped = (trend.rowsPerPoint ?? 1) > 1;
+  return (
+    <Toggle testId="interval-trend-table">
+      <table className="table-base tabular-nums [&_th]:!normal-case [&_th]:!tracking-normal">
+        <thead>
+          <tr>
+            <th scope="col">Time</th>
+            <th scope="col">
+              {series.name} ({series.unit}){grouped ? `, largest of ${trend.rowsPerPoint} logged values` : ""}
+            </th>
+            {series.limit !== null && <th scope="col">Table limit ({series.unit})</th>}
+            {ruleLimits.map((r) => <th key={r.rule} scope="col">{r.label} ({series.unit})</th>)}
+          </tr>
+        </thead>
+        <tbody>
+          {series.values.map((v, i) => (
+            <tr key={i}>
+              <th scope="row">{formatWhen(new Date(trend.timestampsMs[i] ?? 0))}</th>
+              <td>{formatNumber(v)}</td>
+              {series.limit !== null && <td>{formatNumber(series.limit)}</td>}
+              {ruleLimits.map((r) => <td key={r.rule}>{formatNumber(r.limit)}</td>)}
             </tr>
           ))}
         </tbody>

@@ -3,13 +3,15 @@
 import { useState } from "react";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
-import { formatMargin, formatNumber, formatPercent } from "@/lib/reports/format";
-import { decidedByLabel, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
+import { formatMargin, formatNumber } from "@/lib/reports/format";
+import { decidedByLabel, formatPercentOfLimit, formatRuleLimit, formatRulePercentOfLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 /**
  * The per-order results on a phone: one card per order with order, measured, limit, % of limit and
  * verdict in view, and the rest (margin, table limit, deciding rule, every rule's result, reason) on tap.
  * No sideways scrolling. Failing orders can be put first; orders that were not judged can be hidden.
+ * Values and wording are the order table's (one formatting function each): "% of limit" against the
+ * table limit with the rule's allowance beside it, and the excess in words for an at-the-limit fail.
  */
 export function OrderCards({ rows, channelName }: { rows: ComplianceRow[]; channelName: string }) {
   const [failingFirst, setFailingFirst] = useState(true);
@@ -38,7 +40,10 @@ export function OrderCards({ rows, channelName }: { rows: ComplianceRow[]; chann
                 <span className="text-base font-semibold">h{r.order}</span>
                 <span className="text-sm tabular-nums">
                   {formatNumber(r.measured)} / {formatNumber(r.limit)} {r.unit}
-                  <span className="block text-ink-soft">{formatPercent(r.percentOfLimit)} of limit</span>
+                  {tableLimitIfDifferent(r) !== null && <span className="text-xs text-ink-muted"> (table {formatNumber(tableLimitIfDifferent(r))})</span>}
+                  <span className={`block ${r.percentOfLimit !== null && r.percentOfLimit > 100 ? "font-semibold text-fail" : "text-ink-soft"}`} data-testid={`order-card-percent-${r.order}`}>
+                    {formatPercentOfLimit(r, { standalone: true })}
+                  </span>
                 </span>
                 <VerdictBadge verdict={r.verdict} />
               </summary>
@@ -70,7 +75,7 @@ export function OrderCards({ rows, channelName }: { rows: ComplianceRow[]; chann
                 {(r.rowRules ?? []).map((rule) => (
                   <div key={rule.rule} className="col-span-2 rounded border border-line px-2 py-1 text-xs" data-testid={`order-card-rule-${rule.rule}`}>
                     <span className="font-medium">{rule.label}</span>: measured {formatNumber(rule.measured)} {rule.unit}, limit {formatRuleLimit(rule)} {rule.unit},{" "}
-                    {formatPercent(rule.percentOfLimit)} of limit — <VerdictBadge verdict={rule.verdict} />
+                    {formatRulePercentOfLimit(rule)} — <VerdictBadge verdict={rule.verdict} />
                     {rule.reason && <span className="block text-ink-soft">{rule.reason}</span>}
                   </div>
                 ))}

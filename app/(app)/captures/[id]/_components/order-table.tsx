@@ -3,9 +3,9 @@
 import { Fragment, useMemo, useState } from "react";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ComplianceRow } from "@/lib/compliance/result";
-import { formatMargin, formatNumber, formatPercent } from "@/lib/reports/format";
+import { formatMargin, formatNumber } from "@/lib/reports/format";
 import { ruleStatisticText } from "@/lib/reports/result-wording";
-import { decidedByLabel, formatPercentOfLimit, formatRuleLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
+import { decidedByLabel, formatPercentOfLimit, formatRuleLimit, formatRulePercentOfLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
 type SortKey = "order" | "measured" | "limit" | "percentOfLimit" | "margin" | "verdict";
 type Column = { key: SortKey | null; label: string; numeric?: boolean; rules?: boolean };
@@ -205,7 +205,7 @@ function RuleResults({ row }: { row: ComplianceRow }) {
               <span>{ruleStatisticText(result) || "—"}</span>
               <span>measured {formatNumber(result.measured)} {result.unit}</span>
               <span>limit {formatRuleLimit(result)} {result.unit}</span>
-              <span>{formatPercent(result.percentOfLimit)} of limit</span>
+              <span>{formatRulePercentOfLimit(result)}</span>
             </div>
             {result.reason && <p className="mt-0.5 text-ink-muted">{result.reason}</p>}
             {result.valueCount !== undefined && result.valueCount > 0 && (

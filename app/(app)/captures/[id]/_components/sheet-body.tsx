@@ -14,7 +14,7 @@ import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
 import { MitigationPanels } from "./mitigation-panels";
-import { FailingOrdersText, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
+import { FailingOrdersText, IntervalTrendTable, OrderTrendTable, SpectrumTable, TrendTable, WaveformTable } from "./chart-tables";
 import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
@@ -122,6 +122,11 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
 
 function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult; smoothing: boolean }) {
   const ilA = result.context.ilA;
+  // The bases the evaluator divided by, so %IL / %Iref / %Vnom rows decided by a time rule draw at the channel's scale.
+  const spectrumScale = useMemo(
+    () => ({ ilA: result.context.ilA, irefA: channel.derived.irefA ?? result.context.irefA, nominalVoltageV: result.context.nominalVoltageV }),
+    [result.context.ilA, result.context.irefA, result.context.nominalVoltageV, channel.derived.irefA],
+  );
   const { data, error, isLoading } = useCaptureCharts(chartsUrl);
   const [mode, setMode] = useState<SpectrumMode>("amperes");
   const chartChannel = data?.channels.find((c) => c.name === channel.channel) ?? data?.channels[0];
@@ -139,7 +144,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
     return (
       <section className="panel min-w-0" aria-label="Charts" data-testid="sheet-charts">
         <h2 className="mb-2">{trend?.channel ?? channel.channel} over the logged period</h2>
-        {trend ? <IntervalTrendChart trend={trend} /> : <p className="text-sm text-ink-muted">No trend data.</p>}
+        {trend ? <IntervalTrendChart trend={trend} table={(series) => <IntervalTrendTable trend={trend} series={series} />} /> : <p className="text-sm text-ink-muted">No trend data.</p>}
       </section>
     );
   }
@@ -168,11 +173,13 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
         ) : isLoading || !data || !chartChannel ? (
           <div className="h-60 animate-pulse rounded bg-paper-sunk" aria-label="Loading chart" />
         ) : (
-          <SpectrumChart channel={chartChannel} rows={channel.rows} mode={mode} />
+          <SpectrumChart channel={chartChannel} rows={channel.rows} mode={mode} scale={spectrumScale} />
         )}
-        <p className="mt-1 text-xs text-ink-muted">Bars: measured r.m.s. per order (red where over the limit). Copper marks: the limit of this evaluation.</p>
+        <p className="mt-1 text-xs text-ink-muted">
+          Bars: the value each verdict compared — the r.m.s. mean per order, or the deciding time rule&apos;s value (red where over the limit). Copper marks: the limit it was compared with.
+        </p>
         <FailingOrdersText rows={channel.rows} />
-        {data && chartChannel && <SpectrumTable channel={chartChannel} rows={channel.rows} />}
+        {data && chartChannel && <SpectrumTable channel={chartChannel} rows={channel.rows} scale={spectrumScale} />}
       </div>
       <div className="panel min-w-0">
         <h2 className="mb-2">Waveform</h2>
