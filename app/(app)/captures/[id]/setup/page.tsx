@@ -1,4 +1,3 @@
-import Link from "next/link";
 import { forbidden } from "next/navigation";
 import { getCaptureById, listLimitSetChoices } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
@@ -18,22 +17,7 @@ export default async function CaptureSetupPage({ params }: { params: Promise<{ i
   const { id } = await params;
   uuidOr404(id);
   const capture = await orNotFound(getCaptureById({ id, reader: user }));
-  if (!canEditCapture(user, capture)) {
-    // The uploader's own capture, frozen by its review: say so rather than "not available to your role".
-    if (user.role === "technician" && capture.uploadedBy === user.id && (capture.reviewState === "in_review" || capture.reviewState === "approved")) {
-      return (
-        <div className="panel mx-auto max-w-xl space-y-2 text-sm" data-testid="setup-frozen">
-          <h1>Set-up frozen — {capture.title}</h1>
-          <p>
-            This capture is {capture.reviewState === "approved" ? "approved" : "in review"}, so its set-up can no longer be changed here. An engineer can
-            re-analyse it with a changed set-up, which starts a new review.
-          </p>
-          <Link href={`/captures/${capture.id}`} className="btn-quiet">Back to the sheet</Link>
-        </div>
-      );
-    }
-    forbidden();
-  }
+  if (!canEditCapture(user, capture)) forbidden();
   const [site, limitSets] = await Promise.all([getSiteById({ id: capture.siteId, reader: user }), listLimitSetChoices()]);
   const mapping = captureMappingSchema.safeParse(capture.mapping ?? {});
   const context = EvaluationContextSchema.safeParse(capture.context ?? {});
