@@ -8,23 +8,12 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn, type CaughtMail, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
-import { analysedCapture, demoCaptureId, json, postUpload, type PresignedUpload } from "../support/captures";
+import { analysedCapture, currentCsv, demoCaptureId, json, postUpload, type PresignedUpload } from "../support/captures";
 
 /**
- * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
- * With 3 A the IEC 61000-3-2:2018+A1:2020 Class A h3 limit of 2.30 A (Table 1) fails; with 1 A it passes.
+ * The records judged here (currentCsv): 20 cycles of 50 Hz at 256 samples per cycle, I1 = 10 A r.m.s.
+ * plus a 3rd harmonic of `i3Rms`. With 3 A the IEC 61000-3-2:2018+A1:2020 Class A h3 limit of 2.30 A (Table 1) fails; with 1 A it passes.
  */
-function currentCsv(i3Rms: number): string {
-  const perCycle = 256;
-  const f = 50;
-  const lines = ["Time (s),I (A)"];
-  for (let k = 0; k < 20 * perCycle; k += 1) {
-    const t = k / (perCycle * f);
-    const i = Math.SQRT2 * (10 * Math.sin(2 * Math.PI * f * t) + i3Rms * Math.sin(2 * Math.PI * 3 * f * t + 0.4));
-    lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
-  }
-  return lines.join("\n") + "\n";
-}
 
 async function mailWithSubject(to: string, fragment: string, timeoutMs = 10_000): Promise<CaughtMail> {
   const deadline = Date.now() + timeoutMs;

@@ -4,27 +4,16 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { analyses, captures, reviewEvents } from "@/db/schema";
-import { analysedCapture, json, waitForCapture } from "../support/captures";
+import { analysedCapture, currentCsv, json, waitForCapture } from "../support/captures";
 import { signedIn, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 
 /**
- * 20 cycles of 50 Hz at 256 samples per cycle: I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
+ * The records judged here (currentCsv): 20 cycles of 50 Hz at 256 samples per cycle, I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
  * IEC 61000-3-2:2018, Table 1 (Class A): h3 limit 2.30 A, so 3 A fails. Clause 7.2: Class B limits
  * are the Table 1 values × 1.5, h3 3.45 A, so 3 A passes. With a current scale of 0.1 the h3 becomes
  * 0.3 A and passes Class A — the swap the issue reports.
  */
-function currentCsv(i3Rms: number): string {
-  const perCycle = 256;
-  const f = 50;
-  const lines = ["Time (s),I (A)"];
-  for (let k = 0; k < 20 * perCycle; k += 1) {
-    const t = k / (perCycle * f);
-    const i = Math.SQRT2 * (10 * Math.sin(2 * Math.PI * f * t) + i3Rms * Math.sin(2 * Math.PI * 3 * f * t + 0.4));
-    lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
-  }
-  return lines.join("\n") + "\n";
-}
 
 let tech: Client;
 let engineer: Client;

@@ -67,3 +67,16 @@ export async function listedCapture<T extends { id: string; title: string }>(api
 export async function demoCaptureId(api: Client, title: string): Promise<string> {
   return (await listedCapture(api, title)).id;
 }
+
+/** A 20-cycle 50 Hz current record: 10 A fundamental plus `i3Rms` A of 3rd harmonic (analytic, 256 samples per cycle). */
+export function currentCsv(i3Rms: number): string {
+  const perCycle = 256;
+  const f = 50;
+  const lines = ["Time (s),I (A)"];
+  for (let k = 0; k < 20 * perCycle; k += 1) {
+    const t = k / (perCycle * f);
+    const i = Math.SQRT2 * (10 * Math.sin(2 * Math.PI * f * t) + i3Rms * Math.sin(2 * Math.PI * 3 * f * t + 0.4));
+    lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
+  }
+  return lines.join("\n") + "\n";
+}
