@@ -7,7 +7,9 @@ import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { formatComplianceTable } from "@/lib/compliance/format-compliance-table";
 import { formatAnalysisText } from "@/lib/pipeline/format-analysis-text";
 import { parseAnalyzeArgs, UsageError, type AnalyzeRequest } from "@/lib/pipeline/parse-analyze-args";
-import { analyzeCaptureFile, evaluateCapture, type LimitSetRevision } from "@/lib/pipeline/run-capture";
+import { runCaptureAnalysis } from "@/lib/pipeline/run-capture-analysis";
+import { runCaptureEvaluation } from "@/lib/pipeline/run-capture-evaluation";
+import type { LimitSetRevision } from "@/lib/pipeline/types";
 import { UnknownLimitSetError } from "@/lib/pipeline/unknown-limit-set-error";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { EvaluationContext } from "@/lib/compliance/model";
@@ -39,12 +41,12 @@ function sourceLine(limitSet: LimitSetRevision, source: LimitSetSource): string 
 
 /** Analyses (and judges) one file; returns what to print. */
 async function runFile(file: string, request: AnalyzeRequest, limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null): Promise<string> {
-  const { analysis } = await analyzeCaptureFile(file, request.mapping, request.context, { cycles: 0 });
+  const { analysis } = await runCaptureAnalysis(file, request.mapping, request.context, { cycles: 0 });
   if (!limits) {
     const extra = await mitigationAdditions(request, analysis, undefined);
     return request.json ? JSON.stringify({ file, ...analysis, ...extra.json }) : `${file}\n\n${formatAnalysisText(analysis)}\n${extra.text}`;
   }
-  const compliance = evaluateCapture(analysis, limits.limitSet, request.context, request.recordStartMs);
+  const compliance = runCaptureEvaluation(analysis, limits.limitSet, request.context, request.recordStartMs);
   const extra = await mitigationAdditions(request, analysis, { limitSet: limits.limitSet, context: request.context });
   return request.json
     ? JSON.stringify({ file, ...analysis, compliance, limitSetSource: limits.source, ...extra.json })

@@ -3,7 +3,7 @@
 import { readFileSync } from "node:fs";
 import { importIntervalLogFile } from "../lib/intervals/import-interval-log-file";
 import { inspectIntervalLog } from "../lib/intervals/inspect-interval-log";
-import { judgeIntervalLog } from "../lib/pipeline/run-interval-log";
+import { runIntervalLogEvaluation } from "../lib/pipeline/run-interval-log-evaluation";
 import { seedLimitSetRevision } from "../lib/pipeline/seed-limit-set-revision";
 
 /** Judges the log at `path` as the worker does; returns its size, verdict and stored trend length. */
@@ -11,6 +11,6 @@ export async function judgeBenchIntervalLog(path: string): Promise<{ rows: numbe
   const head = readFileSync(path).subarray(0, 128 * 1024).toString("utf8");
   const mapping = inspectIntervalLog(head.slice(0, head.lastIndexOf("\n") + 1)).suggestion.mapping!;
   const log = await importIntervalLogFile(path, mapping);
-  const { analysis, result, trends } = judgeIntervalLog(log, seedLimitSetRevision("ieee-519-2014-current"), { iscA: 10_000, ilA: 100, busVoltageV: 480 }, 50);
+  const { analysis, result, trends } = runIntervalLogEvaluation(log, seedLimitSetRevision("ieee-519-2014-current"), { iscA: 10_000, ilA: 100, busVoltageV: 480 }, 50);
   return { rows: analysis.window.count, verdict: result.verdict, trendPoints: trends[0]?.timestampsMs.length ?? 0 };
 }

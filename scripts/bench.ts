@@ -6,8 +6,8 @@ import { spawn } from "node:child_process";
 import { createWriteStream, existsSync, mkdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { analyzeCsvFile } from "../lib/analysis/analyze-csv";
-import type { StreamTimings } from "../lib/analysis/stream-csv-analysis";
+import { analyzeCsvFile } from "../lib/analysis/analyze-csv-file";
+import type { StreamTimings } from "../lib/analysis/analyze-csv-file";
 
 type StageTimings = StreamTimings;
 

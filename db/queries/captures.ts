@@ -25,7 +25,7 @@ import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
 import type { HeadlineSource } from "@/lib/reports/headline-numbers";
-import type { Waveform } from "@/lib/pipeline/run-capture";
+import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
 import { capturesVisibleTo } from "./scope";

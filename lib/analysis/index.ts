@@ -1,7 +1,7 @@
 // Public API of the analysis engine (pure: no framework, database or storage imports).
-export { analyzeCsvFile, analyzeCsvText } from "./analyze-csv";
+export { analyzeCsvText } from "./analyze-csv-text";
 export { analyzeImported } from "./analyze-imported";
-export { streamCsvAnalysis, type StreamTimings } from "./stream-csv-analysis";
+export { analyzeCsvFile, type StreamTimings } from "./analyze-csv-file";
 export { analyzeSamples, type SampleCapture, type SampleChannel, type StageTimings } from "./analyze-samples";
 export { AnalysisInputError, isAnalysisInputError, type AnalysisErrorCode } from "./errors";
 export { estimateFundamental } from "./estimate-fundamental";

@@ -1,4 +1,4 @@
-// Pass 1 of the streaming CSV analysis (see stream-csv-analysis.ts): parse and check every row, fit the time
+// Pass 1 of the streaming CSV analysis (see analyze-csv-file.ts): parse and check every row, fit the time
 // axis, and measure and track the fundamental per segment.
 import { ChannelScan } from "./channel-scan";
 import { AnalysisInputError } from "./errors";

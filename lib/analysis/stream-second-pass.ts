@@ -1,4 +1,4 @@
-// Pass 2 of the streaming CSV analysis (see stream-csv-analysis.ts): exact time-axis checks, clipping runs,
+// Pass 2 of the streaming CSV analysis (see analyze-csv-file.ts): exact time-axis checks, clipping runs,
 // the waveform excerpt, and the windows analysed from a ring buffer.
 import { ChannelScan } from "./channel-scan";
 import { WaveformCollector } from "./collect-waveform";

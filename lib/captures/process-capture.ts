@@ -5,13 +5,14 @@ import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { mkdtemp, rm } from "node:fs/promises";
 import os from "node:os";
 import path from "node:path";
-import { analyzeCaptureFile, evaluateCapture } from "@/lib/pipeline/run-capture";
+import { runCaptureAnalysis } from "@/lib/pipeline/run-capture-analysis";
+import { runCaptureEvaluation } from "@/lib/pipeline/run-capture-evaluation";
 import { downloadObjectToFile } from "@/lib/storage/s3";
 import { systemReader } from "@/lib/auth/permissions";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { captureMappingSchema } from "@/lib/validations/capture";
 import { CaptureSetupError } from "./capture-setup-error";
-import { judgeStoredIntervalLog } from "./judge-stored-interval-log";
+import { evaluateStoredIntervalLog } from "./evaluate-stored-interval-log";
 import { checkOriginal, OriginalChangedError } from "./original-changed-error";
 
 const internalReason = "The analysis stopped on an internal error twice. The upload is kept; try again, and tell an admin if it repeats.";
@@ -49,7 +50,7 @@ export async function processCapture({
     };
     if (capture.kind === "interval-log") {
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
-      const { analysis, trends, result, startMs, fileSha256 } = await judgeStoredIntervalLog(capture, revision, context);
+      const { analysis, trends, result, startMs, fileSha256 } = await evaluateStoredIntervalLog(capture, revision, context);
       setup.fileSha256 = fileSha256;
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.
@@ -60,21 +61,21 @@ export async function processCapture({
     const mapping = captureMappingSchema.parse(capture.mapping ?? {});
     // Waveform records can be hundreds of MB: copied to a temporary file and analysed as a stream.
     const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-capture-"));
-    let analysed: Awaited<ReturnType<typeof analyzeCaptureFile>>;
+    let analysed: Awaited<ReturnType<typeof runCaptureAnalysis>>;
     try {
       const file = path.join(dir, "original.csv");
       const read = await downloadObjectToFile(capture.s3Key, file);
       setup.fileSha256 = read.sha256;
       checkOriginal(capture.sha256, read.sha256);
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
-      analysed = await analyzeCaptureFile(file, mapping, context);
+      analysed = await runCaptureAnalysis(file, mapping, context);
     } finally {
       await rm(dir, { recursive: true, force: true });
     }
     const { analysis, waveform } = analysed;
     await setCaptureStatus({ id: captureId, status: "running", progressPercent: 80 });
     // The record's start (the technician's capture time) aligns 10-minute values to the clock.
-    const result = evaluateCapture(analysis, revision, context, capture.capturedAt?.getTime());
+    const result = runCaptureEvaluation(analysis, revision, context, capture.capturedAt?.getTime());
     await beforeStore?.();
     await storeAnalysisResult({ captureId, analysis, waveform, evaluation: { revisionId: revision.revisionId, context, result }, actorId, setup });
   } catch (err) {

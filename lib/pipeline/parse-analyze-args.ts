@@ -1,5 +1,5 @@
 // The command line's flags → the same mapping and context the upload form produces, so the CLI
-// runs the worker's pipeline on them (lib/pipeline/run-capture.ts).
+// runs the worker's pipeline on them (lib/pipeline/run-capture-analysis.ts, run-capture-evaluation.ts).
 import { parseSensorRating } from "@/lib/analysis/parse-sensor-rating";
 import { parseArgs } from "node:util";
 import { EvaluationContextSchema, type EvaluationContext } from "@/lib/compliance/model";

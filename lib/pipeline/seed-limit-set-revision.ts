@@ -1,6 +1,6 @@
 // The limit sets as shipped in the seed files, in the shape the database gives a current revision.
 import { getSeedLimitSet, seedLimitSets } from "@/lib/compliance/seed";
-import type { LimitSetRevision } from "./run-capture";
+import type { LimitSetRevision } from "./types";
 import { UnknownLimitSetError } from "./unknown-limit-set-error";
 
 

@@ -1,7 +1,7 @@
 // Issue 9 §5: every column is mappable — the user's choice of time axis, a column named in a
 // setting that the file does not have, and scales that are not greater than zero.
 import { describe, expect, test } from "vitest";
-import { analyzeCsvText } from "@/lib/analysis/analyze-csv";
+import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { checkOverrideColumns } from "@/lib/analysis/check-override-columns";
 import { detectLayout } from "@/lib/analysis/detect-layout";
 import { AnalysisInputError } from "@/lib/analysis/errors";

@@ -4,11 +4,11 @@ import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { analyzeCsvFile, analyzeCsvText } from "@/lib/analysis/analyze-csv";
+import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
+import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { detectEncoding } from "@/lib/analysis/detect-encoding";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import { inspectCsv } from "@/lib/analysis/inspect-csv";
-import { streamCsvAnalysis } from "@/lib/analysis/stream-csv-analysis";
 import { decodeText } from "@/lib/captures/decode-text";
 
 const fixture = (name: string): string => join(process.cwd(), "fixtures", name);
@@ -72,9 +72,9 @@ describe("one decoding for preview and analysis", () => {
     const text = `${lines.join("\n")}\n`;
     const path = join(dir, "long-utf16le.csv");
     writeFileSync(path, Buffer.concat([Buffer.from([0xff, 0xfe]), Buffer.from(text, "utf16le")]));
-    const streamed = await streamCsvAnalysis(path, {}, undefined, { segmentSamples: 4096 });
+    const streamed = await analyzeCsvFile(path, {}, undefined, { segmentSamples: 4096 });
     writeFileSync(join(dir, "long-utf8.csv"), text);
-    const utf8 = await streamCsvAnalysis(join(dir, "long-utf8.csv"), {}, undefined, { segmentSamples: 4096 });
+    const utf8 = await analyzeCsvFile(join(dir, "long-utf8.csv"), {}, undefined, { segmentSamples: 4096 });
     expect(streamed.channels[1]!.harmonics[0]!.rms!).toBeCloseTo(14.1 / Math.SQRT2, 3);
     expect(streamed.channels[1]!.harmonics[0]!.rms!).toBe(utf8.channels[1]!.harmonics[0]!.rms!);
   });

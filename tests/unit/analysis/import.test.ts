@@ -2,7 +2,8 @@
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
-import { analyzeCsvFile, analyzeCsvText } from "@/lib/analysis/analyze-csv";
+import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
+import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import { importCsvText } from "@/lib/analysis/import-csv";
 import { inspectCsv } from "@/lib/analysis/inspect-csv";

@@ -5,9 +5,9 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { analyzeCsvText } from "@/lib/analysis/analyze-csv";
+import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
+import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { AnalysisInputError } from "@/lib/analysis/errors";
-import { streamCsvAnalysis } from "@/lib/analysis/stream-csv-analysis";
 
 const dir = mkdtempSync(join(tmpdir(), "ordwise-nonfinite-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -88,7 +88,7 @@ describe("streaming: the same errors, found in pass 1 past the look-ahead", () =
     const expected = syncError(() => analyzeCsvText(text));
     let caught: unknown = null;
     try {
-      await streamCsvAnalysis(path, {}, undefined, { segmentSamples: SEGMENT });
+      await analyzeCsvFile(path, {}, undefined, { segmentSamples: SEGMENT });
     } catch (error) {
       caught = error;
     }

@@ -4,11 +4,11 @@ import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { afterAll, describe, expect, test } from "vitest";
-import { analyzeCsvFile, analyzeCsvText } from "@/lib/analysis/analyze-csv";
+import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
+import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { analyzeImported } from "@/lib/analysis/analyze-imported";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import { importCsvText } from "@/lib/analysis/import-csv";
-import { streamCsvAnalysis } from "@/lib/analysis/stream-csv-analysis";
 import type { AnalysisOptions, AnalysisResult } from "@/lib/analysis/types";
 
 const dir = mkdtempSync(join(tmpdir(), "ordwise-stream-"));
@@ -99,7 +99,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
   const options: AnalysisOptions = { includeOrderSeries: true, thdMaxOrder: 50, ilA: 12 };
 
   test("orders, THD, groups, power, sequence, per-window series and warnings", async () => {
-    const streamed = await streamCsvAnalysis(path, options, undefined, { segmentSamples: SEGMENT });
+    const streamed = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
     const memory = inMemory(text, options);
     expect(streamed.window).toEqual(memory.window);
     expect(streamed.window.count).toBeGreaterThanOrEqual(29);
@@ -116,7 +116,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
   });
 
   test("every window is cut to its own fundamental: a 0.2 Hz ramp keeps every window whole", async () => {
-    const streamed = await streamCsvAnalysis(path, options, undefined, { segmentSamples: SEGMENT });
+    const streamed = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
     expect(streamed.fundamentalHz).toBeCloseTo(50, 2);
     // Leakage from a window off by 0.1 Hz would make the fundamental swing; per-segment windows keep it steady.
     const series = streamed.channels[0]!.series!.fundamentalRms;
@@ -124,7 +124,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
   });
 
   test("the waveform excerpt: first 3 cycles, ≤ 600 points, same on both sides of the look-ahead", async () => {
-    const streamed = await streamCsvAnalysis(path, { keepWaveformCycles: 3 }, undefined, { segmentSamples: SEGMENT });
+    const streamed = await analyzeCsvFile(path, { keepWaveformCycles: 3 }, undefined, { segmentSamples: SEGMENT });
     const short = write("drifting-1s.csv", captureText(1));
     const fromMemory = await analyzeCsvFile(short, { keepWaveformCycles: 3 });
     for (const result of [streamed, fromMemory]) {
@@ -144,7 +144,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
 
   test("an ignored column is left out silently, on both paths", async () => {
     const channels = { "Vb (V)": { ignore: true } };
-    const streamed = await streamCsvAnalysis(path, { channels }, undefined, { segmentSamples: SEGMENT });
+    const streamed = await analyzeCsvFile(path, { channels }, undefined, { segmentSamples: SEGMENT });
     expect(streamed.channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
     expect(streamed.warnings.some((w) => /Vb/.test(w))).toBe(false);
     expect(analyzeCsvText(text, { channels }).channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
@@ -165,7 +165,7 @@ test("a long record without a time column takes its interval from the preamble",
     .join("\n");
   const text = `Sample Interval,${(1 / RATE).toExponential(4)} s\n${body}`;
   const path = write("preamble-3s.csv", text);
-  const streamed = await streamCsvAnalysis(path, {}, undefined, { segmentSamples: SEGMENT });
+  const streamed = await analyzeCsvFile(path, {}, undefined, { segmentSamples: SEGMENT });
   const memory = inMemory(text, {});
   expect(streamed.sampleIntervalSource).toBe("preamble");
   expect(streamed.sampleIntervalS).toBe(memory.sampleIntervalS);
@@ -196,7 +196,7 @@ describe("errors on late lines keep their line numbers in the streaming path", (
     const path = write(`late-${code}.csv`, bad);
     const expected = syncError(() => analyzeCsvText(bad));
     expect(expected.line).toBe(late);
-    const error = await inputError(() => streamCsvAnalysis(path, {}, undefined, { segmentSamples: SEGMENT }));
+    const error = await inputError(() => analyzeCsvFile(path, {}, undefined, { segmentSamples: SEGMENT }));
     expect(error.code).toBe(code);
     expect(error.line).toBe(late);
     expect(error.column).toBe(column);
@@ -207,7 +207,7 @@ describe("errors on late lines keep their line numbers in the streaming path", (
     const flat = lines.map((l, i) => (i === 0 || l === "" ? l : l.replace(/,([^,]+)$/, ",0.0000"))).join("\n");
     const path = write("late-constant.csv", flat);
     const expected = syncError(() => analyzeCsvText(flat));
-    const error = await inputError(() => streamCsvAnalysis(path, {}, undefined, { segmentSamples: SEGMENT }));
+    const error = await inputError(() => analyzeCsvFile(path, {}, undefined, { segmentSamples: SEGMENT }));
     expect(error.code).toBe("constant-channel");
     expect(error.message).toBe(expected.message);
   });

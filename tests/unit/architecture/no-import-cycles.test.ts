@@ -30,7 +30,7 @@ describe("the import-graph reader", () => {
   });
 
   test('resolves "@/" and relative paths to files, and leaves packages out', () => {
-    const from = `${ROOT}/lib/analysis/stream-csv-analysis.ts`;
+    const from = `${ROOT}/lib/analysis/analyze-csv-file.ts`;
     expect(resolveSpecifier(from, "./line-fit")).toBe(`${ROOT}/lib/analysis/line-fit.ts`);
     expect(resolveSpecifier(from, "@/lib/errors")).toBe(`${ROOT}/lib/errors.ts`);
     expect(resolveSpecifier(from, "zod")).toBeNull();
@@ -40,6 +40,6 @@ describe("the import-graph reader", () => {
 test("no module under lib/, app/ or db/ imports itself back through others", () => {
   const { edges } = importGraph();
   // The graph is read at all: the streaming analysis imports its two passes.
-  expect(edges.get("lib/analysis/stream-csv-analysis.ts")).toContain("lib/analysis/stream-first-pass.ts");
+  expect(edges.get("lib/analysis/analyze-csv-file.ts")).toContain("lib/analysis/stream-first-pass.ts");
   expect(cycles(edges)).toEqual([]);
 }, 60_000);

@@ -3,10 +3,10 @@ import { getCaptureById, getCurrentRevision, insertEvaluation, latestAnalysis, l
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { AppError } from "@/lib/errors";
-import { judgeStoredIntervalLog } from "@/lib/captures/judge-stored-interval-log";
+import { evaluateStoredIntervalLog } from "@/lib/captures/evaluate-stored-interval-log";
 import { IntervalLogError } from "@/lib/intervals/errors";
 import { OriginalChangedError } from "@/lib/captures/original-changed-error";
-import { evaluateCapture } from "@/lib/pipeline/run-capture";
+import { runCaptureEvaluation } from "@/lib/pipeline/run-capture-evaluation";
 import { reevaluateSchema } from "@/lib/validations/capture";
 
 /** A log that no longer imports with its stored mapping (e.g. the mapping was changed) cannot be judged again as analysed. */
@@ -38,8 +38,8 @@ export const POST = withAuth<{ id: string }>(
     // An interval log's stored analysis has no channels: it is judged again from its logged series.
     const result =
       capture.kind === "interval-log"
-        ? (await judgeStoredIntervalLog(capture, revision, context).catch(rethrowAsConflict)).result
-        : evaluateCapture(analysis.result, revision, context, capture.capturedAt?.getTime());
+        ? (await evaluateStoredIntervalLog(capture, revision, context).catch(rethrowAsConflict)).result
+        : runCaptureEvaluation(analysis.result, revision, context, capture.capturedAt?.getTime());
     const evaluationId = await insertEvaluation({ captureId: id, analysisId: analysis.id, revisionId: revision.revisionId, context, result, actorId: user.id });
     return NextResponse.json({ evaluationId, verdict: result.verdict }, { status: 201 });
   },

@@ -7,8 +7,8 @@ import { getSiteById } from "@/db/queries/sites";
 import { systemReader } from "@/lib/auth/permissions";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { importIntervalLogFile } from "@/lib/intervals/import-interval-log-file";
-import { judgeIntervalLog } from "@/lib/pipeline/run-interval-log";
-import type { LimitSetRevision } from "@/lib/pipeline/run-capture";
+import { runIntervalLogEvaluation } from "@/lib/pipeline/run-interval-log-evaluation";
+import type { LimitSetRevision } from "@/lib/pipeline/types";
 import { downloadObjectToFile } from "@/lib/storage/s3";
 import { intervalSetupMappingSchema } from "@/lib/validations/capture";
 import { checkOriginal } from "./original-changed-error";
@@ -22,11 +22,11 @@ import { checkOriginal } from "./original-changed-error";
  * @throws IntervalLogError naming the line and column of a problem in the file or mapping;
  *   OriginalChangedError when the stored bytes are not the ones confirmed at upload.
  */
-export async function judgeStoredIntervalLog(
+export async function evaluateStoredIntervalLog(
   capture: Capture,
   revision: LimitSetRevision,
   context: EvaluationContext,
-): Promise<ReturnType<typeof judgeIntervalLog> & { fileSha256: string }> {
+): Promise<ReturnType<typeof runIntervalLogEvaluation> & { fileSha256: string }> {
   const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
   const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-log-"));
   try {
@@ -35,7 +35,7 @@ export async function judgeStoredIntervalLog(
     // The bytes read must be the ones confirmed at upload (also on every "evaluate again").
     checkOriginal(capture.sha256, read.sha256);
     const log = await importIntervalLogFile(file, intervalMapping);
-    return { ...judgeIntervalLog(log, revision, context, site.frequencyHz === 60 ? 60 : 50), fileSha256: read.sha256 };
+    return { ...runIntervalLogEvaluation(log, revision, context, site.frequencyHz === 60 ? 60 : 50), fileSha256: read.sha256 };
   } finally {
     await rm(dir, { recursive: true, force: true });
   }

@@ -5,7 +5,7 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { evaluateIntervalLog, type IntervalLogEvaluation, type IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import type { IntervalLog } from "@/lib/intervals/types";
-import type { LimitSetRevision } from "./run-capture";
+import type { LimitSetRevision } from "./types";
 
 /**
  * Judges an imported interval log (importIntervalLogFile / importIntervalLog). Returns the
@@ -14,9 +14,9 @@ import type { LimitSetRevision } from "./run-capture";
  * capture. The worker's first evaluation and every "evaluate again" call this.
  *
  * @example
- * const { result } = judgeIntervalLog(await importIntervalLogFile(path, mapping), revision, context, 50);
+ * const { result } = runIntervalLogEvaluation(await importIntervalLogFile(path, mapping), revision, context, 50);
  */
-export function judgeIntervalLog(
+export function runIntervalLogEvaluation(
   log: IntervalLog,
   limitSet: LimitSetRevision,
   context: EvaluationContext,

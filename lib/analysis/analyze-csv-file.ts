@@ -32,7 +32,8 @@ export interface StreamTuning {
 }
 
 /**
- * Analyses a CSV file on disk with memory independent of the record's length.
+ * Analyses a CSV file on disk with memory independent of the record's length (the worker's and
+ * the command line's engine entry; {@link analyzeCsvText} is the in-memory one).
  *
  * Records up to two frequency segments (2 × 2^18 rows ≈ 20 s at 25.6 kS/s) are read once into
  * memory and analysed exactly as {@link analyzeImported} does. Longer records take two streaming
@@ -49,9 +50,9 @@ export interface StreamTuning {
  * @param timings filled with milliseconds per stage (importMs = pass 1, rereadMs = pass 2 parsing).
  * @throws AnalysisInputError for every input problem, with `line`/`column` where it applies.
  * @example
- * const result = await streamCsvAnalysis("capture.csv", { keepWaveformCycles: 3 });
+ * const result = await analyzeCsvFile("capture.csv", { frequencyHz: 50, channels: { Ia: { scale: 40 } }, keepWaveformCycles: 3 });
  */
-export async function streamCsvAnalysis(
+export async function analyzeCsvFile(
   path: string,
   options: AnalysisOptions = {},
   timings?: StreamTimings,
