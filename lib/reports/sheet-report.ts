@@ -40,6 +40,9 @@ export interface SheetReport {
   limitsVerification?: RevisionVerification | null;
 }
 
+/** One channel of a sheet: as judged, or the top level of a result that lists no channels. */
+export type ChannelBlock = ReturnType<typeof channelBlocks>[number];
+
 /** The channel blocks of a result: every evaluated channel, or the top level when none are listed. */
 export function channelBlocks(result: ComplianceResult) {
   if (result.channels.length > 0) return result.channels;

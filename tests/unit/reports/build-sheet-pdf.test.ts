@@ -1,7 +1,7 @@
 import { describe, expect, test } from "vitest";
 import { buildSheetPdf } from "@/lib/reports/build-sheet-pdf";
 import { makeSheet } from "./make-sheet";
-import { pdfText } from "./pdf-text";
+import { pdfPageTexts, pdfText } from "./pdf-text";
 
 const single = makeSheet("iec-61000-3-2-class-a", {
   channels: [{ name: "I (A)", fundamentalRms: 8, harmonics: { 3: 2.5, 5: 1.0, 7: 0.5 } }],
@@ -85,6 +85,24 @@ describe("sheet PDF", () => {
     expect(text).toContain("Isc/IL");
     expect(text).toContain("31.5");
     expect(text).not.toMatch(/[λ≤]/);
+  });
+});
+
+describe("sheet PDF: tables over several pages", () => {
+  test("every page that continues a per-order table starts it with the header row again", async () => {
+    const sheet = makeSheet(
+      "ieee-519-2014-current",
+      { channels: ["a", "b", "c"].map((phase) => ({ name: `I${phase.toUpperCase()}`, phase, fundamentalRms: 250, harmonics: { 5: 10, 7: 6, 11: 3 } })) },
+      { iscA: 8200, ilA: 260, busVoltageV: 11000 },
+    );
+    const pages = pdfPageTexts(await buildSheetPdf(sheet, { compress: false })).map((page) => page.split("\n"));
+    const withOrders = pages.filter((lines) => lines.some((l) => /^h\d+$/.test(l)));
+    // Three channels of orders 2–50 do not fit on one page after page 1's summary.
+    expect(withOrders.length).toBeGreaterThan(1);
+    for (const lines of withOrders) {
+      const firstOrder = lines.findIndex((l) => /^h\d+$/.test(l));
+      expect(lines.slice(0, firstOrder)).toContain("Table limit");
+    }
   });
 });
 
