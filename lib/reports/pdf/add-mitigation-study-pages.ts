@@ -2,7 +2,7 @@ import { FAMILY_LABELS } from "@/lib/frontends/family-labels";
 import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { WhatIfResult } from "@/lib/mitigation/types";
 import { formatWhen } from "../format";
-import { drawTable } from "./draw-table";
+import { drawTable, type TableColumn } from "./draw-table";
 import { pdfColours } from "./pdf-colours";
 import { pdfSafe } from "./pdf-safe";
 import type { PdfWriter } from "./pdf-writer";
@@ -62,19 +62,14 @@ export function addMitigationStudyPages(w: PdfWriter, studies: readonly StudyFor
       const byOrder = new Map(judged.map((x) => [x.order, x]));
       const shown = ch.harmonics.filter((h) => h.order >= 2 && (byOrder.get(h.order)?.verdict === "fail" || (h.measuredRms ?? 0) >= 0.02 * ch.fundamentalA)).slice(0, 16);
       if (shown.length === 0) continue;
-      const columns = [
-        { label: "Order", width: 50 },
-        { label: "Measured, A", width: 90, align: "right" as const },
-        { label: "Predicted, A", width: 90, align: "right" as const },
-        { label: `Limit${judged[0] ? ` (${judged[0].unit})` : ""}`, width: 90, align: "right" as const },
-        { label: "Predicted verdict", width: 120 },
+      const columns: Array<TableColumn<(typeof shown)[number]>> = [
+        { label: "Order", width: 50, cell: (h) => String(h.order) },
+        { label: "Measured, A", width: 90, align: "right", cell: (h) => (h.measuredRms === null ? "—" : h.measuredRms.toPrecision(3)) },
+        { label: "Predicted, A", width: 90, align: "right", cell: (h) => (h.rms === null ? "—" : h.rms.toPrecision(3)) },
+        { label: `Limit${judged[0] ? ` (${judged[0].unit})` : ""}`, width: 90, align: "right", cell: (h) => byOrder.get(h.order)?.limit?.toPrecision(3) ?? "—" },
+        { label: "Predicted verdict", width: 120, cell: (h) => byOrder.get(h.order)?.verdict ?? "—" },
       ];
-      const rows = shown.map((h) => {
-        const p = byOrder.get(h.order);
-        const cells = [String(h.order), h.measuredRms === null ? "—" : h.measuredRms.toPrecision(3), h.rms === null ? "—" : h.rms.toPrecision(3), p?.limit == null ? "—" : p.limit.toPrecision(3), p?.verdict ?? "—"];
-        return { cells: cells.map((text) => ({ text })) };
-      });
-      drawTable(w, columns, rows, {
+      drawTable(w, columns, shown, {
         keepTogether: 14 * (shown.length + 1),
         head: { size: 8.5, colour: ink, height: 12 },
         body: { size: 8.5, colour: ink, height: 12 },

@@ -1,22 +1,21 @@
 import type { ComplianceRow } from "@/lib/compliance/result";
-import { formatMargin, formatNumber, verdictLabel } from "../format";
-import { decidedByLabel, formatPercentOfLimit, tableLimitOf } from "../time-rules";
-import { drawTable } from "./draw-table";
-import { pdfColours, verdictColours } from "./pdf-colours";
+import { drawTable, type TableColumn } from "./draw-table";
+import { judgedColumns as judged } from "./judged-columns";
+import { pdfColours } from "./pdf-colours";
 import type { PdfWriter } from "./pdf-writer";
 
 // Table limit: before a time rule's multiplier; Decided by: the rule whose result is shown.
-const columns = [
-  { label: "Order", width: 34 },
-  { label: "Measured", width: 56, align: "right" },
-  { label: "Limit", width: 56, align: "right" },
-  { label: "Table limit", width: 56, align: "right" },
-  { label: "Unit", width: 34 },
-  { label: "% of limit", width: 54, align: "right" },
-  { label: "Margin", width: 54, align: "right" },
-  { label: "Verdict", width: 68 },
-  { label: "Decided by", width: 103 },
-] as const;
+const columns: Array<TableColumn<ComplianceRow>> = [
+  { label: "Order", width: 34, cell: (row) => ({ text: `h${row.order}`, bold: true }) },
+  judged.measured(56),
+  judged.limit(56),
+  judged.tableLimit(56),
+  judged.unit(34),
+  judged.percentOfLimit(54),
+  judged.margin(54),
+  judged.verdict(68),
+  judged.decidedBy(103),
+];
 
 /**
  * A channel's per-order table: measured, limit (after a time rule's multiplier), table limit,
@@ -25,25 +24,12 @@ const columns = [
  *
  * @example addOrderTable(w, block.rows)
  */
-export function addOrderTable(w: PdfWriter, orders: readonly ComplianceRow[]): void {
-  const rows = orders.map((row) => ({
-    fill: row.verdict === "fail" ? pdfColours.failLight : undefined,
-    cells: [
-      { text: `h${row.order}`, bold: true },
-      { text: formatNumber(row.measured) },
-      { text: formatNumber(row.limit) },
-      { text: formatNumber(tableLimitOf(row)), colour: pdfColours.soft },
-      { text: row.unit },
-      { text: formatPercentOfLimit(row, { compact: true }) },
-      { text: formatMargin(row.margin) },
-      { text: verdictLabel(row.verdict), colour: verdictColours(row.verdict).fg, bold: row.verdict === "fail" },
-      { text: decidedByLabel(row) || "—", colour: pdfColours.soft },
-    ],
-  }));
+export function addOrderTable(w: PdfWriter, rows: readonly ComplianceRow[]): void {
   drawTable(w, columns, rows, {
     keepTogether: 40,
     head: { size: 7.5, colour: pdfColours.soft, height: 13, fill: pdfColours.idleLight },
     body: { size: 8, colour: pdfColours.ink, height: 11 },
     gapAfter: 2,
+    rowFill: (row) => (row.verdict === "fail" ? pdfColours.failLight : undefined),
   });
 }

@@ -1,26 +1,22 @@
 import { pdfSafe } from "./pdf-safe";
 import type { PdfWriter } from "./pdf-writer";
 
-export interface TableColumn {
-  label: string;
-  /** pt */
-  width: number;
-  align?: "left" | "right";
-}
-
 export interface TableCell {
   text: string;
   colour?: string;
   bold?: boolean;
 }
 
-export interface TableRow {
-  cells: TableCell[];
-  /** Background of the row across the page (e.g. a failing order). */
-  fill?: string;
+/** One column: its header, width, alignment and what it prints for an item. */
+export interface TableColumn<T> {
+  label: string;
+  /** pt */
+  width: number;
+  align?: "left" | "right";
+  cell: (item: T) => TableCell | string;
 }
 
-export interface TableStyle {
+export interface TableStyle<T> {
   /** Room wanted below the current position before the header, pt (a new page otherwise). */
   keepTogether: number;
   /** `fill`: a band across the page behind the header. */
@@ -30,6 +26,8 @@ export interface TableStyle {
   rule?: string;
   /** Space left below the last row, pt. */
   gapAfter: number;
+  /** Background of an item's row across the page (e.g. a failing order); none when undefined. */
+  rowFill?: (item: T) => string | undefined;
 }
 
 /**
@@ -40,15 +38,16 @@ export interface TableStyle {
  * Own drawing rather than pdfkit's `doc.table()`: in pdfkit 0.20 a table that runs onto the next
  * page does not repeat its header row, and it breaks at the page's bottom margin, over the footer.
  *
- * @example drawTable(w, [{ label: "Order", width: 40 }], [{ cells: [{ text: "h3" }] }], style)
+ * @example drawTable(w, [{ label: "Order", width: 40, cell: (r) => `h${r.order}` }], rows, style)
  */
-export function drawTable(w: PdfWriter, columns: readonly TableColumn[], rows: readonly TableRow[], style: TableStyle): void {
+export function drawTable<T>(w: PdfWriter, columns: ReadonlyArray<TableColumn<T>>, items: readonly T[], style: TableStyle<T>): void {
   const { doc, margin } = w;
   const tableWidth = columns.reduce((sum, c) => sum + c.width, 0);
-  const cells = (row: readonly TableCell[], y: number, size: number, colour: string) => {
+  const cells = (row: ReadonlyArray<TableCell | string>, y: number, size: number, colour: string) => {
     let x = margin;
-    row.forEach((c, i) => {
+    row.forEach((cell, i) => {
       const column = columns[i]!;
+      const c = typeof cell === "string" ? { text: cell } : cell;
       doc.font(c.bold ? "Helvetica-Bold" : "Helvetica").fontSize(size).fillColor(c.colour ?? colour);
       doc.text(pdfSafe(c.text), x + 3, y, { width: column.width - 6, align: column.align ?? "left", lineBreak: false, ellipsis: true, height: size + 3 });
       x += column.width;
@@ -65,10 +64,11 @@ export function drawTable(w: PdfWriter, columns: readonly TableColumn[], rows: r
   w.ensure(style.keepTogether);
   doc.moveDown(0.3);
   let y = drawHead(doc.y);
-  for (const row of rows) {
+  for (const item of items) {
     if (y + style.body.height > w.bottom()) y = drawHead(w.newPage());
-    if (row.fill) doc.rect(margin, y - 2, w.width, style.body.height).fill(row.fill);
-    cells(row.cells, y, style.body.size, style.body.colour);
+    const fill = style.rowFill?.(item);
+    if (fill) doc.rect(margin, y - 2, w.width, style.body.height).fill(fill);
+    cells(columns.map((c) => c.cell(item)), y, style.body.size, style.body.colour);
     if (style.rule) doc.moveTo(margin, y + style.body.height - 1).lineTo(margin + tableWidth, y + style.body.height - 1).lineWidth(0.3).strokeColor(style.rule).stroke();
     y += style.body.height;
   }
