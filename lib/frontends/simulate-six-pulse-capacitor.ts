@@ -1,3 +1,4 @@
+import { shootSteadyState } from "./shoot-steady-state";
 import { spectrumOfCycle } from "./spectrum-of-cycle";
 import type { FrontEndSpectrum } from "./types";
 
@@ -143,26 +144,8 @@ export function simulateSixPulseCapacitorCycle(input: SixPulseCapacitorInput): {
     }
   };
 
-  // Shooting on the capacitor voltage: g(v) = v(after one cycle) − v(start) → 0 by secant steps.
-  runCycle(null);
-  let v0 = vc;
-  runCycle(null);
-  let g0 = vc - v0;
-  let v1 = vc;
-  for (let it = 0; it < 12; it++) {
-    runCycle(null);
-    const g1 = vc - v1;
-    if (Math.abs(g1) < 1e-7) break;
-    const slope = (g1 - g0) / (v1 - v0);
-    v0 = v1;
-    g0 = g1;
-    if (Number.isFinite(slope) && slope < -1e-6 && Math.abs(v1 - v0 + 1) > 0) {
-      const step = -g1 / slope;
-      vc = v1 + Math.max(-0.2, Math.min(0.2, step));
-    }
-    v1 = vc;
-  }
-  runCycle(null);
+  // Steady state by shooting on the capacitor voltage.
+  shootSteadyState(() => runCycle(null), { get: () => vc, set: (v) => (vc = v) });
   runCycle(record);
   return { spectrum: spectrumOfCycle(record, 0), currentA: record, dcVoltagePu: vc };
 }
