@@ -130,26 +130,19 @@ function parseTokens(formula: string, tokens: Token[]): Node {
           ? `unexpected identifier "${token.name}"`
           : `unexpected "${token.operator}"`;
 
-  const expr = (): Node => {
-    let left = term();
+  // A left-associative level of the grammar: operand (operator operand)*.
+  const leftAssociative = (operators: ReadonlyArray<"+" | "-" | "*" | "/">, operand: () => Node) => (): Node => {
+    let left = operand();
     for (;;) {
       const token = peek();
-      if (isOperator(token, "+") || isOperator(token, "-")) {
-        index += 1;
-        left = { kind: "binary", operator: (token as { operator: "+" | "-" }).operator, left, right: term() };
-      } else return left;
+      const operator = token.kind === "operator" ? operators.find((o) => o === token.operator) : undefined;
+      if (!operator) return left;
+      index += 1;
+      left = { kind: "binary", operator, left, right: operand() };
     }
   };
-  const term = (): Node => {
-    let left = unary();
-    for (;;) {
-      const token = peek();
-      if (isOperator(token, "*") || isOperator(token, "/")) {
-        index += 1;
-        left = { kind: "binary", operator: (token as { operator: "*" | "/" }).operator, left, right: unary() };
-      } else return left;
-    }
-  };
+  const term = leftAssociative(["*", "/"], () => unary());
+  const expr = leftAssociative(["+", "-"], term);
   const unary = (): Node => {
     const token = peek();
     if (isOperator(token, "-")) {

@@ -13,6 +13,8 @@ describe("evaluateFormula — valid formulas", () => {
     ["1.5*(0.15*15/h)", { h: 21 }, 0.16071, "IEC 61000-3-2:2018+A1:2020 Class B = 1.5 × Table 1, n = 21 → 0.1607 A (computed from formula)"],
     ["2+3*4", {}, 14, "arithmetic precedence, common practice, no source"],
     ["(2+3)*4", {}, 20, "parentheses, common practice, no source"],
+    ["10-3-2", {}, 5, "- is left-associative, common practice, no source"],
+    ["8/4/2", {}, 1, "/ is left-associative, common practice, no source"],
     ["-2^2", {}, -4, "^ binds tighter than unary minus (common practice)"],
     ["2^3^2", {}, 512, "^ is right-associative (common practice)"],
     ["1e-3*P", { P: 500 }, 0.5, "exponent notation, common practice, no source; P in W"],
