@@ -1,14 +1,14 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { IntervalMappingInput } from "@/lib/intervals/types";
 import { fieldErrorsOf } from "@/lib/errors";
-import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { useIntervalPreview } from "@/lib/swr/use-interval-preview";
 import { intervalSetupSchema } from "@/lib/validations/capture";
 import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
+import { FilePreview } from "./file-preview";
+import { useSaveAndAnalyze } from "./use-save-and-analyze";
 
 interface Row {
   column: string;
@@ -34,16 +34,13 @@ interface Props {
 const sel = "rounded border border-line bg-paper-raised px-1.5 py-1";
 
 export function IntervalMappingForm({ captureId, limitSets, savedMapping, initialLimitSetKey, initialContext }: Props) {
-  const router = useRouter();
   const { data, error } = useIntervalPreview(captureId);
   const [rows, setRows] = useState<Row[]>([]);
   const [timestamp, setTimestamp] = useState("");
   const [format, setFormat] = useState<"auto" | "iso" | "ymd" | "dmy">("auto");
   const [offset, setOffset] = useState("0");
   const contextState = useContextState(initialLimitSetKey, initialContext);
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { errors, setErrors, message, setMessage, busy, saveAndAnalyze } = useSaveAndAnalyze(captureId, "interval-setup", "Could not start the evaluation.");
 
   useEffect(() => {
     const preview = data?.preview;
@@ -109,33 +106,12 @@ export function IntervalMappingForm({ captureId, limitSets, savedMapping, initia
       setMessage(`Some fields need attention — ${named.join(" · ")}`);
       return;
     }
-    setErrors({});
-    setBusy(true);
-    try {
-      await sendJson(`/api/captures/${captureId}/interval-setup`, "PUT", parsed.data);
-      await sendJson(`/api/captures/${captureId}/analyze`, "POST");
-      router.push(`/captures/${captureId}`);
-      router.refresh();
-    } catch (err) {
-      if (err instanceof FetchError && err.fieldErrors) setErrors(err.fieldErrors);
-      setMessage(err instanceof Error ? err.message : "Could not start the evaluation.");
-      setBusy(false);
-    }
+    await saveAndAnalyze(parsed.data);
   }
 
   return (
     <form onSubmit={submit} className="space-y-4" noValidate data-testid="interval-mapping-form">
-      <section className="panel space-y-2">
-        <h2>File preview</h2>
-        {error && <p className="text-sm text-fail">{error.message}</p>}
-        {!data && !error && <p className="text-sm text-ink-muted">Reading the first lines…</p>}
-        {data && (
-          <pre className="max-h-40 overflow-auto rounded bg-paper-sunk p-2 font-mono text-2xs leading-4" data-testid="preview-lines">
-            {data.firstLines.join("\n")}
-          </pre>
-        )}
-        {data?.problem && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{data.problem}</p>}
-      </section>
+      <FilePreview data={data} error={error} />
 
       {data?.preview && (
         <section className="panel space-y-3">

@@ -1,15 +1,15 @@
 "use client";
 
-import { useRouter } from "next/navigation";
 import { useEffect, useState } from "react";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { fieldErrorsOf } from "@/lib/errors";
-import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { usePreview } from "@/lib/swr/use-preview";
 import { parseSensorRating } from "@/lib/analysis/parse-sensor-rating";
 import { parseUnit } from "@/lib/analysis/parse-unit";
 import { captureSetupSchema, type CaptureMapping } from "@/lib/validations/capture";
 import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
+import { FilePreview } from "./file-preview";
+import { useSaveAndAnalyze } from "./use-save-and-analyze";
 
 interface Props {
   captureId: string;
@@ -51,16 +51,13 @@ function scaleMeaning(row: ColumnRow): string {
 const CHOICE_LABEL: Record<Choice, string> = { current: "Current (A)", voltage: "Voltage (V)", time: "Time axis", ignore: "Ignore" };
 
 export function MappingForm({ captureId, limitSets, initialMapping, initialLimitSetKey, initialContext, siteFrequencyHz }: Props) {
-  const router = useRouter();
   const { data, error } = usePreview(captureId);
   const [rows, setRows] = useState<ColumnRow[]>([]);
   const [sampleInterval, setSampleInterval] = useState(initialMapping.sampleIntervalS?.toString() ?? "");
   const [frequency, setFrequency] = useState(initialMapping.frequencyHz?.toString() ?? String(siteFrequencyHz));
   const [thdMaxOrder, setThdMaxOrder] = useState(String(initialMapping.thdMaxOrder ?? 50));
   const contextState = useContextState(initialLimitSetKey, initialContext);
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { errors, setErrors, message, setMessage, busy, saveAndAnalyze } = useSaveAndAnalyze(captureId, "setup", "Could not start the analysis.");
 
   useEffect(() => {
     if (!data?.preview || rows.length > 0) return;
@@ -126,50 +123,24 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
       setErrors({ "mapping.sampleIntervalS": ["The file states no sample interval and no column is the time axis: enter the interval"] });
       return;
     }
-    setErrors({});
-    setBusy(true);
-    try {
-      await sendJson(`/api/captures/${captureId}/setup`, "PUT", parsed.data);
-      await sendJson(`/api/captures/${captureId}/analyze`, "POST");
-      router.push(`/captures/${captureId}`);
-      router.refresh();
-    } catch (err) {
-      if (err instanceof FetchError && err.fieldErrors) setErrors(err.fieldErrors);
-      setMessage(err instanceof Error ? err.message : "Could not start the analysis.");
-      setBusy(false);
-    }
+    await saveAndAnalyze(parsed.data);
   }
 
   const err = (k: string) => errors[k]?.map((m) => <p key={m} className="field-error">{m}</p>);
 
   return (
     <form onSubmit={submit} className="space-y-4" noValidate data-testid="mapping-form">
-      <section className="panel space-y-2">
-        <h2>File preview</h2>
-        {error && <p className="text-sm text-fail">{error.message}</p>}
-        {!data && !error && <p className="text-sm text-ink-muted">Reading the first lines…</p>}
-        {data && (
-          <>
-            <pre className="max-h-48 overflow-auto rounded bg-paper-sunk p-2 font-mono text-2xs leading-4" data-testid="preview-lines">
-              {data.firstLines.join("\n")}
-            </pre>
-            {data.problem && (
-              <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">
-                {data.problem}
-              </p>
-            )}
-            {data.preview && (
-              <p className="text-xs text-ink-muted">
-                Delimiter “{data.preview.delimiter === "\t" ? "tab" : data.preview.delimiter}”, decimal “{data.preview.decimalSeparator}”,
-                {data.preview.headerLine ? ` header on line ${data.preview.headerLine},` : " no header,"} data from line {data.preview.dataStartLine}.{" "}
-                {data.preview.sampleIntervalS
-                  ? `Sample interval ${(data.preview.sampleIntervalS * 1e6).toPrecision(5)} µs (${data.preview.sampleIntervalSource === "time-column" ? "time column" : "preamble"}).`
-                  : "No sample interval found in the file."}
-              </p>
-            )}
-          </>
+      <FilePreview data={data} error={error}>
+        {data?.preview && (
+          <p className="text-xs text-ink-muted">
+            Delimiter “{data.preview.delimiter === "\t" ? "tab" : data.preview.delimiter}”, decimal “{data.preview.decimalSeparator}”,
+            {data.preview.headerLine ? ` header on line ${data.preview.headerLine},` : " no header,"} data from line {data.preview.dataStartLine}.{" "}
+            {data.preview.sampleIntervalS
+              ? `Sample interval ${(data.preview.sampleIntervalS * 1e6).toPrecision(5)} µs (${data.preview.sampleIntervalSource === "time-column" ? "time column" : "preamble"}).`
+              : "No sample interval found in the file."}
+          </p>
         )}
-      </section>
+      </FilePreview>
 
       {rows.length > 0 && (
         <section className="panel space-y-2">
