@@ -26,6 +26,7 @@ import {
   type ContentDraft,
   type RowDraft,
 } from "./editor-draft";
+import { BandList, BandListItem } from "./band-list";
 import { ErrorList } from "./error-list";
 
 type Errors = Record<string, string[]>;
@@ -98,11 +99,7 @@ function RowEditor({ row, b, r, errors, onChange, onRemove }: { row: RowDraft; b
   const bad = (f: string) => !!errors[`${path}.${f}`];
   const id = (f: string) => `b${b}-r${r}-${f}`;
   return (
-    <li className="rounded-md border border-line/70 p-2" data-testid={`edit-row-${b}-${r}`}>
-      <div className="mb-1 flex items-center justify-between text-xs text-ink-muted">
-        <span>Row {r + 1} · {orderText(row)}</span>
-        <button type="button" className="text-fail hover:underline" onClick={onRemove} data-testid={id("remove")}>Remove</button>
-      </div>
+    <BandListItem title={`Row ${r + 1} · ${orderText(row)}`} testId={`edit-row-${b}-${r}`} removeTestId={id("remove")} onRemove={onRemove}>
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4 lg:grid-cols-[4rem_4rem_8.5rem_6.5rem_minmax(8rem,1fr)_6rem_7rem_minmax(6rem,1fr)]">
         <Field label="From" htmlFor={id("from")}><TextInput id={id("from")} value={row.from} decimal invalid={bad("from")} onChange={(v) => onChange({ from: v })} /></Field>
         <Field label="To" htmlFor={id("to")}><TextInput id={id("to")} value={row.to} decimal invalid={bad("to")} onChange={(v) => onChange({ to: v })} /></Field>
@@ -122,7 +119,7 @@ function RowEditor({ row, b, r, errors, onChange, onRemove }: { row: RowDraft; b
         )}
       </div>
       <Messages messages={under(errors, path)} testId={`errors-${id("row")}`} />
-    </li>
+    </BandListItem>
   );
 }
 
@@ -131,11 +128,7 @@ function AggregateEditor({ agg, b, a, errors, onChange, onRemove }: { agg: Aggre
   const bad = (f: string) => !!errors[`${path}.${f}`];
   const id = (f: string) => `b${b}-a${a}-${f}`;
   return (
-    <li className="rounded-md border border-line/70 p-2" data-testid={`edit-aggregate-${b}-${a}`}>
-      <div className="mb-1 flex items-center justify-between text-xs text-ink-muted">
-        <span>Aggregate {a + 1} · {agg.name}</span>
-        <button type="button" className="text-fail hover:underline" onClick={onRemove}>Remove</button>
-      </div>
+    <BandListItem title={`Aggregate ${a + 1} · ${agg.name}`} testId={`edit-aggregate-${b}-${a}`} onRemove={onRemove}>
       <div className="grid grid-cols-2 gap-2 sm:grid-cols-4 lg:grid-cols-[6rem_4rem_4rem_8.5rem_6rem_9rem_minmax(6rem,1fr)_6rem_10rem]">
         <Field label="Name" htmlFor={id("name")}><Select id={id("name")} value={agg.name} options={aggregateNames} onChange={(v) => onChange({ name: v })} /></Field>
         <Field label="From" htmlFor={id("from")}><TextInput id={id("from")} value={agg.from} decimal invalid={bad("from")} onChange={(v) => onChange({ from: v })} /></Field>
@@ -154,7 +147,7 @@ function AggregateEditor({ agg, b, a, errors, onChange, onRemove }: { agg: Aggre
         <Field label="Role" htmlFor={id("role")}><Select id={id("role")} value={agg.role} options={["requirement", "allowance-condition"] as const} onChange={(v) => onChange({ role: v })} /></Field>
       </div>
       <Messages messages={under(errors, path)} />
-    </li>
+    </BandListItem>
   );
 }
 
@@ -208,44 +201,12 @@ function BandEditor({ band, b, errors, update }: { band: BandDraft; b: number; e
         </div>
       </fieldset>
       <Messages messages={ownErrors} testId={`errors-band-${b}`} />
-      <div className="space-y-2">
-        <h3 className="text-sm font-semibold">Order rows</h3>
-        <ol className="space-y-2">
-          {band.rows.map((row, r) => (
-            <RowEditor
-              key={row.id}
-              row={row}
-              b={b}
-              r={r}
-              errors={errors}
-              onChange={(patch) => update((d) => void (d.rows[r] = { ...d.rows[r]!, ...patch }))}
-              onRemove={() => update((d) => void d.rows.splice(r, 1))}
-            />
-          ))}
-        </ol>
-        <button type="button" className="btn-quiet py-1" data-testid={`b${b}-add-row`} onClick={() => update((d) => void d.rows.push(emptyRow(d.rows.at(-1)?.basis)))}>
-          Add row
-        </button>
-      </div>
-      <div className="space-y-2">
-        <h3 className="text-sm font-semibold">Aggregates</h3>
-        <ol className="space-y-2">
-          {band.aggregates.map((agg, a) => (
-            <AggregateEditor
-              key={agg.id}
-              agg={agg}
-              b={b}
-              a={a}
-              errors={errors}
-              onChange={(patch) => update((d) => void (d.aggregates[a] = { ...d.aggregates[a]!, ...patch }))}
-              onRemove={() => update((d) => void d.aggregates.splice(a, 1))}
-            />
-          ))}
-        </ol>
-        <button type="button" className="btn-quiet py-1" onClick={() => update((d) => void d.aggregates.push(emptyAggregate(d.rows.at(-1)?.basis)))}>
-          Add aggregate
-        </button>
-      </div>
+      <BandList title="Order rows" items={band.rows} select={(d) => d.rows} empty={(d) => emptyRow(d.rows.at(-1)?.basis)} addLabel="Add row" addTestId={`b${b}-add-row`} update={update}>
+        {(row, r, edit) => <RowEditor key={row.id} row={row} b={b} r={r} errors={errors} {...edit} />}
+      </BandList>
+      <BandList title="Aggregates" items={band.aggregates} select={(d) => d.aggregates} empty={(d) => emptyAggregate(d.rows.at(-1)?.basis)} addLabel="Add aggregate" update={update}>
+        {(agg, a, edit) => <AggregateEditor key={agg.id} agg={agg} b={b} a={a} errors={errors} {...edit} />}
+      </BandList>
     </section>
   );
 }

@@ -8,6 +8,7 @@ import { useIntervalPreview } from "@/lib/swr/use-interval-preview";
 import { intervalSetupSchema } from "@/lib/validations/capture";
 import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
 import { FilePreview } from "./file-preview";
+import { SetupSubmit } from "./setup-submit";
 import { useSaveAndAnalyze } from "./use-save-and-analyze";
 
 interface Row {
@@ -189,10 +190,7 @@ export function IntervalMappingForm({ captureId, limitSets, savedMapping, initia
       )}
 
       <ContextSection state={contextState} limitSets={limitSets} errors={errors} />
-      {message && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{message}</p>}
-      <button type="submit" className="btn-primary" disabled={busy || !data?.preview} data-testid="run-analysis">
-        {busy ? "Starting…" : "Save and evaluate"}
-      </button>
+      <SetupSubmit message={message} busy={busy} ready={!!data?.preview} label="Save and evaluate" />
     </form>
   );
 }

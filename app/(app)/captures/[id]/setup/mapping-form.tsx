@@ -9,6 +9,7 @@ import { parseUnit } from "@/lib/analysis/parse-unit";
 import { captureSetupSchema, type CaptureMapping } from "@/lib/validations/capture";
 import { ContextSection, numberOrUndefined, useContextState } from "./context-section";
 import { FilePreview } from "./file-preview";
+import { SetupSubmit } from "./setup-submit";
 import { useSaveAndAnalyze } from "./use-save-and-analyze";
 
 interface Props {
@@ -223,11 +224,7 @@ export function MappingForm({ captureId, limitSets, initialMapping, initialLimit
       )}
 
       <ContextSection state={contextState} limitSets={limitSets} errors={errors} />
-
-      {message && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{message}</p>}
-      <button type="submit" className="btn-primary" disabled={busy || !data} data-testid="run-analysis">
-        {busy ? "Starting…" : "Save and analyse"}
-      </button>
+      <SetupSubmit message={message} busy={busy} ready={!!data} label="Save and analyse" />
     </form>
   );
 }
