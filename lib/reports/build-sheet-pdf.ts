@@ -1,8 +1,8 @@
 import "server-only";
 import PDFDocument from "pdfkit";
 import { formatWhen, verdictLabel } from "./format";
+import { addMitigationStudyPages, type StudyForReport } from "./mitigation-study-pages";
 import { addChannel } from "./pdf/add-channel";
-import { addMitigationStudyPages, type StudyForReport } from "./pdf/add-mitigation-study-pages";
 import { addPageFooters } from "./pdf/add-page-footers";
 import { addSafetyCaution } from "./pdf/add-safety-caution";
 import { addSignOff } from "./pdf/add-sign-off";
@@ -29,7 +29,7 @@ export interface SheetPdfOptions {
  * revision, band and context, the time rules (applied or why not, and the record they used), the
  * safety caution, per channel the aggregates, a vector spectrum bar chart with limit marks and the
  * per-order table (with the table limit and the rule that decided each verdict), notes, the
- * sign-off history and the chosen mitigation studies. The sections are in `lib/reports/pdf/`.
+ * sign-off history and the chosen mitigation studies. The sheet's sections are in `lib/reports/pdf/`.
  * Resolves to the whole file in memory (a sheet is a few pages). O(channels × orders).
  *
  * @example
@@ -76,7 +76,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     }
   }
   addSignOff(w, sheet, { includeComments: options.includeComments !== false });
-  if (options.studies?.length) addMitigationStudyPages(w, options.studies);
+  if (options.studies?.length) addMitigationStudyPages(doc, options.studies, { margin: PAGE_MARGIN, safe: pdfSafe, formatWhen });
 
   addPageFooters(w, `${sheet.capture.title} · ${evaluation.limitSetKey} revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)}`);
   doc.end();
