@@ -36,6 +36,13 @@ export function aggregateWindows(totals: WindowTotals, options: AnalysisOptions,
   const eddyLossRatio = options.factorKEddyLossRatio ?? 0.1;
   const exponent = options.factorKExponent ?? 1.7;
   const meanRoot = (sumSq: number): number => Math.sqrt(sumSq / windowCount);
+  // Per order 1…maxOrder, the r.m.s. over the windows of each named sum of squares; null above the resolvable order.
+  const rmsByOrder = <K extends string>(sums: Record<K, Float64Array>) =>
+    Array.from({ length: maxOrder }, (_, i) => {
+      const h = i + 1;
+      const values = Object.fromEntries(Object.entries<Float64Array>(sums).map(([key, sq]) => [key, h <= resolvableOrder ? meanRoot(sq[h]!) : null]));
+      return { order: h, ...values } as { order: number } & Record<K, number | null>;
+    });
   const results: ChannelResult[] = channels.map((ch) => {
     const unit = ch.quantity === "current" ? "A" : "V";
     const aggregated = new Float64Array(stride);
@@ -86,17 +93,12 @@ export function aggregateWindows(totals: WindowTotals, options: AnalysisOptions,
     if (Math.abs(dc) > DC_WARNING_FRACTION * fundamentalRms) {
       warnings.push(`channel ${ch.name}: DC offset of ${dc.toPrecision(3)} ${unit} (${((100 * Math.abs(dc)) / fundamentalRms).toFixed(1)} % of the fundamental)`);
     }
-    const groups: HarmonicGroupValue[] = [];
-    for (let h = 1; h <= maxOrder; h++) {
-      const ok = h <= resolvableOrder;
-      groups.push({
-        order: h,
-        groupRms: ok ? meanRoot(ch.groupSq[h]!) : null,
-        subgroupRms: ok ? meanRoot(ch.subgroupSq[h]!) : null,
-        interharmonicGroupRms: ok ? meanRoot(ch.interGroupSq[h]!) : null,
-        interharmonicSubgroupRms: ok ? meanRoot(ch.interSubgroupSq[h]!) : null,
-      });
-    }
+    const groups: HarmonicGroupValue[] = rmsByOrder({
+      groupRms: ch.groupSq,
+      subgroupRms: ch.subgroupSq,
+      interharmonicGroupRms: ch.interGroupSq,
+      interharmonicSubgroupRms: ch.interSubgroupSq,
+    });
     const result: ChannelResult = {
       name: ch.name,
       quantity: ch.quantity,
@@ -160,23 +162,13 @@ export function aggregateWindows(totals: WindowTotals, options: AnalysisOptions,
 
   const sequence: SequenceSet[] = sets.map((set, s) => {
     const acc = sequenceSq[s]!;
-    const orderValues = [];
-    for (let h = 1; h <= maxOrder; h++) {
-      const ok = h <= resolvableOrder;
-      orderValues.push({
-        order: h,
-        positiveRms: ok ? meanRoot(acc.pos[h]!) : null,
-        negativeRms: ok ? meanRoot(acc.neg[h]!) : null,
-        zeroRms: ok ? meanRoot(acc.zero[h]!) : null,
-      });
-    }
     const positive = meanRoot(acc.pos[1]!);
     return {
       quantity: set.quantity,
       unit: set.quantity === "current" ? "A" : "V",
       channels: [results[set.a]!.name, results[set.b]!.name, results[set.c]!.name],
       unbalancePercent: positive > 0 ? (100 * meanRoot(acc.neg[1]!)) / positive : 0,
-      orders: orderValues,
+      orders: rmsByOrder({ positiveRms: acc.pos, negativeRms: acc.neg, zeroRms: acc.zero }),
     };
   });
 
