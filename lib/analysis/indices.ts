@@ -42,7 +42,7 @@ function sumSquares(rms: ArrayLike<number>, from: number, to: number, weight: (h
  * (`rms[h]` = order h, h = 1 fundamental; index 0 unused).
  * - THD = √Σ_{h=2}^{H} I_h² / I_1 (IEC 61000-4-7 §3 / IEEE 519 §3 definition; H = 40 or 50)
  * - PWHD = √Σ_{h=14}^{40} h·I_h² / I_1 (IEC 61000-3-12)
- * - TDD = √Σ_{h=2}^{50} I_h² / IL (IEEE 519-2014 §3)
+ * - TDD = √Σ_{h=2}^{50} I_h² / IL (IEEE Std 519-2014 §3)
  * - THC = √Σ_{h=2}^{40} I_h², PWHC = √Σ_{h=14}^{40} h·I_h² (IEC 61000-3-12)
  * - K-factor = Σ h²·I_h² / Σ I_h², h = 1..50 (UL 1561 / IEEE C57.110 form)
  * - factor K = √(1 + e/(1+e)·(I_1/I)²·Σ_{h=2}^{50} h^q (I_h/I_1)²), I² = Σ I_h² (BS 7821)

@@ -5,7 +5,7 @@ import { orderStatistic } from "./order-statistic";
  * that at least p % of the values are ≤ it, i.e. the ⌈p/100 · n⌉-th smallest (1-based).
  *
  * Why nearest-rank: it is always one of the measured values (no interpolation between two
- * 10-minute values), and "not exceeded for p % of the values" matches IEEE 519-2014's wording
+ * 10-minute values), and "not exceeded for p % of the values" matches IEEE Std 519-2014's wording
  * "value exceeded for (100 − p) % of the measurement period" (IEEE 519 clause 3 definitions,
  * confirmed) — the same definition as the whole-capture p95 of the analysis engine.
  * p = 0 gives the minimum, p = 100 the maximum.

@@ -157,7 +157,7 @@ export class WindowAnalyzer {
         ch.windowRe[h] = re;
         ch.windowIm[h] = im;
         ch.orderRms[base + h] = Math.hypot(re, im);
-        // IEC 61000-4-7 §4.2 (reference sheet, from memory): group = bins k±(N/2−1) plus half of k±N/2.
+        // IEC 61000-4-7:2002+A1:2008 clause 3.2 harmonic group (clause and formula from memory): bins k±(N/2−1) plus half of k±N/2.
         const halfCycles = cycles / 2;
         let group = 0.5 * (binSq(spec, k - halfCycles) + binSq(spec, k + halfCycles));
         for (let i = -halfCycles + 1; i < halfCycles; i++) group += binSq(spec, k + i);

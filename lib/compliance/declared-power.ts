@@ -21,7 +21,7 @@ export function measuredActivePowerW(analysis: AnalysisResult, channelName: stri
 }
 
 /**
- * The power that chooses and scales the limits. IEC 61000-3-2 (Ed 5.0 clause 6.2, and the
+ * The power that chooses and scales the limits. IEC 61000-3-2:2018+A1:2020 (clause 6.2, and the
  * Class C/D limits in W or mA/W; from memory): the manufacturer's declared power is used when
  * it lies within ±10 % of the measured active power; otherwise the measured value is used.
  * With no measurement the declared value is used (and said so); with no declaration, the

@@ -69,7 +69,7 @@ describe("the command line and the worker run one pipeline", () => {
     const judged = (r: typeof stored.result) =>
       JSON.parse(JSON.stringify({ verdict: r.verdict, rows: r.rows, aggregates: r.aggregates, timeBasis: r.timeBasis, timeRules: r.timeRules })) as unknown;
     expect(judged(out.compliance)).toEqual(judged(stored.result));
-    // …and that shared answer is the time rules' (IEC 61000-3-2:2018 clause 6.3.3, 150 % of the Table 1 h3 limit 2.30 A), clock-aligned.
+    // …and that shared answer is the time rules' (IEC 61000-3-2:2018+A1:2020 clause 6.2, 150 % of the Table 1 h3 limit 2.30 A — the 150 % from memory), clock-aligned.
     const h3 = stored.result.rows.find((r) => r.order === 3)!;
     expect(h3).toMatchObject({ verdict: "fail", decidedBy: "smoothed-max" });
     expect(stored.result.timeBasis?.startMs).toBe(Date.parse(capturedAt));

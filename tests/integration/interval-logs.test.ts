@@ -90,7 +90,7 @@ describe("interval logs through the queue", () => {
     expect(second!.result.rows.length).toBeGreaterThan(0);
     expect(judged(second!.result)).toEqual(judged(first.result));
 
-    // Twice the load current IL: IEEE 519-2014 Table 2 limits are in % of IL, so every logged order's
+    // Twice the load current IL: IEEE Std 519-2014 Table 2 limits are in % of IL, so every logged order's
     // percentile in %IL halves (an independent consequence of the definition, not of the code).
     const doubled = await engineer.request("POST", `/api/captures/${id}/evaluations`, { limitSetKey: "ieee-519-2014-current", context: { iscA: 4800, ilA: 120, busVoltageV: 480 } });
     expect(doubled.status).toBe(201);

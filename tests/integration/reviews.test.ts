@@ -10,7 +10,7 @@ import { pdfText } from "../unit/reports/pdf-text";
 
 /**
  * The records judged here (currentCsv): 20 cycles of 50 Hz at 256 samples per cycle, I1 = 10 A r.m.s. plus a 3rd harmonic of `i3Rms`.
- * IEC 61000-3-2:2018, Table 1 (Class A): h3 limit 2.30 A, so 3 A fails. Clause 7.2: Class B limits
+ * IEC 61000-3-2:2018+A1:2020 Table 1 (Class A): h3 limit 2.30 A, so 3 A fails. Clause 7.2: Class B limits
  * are the Table 1 values × 1.5, h3 3.45 A, so 3 A passes. With a current scale of 0.1 the h3 becomes
  * 0.3 A and passes Class A — the swap the issue reports.
  */

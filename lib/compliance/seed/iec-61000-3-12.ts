@@ -1,11 +1,13 @@
-// IEC 61000-3-12 (16 A < I ≤ 75 A per phase) — Tables 2, 3 and 4 as bands by phase
-// configuration and minimum Rsce. Values from /work/shared/reference/standards.md §2.
-// Table 5 is deliberately absent: the reference marks its rows UNVERIFIED.
+// IEC 61000-3-12 (16 A < I ≤ 75 A per phase) — Tables 2, 3 and 4 of IEC 61000-3-12:2011 (Ed 2.0)
+// as bands by phase configuration and minimum Rsce; the set names the consolidated edition
+// Ed 2.1 (2011+A1:2021). Table 5 is deliberately absent: its rows could not be checked against the
+// standard's text. Markers on each source as in iec-61000-3-2.ts ("confirmed", "secondary source",
+// "from memory").
 import type { BandInput, LimitSetRevisionContentInput, OrderRowInput, PhaseConfig } from "../model";
 
-const ED = "IEC 61000-3-12 Ed 2.0 (2011)";
+const ED = "IEC 61000-3-12:2011";
 
-// Even orders ≤ 12: I_n/Iref ≤ 16/n % in every table (confirmed only by a secondary engineering note, C*).
+// Even orders ≤ 12: I_n/Iref ≤ 16/n % in every table (secondary source: an engineering note quoting the standard).
 const evenRows: OrderRowInput = {
   from: 2,
   to: 12,
@@ -69,8 +71,8 @@ const table2 = bandsFor("Table 2 (other than balanced three-phase)", TABLE_2, ["
   { rsce: 350, odd: { 3: 41, 5: 24, 7: 15, 9: 12, 11: 10, 13: 8 }, thc: 47, pwhc: 47 },
 ]);
 
-// Table 3 — balanced three-phase equipment, I_n/Iref % — secondary source (C*), agrees with memory.
-// No individual I3/I9 limit for balanced three-phase equipment (C*).
+// Table 3 — balanced three-phase equipment, I_n/Iref % — secondary source, agrees with memory.
+// No individual I3/I9 limit for balanced three-phase equipment (secondary source).
 const TABLE_3 = `${ED} Table 3 (balanced three-phase) — secondary source`;
 const table3 = bandsFor(
   "Table 3 (balanced three-phase)",
@@ -114,14 +116,14 @@ const table4 = bandsFor(
 export const iec61000312: LimitSetRevisionContentInput = {
   key: "iec-61000-3-12",
   standard: "IEC 61000-3-12",
-  edition: "Ed 2.0 (2011) + A1 (2021), i.e. Ed 2.1",
+  edition: "Ed 2.1 (2011+A1:2021)",
   scope: "Equipment with rated input current > 16 A and ≤ 75 A per phase",
   description:
     "Harmonic current limits in % of Iref by phase configuration and minimum Rsce: Table 2 (other than balanced " +
     "three-phase), Table 3 (balanced three-phase), Table 4 (balanced three-phase meeting condition a, b or c — an " +
     "alternative to Table 3, usable when the condition is asserted). Even orders ≤ 12: 16/n %. THC over orders 2–40, " +
     "PWHC over 14–40. Rsce below 33 is outside the tables (conditional connection). Table 5 (conditions d/e/f) is " +
-    "NOT included: its rows are unverified in our reference. Iref defaults to the measured r.m.s. current.",
+    "NOT included: its rows could not be checked against the standard's text. Iref defaults to the measured r.m.s. current.",
   quantity: "current",
   notes: [
     "Iref (reference current): the measured r.m.s. current when none is given.",

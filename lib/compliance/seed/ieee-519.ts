@@ -1,5 +1,7 @@
-// IEEE 519 — current distortion limits (Tables 2, 3, 4; 2014 and 2022 editions) and voltage
-// distortion limits (Table 1). Values from /work/shared/reference/standards.md §3.
+// IEEE 519 — current distortion limits (IEEE Std 519-2014 Tables 2, 3, 4 and the IEEE Std 519-2022
+// even-harmonic rule) and voltage distortion limits (IEEE Std 519-2014 Table 1, unchanged in 2022),
+// with the statistical evaluation of IEEE Std 519-2014 §5.2. Markers on each source as in
+// iec-61000-3-2.ts ("confirmed", "from memory", "Ordwise choice" / "Ordwise reading").
 import type { AggregateRowInput, BandInput, LimitSetRevisionContentInput, OrderRowInput, RangeInput, TimeRuleInput } from "../model";
 
 // The printed tables head the rows "< 20", "20 < 50", "50 < 100", … without assigning a value
@@ -151,7 +153,7 @@ const DAY_S = 86_400;
 const WEEK_S = 604_800;
 
 /**
- * IEEE 519 statistical evaluation of currents (2014 §5.2; reference §3.4, multipliers from memory):
+ * IEEE 519 statistical evaluation of currents (IEEE Std 519-2014 §5.2; accumulation periods confirmed, multipliers from memory):
  * daily 99th percentile of 3 s values < 2.0 ×, weekly 99th percentile of 10 min values < 1.5 ×,
  * weekly 95th percentile of 10 min values < 1.0 × the Table 2–4 values; per order (% of IL) and TDD.
  * Minimum record: one complete 3 s value / one complete 10-minute interval (Ordwise choice); a
@@ -261,12 +263,12 @@ export const ieee5192022Current: LimitSetRevisionContentInput = {
       passAtLimit: true,
       source: "IEEE Std 519-2022 Tables 2–4 give maximum values: measured ≤ limit passes (Ordwise reading, from memory)",
     },
-    // Our reference documents the 2014 scheme; that 2022 keeps it is from memory.
+    // That IEEE Std 519-2022 keeps the 2014 statistical scheme is from memory.
     timeRules: currentTimeRules("IEEE Std 519-2022", " — same scheme as 2014, from memory"),
   },
 };
 
-// IEEE 519-2014 Table 1 — voltage distortion limits at the PCC (values confirmed; 1–69 kV and
+// IEEE Std 519-2014 Table 1 — voltage distortion limits at the PCC (values confirmed; 1–69 kV and
 // 69–161 kV rows also from memory; 2022 identical). Individual orders in % of the rated voltage.
 const TABLE_1 = "IEEE Std 519-2014 Table 1";
 const voltageRows: Array<{ label: string; busVoltageV: RangeInput; individual: number; thd: number; note?: string }> = [

@@ -41,8 +41,8 @@ describe("npm run analyze -- FILE --limits KEY", () => {
     const out = JSON.parse(res.stdout) as Out;
     expect(out.limitSetSource).toBe("seed-files");
     const h3 = out.compliance.rows.find((r) => r.order === 3)!;
-    // IEC 61000-3-2:2018 Table 1 (Class A): h3 2.30 A; clause 6.3.3: smoothed values may reach 150 % → 3.45 A.
-    // Independent expectation (IEC 61000-4-7:2002 clause 5.5.1, first-order smoothing with a 1.5 s time
+    // IEC 61000-3-2:2018+A1:2020 Table 1 (Class A): h3 2.30 A; clause 6.2: smoothed values may reach 150 % → 3.45 A (150 % from memory).
+    // Independent expectation (IEC 61000-4-7:2002+A1:2008 §5.5.1, first-order smoothing with a 1.5 s time
     // constant): after 3 s at 4.0 A from 1.5 A the smoothed h3 is 1.5 + 2.5 × (1 − e^(−3/1.5)) = 3.662 A.
     const smoothedPeak = classABurst.h3A + (classABurst.h3BurstA - classABurst.h3A) * (1 - Math.exp(-3 / 1.5));
     expect(h3).toMatchObject({ verdict: "fail", decidedBy: "smoothed-max" });
@@ -66,7 +66,7 @@ describe("npm run analyze -- FILE --limits KEY", () => {
     const res = runAnalyzeCli(["fixtures/demo/quillbrook-drives-before-filter.csv", "--json", "--limits", "ieee-519-2014-current", "--isc", "8200", "--il", "260", "--nominal-voltage", "11000"]);
     expect(res.status).toBe(0);
     const c = (JSON.parse(res.stdout) as Out).compliance;
-    // IEEE 519-2014 Table 2 (120 V to 69 kV), 20 ≤ Isc/IL < 50 (8200/260 = 31.5): 7.0 % of IL for 3 ≤ h < 11.
+    // IEEE Std 519-2014 Table 2 (120 V to 69 kV), 20 ≤ Isc/IL < 50 (8200/260 = 31.5): 7.0 % of IL for 3 ≤ h < 11.
     expect(c.band.reason).toContain("bus voltage = 11000 V");
     expect(c.rows.find((r) => r.order === 5)!.limit).toBeCloseTo(7.0, 9);
     expect(c.context).toMatchObject({ busVoltageV: 11000, busVoltageSource: "system-nominal", nominalVoltageV: 6351 });

@@ -48,7 +48,7 @@ describe("choosePower: the ±10 % boundary (300 W measured)", () => {
   });
 });
 
-describe("Class D h3 limit = 3.4 mA/W × the power used (IEC 61000-3-2:2018 Table 3)", () => {
+describe("Class D h3 limit = 3.4 mA/W × the power used (IEC 61000-3-2:2018+A1:2020 Table 3)", () => {
   test("measured 300 W, declared 600 W: h3 limit 3.4 × 300 / 1000 = 1.02 A, not 2.04 A — 1.5 A fails", () => {
     const result = classD(1.5, 300, { ratedPowerW: 600 });
     const h3 = result.rows.find((row) => row.order === 3)!;

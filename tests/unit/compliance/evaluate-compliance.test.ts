@@ -1,6 +1,7 @@
 // Worked evaluator cases, computed by hand from the printed tables (sources beside each check).
-// Markers after a citation: C = the value as printed in that standard (IEC 61000-3-2:2018+A1:2020,
-// IEC 61000-3-12:2011, IEEE Std 519-2014); M = from memory; X = arithmetic from the stated formula.
+// Markers after a citation: C = confirmed against a published reproduction of that standard's text
+// (IEC 61000-3-2:2018+A1:2020, IEC 61000-3-12:2011, IEEE Std 519-2014); M = from memory (recalled,
+// not checked); X = arithmetic from the stated formula.
 import { describe, expect, test } from "vitest";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { evaluateCompliance } from "@/lib/compliance/evaluate-compliance";
@@ -115,7 +116,7 @@ describe("IEC 61000-3-2 Class D product (Table 3: min(mA/W × P, Class A max))",
   });
 });
 
-describe("IEEE 519-2014 at the PCC, Isc/IL in the 20–50 band (Table 2, C)", () => {
+describe("IEEE Std 519-2014 at the PCC, Isc/IL in the 20–50 band (Table 2, C)", () => {
   // IL = 100 A so amperes read directly as % of IL; fundamental 80 A shows % of IL ≠ % of I1.
   const context = { busVoltageV: 480, iscA: 3000, ilA: 100 };
 
@@ -307,7 +308,7 @@ describe("IEC 61000-3-2:2018+A1:2020 clause 7 POHC allowance for odd orders 21�
   });
 });
 
-describe("IEC 61000-3-12 (Ed 2.0 2011) Rsce bands and interpolation", () => {
+describe("IEC 61000-3-12:2011 Rsce bands and interpolation", () => {
   const balanced = { phaseConfig: "balanced-three-phase" as const, irefA: 50 };
   // I5 8 A = 16 % of Iref 50 A; Table 3 rows Rsce 66 → I5 14 %, Rsce 120 → 19 % (secondary source).
   const spec: AnalysisSpec = { channels: [{ name: "I", fundamentalRms: 49, harmonics: { 5: 8, 7: 4 } }] };
@@ -422,7 +423,7 @@ describe("channels", () => {
     expect(result.channels.map((channel) => channel.verdict)).toEqual(["fail", "pass", "pass"]);
   });
 
-  test("a voltage set evaluates only voltage channels: Va h5 20 V = 8.70 % of 230 V > 5.0 % (IEEE 519-2014 Table 1, C)", () => {
+  test("a voltage set evaluates only voltage channels: Va h5 20 V = 8.70 % of 230 V > 5.0 % (IEEE Std 519-2014 Table 1, C)", () => {
     const result = run("ieee-519-2014-voltage", spec, { busVoltageV: 400, nominalVoltageV: 230 });
     expect(result.channels.map((channel) => channel.channel)).toEqual(["Va"]);
     expect(row(result, 5).measured).toBeCloseTo((20 / 230) * 100, 9);

@@ -1,7 +1,8 @@
 // The seeded limit sets against the published tables (IEC 61000-3-2:2018+A1:2020 Tables 1–4,
 // IEC 61000-3-12:2011 Tables 2–4, IEEE Std 519-2014 Tables 1–4 / 519-2022). Markers beside each
-// value: C = as printed in the standard named; C* = confirmed only by a secondary engineering note
-// reproducing the standard; M = from memory; X = computed from the standard's formula in the test.
+// value: C = confirmed against a published reproduction of the standard's text; C* = confirmed only
+// by a secondary engineering note quoting the standard; M = from memory (recalled, not checked);
+// X = computed from the standard's formula in the test.
 import { describe, expect, test } from "vitest";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { LimitSetRevisionContentSchema, type EvaluationContext } from "@/lib/compliance/model";
@@ -54,7 +55,7 @@ describe("seed limit sets validate against the schema", () => {
   });
 });
 
-describe("IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A (A)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 Table 1 — Class A (A)", () => {
   test.each([
     [2, 1.08, "Table 1, n = 2 (C)"],
     [3, 2.3, "Table 1, n = 3 (C)"],
@@ -79,7 +80,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Table 1 — Class A (A)", () => {
   });
 });
 
-describe("IEC 61000-3-2 Ed 5.0 (2018) Class B = 1.5 × Table 1 (A)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 Class B = 1.5 × Table 1 (A)", () => {
   test.each([
     [2, 1.62, "1.5 × 1.08 (factor C; product computed from formula)"],
     [3, 3.45, "1.5 × 2.30"],
@@ -96,7 +97,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Class B = 1.5 × Table 1 (A)", () => {
   });
 });
 
-describe("IEC 61000-3-2 Ed 5.0 (2018) Table 2 — Class C > 25 W (% of I1)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 Table 2 — Class C > 25 W (% of I1)", () => {
   const context = { ratedPowerW: 60, lambda: 0.9 };
   test.each([
     [2, 2, "Table 2, n = 2 (C)"],
@@ -124,7 +125,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Table 2 — Class C > 25 W (% of I1)", () 
   });
 });
 
-describe("IEC 61000-3-2 Ed 5.0 (2018) Table 3 — Class D min(mA/W × P, Class A max)", () => {
+describe("IEC 61000-3-2:2018+A1:2020 Table 3 — Class D min(mA/W × P, Class A max)", () => {
   test.each([
     // P (W), order, limit (A), source
     [500, 3, 1.7, "E4: 3.4 mA/W × 500 W = 1.7 A (C)"],
@@ -152,7 +153,7 @@ describe("IEC 61000-3-2 Ed 5.0 (2018) Table 3 — Class D min(mA/W × P, Class A
   });
 });
 
-describe("IEC 61000-3-12 Ed 2.0 (2011) Tables 2–4 (% of Iref)", () => {
+describe("IEC 61000-3-12:2011 Tables 2–4 (% of Iref)", () => {
   const single = (rsce: number) => ({ rsce, phaseConfig: "single-phase" as const, irefA: 30 });
   const balanced = (rsce: number) => ({ rsce, phaseConfig: "balanced-three-phase" as const, irefA: 30 });
   test.each([
@@ -226,14 +227,14 @@ describe("IEEE Std 519-2014 current limits, Tables 2–4 (% of IL)", () => {
     expect(aggregateLimitOf("ieee-519-2014-current", "TDD", context)).toBeCloseTo(expected, 6);
   });
 
-  test("limits apply up to h = 50 (IEEE 519-2014, C): no row above 50", () => {
+  test("limits apply up to h = 50 (IEEE Std 519-2014, C): no row above 50", () => {
     const rows = judgeWithSeed(quiet, "ieee-519-2014-current", table2(30)).rows;
     expect(Math.max(...rows.map((row) => row.order))).toBe(50);
     expect(rows.map((row) => row.order)[0]).toBe(2);
   });
 });
 
-describe("IEEE 519-2014 Table 1 — voltage distortion limits (% )", () => {
+describe("IEEE Std 519-2014 Table 1 — voltage distortion limits (% )", () => {
   test.each([
     ["V ≤ 1.0 kV (C)", 480, 5.0, 8.0],
     ["V = 1.0 kV exactly: printed 'V ≤ 1.0 kV' (C)", 1000, 5.0, 8.0],

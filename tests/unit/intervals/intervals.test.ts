@@ -18,7 +18,7 @@ const limitSet = (key: string) => {
   const set = getSeedLimitSet(key)!;
   return { key, name: set.name, revision: { id: `seed:${key}`, number: 1 }, content: set.content };
 };
-// Isc/IL = 100 at 480 V → IEEE 519-2014 Table 2 row 100 ≤ Isc/IL < 1000: odd 3 ≤ h < 11 → 12 % of IL (as printed in the standard).
+// Isc/IL = 100 at 480 V → IEEE Std 519-2014 Table 2 row 100 ≤ Isc/IL < 1000: odd 3 ≤ h < 11 → 12 % of IL (as printed in the standard).
 const CONTEXT = { iscA: 10_000, ilA: 100, busVoltageV: 480 };
 
 describe("parseTimestamp (accepted: ISO 8601, YYYY-MM-DD HH:MM:SS, DD.MM.YYYY HH:MM:SS)", () => {
@@ -161,7 +161,7 @@ describe("importIntervalLog", () => {
   });
 });
 
-describe("evaluateIntervalLog: IEEE 519-2014 weekly percentiles of 10-minute values (§5.2, multipliers from memory)", () => {
+describe("evaluateIntervalLog: IEEE Std 519-2014 weekly percentiles of 10-minute values (§5.2, multipliers from memory)", () => {
   // h5 = 0.0125·r A and h7 = 0.013·r A, r a permutation of 1..1008, I1 = 100 A, IL = 100 A (so A = % of IL).
   // Nearest rank (common practice, no source; IEEE Std 519-2014 §5.2 names the percentile, not the method): p95 = the ⌈0.95·1008⌉ = 958th value, p99 = the ⌈0.99·1008⌉ = 998th.
   const rank = (k: number): number => ((k * 389) % 1008) + 1;

@@ -40,7 +40,7 @@ function threePhase(lagDeg: number, vRms: [number, number, number] = [230, 230, 
 }
 
 describe("headlineNumbers", () => {
-  // Hand calculation: I = √(10² + 3²) = 10.4403 A, THD = 3/10 = 30 %, TDD = 3/20 = 15 % (IEEE 519-2014 §3 definition),
+  // Hand calculation: I = √(10² + 3²) = 10.4403 A, THD = 3/10 = 30 %, TDD = 3/20 = 15 % (IEEE Std 519-2014 §3 definition),
   // K-factor Σ Ih²h² / Σ Ih² = (100 + 81)/109 = 1.66055 (UL 1561 form, as IEEE C57.110-2018 writes it),
   // P = V·I1·cos 30° = 230·10·0.866025 = 1991.858 W (the voltage carries no 3rd, so the 3rd carries no power),
   // S = V·I = 230·10.4403 = 2401.27 VA, displacement factor cos 30° = 0.866025 lagging,

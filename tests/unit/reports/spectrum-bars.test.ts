@@ -2,8 +2,8 @@ import { describe, expect, test } from "vitest";
 import type { ComplianceRow } from "@/lib/compliance/result";
 import { spectrumBars } from "@/lib/reports/spectrum-bars";
 
-// IEEE 519-2014 Table 2, 20 ≤ Isc/IL < 50: h5 limit 7.0 % of IL; the daily 99th percentile of 3 s
-// values may reach 2 × the limit (IEEE 519-2014 clause 5.2). The bars must be the value each verdict
+// IEEE Std 519-2014 Table 2, 20 ≤ Isc/IL < 50: h5 limit 7.0 % of IL; the daily 99th percentile of 3 s
+// values may reach 2 × the limit (IEEE Std 519-2014 clause 5.2). The bars must be the value each verdict
 // compared, converted from %IL to amperes with IL (independent arithmetic written out below).
 const IL_A = 200;
 

@@ -6,7 +6,7 @@ import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, formatRuleLimi
 import { makeSheet } from "./make-sheet";
 
 describe("time-rule wording", () => {
-  // Rules as the seed sets define them (IEC 61000-3-2 clause 6.2 smoothing, 150 %; IEEE 519-2014
+  // Rules as the seed sets define them (IEC 61000-3-2 clause 6.2 smoothing, 150 %; IEEE Std 519-2014
   // §5.2 daily p99 of 3 s values ×2 for currents, weekly p95 of 10 min values).
   test.each<[RuleStatistic, number, string, string]>([
     [{ kind: "mean", intervalS: 1.5 }, 1, "mean 1.5 s smoothed", "average of 1.5 s smoothed values over the observation period"],

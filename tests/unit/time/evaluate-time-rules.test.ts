@@ -140,7 +140,7 @@ describe("IEC 61000-3-2:2018+A1:2020 clause 6.2 Class A 200 % relaxation (from m
   });
 });
 
-describe("IEEE 519-2014 current percentiles on a 20-minute capture (§5.2 multipliers from memory)", () => {
+describe("IEEE Std 519-2014 current percentiles on a 20-minute capture (§5.2 multipliers from memory)", () => {
   // Isc/IL = 100 at 480 V → Table 2 row 100 ≤ Isc/IL < 1000: h5 limit 12 % of IL (IEEE Std 519-2014 Table 2, as printed). IL = 100 A so A = % of IL.
   const context: EvaluationContext = { iscA: 10_000, ilA: 100, busVoltageV: 480 };
   // 400 three-second blocks (15 windows each); block i (1-based) carries 0.05·i A of h5.

@@ -16,7 +16,7 @@ describe("percentile (nearest rank: the ⌈p/100·n⌉-th smallest value)", () =
     expect(percentile([50, 15, 40, 20, 35], p)).toBe(expected);
   });
 
-  test("p95 of 1..100 = 95 and p99 = 99: exceeded by exactly 5 % and 1 % of the values (IEEE 519-2014 §3.1 percentile definition)", () => {
+  test("p95 of 1..100 = 95 and p99 = 99: exceeded by exactly 5 % and 1 % of the values (IEEE Std 519-2014 §3.1 percentile definition)", () => {
     const values = Array.from({ length: 100 }, (_, i) => 100 - i);
     expect(percentile(values, 95)).toBe(95);
     expect(percentile(values, 99)).toBe(99);
