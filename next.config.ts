@@ -29,7 +29,7 @@ const nextConfig: NextConfig = {
   // (or another test run) in the same checkout.
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   // Native and Node-only packages stay outside the server bundle.
-  serverExternalPackages: ["@node-rs/argon2", "pdfkit", "s3rver", "smtp-server", "mailparser", "pg-boss"],
+  serverExternalPackages: ["@node-rs/argon2", "pdfkit", "pg-boss"],
   // The proxy sees every request; no API body the app accepts is near this, and a larger one is cut here
   // (the route then refuses it as too large) instead of being buffered whole.
   experimental: { authInterrupts: true, proxyClientMaxBodySize: "1mb" },
