@@ -8,11 +8,9 @@ import { captureMeanAggregate, captureMeanRow, missingHarmonic } from "./capture
 import { formatNumber as fmt } from "./format-number";
 import type { AggregateRow, Band, Basis, OrderRow, TimeRule } from "./model";
 import { pohcAllowance } from "./pohc-allowance";
-import type { ComplianceAggregate, ComplianceRow, NotEvaluatedCause, RowRuleResult } from "./result";
+import { CAPTURE_MEAN_RULE, type ComplianceAggregate, type ComplianceRow, type NotEvaluatedCause, type RowRuleResult } from "./result";
 import { expandOrders, toBasis } from "./row-limits";
 
-/** Id of the capture-mean comparison among a row's rule results (stored in results as "snapshot"). */
-export const CAPTURE_MEAN_RULE = "snapshot";
 
 /** A series in the channel's unit converted to the basis's unit, value by value. */
 function seriesToBasis(values: Float64Array, basis: Basis, ctx: ChannelContext): Derived<Float64Array> {

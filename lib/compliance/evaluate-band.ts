@@ -1,10 +1,10 @@
 // One band of a limit set judged on one channel: its order rows, aggregates and conditions.
-import { decideByRules, applyPohcAllowanceToRules, judgeAggregate, judgeOrder, CAPTURE_MEAN_RULE } from "./apply-time-rules";
+import { decideByRules, applyPohcAllowanceToRules, judgeAggregate, judgeOrder } from "./apply-time-rules";
 import type { ChannelContext } from "./evaluation-types";
 import { interpolateBand } from "./interpolate-band";
 import type { Band, EvaluationContext } from "./model";
 import { pohcAllowance } from "./pohc-allowance";
-import type { ComplianceAggregate, ComplianceRow, ConditionResult, OverallVerdict } from "./result";
+import { CAPTURE_MEAN_RULE, type ComplianceAggregate, type ComplianceRow, type ConditionResult, type OverallVerdict } from "./result";
 import { expandOrders } from "./row-limits";
 
 export interface BandEvaluation {

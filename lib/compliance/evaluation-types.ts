@@ -32,8 +32,6 @@ export interface TimeSeriesInput {
   startsS: Float64Array;
   /** Keyed by channel name; values in A or V per order (order 1 = fundamental), THD in %. */
   channels: Record<string, { orders: Map<number, Float64Array>; thdPercent?: Float64Array }>;
-  /** @deprecated Ignored: the record is named from `source` ("the interval log"). */
-  noun?: string;
 }
 
 /** Which record the measured values come from; names it in "not in …" reasons. */

@@ -61,12 +61,18 @@ export interface RuleAccumulation {
 }
 
 /**
+ * Id of the capture-mean comparison among a row's rule results: the capture's r.m.s. mean against
+ * 1.0 × the limit. Stored in results under this name, so it stays "snapshot".
+ */
+export const CAPTURE_MEAN_RULE = "snapshot";
+
+/**
  * One rule's judgement of one order or aggregate: a time rule of the revision
- * (`rules.timeRules`, e.g. "daily-p99-very-short") or `snapshot` — the capture's r.m.s. mean
+ * (`rules.timeRules`, e.g. "daily-p99-very-short") or CAPTURE_MEAN_RULE — the capture's r.m.s. mean
  * compared with 1.0 × the limit, which stands in when time rules cannot all be evaluated.
  */
 export interface RowRuleResult {
-  /** Time-rule id, or "snapshot". */
+  /** Time-rule id, or CAPTURE_MEAN_RULE. */
   rule: string;
   label: string;
   /** What was measured, in words (generated from `measures`; results stored before it existed carry only this). */
@@ -126,9 +132,9 @@ export interface TimeBasis {
   durationS: number;
   /** Start of the record, ms since the epoch, when known (10-minute values then align to the clock). */
   startMs: number | null;
-  /** Whether rules that cannot be evaluated fall back to the snapshot comparison. */
+  /** Whether rules that cannot be evaluated fall back to the capture-mean comparison (stored name). */
   snapshotFallback: boolean;
-  /** `all`: every time rule was applied; `partial`: some were not; `none`: none (snapshot only). */
+  /** `all`: every time rule was applied; `partial`: some were not; `none`: none (capture mean only). */
   coverage: "all" | "partial" | "none";
 }
 

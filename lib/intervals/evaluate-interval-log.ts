@@ -1,7 +1,7 @@
 import type { AnalysisResult, ChannelResult, HarmonicValue } from "../analysis/types";
 import { evaluateCompliance, type EvaluateComplianceInput, type TimeSeriesInput } from "../compliance/evaluate-compliance";
 import type { Basis, EvaluationContext } from "../compliance/model";
-import type { ComplianceResult, ComplianceRow } from "../compliance/result";
+import { CAPTURE_MEAN_RULE, type ComplianceResult, type ComplianceRow } from "../compliance/result";
 import { thinIntervalTrends } from "./thin-interval-trends";
 import type { IntervalGap, IntervalLog, IntervalTrend, IntervalTrendSeries } from "./types";
 
@@ -55,7 +55,7 @@ function toBasisValues(values: Float64Array, basis: Basis, fundamental: Float64A
 
 function ruleLimitsOf(row: { rowRules?: ComplianceRow["rowRules"] }): IntervalTrendSeries["ruleLimits"] {
   return (row.rowRules ?? [])
-    .filter((result) => result.rule !== "snapshot" && result.tableLimit !== null)
+    .filter((result) => result.rule !== CAPTURE_MEAN_RULE && result.tableLimit !== null)
     .map((result) => ({ rule: result.rule, label: result.label, limit: (result.tableLimit as number) * result.multiplier }));
 }
 
@@ -130,7 +130,6 @@ export function evaluateIntervalLog(
     source: "interval-log",
     valueS: log.intervalS,
     startsS: Float64Array.from(log.timestampsMs, (ms) => ms / 1000),
-    noun: "the interval log",
     channels: Object.fromEntries(
       log.channels.map((channel) => {
         const orders = new Map(channel.orders);

@@ -4,7 +4,7 @@
 // CSV all call these; nothing parses the words back. Relative imports: the evaluator and the
 // CLI import this file too.
 import { formatNumber } from "../compliance/format-number";
-import type { ContextInput, NotEvaluatedCause, PowerChoice, RowRuleResult, RuleAccumulation, RuleStatistic, ThresholdApplied, TimeRuleSummary } from "../compliance/result";
+import { CAPTURE_MEAN_RULE, type ContextInput, type NotEvaluatedCause, type PowerChoice, type RowRuleResult, type RuleAccumulation, type RuleStatistic, type ThresholdApplied, type TimeRuleSummary } from "../compliance/result";
 
 type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
 
@@ -158,7 +158,7 @@ export function formatMultiplier(multiplier: number): string {
  */
 export function shortRuleLabel(rule: Pick<RowRuleResult, "rule" | "measures" | "multiplier" | "label"> | undefined, id?: string): string {
   const ruleId = rule?.rule ?? id;
-  if (ruleId === "snapshot" || rule?.measures?.kind === "capture-mean") return "capture mean";
+  if (ruleId === CAPTURE_MEAN_RULE || rule?.measures?.kind === "capture-mean") return "capture mean";
   if (ruleId === "threshold") return "threshold";
   // A rule's id is internal: without its result (or label) the column says "time rule", never the id.
   if (!rule) return ruleId === undefined ? "—" : "time rule";

@@ -1,7 +1,6 @@
 // The spectrum's bars and limit marks in the channel's own unit (A or V), shared by the sheet's
 // spectrum chart and its "show as table" view, so the bar is the value the verdict compared.
-import { CAPTURE_MEAN_RULE } from "../compliance/apply-time-rules";
-import type { ComplianceRow } from "../compliance/result";
+import { CAPTURE_MEAN_RULE, type ComplianceRow } from "../compliance/result";
 
 /** What converts a row's unit (%IL, %Iref, %Vnom, %I1, %V1) to the channel's unit. */
 export interface SpectrumScale {
