@@ -104,22 +104,26 @@ function checkBand(band: Band, context: EvaluationContext, generatorOverride: bo
     const { name, unit } = LABEL[criterion];
     const shown =
       criterion === "iscOverIl"
-        ? `Isc/IL = ${formatNumber(value)} (${context.iscA} A / ${context.ilA} A)`
-        : `${name} = ${formatNumber(value)}${unit}`;
+        ? `Isc/IL = ${formatBoundValue(value)} (${context.iscA} A / ${context.ilA} A)`
+        : `${name} = ${formatBoundValue(value)}${unit}`;
     let text = `${shown} is in ${describeRange(range, name, unit)}`;
     const atBound = value === range.min || value === range.max;
     if (atBound) {
       // Plain words from the typed bounds; the limit set's own boundary text (with its provenance)
       // stays in the limit-table screens, and its interpretation is in the limit set's notes.
       const atLower = value === range.min;
-      text += ` — exactly at the bound ${formatNumber(value)}, which this band includes as its ${atLower ? "lower" : "upper"} bound, so a value on the bound uses the ${atLower ? "higher" : "lower"} row (this one)`;
+      text += ` — exactly at the bound ${formatBoundValue(value)}, which this band includes as its ${atLower ? "lower" : "upper"} bound, so a value on the bound uses the ${atLower ? "higher" : "lower"} row (this one)`;
     }
     checks.push({ result: "match", text });
   }
   return checks;
 }
 
-function formatNumber(value: number): string {
+/**
+ * A context value beside a band's bounds, to six significant figures (not the four of formatNumber):
+ * a value just below a bound (Isc/IL = 49.9996) must not print as the bound itself.
+ */
+function formatBoundValue(value: number): string {
   return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
 }
 
@@ -158,7 +162,7 @@ export function selectBand(content: LimitSetRevisionContent, context: Evaluation
   if (matched.length === 0) {
     const values = Object.entries(criterionValues(context))
       .filter(([, value]) => value !== undefined)
-      .map(([name, value]) => `${name} = ${typeof value === "number" ? formatNumber(value) : value}`);
+      .map(([name, value]) => `${name} = ${typeof value === "number" ? formatBoundValue(value) : value}`);
     return {
       status: "no-band",
       reason: `no band of ${content.key} applies to ${values.length > 0 ? values.join(", ") : "this context"}; bands: ${content.bands
