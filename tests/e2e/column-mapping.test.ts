@@ -1,9 +1,10 @@
 // Issue 9 §5: the mapping form lists every column of the file with a quantity choice. A file headed
 // time,v_load,i_load used to show no channel table and answer "Include at least one channel".
-import path from "node:path";
+import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, signInAs, snap, uploadInBrowser } from "../support/browser";
+import { finishedCapture } from "../support/captures";
 import { signedIn } from "../support/http";
 
 let browser: Browser;
@@ -18,13 +19,7 @@ describe("the mapping form lists every column", () => {
   it("time,v_load,i_load: three rows, the suggestion pre-selected, a sensor rating read, analysed", async () => {
     const page = await browser.newPage();
     await signInAs(page, "technician");
-    await page.goto(url("/captures/new"));
-    const site = await page.locator("#cap-site option", { hasText: "Bench B" }).getAttribute("value");
-    await page.selectOption("#cap-site", site!);
-    await page.setInputFiles("[data-testid=file-input]", path.resolve("fixtures/snake-case-names.csv"));
-    await page.fill("#cap-title", `Snake-case columns ${Date.now()}`);
-    await page.click("button[type=submit]");
-    await page.waitForURL(/\/captures\/[0-9a-f-]{36}\/setup$/);
+    await uploadInBrowser(page, { file: "fixtures/snake-case-names.csv", title: `Snake-case columns ${Date.now()}` });
 
     await page.waitForSelector("[data-testid=channel-table]");
     expect(await page.locator("[data-testid=channel-table] tbody tr").count()).toBe(3);
@@ -45,29 +40,16 @@ describe("the mapping form lists every column", () => {
     await page.waitForURL(/\/captures\/[0-9a-f-]{36}$/);
     const id = new URL(page.url()).pathname.split("/")[2]!;
 
-    const api = await signedIn("technician");
-    const deadline = Date.now() + 30_000;
-    let status = "";
-    while (Date.now() < deadline && status !== "done" && status !== "failed") {
-      status = ((await (await api.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string } }).capture.status;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    expect(status).toBe("done");
+    expect(await finishedCapture(await signedIn("technician"), id, 30_000)).toMatchObject({ status: "done" });
     await page.close();
   });
 
   it("an unrecognised column is shown and can be chosen", async () => {
     const page = await browser.newPage();
     await signInAs(page, "technician");
-    await page.goto(url("/captures/new"));
-    const site = await page.locator("#cap-site option", { hasText: "Bench B" }).getAttribute("value");
-    await page.selectOption("#cap-site", site!);
     // Same samples, header renamed so nothing is recognised: Sample,Col B,Col C.
-    const text = (await import("node:fs")).readFileSync("fixtures/snake-case-names.csv", "utf8").replace(/^[^\n]*/, "Sample,Col B,Col C");
-    await page.setInputFiles("[data-testid=file-input]", { name: "unnamed-columns.csv", mimeType: "text/csv", buffer: Buffer.from(text) });
-    await page.fill("#cap-title", `Unnamed columns ${Date.now()}`);
-    await page.click("button[type=submit]");
-    await page.waitForURL(/\/captures\/[0-9a-f-]{36}\/setup$/);
+    const text = readFileSync("fixtures/snake-case-names.csv", "utf8").replace(/^[^\n]*/, "Sample,Col B,Col C");
+    await uploadInBrowser(page, { file: { name: "unnamed-columns.csv", mimeType: "text/csv", buffer: Buffer.from(text) }, title: `Unnamed columns ${Date.now()}` });
     await page.waitForSelector("[data-testid=channel-table]");
     expect(await page.locator("[data-testid^=not-recognised-]").count()).toBe(3);
     expect(await page.textContent("[data-testid=not-recognised-1]")).toBe("not recognised — choose what it is");

@@ -4,7 +4,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
-import { signedIn, type CaughtMail } from "../support/http";
+import { caughtMail, signedIn } from "../support/http";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -87,8 +87,7 @@ describe("Content-Security-Policy in the browser", () => {
     const row = page.locator("[data-testid=user-table] tr", { hasText: email });
     await row.getByRole("button", { name: "Resend invitation" }).click();
     await page.waitForSelector(`[role=status]:has-text("A new invitation was sent to ${email}")`);
-    const res = await fetch(new URL(`/messages?to=${encodeURIComponent(email)}`, process.env.MAIL_CATCHER_URL!));
-    expect(((await res.json()) as CaughtMail[]).length).toBe(2);
+    expect(await caughtMail(email)).toHaveLength(2);
     expect(await violations()).toEqual([]);
     await page.close();
   }, 60_000);

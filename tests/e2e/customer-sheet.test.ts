@@ -1,21 +1,10 @@
 // The sheet a customer reads: the headline numbers at desktop and phone width, and a viewer who sees
 // only their own customer's sheets (a demo capture of another customer's site answers 404).
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, url } from "../support/browser";
+import { launchBrowser, signInAs, snapAt, url } from "../support/browser";
 import { signedIn } from "../support/http";
 import { demoCaptureId } from "../support/captures";
-
-const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
-
-async function snapAt(page: Page, name: string, selector: string): Promise<void> {
-  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
-  fs.mkdirSync(shotDir, { recursive: true });
-  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
-}
 
 let browser: Browser;
 // The demo scenario: the after-filter capture at Quillbrook (the demo viewer's customer) is approved, and so is

@@ -1,16 +1,12 @@
 // The limits line on the sheet and in the PDF: a visible warning while the revision is unverified, and the
 // verifier's line once an admin records a check against the printed edition.
-import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, url } from "../support/browser";
+import { launchBrowser, signInAs, snap, url } from "../support/browser";
 import { signedIn } from "../support/http";
 import { demoCaptureId, json } from "../support/captures";
 import { pdfText } from "../unit/reports/pdf-text";
 
-const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
 const flat = (pdf: Buffer) => pdfText(pdf).replace(/\s*\n\s*/g, " ");
 
 let browser: Browser;
@@ -44,8 +40,7 @@ describe("limits line", () => {
     expect(await line.getAttribute("data-verified")).toBe("false");
     expect(await line.textContent()).toContain(`revision ${revisionNumber} — not yet verified against the printed standard`);
     expect(await line.isVisible()).toBe(true);
-    fs.mkdirSync(shotDir, { recursive: true });
-    await page.screenshot({ path: path.join(shotDir, "limits-line-unverified.png") });
+    await snap(page, "limits-line-unverified", { fullPage: false });
     const before = flat(Buffer.from(await (await engineer.request("GET", `/api/captures/${captureId}/report`)).arrayBuffer()));
     expect(before).toContain("not yet verified against the printed standard");
 
@@ -66,7 +61,7 @@ describe("limits line", () => {
     await line.waitFor({ timeout: 15_000 });
     expect(await line.getAttribute("data-verified")).toBe("true");
     expect(await line.textContent()).toBe(`Limits: IEC 61000-3-2:2018 Table 3, revision ${revisionNumber}, verified against the printed edition by I. Marlowe on 2026-12-03`);
-    await page.screenshot({ path: path.join(shotDir, "limits-line-verified.png") });
+    await snap(page, "limits-line-verified", { fullPage: false });
     const after = flat(Buffer.from(await (await engineer.request("GET", `/api/captures/${captureId}/report`)).arrayBuffer()));
     expect(after).toContain(`Limits: IEC 61000-3-2:2018 Table 3, revision ${revisionNumber}, verified against the printed edition by I. Marlowe on 2026-12-03`);
     expect(after).not.toContain("not yet verified");

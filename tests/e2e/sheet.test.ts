@@ -1,40 +1,20 @@
 // The pass/fail sheet in the browser: verdicts with text, sort and filter, charts, re-evaluation,
 // review with e-mail, share links (signed out, then revoked), PDF and CSV, compare, phone width.
 import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
-import { signedIn, type CaughtMail, type Client } from "../support/http";
+import { artifactPath, launchBrowser, signInAs, snap, snapAt, url } from "../support/browser";
+import { signedIn, waitForMail } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
-import { analysedCapture, currentCsv, demoCaptureId, json, postUpload, type PresignedUpload } from "../support/captures";
+import { analysedCapture, currentCsv, demoCaptureId, json, uploadCapture } from "../support/captures";
 
 /**
  * The records judged here (currentCsv): 20 cycles of 50 Hz at 256 samples per cycle, I1 = 10 A r.m.s.
  * plus a 3rd harmonic of `i3Rms`. With 3 A the IEC 61000-3-2:2018+A1:2020 Class A h3 limit of 2.30 A (Table 1) fails; with 1 A it passes.
  */
 
-async function mailWithSubject(to: string, fragment: string, timeoutMs = 10_000): Promise<CaughtMail> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const res = await fetch(new URL(`/messages?to=${encodeURIComponent(to)}`, process.env.MAIL_CATCHER_URL!));
-    const found = ((await res.json()) as CaughtMail[]).find((m) => m.subject.includes(fragment));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no e-mail to ${to} about "${fragment}" within ${timeoutMs} ms`);
-}
-
-const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
 
 /** A viewport-sized screenshot with `selector` scrolled to the top, for looking at one part of a long page. */
-async function snapAt(page: Page, name: string, selector: string): Promise<void> {
-  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
-  fs.mkdirSync(shotDir, { recursive: true });
-  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
-}
-
 const rowOrders = (page: Page) =>
   page.$$eval("[data-testid=order-table] tbody tr[data-testid^=order-row-]", (rows) => rows.map((r) => Number(r.getAttribute("data-testid")!.slice("order-row-".length))));
 
@@ -158,7 +138,7 @@ describe("the pass/fail sheet", () => {
     const history = await adminPage.$$eval("[data-testid=review-event]", (els) => els.map((e) => e.getAttribute("data-action")));
     expect(history).toEqual(["submitted", "sent_back", "submitted", "approved"]);
     await snapAt(adminPage, "sheet-approved", "body");
-    const mail = await mailWithSubject("technician@ordwise.test", `"${failingTitle}" approved`);
+    const mail = await waitForMail("technician@ordwise.test", { match: (m) => m.subject.includes(`"${failingTitle}" approved`) });
     expect(mail.text).toContain("Ratio confirmed");
     expect(mail.text).toContain(`/captures/${failingId}`);
     await adminPage.close();
@@ -182,8 +162,7 @@ describe("the pass/fail sheet", () => {
     expect(lines.slice(h3, h3 + 9)[2]).toBe("2.3");
     expect(lines.slice(h3, h3 + 9)[8]).toBe("capture mean");
     expect(text).toContain("qualified engineer");
-    fs.mkdirSync(shotDir, { recursive: true });
-    fs.writeFileSync(path.join(shotDir, "sheet-report.pdf"), pdf);
+    fs.writeFileSync(artifactPath("sheet-report.pdf"), pdf);
 
     const csvRes = await api.request("GET", `/api/captures/${failingId}/sheet-csv`);
     expect(csvRes.status).toBe(200);
@@ -269,27 +248,25 @@ describe("the pass/fail sheet", () => {
     const tech = await signedIn("technician");
     const { sites } = await json<{ sites: { id: string }[] }>(await tech.request("GET", "/api/sites"));
     const csv = "Time (s),I (A)\n0,1\n0.001,2\n0.002,1\n";
-    const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
-      await tech.request("POST", "/api/captures", { siteId: sites[0]!.id, title: `Sheet test too short ${stamp}`, filename: "x.csv", sizeBytes: csv.length }),
-    );
-    await postUpload(upload, csv);
-    await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
-    await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
-    await json(await tech.request("POST", `/api/captures/${capture.id}/analyze`));
+    const id = await uploadCapture(tech, { siteId: sites[0]!.id, title: `Sheet test too short ${stamp}`, body: csv });
+    await tech.request("POST", `/api/captures/${id}/uploaded`);
+    await json(await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} }));
+    await json(await tech.request("POST", `/api/captures/${id}/analyze`));
 
     // Opened while queued or running, the page polls and shows the failure once it settles.
     const page = await browser.newPage();
     await signInAs(page, "technician");
-    await page.goto(url(`/captures/${capture.id}`));
+    await page.goto(url(`/captures/${id}`));
     await page.waitForSelector("[data-testid=failure-reason]", { timeout: 30_000 });
-    expect((await page.textContent("[data-testid=failure-reason]"))!.length).toBeGreaterThan(20);
-    expect(await page.getAttribute("[data-testid=fix-mapping]", "href")).toBe(`/captures/${capture.id}/setup`);
+    // 3 rows at 1 ms: 3 ms of record, where a window needs 10 cycles at 50 Hz (0.2 s).
+    expect(await page.textContent("[data-testid=failure-reason]")).toContain("record is shorter than one analysis window: 0.00300 s of data");
+    expect(await page.getAttribute("[data-testid=fix-mapping]", "href")).toBe(`/captures/${id}/setup`);
     await snapAt(page, "sheet-failed", "body");
     await page.close();
 
     const viewerPage = await browser.newPage();
     await signInAs(viewerPage, "engineer");
-    await viewerPage.goto(url(`/captures/${capture.id}`));
+    await viewerPage.goto(url(`/captures/${id}`));
     await viewerPage.waitForSelector("[data-testid=failure-reason]", { timeout: 10_000 });
     await viewerPage.close();
   });

@@ -2,12 +2,10 @@
 // record it was measured on — for a 0.4 s demo capture (rules not evaluated, the capture mean
 // stands in) and a 2 s capture (the IEC 61000-3-2 smoothed rules applied); share page, PDF, CSV.
 import fs from "node:fs";
-import os from "node:os";
-import path from "node:path";
-import type { Browser, Page } from "playwright-core";
+import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
-import { signedIn, type Client } from "../support/http";
+import { artifactPath, launchBrowser, signInAs, snap, snapAt, url } from "../support/browser";
+import { signedIn } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 import { analysedCapture, json } from "../support/captures";
 
@@ -29,13 +27,6 @@ function timedCsv(): string {
     lines.push(`${t.toFixed(7)},${i.toFixed(4)}`);
   }
   return lines.join("\n") + "\n";
-}
-
-const shotDir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
-async function snapAt(page: Page, name: string, selector: string): Promise<void> {
-  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
-  fs.mkdirSync(shotDir, { recursive: true });
-  await page.screenshot({ path: path.join(shotDir, `${name}.png`) });
 }
 
 let browser: Browser;
@@ -175,7 +166,6 @@ describe("time rules on the sheet", () => {
     expect(lines[h7 + 2]).toBe("1.155");
     expect(lines[h7 + 3]).toBe("0.77");
     expect(lines[h7 + 8]).toBe("max 1.5 s smoothed ×1.5");
-    fs.mkdirSync(shotDir, { recursive: true });
-    fs.writeFileSync(path.join(shotDir, "time-rules-report.pdf"), pdf);
+    fs.writeFileSync(artifactPath("time-rules-report.pdf"), pdf);
   });
 });

@@ -2,7 +2,7 @@ import path from "node:path";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { launchBrowser, signInAs, snap, url } from "../support/browser";
-import { demoCaptureId } from "../support/captures";
+import { demoCaptureId, finishedCapture } from "../support/captures";
 import { signedIn } from "../support/http";
 
 let browser: Browser;
@@ -44,14 +44,7 @@ describe("a technician uploads a capture in the browser", () => {
     await page.waitForURL(/\/captures\/[0-9a-f-]{36}$/);
     const id = new URL(page.url()).pathname.split("/")[2]!;
 
-    const api = await signedIn("technician");
-    const deadline = Date.now() + 30_000;
-    let status = "";
-    while (Date.now() < deadline && status !== "done" && status !== "failed") {
-      status = ((await (await api.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string } }).capture.status;
-      await new Promise((r) => setTimeout(r, 250));
-    }
-    expect(status).toBe("done");
+    expect(await finishedCapture(await signedIn("technician"), id, 30_000)).toMatchObject({ status: "done" });
     await page.reload();
     // IEC 61000-3-2:2018+A1:2020 Table 3 (Class D) at 180 W: h3 ≤ 3.4 mA/W × 180 W = 0.612 A; the PSU draws ≈ 0.69 A.
     await page.waitForSelector("[data-testid=order-row-3][data-verdict=fail]", { timeout: 15_000 });

@@ -4,7 +4,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db, sql } from "@/db/client";
 import { analyses, captures, evaluations, limitSetRevisions, limitSets } from "@/db/schema";
 import { getObjectBytes } from "@/lib/storage/s3";
-import { postUpload, type PresignedUpload } from "../support/captures";
+import { finishedCapture, uploadCapture, type FinishedCapture } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let tech: Client;
@@ -18,27 +18,12 @@ beforeAll(async () => {
   siteId = sites.sites.find((s) => s.name.startsWith("Bench B"))!.id;
 });
 
-async function upload(file: string, title: string): Promise<string> {
-  const bytes = readFileSync(file);
-  const res = await tech.request("POST", "/api/captures", { siteId, title, filename: file.split("/").pop(), sizeBytes: bytes.length });
-  expect(res.status).toBe(201);
-  const { capture, upload } = (await res.json()) as { capture: { id: string }; upload: PresignedUpload };
-  // The browser's path: a form POST straight to the bucket with the presigned policy.
-  const post = await postUpload(upload, bytes);
-  expect(post.ok).toBe(true);
-  return capture.id;
-}
+const upload = (file: string, title: string) => uploadCapture(tech, { siteId, title, body: readFileSync(file), filename: file.split("/").pop() });
 
-async function analyse(id: string, limitSetKey = "iec-61000-3-2-class-a"): Promise<{ status: string; failureReason: string | null }> {
+async function analyse(id: string, limitSetKey = "iec-61000-3-2-class-a"): Promise<FinishedCapture> {
   expect((await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey, context: { nominalVoltageV: 230 } })).status).toBe(200);
   expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
-  const deadline = Date.now() + 30_000;
-  while (Date.now() < deadline) {
-    const { capture } = (await (await tech.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string; failureReason: string | null } };
-    if (capture.status === "done" || capture.status === "failed") return capture;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error("analysis did not finish within 30 s");
+  return finishedCapture(tech, id, 30_000);
 }
 
 describe("capture workflow against PostgreSQL and s3rver", () => {

@@ -8,7 +8,7 @@ import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { evaluations } from "@/db/schema";
 import { writeClassABurst } from "@/fixtures/burst/class-a-burst";
-import { json, postUpload, type PresignedUpload } from "../support/captures";
+import { json, uploadCapture, waitForCapture } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 import { runAnalyzeCli } from "../support/run-analyze-cli";
 
@@ -30,24 +30,12 @@ afterAll(() => rmSync(dir, { recursive: true, force: true }));
 
 /** Uploads, maps and analyses through the app and its worker; returns the stored first evaluation. */
 async function throughWorker(context: Record<string, unknown>) {
-  const bytes = readFileSync(file);
-  const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
-    await tech.request("POST", "/api/captures", { siteId, title: `Parity ${Date.now()}`, filename: "class-a-burst.csv", sizeBytes: bytes.length, capturedAt }),
-  );
-  // The browser's path: a form POST straight to the bucket with the presigned policy.
-  expect((await postUpload(upload, bytes)).ok).toBe(true);
-  await json(await tech.request("POST", `/api/captures/${capture.id}/uploaded`));
-  await json(await tech.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: { "I (A)": { scale: 1 } } }, limitSetKey: "iec-61000-3-2-class-a", context }));
-  expect((await tech.request("POST", `/api/captures/${capture.id}/analyze`)).status).toBe(202);
-  const deadline = Date.now() + 120_000;
-  for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await tech.request("GET", `/api/captures/${capture.id}`));
-    if (c.status === "done") break;
-    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
-    if (Date.now() > deadline) throw new Error("the worker did not finish within 120 s");
-    await new Promise((r) => setTimeout(r, 250));
-  }
-  const [evaluation] = await db.select().from(evaluations).where(eq(evaluations.captureId, capture.id));
+  const id = await uploadCapture(tech, { siteId, title: `Parity ${Date.now()}`, body: readFileSync(file), filename: "class-a-burst.csv", capturedAt });
+  await json(await tech.request("POST", `/api/captures/${id}/uploaded`));
+  await json(await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: { "I (A)": { scale: 1 } } }, limitSetKey: "iec-61000-3-2-class-a", context }));
+  expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
+  await waitForCapture(tech, id, 120_000);
+  const [evaluation] = await db.select().from(evaluations).where(eq(evaluations.captureId, id));
   return evaluation!;
 }
 

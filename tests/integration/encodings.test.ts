@@ -6,7 +6,7 @@ import { eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { analyses } from "@/db/schema";
-import { postUpload, type PresignedUpload } from "../support/captures";
+import { finishedCapture, uploadCapture, type FinishedCapture } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let tech: Client;
@@ -21,26 +21,16 @@ beforeAll(async () => {
 type Preview = { preview: { columns: { header: string; role: string; quantity: string | null }[]; sampleIntervalS: number | null } | null; problem: string | null };
 
 async function uploadAndPreview(file: string): Promise<{ id: string; preview: Preview }> {
-  const bytes = readFileSync(file);
-  const res = await tech.request("POST", "/api/captures", { siteId, title: `Encoding ${file} ${Date.now()}`, filename: file.split("/").pop(), sizeBytes: bytes.length });
-  expect(res.status).toBe(201);
-  const { capture, upload } = (await res.json()) as { capture: { id: string }; upload: PresignedUpload };
-  expect((await postUpload(upload, bytes)).ok).toBe(true);
-  const confirmed = await tech.request("POST", `/api/captures/${capture.id}/uploaded`);
+  const id = await uploadCapture(tech, { siteId, title: `Encoding ${file} ${Date.now()}`, body: readFileSync(file), filename: file.split("/").pop() });
+  const confirmed = await tech.request("POST", `/api/captures/${id}/uploaded`);
   expect(confirmed.status).toBe(200);
-  return { id: capture.id, preview: (await confirmed.json()) as Preview };
+  return { id, preview: (await confirmed.json()) as Preview };
 }
 
-async function analyse(id: string, channels: Record<string, unknown> = {}): Promise<{ status: string; failureReason: string | null }> {
+async function analyse(id: string, channels: Record<string, unknown> = {}): Promise<FinishedCapture> {
   expect((await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels }, limitSetKey: "iec-61000-3-2-class-a", context: { nominalVoltageV: 230 } })).status).toBe(200);
   expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
-  const deadline = Date.now() + 30_000;
-  while (Date.now() < deadline) {
-    const { capture } = (await (await tech.request("GET", `/api/captures/${id}`)).json()) as { capture: { status: string; failureReason: string | null } };
-    if (capture.status === "done" || capture.status === "failed") return capture;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error("analysis did not finish within 30 s");
+  return finishedCapture(tech, id, 30_000);
 }
 
 describe("one encoding for preview and analysis", () => {

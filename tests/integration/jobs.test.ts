@@ -6,8 +6,9 @@ import PgBoss from "pg-boss";
 import { afterAll, describe, expect, it } from "vitest";
 import { db, sql } from "@/db/client";
 import { captures } from "@/db/schema";
-import { postUpload, type PresignedUpload } from "../support/captures";
+import { uploadCapture } from "../support/captures";
 import { signedIn } from "../support/http";
+import { pollFor } from "../support/poll";
 
 // A queue of its own, so the worker that `npm test` runs beside the app never takes these jobs.
 const queue = `analyze-capture-killtest-${Date.now()}`;
@@ -28,16 +29,6 @@ function startWorker(extraEnv: Record<string, string>): ChildProcess {
   return child;
 }
 
-async function waitFor<T>(what: string, probe: () => Promise<T | null>, timeoutMs = 45_000, explain?: () => Promise<string>): Promise<T> {
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const v = await probe();
-    if (v !== null) return v;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`timed out waiting for ${what}${explain ? `: ${await explain()}` : ""}`);
-}
-
 afterAll(() => {
   for (const w of workers) {
     try {
@@ -53,37 +44,36 @@ describe("analysis jobs in the PostgreSQL-backed queue", () => {
     const tech = await signedIn("technician");
     const sites = (await (await tech.request("GET", "/api/sites")).json()) as { sites: { id: string; name: string }[] };
     const siteId = sites.sites.find((s) => s.name.startsWith("Bench B"))!.id;
-    const bytes = readFileSync("fixtures/demo/bench-b-heater-controller.csv");
-    const reg = (await (
-      await tech.request("POST", "/api/captures", { siteId, title: `Killed worker ${Date.now()}`, filename: "heater.csv", sizeBytes: bytes.length })
-    ).json()) as { capture: { id: string }; upload: PresignedUpload };
-    await postUpload(reg.upload, bytes);
-    expect((await tech.request("POST", `/api/captures/${reg.capture.id}/uploaded`)).status).toBe(200);
-    await tech.request("PUT", `/api/captures/${reg.capture.id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} });
+    const id = await uploadCapture(tech, { siteId, title: `Killed worker ${Date.now()}`, body: readFileSync("fixtures/demo/bench-b-heater-controller.csv"), filename: "heater.csv" });
+    expect((await tech.request("POST", `/api/captures/${id}/uploaded`)).status).toBe(200);
+    await tech.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey: "iec-61000-3-2-class-a", context: {} });
 
     // The first worker pauses after computing and before storing: kill it there.
     const first = startWorker({ ORDWISE_TEST_PAUSE_BEFORE_STORE_MS: "120000" });
     const boss = new PgBoss({ connectionString: process.env.DATABASE_URL!, schema: "pgboss", supervise: false, schedule: false });
     await boss.start();
     await boss.createQueue(queue, { name: queue, retryLimit: 1, retryDelay: 1, expireInSeconds: expireS });
-    const jobId = await boss.send(queue, { captureId: reg.capture.id, actorId: null }, { retryLimit: 1, retryDelay: 1, expireInSeconds: expireS });
+    const jobId = await boss.send(queue, { captureId: id, actorId: null }, { retryLimit: 1, retryDelay: 1, expireInSeconds: expireS });
     expect(jobId).toBeTruthy();
 
-    await waitFor("the first run to reach 80 %", async () => {
-      const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
-      return c?.status === "running" && c.progressPercent >= 80 ? c : null;
-    });
+    await pollFor(
+      "the first run to reach 80 %",
+      async () => {
+        const [c] = await db.select().from(captures).where(eq(captures.id, id));
+        return c?.status === "running" && c.progressPercent >= 80 ? c : null;
+      },
+      { timeoutMs: 45_000 },
+    );
     process.kill(-first.pid!, "SIGKILL");
 
     startWorker({});
-    const done = await waitFor(
+    const done = await pollFor(
       "the retried job to finish",
       async () => {
-        const [c] = await db.select().from(captures).where(eq(captures.id, reg.capture.id));
+        const [c] = await db.select().from(captures).where(eq(captures.id, id));
         return c?.status === "done" || c?.status === "failed" ? c : null;
       },
-      90_000,
-      async () => JSON.stringify(await sql`select state, retry_count, started_on, start_after from pgboss.job where id = ${jobId!}`),
+      { timeoutMs: 90_000, explain: async () => JSON.stringify(await sql`select state, retry_count, started_on, start_after from pgboss.job where id = ${jobId!}`) },
     );
     expect(done.status).toBe("done");
     const [job] = await sql`select state, retry_count from pgboss.job where id = ${jobId!}`;

@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { analyses, captures, reviewEvents } from "@/db/schema";
 import { analysedCapture, currentCsv, json, waitForCapture } from "../support/captures";
-import { signedIn, type Client } from "../support/http";
+import { signedIn, waitForMail, type Client } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 
 /**
@@ -50,6 +50,20 @@ async function sharedPdf(token: string): Promise<string> {
   const res = await fetch(new URL(`/api/shared/${token}/report`, process.env.APP_URL));
   expect(res.status).toBe(200);
   return pdfText(Buffer.from(await res.arrayBuffer()));
+}
+
+/**
+ * After a newer result: the capture is back in review, its approval still names the approved
+ * evaluation, and the share link still shows that Fail, signed off. Resolves to the shared PDF's text.
+ */
+async function expectApprovedFailStands(id: string, approvedId: string, token: string): Promise<string> {
+  const [row] = await db.select().from(captures).where(eq(captures.id, id));
+  expect(row?.reviewState).toBe("in_review");
+  expect(row?.approvedEvaluationId).toBe(approvedId);
+  const shared = await sharedPdf(token);
+  expect(shared).toContain("Overall verdict: FAIL");
+  expect(shared).toMatch(/Sign-off\nApproved by Teodor Vance/);
+  return shared;
 }
 
 async function failingCapture(title: string): Promise<string> {
@@ -121,14 +135,8 @@ describe("an approval covers exactly one result", () => {
     const { evaluationId: newer, verdict } = (await rejudged.json()) as { evaluationId: string; verdict: string };
     expect(verdict).toBe("pass");
 
-    const [row] = await db.select().from(captures).where(eq(captures.id, id));
-    expect(row?.reviewState).toBe("in_review");
-    expect(row?.approvedEvaluationId).toBe(approved!.id);
-
     // What leaves the team still says Fail, approved — the approved evaluation.
-    const shared = await sharedPdf(token);
-    expect(shared).toContain("Overall verdict: FAIL");
-    expect(shared).toMatch(/Sign-off\nApproved by Teodor Vance/);
+    await expectApprovedFailStands(id, approved!.id, token);
     const pdf = await pdfOf(engineer, `/api/captures/${id}/report`);
     expect(pdf).toContain("Overall verdict: FAIL");
     // The newer result's PDF is not signed off.
@@ -183,12 +191,7 @@ describe("an approval covers exactly one result", () => {
     expect((await admin.request("PUT", `/api/captures/${id}/setup`, scaled)).status).toBe(200);
     expect((await admin.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
     await waitForCapture(admin, id);
-    const [row] = await db.select().from(captures).where(eq(captures.id, id));
-    expect(row?.reviewState).toBe("in_review");
-    expect(row?.approvedEvaluationId).toBe(approved!.id);
-    const shared = await sharedPdf(token);
-    expect(shared).toContain("Overall verdict: FAIL");
-    expect(shared).toMatch(/Sign-off\nApproved by Teodor Vance/);
+    const shared = await expectApprovedFailStands(id, approved!.id, token);
     // The set-up behind each result is on the sheet: scale × 1 for the approved one, × 0.1 for the new one.
     expect(shared).toMatch(/I \(A\): current, scale . 1\b/);
     expect(shared).toMatch(/File SHA-256/);
@@ -223,16 +226,10 @@ describe("an approval covers exactly one result", () => {
   it("tells engineers by e-mail when a capture is submitted, with a clickable absolute link", async () => {
     const id = await failingCapture("Mail on submit");
     expect((await review(tech, id, { action: "submitted", comment: "please look" })).status).toBe(200);
-    const deadline = Date.now() + 10_000;
-    let mail: { subject: string; text: string; html: string | null } | undefined;
-    while (!mail && Date.now() < deadline) {
-      const res = await fetch(new URL(`/messages?to=${encodeURIComponent("engineer@ordwise.test")}`, process.env.MAIL_CATCHER_URL!));
-      mail = ((await res.json()) as { subject: string; text: string; html: string | null }[]).find((m) => m.subject.includes(`Mail on submit ${stamp}`));
-      if (!mail) await new Promise((r) => setTimeout(r, 200));
-    }
-    expect(mail?.subject).toContain("submitted for review");
+    const mail = await waitForMail("engineer@ordwise.test", { match: (m) => m.subject.includes(`Mail on submit ${stamp}`) });
+    expect(mail.subject).toContain("submitted for review");
     const link = new URL(`/captures/${id}`, process.env.APP_URL).toString();
-    expect(mail?.text).toContain(link);
-    expect(mail?.html).toContain(`<a href="${link}">`);
+    expect(mail.text).toContain(link);
+    expect(mail.html).toContain(`<a href="${link}">`);
   });
 });

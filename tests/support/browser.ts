@@ -22,11 +22,36 @@ export async function signInAs(page: Page, role: DemoRole): Promise<void> {
   await page.waitForURL((u) => !u.pathname.startsWith("/sign-in"));
 }
 
-/** Saves a screenshot under the test data dir for a person to look at. */
-export async function snap(page: Page, name: string): Promise<void> {
+/** Where a file for a person to look at goes: the test data dir's screenshots/ (created on first use). */
+export function artifactPath(fileName: string): string {
   const dir = path.join(process.env.TEST_DATA_DIR ?? os.tmpdir(), "screenshots");
   fs.mkdirSync(dir, { recursive: true });
-  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true });
+  return path.join(dir, fileName);
+}
+
+/** Saves a screenshot (the whole page, or only the viewport) for a person to look at. */
+export async function snap(page: Page, name: string, { fullPage = true }: { fullPage?: boolean } = {}): Promise<void> {
+  await page.screenshot({ path: artifactPath(`${name}.png`), fullPage });
+}
+
+/** Scrolls the first element matching `selector` to the top and saves the viewport. */
+export async function snapAt(page: Page, name: string, selector: string): Promise<void> {
+  await page.locator(selector).first().evaluate((el) => el.scrollIntoView({ block: "start" }));
+  await snap(page, name, { fullPage: false });
 }
 
 export const url = (p: string) => new URL(p, appUrl()).toString();
+
+/**
+ * On the new-capture page: chooses the site whose name starts with `site`, the file (a path or its
+ * bytes) and a title, submits, and waits for the capture's set-up page.
+ */
+export async function uploadInBrowser(page: Page, { file, title, site = "Bench B" }: { file: string | { name: string; mimeType: string; buffer: Buffer }; title: string; site?: string }): Promise<void> {
+  await page.goto(url("/captures/new"));
+  const value = await page.locator("#cap-site option", { hasText: site }).getAttribute("value");
+  await page.selectOption("#cap-site", value!);
+  await page.setInputFiles("[data-testid=file-input]", typeof file === "string" ? path.resolve(file) : file);
+  await page.fill("#cap-title", title);
+  await page.click("button[type=submit]");
+  await page.waitForURL(/\/captures\/[0-9a-f-]{36}\/setup$/);
+}

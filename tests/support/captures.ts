@@ -1,6 +1,7 @@
 // Capture set-up through the API, as a technician would do it in the browser.
 import { expect } from "vitest";
 import type { Client } from "./http";
+import { pollFor } from "./poll";
 
 export async function json<T>(res: Response): Promise<T> {
   if (!res.ok) throw new Error(`${res.status} ${await res.text()}`);
@@ -21,7 +22,23 @@ export async function postUpload(upload: PresignedUpload, body: string | Uint8Ar
   return fetch(upload.url, { method: "POST", body: form });
 }
 
-/** Registers, uploads (presigned PUT), maps and analyses a capture; resolves to its id once done. */
+/**
+ * Registers a capture at a site and uploads `body` the browser's way (a form POST to the bucket with
+ * the presigned policy); resolves to the capture's id. The upload is not yet confirmed.
+ */
+export async function uploadCapture(
+  api: Client,
+  { siteId, title, body, filename = "x.csv", kind, capturedAt }: { siteId: string; title: string; body: string | Uint8Array; filename?: string; kind?: "interval-log"; capturedAt?: string },
+): Promise<string> {
+  const sizeBytes = typeof body === "string" ? Buffer.byteLength(body) : body.length;
+  const res = await api.request("POST", "/api/captures", { siteId, title, filename, sizeBytes, ...(kind ? { kind } : {}), ...(capturedAt ? { capturedAt } : {}) });
+  expect(res.status).toBe(201);
+  const { capture, upload } = (await res.json()) as { capture: { id: string }; upload: PresignedUpload };
+  expect((await postUpload(upload, body)).ok).toBe(true);
+  return capture.id;
+}
+
+/** Registers, uploads, confirms, maps and analyses a capture; resolves to its id once done. */
 export async function analysedCapture(
   api: Client,
   siteId: string,
@@ -29,27 +46,35 @@ export async function analysedCapture(
   csv: string,
   { filename = "x.csv", limitSetKey = "iec-61000-3-2-class-a", timeoutMs = 60_000 }: { filename?: string; limitSetKey?: string; timeoutMs?: number } = {},
 ): Promise<string> {
-  const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
-    await api.request("POST", "/api/captures", { siteId, title, filename, sizeBytes: Buffer.byteLength(csv) }),
+  const id = await uploadCapture(api, { siteId, title, body: csv, filename });
+  await json(await api.request("POST", `/api/captures/${id}/uploaded`));
+  await json(await api.request("PUT", `/api/captures/${id}/setup`, { mapping: { channels: {} }, limitSetKey, context: {} }));
+  await json(await api.request("POST", `/api/captures/${id}/analyze`));
+  await waitForCapture(api, id, timeoutMs);
+  return id;
+}
+
+export interface FinishedCapture {
+  status: "done" | "failed";
+  failureReason: string | null;
+}
+
+/** Waits until a queued analysis has ended, done or failed; resolves to its status and failure reason. */
+export async function finishedCapture(api: Client, id: string, timeoutMs = 60_000): Promise<FinishedCapture> {
+  return pollFor(
+    `capture ${id} to be analysed`,
+    async () => {
+      const { capture } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${id}`));
+      return capture.status === "done" || capture.status === "failed" ? { status: capture.status, failureReason: capture.failureReason } : null;
+    },
+    { timeoutMs, intervalMs: 250 },
   );
-  expect((await postUpload(upload, csv)).ok).toBe(true);
-  await json(await api.request("POST", `/api/captures/${capture.id}/uploaded`));
-  await json(await api.request("PUT", `/api/captures/${capture.id}/setup`, { mapping: { channels: {} }, limitSetKey, context: {} }));
-  await json(await api.request("POST", `/api/captures/${capture.id}/analyze`));
-  await waitForCapture(api, capture.id, timeoutMs);
-  return capture.id;
 }
 
 /** Waits until a queued analysis is done; throws with the reason when it failed. */
 export async function waitForCapture(api: Client, id: string, timeoutMs = 60_000): Promise<void> {
-  const deadline = Date.now() + timeoutMs;
-  for (;;) {
-    const { capture: c } = await json<{ capture: { status: string; failureReason: string | null } }>(await api.request("GET", `/api/captures/${id}`));
-    if (c.status === "done") return;
-    if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
-    if (Date.now() > deadline) throw new Error(`analysis did not finish in ${timeoutMs / 1000} s`);
-    await new Promise((r) => setTimeout(r, 250));
-  }
+  const c = await finishedCapture(api, id, timeoutMs);
+  if (c.status === "failed") throw new Error(`analysis failed: ${c.failureReason}`);
 }
 
 /** A demo capture as the captures list shows it, found by its title page by page (other tests add captures in front of it). */

@@ -1,5 +1,7 @@
 // A tiny HTTP client for the running app: keeps one session cookie, sends a same-origin header.
+import type { CaughtMail } from "@/lib/mail/caught-mail";
 import { appUrl } from "./env";
+import { pollFor } from "./poll";
 
 export const demoPassword = "ordwise-demo-2026";
 export type DemoRole = "admin" | "engineer" | "technician" | "viewer";
@@ -39,21 +41,13 @@ export async function signedIn(role: DemoRole): Promise<Client> {
   return c;
 }
 
-export interface CaughtMail {
-  to: string[];
-  subject: string;
-  text: string;
+/** The messages to `to` at the local mail catcher, newest first. */
+export async function caughtMail(to: string): Promise<CaughtMail[]> {
+  const res = await fetch(new URL(`/messages?to=${encodeURIComponent(to)}`, process.env.MAIL_CATCHER_URL!));
+  return (await res.json()) as CaughtMail[];
 }
 
-/** Waits for a message to `to` at the local mail catcher. */
-export async function waitForMail(to: string, timeoutMs = 10_000): Promise<CaughtMail> {
-  const base = process.env.MAIL_CATCHER_URL!;
-  const deadline = Date.now() + timeoutMs;
-  while (Date.now() < deadline) {
-    const res = await fetch(new URL(`/messages?to=${encodeURIComponent(to)}`, base));
-    const list = (await res.json()) as CaughtMail[];
-    if (list[0]) return list[0];
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no e-mail to ${to} within ${timeoutMs} ms`);
+/** Waits for the newest message to `to` that `match` accepts (any message by default). */
+export async function waitForMail(to: string, { match = () => true, timeoutMs = 10_000 }: { match?: (mail: CaughtMail) => boolean; timeoutMs?: number } = {}): Promise<CaughtMail> {
+  return pollFor(`an e-mail to ${to}`, async () => (await caughtMail(to)).find(match), { timeoutMs });
 }
