@@ -68,7 +68,8 @@ describe("invitations", () => {
     const mail = await waitForMail(email);
     expect(mail.subject).toBe("Your Ordwise account");
     const link = /(http\S+\/invite\/[a-z0-9]+)/.exec(mail.text)?.[1];
-    expect(link).toBeDefined();
+    // An absolute link on the app's own origin.
+    expect(link?.startsWith(new URL("/invite/", process.env.APP_URL).toString())).toBe(true);
     const token = link!.split("/invite/")[1]!;
 
     const page = await fetch(link!);

@@ -219,7 +219,7 @@ describe("clone, export and import", () => {
     changed.content.bands[0]!.orderRows[2]!.limit = 0.7;
     const noReason = await admin.request("POST", "/api/limit-sets/import", changed);
     expect(noReason.status).toBe(422);
-    expect((await json<{ error: { fieldErrors: Record<string, string[]> } }>(noReason)).error.fieldErrors.reason).toBeDefined();
+    expect((await json<{ error: { fieldErrors: Record<string, string[]> } }>(noReason)).error.fieldErrors.reason).toEqual([`Limit set ${doc.key} exists: importing makes a new revision, so give a reason`]);
     const revised = await admin.request("POST", "/api/limit-sets/import", { ...changed, reason: "Re-imported after review" });
     expect(revised.status).toBe(200);
     const after = await json<Detail & { created: boolean }>(revised);

@@ -116,7 +116,9 @@ describe("import variants", () => {
     expect(r.channels[1]!.fundamentalRms).toBeCloseTo(40 * I1, 0);
   });
 
-  test("the streaming file path gives the same result as the text path", async () => {
+  // These records fit the look-ahead, so the file path reads them with its row collector and then runs the
+  // in-memory analysis: this compares the two importers (streamed rows vs. the text import), not two analyses.
+  test("the file reader imports a short record exactly as the text import does", async () => {
     for (const name of ["single-phase-50hz.csv", "three-phase-60hz-semicolon.csv", "tab-preamble-one-window.csv", "units-row.csv"]) {
       const fromFile = await analyzeCsvFile(fixture(name));
       expect(fromFile).toEqual(analyzeCsvText(read(name)));
