@@ -159,7 +159,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ["File", sheet.capture.originalFilename],
     ["Captured", sheet.capture.capturedAt ? formatWhen(sheet.capture.capturedAt) : "not given"],
     ["Uploaded", `${formatWhen(sheet.capture.createdAt)}${sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}`],
-    ["Limit set", `${evaluation.limitSetName} (${evaluation.limitSetKey})`],
+    ["Limit set", evaluation.limitSetName],
     ["Standard and edition", `${result.limitSet.standard}, ${result.limitSet.edition}`],
     ["Scope", result.limitSet.scope],
     ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
@@ -171,7 +171,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   const setupRows = describeSetup(sheet);
   if (setupRows.length > 0) {
     heading("Set-up behind this result");
-    keyValues(setupRows);
+    // Summaries only (an interval log's column-by-column list stays on the web sheet, on demand).
+    keyValues(setupRows.map(([label, value]) => [label, value]));
   }
 
   // The limits line: which table and revision, and whether it was verified against the printed edition.
@@ -293,7 +294,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     doc.moveTo(margin, y - 4).lineTo(margin + width, y - 4).lineWidth(0.5).strokeColor(colours.line).stroke();
     doc.font("Helvetica").fontSize(7).fillColor(colours.muted);
     doc.text(
-      pdfSafe(`${sheet.capture.title} · ${evaluation.limitSetKey} revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)} · page ${i - range.start + 1} of ${range.count}`),
+      pdfSafe(`${sheet.capture.title} · ${evaluation.limitSetName}, revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)} · page ${i - range.start + 1} of ${range.count}`),
       margin,
       y,
       { width, lineBreak: false },

@@ -98,6 +98,8 @@ describe("importIntervalLog", () => {
     expect([...log.channels[0]!.orders.keys()].sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5, 7, 9, 11, 13, 17, 19]);
     expect(log.gaps).toEqual([]);
     expect(log.lines[0]).toBe(5);
+    // The suggested mapping leaves the three "H5 max" columns out (a max is not an average); the log names them.
+    expect(log.unmappedColumns).toEqual(["I1 H5 max [A]", "I2 H5 max [A]", "I3 H5 max [A]"]);
   });
 
   test("gaps are reported with where and how long, not bridged (DD.MM.YYYY, ';', decimal comma)", () => {
