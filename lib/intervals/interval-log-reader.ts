@@ -33,8 +33,11 @@ class ChunkedColumn {
   }
 }
 
+/** "2024-03-04 00:10 UTC" (seconds only where they are not zero), as every date on a sheet reads. */
 function formatMs(ms: number): string {
-  return new Date(ms).toISOString().replace("T", " ").replace(/\.000Z$/, "Z");
+  const iso = new Date(ms).toISOString();
+  const seconds = iso.slice(16, 23) === ":00.000" ? "" : iso.slice(16, 19);
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)}${seconds} UTC`;
 }
 
 function formatS(seconds: number): string {

@@ -19,7 +19,7 @@ import { safetyText } from "./safety-text";
 import { describeSetup } from "./describe-setup";
 import { describeSignOff } from "./describe-sign-off";
 import { channelBlocks, type SheetReport } from "./sheet-report";
-import { powerChoiceRows } from "./result-wording";
+import { conditionReasonText, powerChoiceRows } from "./result-wording";
 import { decidedByLabel, describeTimeBasis, formatPercentOfLimit, tableLimitIfDifferent, formatMultiplier, tableLimitOf, timeRuleLines } from "./time-rules";
 
 export interface SheetPdfOptions {
@@ -260,7 +260,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     for (const c of block.conditions) {
       ensure(20);
       doc.font("Helvetica").fontSize(8).fillColor(colours.soft);
-      text(`Condition ${c.id} (${c.verdict === "pass" ? "holds" : "not evaluated"}): ${c.text} — ${c.reason}`);
+      text(`Condition (${c.verdict === "pass" ? "holds" : "not evaluated"}): ${c.text} — ${conditionReasonText(c)}`);
     }
   });
 
