@@ -86,13 +86,13 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
             <dd data-testid="sheet-setup">
               <ul>
                 {setup.map(([k, v, details]) => (
-                  <li key={k} className="break-words">
+                  <li key={k} className="[overflow-wrap:anywhere]">
                     <span className="text-ink-soft">{k}</span> {v}
                     {details && details.length > 0 && (
                       <details className="mt-1" data-testid="setup-details">
                         <summary className="cursor-pointer text-copper-dark">Show all {details.length}</summary>
                         <ul className="mt-1 columns-1 text-xs text-ink-soft sm:columns-2 lg:columns-3">
-                          {details.map((d) => <li key={d} className="break-words">{d}</li>)}
+                          {details.map((d) => <li key={d} className="[overflow-wrap:anywhere]">{d}</li>)}
                         </ul>
                       </details>
                     )}
