@@ -168,12 +168,6 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     ...(result.power ? powerChoiceRows(result.power) : []),
     ["Sign-off", describeSignOff(sheet).label],
   ]);
-  const setupRows = describeSetup(sheet);
-  if (setupRows.length > 0) {
-    heading("Set-up behind this result");
-    // Summaries only (an interval log's column-by-column list stays on the web sheet, on demand).
-    keyValues(setupRows.map(([label, value]) => [label, value]));
-  }
 
   // The limits line: which table and revision, and whether it was verified against the printed edition.
   const limits = limitsLine({ standard: result.limitSet.standard, edition: result.limitSet.edition, revisionNumber: evaluation.revisionNumber, verification: sheet.limitsVerification ?? null });
@@ -196,6 +190,13 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
       keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
     }
   }
+  // The set-up after the headline numbers, so those stay on page 1.
+  const setupRows = describeSetup(sheet);
+  if (setupRows.length > 0) {
+    heading("Set-up behind this result");
+    // Summaries only (an interval log's column-by-column list stays on the web sheet, on demand).
+    keyValues(setupRows.map(([label, value]) => [label, value]));
+  }
 
   const blocks = channelBlocks(result);
   heading("Evaluation context");
@@ -217,7 +218,8 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
         rule.status === "applied"
           ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.note ? `; ${rule.note}` : ""}`
           : `NOT EVALUATED: ${rule.note ?? "no reason given"}`;
-      keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
+      // A result stored before rules said what they measure has only the label; the rule's id is never printed.
+      keyValues([[`${rule.label}`, `${rule.statistic ? `${rule.statistic}; ` : ""}limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
     }
   }
 

@@ -4,6 +4,18 @@
 import { inflateSync } from "node:zlib";
 
 export function pdfText(pdf: Buffer): string {
+  return pdfStreamTexts(pdf).join("\n");
+}
+
+/**
+ * The text of each content stream that holds any, in file order: with pdfkit one per page (a
+ * page's footer, drawn last, lands in its own page's stream), so [0] is page 1.
+ */
+export function pdfPageTexts(pdf: Buffer): string[] {
+  return pdfStreamTexts(pdf).filter((text) => text !== "");
+}
+
+function pdfStreamTexts(pdf: Buffer): string[] {
   const raw = pdf.toString("latin1");
   const streams: string[] = [];
   const re = /<<([^]*?)>>\s*stream\r?\n/g;
@@ -22,14 +34,14 @@ export function pdfText(pdf: Buffer): string {
     } else streams.push(body.toString("latin1"));
     re.lastIndex = end;
   }
-  const lines: string[] = [];
-  for (const s of streams) {
+  return streams.map((s) => {
+    const lines: string[] = [];
     for (const op of s.matchAll(/\[([^\]]*)\]\s*TJ|<([0-9a-fA-F]*)>\s*Tj|\(((?:\\.|[^)])*)\)\s*Tj/g)) {
       if (op[1] !== undefined) {
         lines.push([...op[1].matchAll(/<([0-9a-fA-F]*)>/g)].map((h) => Buffer.from(h[1] ?? "", "hex").toString("latin1")).join(""));
       } else if (op[2] !== undefined) lines.push(Buffer.from(op[2], "hex").toString("latin1"));
       else if (op[3] !== undefined) lines.push(op[3]);
     }
-  }
-  return lines.join("\n");
+    return lines.join("\n");
+  });
 }
