@@ -72,7 +72,11 @@ function LikelySource({ base, evaluationId, channelName }: { base: string; evalu
                   <td className="py-1 pr-2">{FAMILY_LABELS[c.family]}</td>
                   <td className="py-1 pr-2">
                     {Object.entries(c.parameters)
-                      .map(([name, v]) => `${PARAMETER_LABELS[name] ?? name} ${fmt(v)}`)
+                      .map(([name, v]) => {
+                        // "firing angle 10°", "commutation reactance 12.7 %": the value, then its unit.
+                        const p = PARAMETER_LABELS[name] ?? { label: "fitted parameter", unit: "" };
+                        return `${p.label} ${fmt(v)}${p.unit === "°" ? "°" : p.unit ? ` ${p.unit}` : ""}`;
+                      })
                       .join(" · ") || "—"}
                   </td>
                   <td className="py-1 text-right tabular-nums">{c.fitErrorPercent.toFixed(1)}</td>
