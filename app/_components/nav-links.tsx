@@ -6,7 +6,7 @@ import { usePathname } from "next/navigation";
 export function NavLinks({ links }: { links: { href: string; label: string }[] }) {
   const pathname = usePathname();
   return (
-    <nav className="order-last flex w-full gap-1 overflow-x-auto text-sm sm:order-none sm:w-auto" aria-label="Main">
+    <nav className="order-last flex w-full flex-wrap gap-1 text-sm sm:order-none sm:w-auto" aria-label="Main">
       {links.map((l) => {
         const active = pathname === l.href || pathname.startsWith(`${l.href}/`);
         return (

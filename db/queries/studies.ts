@@ -1,7 +1,7 @@
 import "server-only";
 import { and, desc, eq } from "drizzle-orm";
 import { db } from "@/db/client";
-import { limitSetRevisions, limitSets, mitigationStudies, users } from "@/db/schema";
+import { evaluations, limitSetRevisions, limitSets, mitigationStudies, users } from "@/db/schema";
 import { LimitSetRevisionContentSchema, type LimitSetRevisionContent } from "@/lib/compliance/model";
 import { AppError } from "@/lib/errors";
 import type { MitigationStudyInputs } from "@/lib/mitigation/study-inputs";
@@ -60,8 +60,14 @@ export async function insertMitigationStudy({
   });
 }
 
-/** The saved studies of a capture, newest first, with their author's name. */
-export async function listMitigationStudies({ captureId, onlyForReport = false }: { captureId: string; onlyForReport?: boolean }) {
+/**
+ * The saved studies of a capture, newest first, with their author's name and the evaluation each one
+ * started from. `evaluationId`: only the studies started from that evaluation (what a reader outside
+ * the team, a share link or a report of that evaluation may show).
+ */
+export async function listMitigationStudies({ captureId, onlyForReport = false, evaluationId }: { captureId: string; onlyForReport?: boolean; evaluationId?: string | null }) {
+  // A reader restricted to one evaluation that does not exist (no approval yet) sees none.
+  if (evaluationId === null) return [];
   return db
     .select({
       id: mitigationStudies.id,
@@ -73,10 +79,19 @@ export async function listMitigationStudies({ captureId, onlyForReport = false }
       includeInReport: mitigationStudies.includeInReport,
       createdAt: mitigationStudies.createdAt,
       authorName: users.name,
+      evaluationId: mitigationStudies.evaluationId,
+      evaluationCreatedAt: evaluations.createdAt,
     })
     .from(mitigationStudies)
     .leftJoin(users, eq(users.id, mitigationStudies.createdBy))
-    .where(and(eq(mitigationStudies.captureId, captureId), onlyForReport ? eq(mitigationStudies.includeInReport, true) : undefined))
+    .leftJoin(evaluations, eq(evaluations.id, mitigationStudies.evaluationId))
+    .where(
+      and(
+        eq(mitigationStudies.captureId, captureId),
+        onlyForReport ? eq(mitigationStudies.includeInReport, true) : undefined,
+        evaluationId !== undefined ? eq(mitigationStudies.evaluationId, evaluationId) : undefined,
+      ),
+    )
     .orderBy(desc(mitigationStudies.createdAt));
 }
 

@@ -5,7 +5,7 @@ import { count, eq, inArray } from "drizzle-orm";
 import type { PostgresJsDatabase } from "drizzle-orm/postgres-js";
 import { generateIdFromEntropySize } from "lucia";
 import * as schema from "@/db/schema";
-import { demoCustomers, demoPassword, demoSites, demoUsers } from "./scenario";
+import { demoCustomers, demoPassword, demoSites, demoUsers, renamedDemoUsers } from "./scenario";
 import { seedLimitTables } from "./limits";
 
 type SeedDb = PostgresJsDatabase<typeof schema>;
@@ -15,6 +15,8 @@ export async function seed(db: SeedDb): Promise<void> {
   for (const u of demoUsers) {
     const [existing] = await db.select().from(schema.users).where(eq(schema.users.email, u.email));
     if (!existing) await db.insert(schema.users).values({ id: generateIdFromEntropySize(10), ...u, passwordHash });
+    // A demo account still under an earlier scenario's name gets the current one (a name someone changed stays).
+    else if (existing.name === renamedDemoUsers[u.email]) await db.update(schema.users).set({ name: u.name }).where(eq(schema.users.id, existing.id));
   }
   const [{ n } = { n: 0 }] = await db.select({ n: count() }).from(schema.sites);
   if (n === 0) {

@@ -7,8 +7,13 @@ export const demoUsers: { email: string; name: string; role: Role }[] = [
   { email: "admin@ordwise.test", name: "Ines Marlowe", role: "admin" },
   { email: "engineer@ordwise.test", name: "Teodor Vance", role: "engineer" },
   { email: "technician@ordwise.test", name: "Priya Okonkwo-Hale", role: "technician" },
-  { email: "viewer@ordwise.test", name: "Ruth Castellane (Feldmoor Grid Co-op)", role: "viewer" },
+  { email: "viewer@ordwise.test", name: "Ruth Castellane (Quillbrook Cold Store Ltd)", role: "viewer" },
 ];
+
+/** Display names of demo accounts in earlier versions of the scenario, renamed on the next start (e-mail → old name). */
+export const renamedDemoUsers: Record<string, string> = {
+  "viewer@ordwise.test": "Ruth Castellane (Feldmoor Grid Co-op)",
+};
 
 export const demoSites = [
   {
@@ -42,8 +47,8 @@ export const demoSites = [
 
 /**
  * Customers own sites; a viewer reads only the approved sheets of their customers' sites.
- * The demo viewer (the utility's engineer reviewing Quillbrook's submission) belongs to Quillbrook only,
- * so the Bench B and Harrowgate sheets stay hidden from her.
+ * The demo viewer (Quillbrook's facilities manager, who reads her company's approved sheets and forwards
+ * them to the utility) belongs to Quillbrook only, so the Bench B and Harrowgate sheets stay hidden from her.
  */
 export const demoCustomers: { name: string; siteNames: string[]; viewerEmails: string[] }[] = [
   { name: "Quillbrook Cold Store Ltd", siteNames: ["Quillbrook Cold Store — PCC 11 kV"], viewerEmails: ["viewer@ordwise.test"] },

@@ -11,6 +11,8 @@ export const permissions = {
   "captures:read": ["admin", "engineer", "technician", "viewer"],
   "captures:upload": ["admin", "engineer", "technician"],
   "captures:review": ["admin", "engineer"],
+  // "Try a fix": running a new what-if on a capture. Viewers read the saved studies of approved sheets but run none.
+  "captures:what-if": ["admin", "engineer", "technician"],
   "captures:share": ["admin", "engineer"],
   "limits:read": ["admin", "engineer", "technician", "viewer"],
   "limits:write": ["admin"],
@@ -47,6 +49,14 @@ export type ReadScope = { kind: "all" } | { kind: "customer-member"; userId: str
 
 export function readScope(reader: Reader): ReadScope {
   return reader.role === "viewer" ? { kind: "customer-member", userId: reader.id, approvedOnly: true } : { kind: "all" };
+}
+
+/**
+ * Whether this reader sees only the approved result of a capture (its approved evaluation, the analysis
+ * behind it and the mitigation studies started from it) — outside parties; the team sees every result.
+ */
+export function readsApprovedResultOnly(reader: Reader): boolean {
+  return readScope(reader).kind === "customer-member";
 }
 
 /** Whether internal review comments and the review history may be shown to this reader. */

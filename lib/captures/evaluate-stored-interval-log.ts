@@ -26,7 +26,7 @@ export async function evaluateStoredIntervalLog(
   capture: Capture,
   revision: LimitSetRevision,
   context: EvaluationContext,
-): Promise<ReturnType<typeof runIntervalLogEvaluation> & { fileSha256: string }> {
+): Promise<ReturnType<typeof runIntervalLogEvaluation> & { fileSha256: string; unmappedColumns: string[] }> {
   const { intervalMapping } = intervalSetupMappingSchema.parse(capture.mapping ?? {});
   const dir = await mkdtemp(path.join(os.tmpdir(), "ordwise-log-"));
   try {
@@ -35,7 +35,7 @@ export async function evaluateStoredIntervalLog(
     // The bytes read must be the ones confirmed at upload (also on every "evaluate again").
     checkOriginal(capture.sha256, read.sha256);
     const log = await importIntervalLogFile(file, intervalMapping);
-    return { ...runIntervalLogEvaluation(log, revision, context, site.frequencyHz === 60 ? 60 : 50), fileSha256: read.sha256 };
+    return { ...runIntervalLogEvaluation(log, revision, context, site.frequencyHz === 60 ? 60 : 50), fileSha256: read.sha256, unmappedColumns: log.unmappedColumns };
   } finally {
     await rm(dir, { recursive: true, force: true });
   }

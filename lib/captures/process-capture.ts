@@ -43,15 +43,17 @@ export async function processCapture({
     const revision = await getCurrentRevision({ key: capture.limitSetKey });
     // What the result is made of, stored beside it so a sign-off names the set-up behind it;
     // the file hash is the one of the bytes this run read (checked against the confirmed one).
-    const setup = {
+    const setup: { setup: Record<string, unknown>; setupBy: string | null; fileSha256: string | null } = {
       setup: { mapping: capture.mapping ?? {}, limitSetKey: capture.limitSetKey, context: capture.context ?? {} },
       setupBy: capture.setupBy,
       fileSha256: capture.sha256,
     };
     if (capture.kind === "interval-log") {
       await setCaptureStatus({ id: captureId, status: "running", progressPercent: 25 });
-      const { analysis, trends, result, startMs, fileSha256 } = await evaluateStoredIntervalLog(capture, revision, context);
+      const { analysis, trends, result, startMs, fileSha256, unmappedColumns } = await evaluateStoredIntervalLog(capture, revision, context);
       setup.fileSha256 = fileSha256;
+      // The set-up summary names the file's columns the mapping left out.
+      setup.setup = { ...setup.setup, unmappedColumns };
       await beforeStore?.();
       // A log says when it was recorded: its first timestamp, unless the technician gave a time.
       if (!capture.capturedAt) await setCapturedAt({ id: captureId, capturedAt: new Date(startMs) });

@@ -1,11 +1,10 @@
 // Time rules (rules.timeRules): statistics of per-window or per-interval series against table
 // limit × multiplier. capture-mean.ts gives the table limit and the capture-mean comparison;
 // this file adds each rule's judgement and picks the rule that decides the verdict.
-import { causeText, describeOrders, notEvaluatedText, partialSumText, ruleStatisticText } from "../reports/result-wording";
+import { causeText, decidedByRuleText, describeOrders, notEvaluatedText, partialSumText, ruleStatisticText, rulesNotAppliedText } from "../reports/result-wording";
 import { evaluateTimeRule, ruleMeasures, type TimeRuleOutcome } from "./evaluate-time-rule";
 import type { ChannelContext, ChannelTimeSeries, Derived, JudgedWithRules } from "./evaluation-types";
 import { captureMeanAggregate, captureMeanRow, missingHarmonic } from "./capture-mean";
-import { formatNumber as fmt } from "./format-number";
 import type { AggregateRow, Band, Basis, OrderRow, TimeRule } from "./model";
 import { pohcAllowance } from "./pohc-allowance";
 import { CAPTURE_MEAN_RULE, type ComplianceAggregate, type ComplianceRow, type NotEvaluatedCause, type RowRuleResult } from "./result";
@@ -141,7 +140,7 @@ export function applyPohcAllowanceToRules(orders: JudgedWithRules<ComplianceRow>
     if (!judged.ruleResults) continue;
     judged.ruleResults = judged.ruleResults.map((outcome, index, all) => {
       if (!allowing.has(outcome.rule) || outcome.measured === null || outcome.tableLimit === null) return outcome;
-      const othersNotPassing = all.filter((other, i) => i !== index && other.verdict !== "pass").map((other) => other.rule);
+      const othersNotPassing = all.filter((other, i) => i !== index && other.verdict !== "pass").map((other) => `“${other.label}”`);
       const comparison = { order: judged.captureMean.order, measured: outcome.measured, tableLimit: outcome.tableLimit, verdict: outcome.verdict, othersNotPassing };
       const decision = pohcAllowance(comparison, aggregates, allowance);
       if (!decision) return outcome;
@@ -208,17 +207,15 @@ export function decideByRules<T extends ComplianceRow | ComplianceAggregate>(jud
   const failing = considered.filter((result) => result.verdict === "fail");
   const pool = failing.length > 0 ? failing : considered;
   const decider = pool.reduce((best, result) => ((result.percentOfLimit ?? -Infinity) > (best.percentOfLimit ?? -Infinity) ? result : best));
-  const skipped = rowRules.filter((result) => result.verdict === "not-evaluated" && result.rule !== CAPTURE_MEAN_RULE).map((result) => `"${result.label}"`);
-  const skippedText = skipped.length > 0 ? `not evaluated: ${skipped.join(", ")} (see the rules of this order)` : undefined;
+  const skippedText = rulesNotAppliedText(rowRules.filter((result) => result.verdict === "not-evaluated" && result.rule !== CAPTURE_MEAN_RULE));
   if (decider.rule === CAPTURE_MEAN_RULE) {
-    const reason = [captureMean.reason, skippedText].filter(Boolean).join("; ");
+    const standIn = skippedText ? `${skippedText} — judged by the r.m.s. mean over the record instead` : undefined;
+    const reason = [captureMean.reason, standIn].filter(Boolean).join("; ");
     return { ...captureMean, rowRules, decidedBy: CAPTURE_MEAN_RULE, ...(reason ? { reason } : {}) };
   }
   const measured = decider.measured as number;
   const limit = decider.limit as number;
-  const tableLimitText = decider.tableLimit !== null ? fmt(decider.tableLimit) : "?";
-  const decidedText = `decided by "${decider.label}": ${ruleStatisticText(decider)} = ${fmt(measured)} ${decider.unit} vs ${limit === (decider.tableLimit ?? 0) * decider.multiplier ? `${decider.multiplier} × ${tableLimitText}` : "allowance"} = ${fmt(limit)} ${decider.unit}`;
-  const reason = [decidedText, decider.reason, captureMean.verdict !== "not-evaluated" ? captureMean.reason : undefined, skippedText].filter(Boolean).join("; ");
+  const reason = [decidedByRuleText(decider), decider.reason, captureMean.verdict !== "not-evaluated" ? captureMean.reason : undefined, skippedText].filter(Boolean).join("; ");
   return {
     ...captureMean,
     measured,

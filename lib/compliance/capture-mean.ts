@@ -135,7 +135,8 @@ export function captureMeanAggregate(aggregate: AggregateRow, band: Band, ctx: C
   if (!limit.ok) return notEvaluatedRow(shown, { code: "missing-input", input: limit.missing }, roleNote);
   if (!measured.ok) return notEvaluatedRow(shown, { code: "missing-input", input: measured.missing }, roleNote);
   const verdict = judge(measured.value, limit.value, ctx.content.rules.comparison.passAtLimit);
-  const detail = [limit.derivation, aggregate.note].filter(Boolean).join("; ");
+  // The aggregate's own note (with its provenance) stays in the limit-table screens.
+  const detail = limit.derivation ?? "";
   if (unavailable.length > 0) {
     const cause: NotEvaluatedCause = { code: "partial-sum", unavailableOrders: unavailable, record: ctx.record };
     // A partial sum only grows with the missing orders: exceeding the limit already is a fail.

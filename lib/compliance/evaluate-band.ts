@@ -1,4 +1,5 @@
 // One band of a limit set judged on one channel: its order rows, aggregates and conditions.
+import { conditionReasonText } from "../reports/result-wording";
 import { decideByRules, applyPohcAllowanceToRules, judgeAggregate, judgeOrder } from "./apply-time-rules";
 import type { ChannelContext } from "./evaluation-types";
 import { interpolateBand } from "./interpolate-band";
@@ -16,18 +17,13 @@ export interface BandEvaluation {
   verdict: OverallVerdict;
 }
 
+/** A band's conditions: confirmed by the engineer in the context (pass), else not evaluated; the words come from the verdict. */
 function evaluateConditions(band: Band, context: EvaluationContext): ConditionResult[] {
   const asserted = new Set(context.assertedConditions ?? []);
-  return band.conditions.map((condition) =>
-    asserted.has(condition.id)
-      ? { id: condition.id, text: condition.text, verdict: "pass", reason: "asserted by the user (context.assertedConditions)" }
-      : {
-          id: condition.id,
-          text: condition.text,
-          verdict: "not-evaluated",
-          reason: `cannot be checked from harmonic magnitudes; assert it with the id "${condition.id}" if it holds`,
-        },
-  );
+  return band.conditions.map((condition) => {
+    const verdict = asserted.has(condition.id) ? ("pass" as const) : ("not-evaluated" as const);
+    return { id: condition.id, text: condition.text, verdict, reason: conditionReasonText({ verdict }) };
+  });
 }
 
 /** fail if any row or required aggregate fails; incomplete if anything required is not evaluated. */

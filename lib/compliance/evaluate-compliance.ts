@@ -65,15 +65,16 @@ export function evaluateCompliance(input: EvaluateComplianceInput): ComplianceRe
     notes.push(`Currents below ${threshold.percentOfInputCurrent} % of the input current or below ${threshold.minimumA * 1000} mA, whichever is greater, are disregarded.`);
   }
   if (!timeRules || timeRules.length === 0) {
+    const windows = analysis.window.count;
     notes.push(
-      `measured values are the analysis's per-order r.m.s. values over ${analysis.window.count} window(s); this revision has no time rules (1.5 s smoothing, 150 % excursions, percentiles)`,
+      `Measured values are each order's r.m.s. mean over the capture's ${windows} window${windows === 1 ? "" : "s"}; this revision has no time rules (1.5 s smoothing, 150 % excursions, percentiles).`,
     );
   }
 
   const evaluated = channels.map((channel) => evaluateChannel(analysis, channel, content, context, input));
   const timeBasis = evaluated[0]?.timeBasis;
   const results: ChannelCompliance[] = evaluated.map(({ timeBasis: _basis, ...channel }) => channel);
-  if (timeRules && timeRules.length > 0 && timeBasis) notes.push(timeRulesNote(timeRules, timeBasis, evaluated[0]?.timeRules));
+  if (timeRules && timeRules.length > 0 && timeBasis) notes.push(...timeRulesNote(timeRules, timeBasis, evaluated[0]?.timeRules));
   results.sort(
     (a, b) =>
       VERDICT_RANK[b.verdict] - VERDICT_RANK[a.verdict] || worstPercent(b.rows, b.aggregates) - worstPercent(a.rows, a.aggregates),

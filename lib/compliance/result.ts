@@ -192,6 +192,9 @@ export interface ComplianceAggregate extends JudgedValue {
   decidedBy?: string;
 }
 
+/** A quantity of the evaluation context that chooses a limit set's band (Isc/IL from Isc and IL). */
+export type BandCriterion = "iscOverIl" | "busVoltageV" | "rsce" | "ratedPowerW" | "phaseConfig";
+
 export interface ConditionResult {
   id: string;
   text: string;

@@ -81,7 +81,7 @@ export function rowLimit(row: OrderRow, h: number, ctx: ChannelContext): Derived
       value = cap.value;
     } else parts.push(`absolute maximum ${fmt(cap.value)} A not reached`);
   }
-  if (row.note) parts.push(row.note);
+  // A row's own note (with its provenance) stays in the limit-table screens; the set's notes give its reading once.
   return { ok: true, value, derivation: parts.length > 0 ? parts.join("; ") : undefined };
 }
 

@@ -1,24 +1,11 @@
 // Choosing the applicability band of a limit set for an evaluation context, with a reason a
 // reviewer can check ("Isc/IL = 50 exactly → 50 ≤ Isc/IL < 100 because …").
+import { bandNotChosenText, CRITERION_NAMES, noBandText, phaseConfigText } from "../reports/result-wording";
 import type { Band, EvaluationContext, LimitSetRevisionContent, Range } from "./model";
+import type { BandCriterion } from "./result";
 
-type Criterion = "iscOverIl" | "busVoltageV" | "rsce" | "ratedPowerW" | "phaseConfig";
-
-/** Context names the user must supply for each band criterion. */
-const NEEDED: Record<Criterion, string> = {
-  iscOverIl: "iscA and ilA (Isc/IL)",
-  busVoltageV: "busVoltageV",
-  rsce: "rsce",
-  ratedPowerW: "ratedPowerW",
-  phaseConfig: "phaseConfig",
-};
-
-const LABEL: Record<Exclude<Criterion, "phaseConfig">, { name: string; unit: string }> = {
-  iscOverIl: { name: "Isc/IL", unit: "" },
-  busVoltageV: { name: "bus voltage", unit: " V" },
-  rsce: { name: "Rsce", unit: "" },
-  ratedPowerW: { name: "rated power", unit: " W" },
-};
+type Criterion = BandCriterion;
+const CRITERIA = ["busVoltageV", "phaseConfig", "iscOverIl", "rsce", "ratedPowerW"] as const;
 
 export type BandSelection =
   | {
@@ -29,8 +16,8 @@ export type BandSelection =
     }
   | {
       status: "missing-context";
-      /** Context names whose absence prevents the choice. */
-      missing: string[];
+      /** Criteria the context does not answer, which prevents the choice. */
+      missing: Criterion[];
       /** Bands still possible; their orders are listed as not evaluated. */
       candidates: Band[];
       reason: string;
@@ -66,19 +53,19 @@ function criterionValues(context: EvaluationContext): Partial<Record<Criterion, 
   };
 }
 
-type Check = { result: "match"; text: string } | { result: "mismatch" } | { result: "unknown"; needs: string };
+type Check = { result: "match"; text: string } | { result: "mismatch" } | { result: "unknown"; needs: Criterion };
 
 function checkBand(band: Band, context: EvaluationContext, generatorOverride: boolean): Check[] {
   const values = criterionValues(context);
   const checks: Check[] = [];
   const { applicability } = band;
-  for (const criterion of ["busVoltageV", "phaseConfig", "iscOverIl", "rsce", "ratedPowerW"] as const) {
+  for (const criterion of CRITERIA) {
     if (criterion === "phaseConfig") {
       const allowed = applicability.phaseConfig;
       if (!allowed) continue;
       const value = context.phaseConfig;
-      if (value === undefined) checks.push({ result: "unknown", needs: NEEDED.phaseConfig });
-      else if (allowed.includes(value)) checks.push({ result: "match", text: `phase configuration ${value}` });
+      if (value === undefined) checks.push({ result: "unknown", needs: "phaseConfig" });
+      else if (allowed.includes(value)) checks.push({ result: "match", text: `phase configuration ${phaseConfigText(value)}` });
       else checks.push({ result: "mismatch" });
       continue;
     }
@@ -94,14 +81,14 @@ function checkBand(band: Band, context: EvaluationContext, generatorOverride: bo
     }
     const value = values[criterion] as number | undefined;
     if (value === undefined) {
-      checks.push({ result: "unknown", needs: NEEDED[criterion] });
+      checks.push({ result: "unknown", needs: criterion });
       continue;
     }
     if (!inRange(value, range)) {
       checks.push({ result: "mismatch" });
       continue;
     }
-    const { name, unit } = LABEL[criterion];
+    const { name, unit } = CRITERION_NAMES[criterion];
     const shown =
       criterion === "iscOverIl"
         ? `Isc/IL = ${formatBoundValue(value)} (${context.iscA} A / ${context.ilA} A)`
@@ -141,7 +128,7 @@ function formatBoundValue(value: number): string {
 export function selectBand(content: LimitSetRevisionContent, context: EvaluationContext): BandSelection {
   const generatorOverride = context.isGenerator === true && content.bands.some((band) => band.generatorBand);
   const matched: Array<{ band: Band; texts: string[] }> = [];
-  const unknown: Array<{ band: Band; needs: string[] }> = [];
+  const unknown: Array<{ band: Band; needs: Criterion[] }> = [];
   for (const band of content.bands) {
     const checks = checkBand(band, context, generatorOverride);
     if (checks.some((check) => check.result === "mismatch")) continue;
@@ -156,19 +143,15 @@ export function selectBand(content: LimitSetRevisionContent, context: Evaluation
       status: "missing-context",
       missing,
       candidates: [...matched.map((entry) => entry.band), ...unknown.map((entry) => entry.band)],
-      reason: `band not chosen: ${missing.join(", ")} not given (needed to choose among ${unknown.length + matched.length} bands of ${content.key})`,
+      reason: bandNotChosenText(missing, unknown.length + matched.length),
     };
   }
   if (matched.length === 0) {
-    const values = Object.entries(criterionValues(context))
-      .filter(([, value]) => value !== undefined)
-      .map(([name, value]) => `${name} = ${typeof value === "number" ? formatBoundValue(value) : value}`);
-    return {
-      status: "no-band",
-      reason: `no band of ${content.key} applies to ${values.length > 0 ? values.join(", ") : "this context"}; bands: ${content.bands
-        .map((band) => band.label)
-        .join("; ")}`,
-    };
+    // Only the criteria this set's bands are chosen by (Isc/IL means nothing to a Class D table).
+    const used = new Set(content.bands.flatMap((band) => CRITERIA.filter((criterion) => band.applicability[criterion] !== undefined)));
+    const all = criterionValues(context);
+    const values = CRITERIA.filter((criterion) => used.has(criterion) && all[criterion] !== undefined).map((criterion): [Criterion, number | string] => [criterion, all[criterion]!]);
+    return { status: "no-band", reason: noBandText(values, content.bands.map((band) => band.label)) };
   }
   const groups = new Set(matched.map((entry) => entry.band.option?.group ?? `(no option) ${entry.band.label}`));
   if (matched.length > 1 && groups.size > 1) {

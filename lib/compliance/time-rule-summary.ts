@@ -1,6 +1,6 @@
 // Per channel: how each time rule of the revision fared, and the note saying what the rules
 // were evaluated on.
-import { accumulationNote, causeText, formatDurationS } from "../reports/result-wording";
+import { accumulationNote, causeText, timeRulesNotes } from "../reports/result-wording";
 import { ruleMeasures } from "./evaluate-time-rule";
 import type { ChannelContext } from "./evaluation-types";
 import type { TimeRule } from "./model";
@@ -41,19 +41,9 @@ export function summarizeTimeRules(rows: ComplianceRow[], aggregates: Compliance
   });
 }
 
-/** One note saying what the time rules were evaluated on and which were not. */
-export function timeRulesNote(rules: TimeRule[], basis: TimeBasis, summary: TimeRuleSummary[] | undefined): string {
-  const on =
-    basis.source === "none"
-      ? "no per-window series"
-      : `${basis.valueCount} ${basis.source === "windows" ? "10/12-cycle window" : `${formatDurationS(basis.valueS ?? 0)} interval-log`} value(s) over ${formatDurationS(basis.durationS)}${
-          basis.startMs === null ? " (10-minute values counted from the record start: no start time given)" : " (10-minute values aligned to the clock)"
-        }`;
-  const skipped = (summary ?? []).filter((rule) => rule.status === "not-evaluated");
-  const fallback = basis.snapshotFallback
-    ? "; where a time rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
-    : "";
-  return `time rules ${rules.map((rule) => `"${rule.label}"`).join(", ")} evaluated on ${on}${
-    skipped.length > 0 ? `; not evaluated: ${skipped.map((rule) => `${rule.label} (${rule.cause ? causeText(rule.cause) : (rule.reason ?? "no data")})`).join("; ")}` : ""
-  }${fallback}`;
+/** The notes saying what the time rules were evaluated on, which were not applied and why, and what stood in. */
+export function timeRulesNote(rules: TimeRule[], basis: TimeBasis, summary: TimeRuleSummary[] | undefined): string[] {
+  // Whether 10-minute values align to the clock matters only to a rule over 10-minute values.
+  const clockMatters = rules.some((rule) => rule.intervalS === 600);
+  return timeRulesNotes(rules.map((rule) => rule.label), basis, summary, clockMatters);
 }

@@ -14,17 +14,17 @@ export const FAMILY_LABELS: Readonly<Record<FrontEndFamily, string>> = {
 };
 
 /** Parameter names with their units, for people. */
-export const PARAMETER_LABELS: Readonly<Record<string, string>> = {
-  lineInductancePercent: "line inductance, %",
-  capacitorPu: "DC capacitor, ωC·Z",
-  acInductancePercent: "AC reactance, %",
-  dcChokePercent: "DC choke, %",
-  commutationReactancePercent: "commutation reactance, %",
-  firingAngleDeg: "firing angle, °",
-  imbalancePercent: "bridge imbalance, %",
-  conductionWidthDeg: "conduction width, °",
-  lowOrderResidualPercent: "low-order residual, %",
-  switchingOrder: "switching order",
-  sidebandPercent: "sideband, %",
-  displacementDeg: "displacement, °",
+export const PARAMETER_LABELS: Readonly<Record<string, { label: string; unit: string }>> = {
+  lineInductancePercent: { label: "line inductance", unit: "%" },
+  capacitorPu: { label: "DC capacitor ωC·Z", unit: "" },
+  acInductancePercent: { label: "AC reactance", unit: "%" },
+  dcChokePercent: { label: "DC choke", unit: "%" },
+  commutationReactancePercent: { label: "commutation reactance", unit: "%" },
+  firingAngleDeg: { label: "firing angle", unit: "°" },
+  imbalancePercent: { label: "bridge imbalance", unit: "%" },
+  conductionWidthDeg: { label: "conduction width", unit: "°" },
+  lowOrderResidualPercent: { label: "low-order residual", unit: "%" },
+  switchingOrder: { label: "switching order", unit: "" },
+  sidebandPercent: { label: "sideband", unit: "%" },
+  displacementDeg: { label: "displacement", unit: "°" },
 };

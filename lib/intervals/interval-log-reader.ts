@@ -33,8 +33,11 @@ class ChunkedColumn {
   }
 }
 
+/** "2024-03-04 00:10 UTC" (seconds only where they are not zero), as every date on a sheet reads. */
 function formatMs(ms: number): string {
-  return new Date(ms).toISOString().replace("T", " ").replace(/\.000Z$/, "Z");
+  const iso = new Date(ms).toISOString();
+  const seconds = iso.slice(16, 23) === ":00.000" ? "" : iso.slice(16, 19);
+  return `${iso.slice(0, 10)} ${iso.slice(11, 16)}${seconds} UTC`;
 }
 
 function formatS(seconds: number): string {
@@ -67,6 +70,7 @@ export class IntervalLogReader {
   private headerLine = -1;
   private headerBroken = false;
   private headerCount = 0;
+  private unmapped: string[] = [];
   private timestampIndex = -1;
   private timeIndex = -1;
   private valueIndices: number[] = [];
@@ -146,6 +150,8 @@ export class IntervalLogReader {
     const { mapping } = this;
     this.headerLine = lineNo;
     this.headerCount = headers.length;
+    const used = new Set(this.wanted);
+    this.unmapped = headers.filter((header) => header.trim() !== "" && !used.has(header));
     const indexOf = new Map<string, number>();
     headers.forEach((header, i) => {
       if (!indexOf.has(header)) indexOf.set(header, i);
@@ -182,12 +188,12 @@ export class IntervalLogReader {
       throw new IntervalLogError([{ line: 1, message: `no header line holds every mapped column (${this.wanted.map((name) => `"${name}"`).join(", ")})` }]);
     }
     if (issues.length > 0) throw new IntervalLogError(issues.slice(0, MAX_ISSUES));
-    return buildIntervalLog(mapping, this.times, this.rowLines, this.raw.map((column) => column.take()), this.headerLine);
+    return { ...buildIntervalLog(mapping, this.times, this.rowLines, this.raw.map((column) => column.take()), this.headerLine), unmappedColumns: this.unmapped };
   }
 }
 
 /** Interval, gaps, warnings and per-channel series from the accepted rows. */
-function buildIntervalLog(mapping: IntervalMapping, times: number[], rowLines: number[], raw: Float64Array[], headerLine: number): IntervalLog {
+function buildIntervalLog(mapping: IntervalMapping, times: number[], rowLines: number[], raw: Float64Array[], headerLine: number): Omit<IntervalLog, "unmappedColumns"> {
   if (times.length < 2) throw new IntervalLogError([{ line: headerLine, message: `an interval log needs at least two rows; found ${times.length}` }]);
 
   // Interval: given, or the median spacing.

@@ -85,6 +85,8 @@ export interface IntervalLog {
   channels: IntervalLogChannel[];
   gaps: IntervalGap[];
   warnings: string[];
+  /** Header columns the mapping leaves out (neither timestamp nor mapped), in file order. */
+  unmappedColumns: string[];
 }
 
 /** One value series for charts, in the unit of its limit. */

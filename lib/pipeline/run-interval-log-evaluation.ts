@@ -5,6 +5,7 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { evaluateIntervalLog, type IntervalLogEvaluation, type IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import type { IntervalLog } from "@/lib/intervals/types";
+import { formatDurationS, formatUtc } from "@/lib/reports/result-wording";
 import type { LimitSetRevision } from "./types";
 
 /**
@@ -29,7 +30,7 @@ export function runIntervalLogEvaluation(
   );
   const { trends, log: summary, ...result } = evaluation;
   const gapWarnings = summary.gaps.map(
-    (g) => `gap after line ${g.afterLine}: ${g.missingIntervals} interval(s) missing (${new Date(g.fromMs).toISOString()} to ${new Date(g.toMs).toISOString()})`,
+    (g) => `gap after line ${g.afterLine}: ${g.missingIntervals} interval${g.missingIntervals === 1 ? "" : "s"} missing (${formatUtc(g.fromMs)} to ${formatUtc(g.toMs)})`,
   );
   const rows = log.timestampsMs.length;
   const analysis: AnalysisResult = {
@@ -47,6 +48,6 @@ export function runIntervalLogEvaluation(
     analysis,
     trends,
     startMs: summary.startMs,
-    result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${summary.intervalS} s from ${new Date(summary.startMs).toISOString()} to ${new Date(summary.endMs).toISOString()}.`] },
+    result: { ...result, notes: [...result.notes, `Interval log: ${rows} rows of ${formatDurationS(summary.intervalS)} from ${formatUtc(summary.startMs)} to ${formatUtc(summary.endMs)}.`] },
   };
 }

@@ -48,7 +48,7 @@ export function buildSheetCsv(sheet: SheetReport): string {
     ["File", sheet.capture.originalFilename],
     ["Captured", sheet.capture.capturedAt ? formatWhen(sheet.capture.capturedAt) : "not given"],
     ["Uploaded", `${formatWhen(sheet.capture.createdAt)}${sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}`],
-    ["Limit set", `${evaluation.limitSetName} (${evaluation.limitSetKey})`],
+    ["Limit set", evaluation.limitSetName],
     ["Standard", `${r.limitSet.standard}, ${r.limitSet.edition}`],
     ["Revision", evaluation.revisionNumber],
     ["Evaluation", `${evaluation.id} at ${formatWhen(evaluation.createdAt)}${evaluation.createdByName ? ` by ${evaluation.createdByName}` : ""}`],

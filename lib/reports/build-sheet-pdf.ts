@@ -78,7 +78,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
   addSignOff(w, sheet, { includeComments: options.includeComments !== false });
   if (options.studies?.length) addMitigationStudyPages(doc, options.studies, { margin: PAGE_MARGIN, safe: pdfSafe, formatWhen });
 
-  addPageFooters(w, `${sheet.capture.title} · ${evaluation.limitSetKey} revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)}`);
+  addPageFooters(w, `${sheet.capture.title} · ${evaluation.limitSetName}, revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)}`);
   doc.end();
   return done;
 }

@@ -87,7 +87,8 @@ export function describeContext(context: EvaluationContext | Record<string, unkn
   if (c.phaseConfig !== undefined) out.push(["Phase configuration", phaseConfigLabels[c.phaseConfig] ?? c.phaseConfig]);
   if (c.isGenerator) out.push(["Generator", "yes"]);
   if (c.interpolate === false) out.push(["Rsce interpolation", "off"]);
-  if (c.assertedConditions && c.assertedConditions.length > 0) out.push(["Asserted conditions", c.assertedConditions.join(", ")]);
+  // Conditions are named by their text under the band (the ids are internal): here, how many the engineer confirmed.
+  if (c.assertedConditions && c.assertedConditions.length > 0) out.push(["Band conditions confirmed by the engineer", String(c.assertedConditions.length)]);
   return out;
 }
 

@@ -3,6 +3,9 @@ import type PDFDocument from "pdfkit";
 import { FAMILY_LABELS } from "@/lib/frontends/family-labels";
 import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { WhatIfResult } from "@/lib/mitigation/types";
+import { verdictLabel } from "./format";
+import { unitScale } from "./spectrum-bars";
+import { tableLimitOf } from "./time-rules";
 
 /** A saved study as the report prints it (a row of listMitigationStudies, structurally). */
 export interface StudyForReport {
@@ -11,6 +14,8 @@ export interface StudyForReport {
   result: WhatIfResult;
   createdAt: Date;
   authorName: string | null;
+  /** When the evaluation the study started from was made (null: saved before studies recorded it). */
+  evaluationCreatedAt?: Date | null;
 }
 
 const ink = "#1d2a3a";
@@ -52,11 +57,12 @@ export function addMitigationStudyPages(
     text(study.title);
     doc.font("Helvetica").fontSize(9).fillColor(muted);
     text(`Saved by ${study.authorName ?? "unknown"}, ${formatWhen(study.createdAt)} · model ${study.modelVersion}`);
+    if (study.evaluationCreatedAt) text(`Starts from the evaluation of ${formatWhen(study.evaluationCreatedAt)} — the one this report shows.`);
     doc.moveDown(0.4).fillColor(ink);
     text(`Mitigations: ${r.mitigations.map(describeMitigation).join(" + ")}`);
     if (r.compliance) {
       doc.font("Helvetica-Bold");
-      text(`Predicted verdict: ${r.compliance.verdict.toUpperCase()} — ${r.compliance.limitSet.name} (${r.compliance.limitSet.key} revision ${r.compliance.revision.number}), the sheet's context`);
+      text(`Predicted verdict: ${r.compliance.verdict.toUpperCase()} — ${r.compliance.limitSet.name}, revision ${r.compliance.revision.number}, in the context of that evaluation`);
       doc.font("Helvetica");
     }
     for (const ch of r.channels) {
@@ -73,28 +79,38 @@ export function addMitigationStudyPages(
           );
         if (f.kind === "active-filter") text(`Active filter: ${f.ratingUsedA?.toFixed(1)} A used (${f.ratingUsedPercent?.toFixed(0)} % of rating)`);
       }
-      const rows = r.compliance?.channels.find((c) => c.channel === ch.name)?.rows ?? [];
+      const judged = r.compliance?.channels.find((c) => c.channel === ch.name);
+      const rows = judged?.rows ?? [];
+      // One unit per column: the table limit in amperes (with the base the evaluator used) and, where the
+      // table states it in another unit (%IL, %Iref, %I1), that unit in a column of its own.
+      const rowUnit = rows.find((x) => x.limit !== null)?.unit ?? "A";
+      const context = r.compliance?.context;
+      const perRowUnitA = unitScale(rowUnit, { fundamentalRms: ch.fundamentalA, ilA: context?.ilA, irefA: judged?.derived.irefA ?? context?.irefA, nominalVoltageV: context?.nominalVoltageV });
+      const num = (v: number | null | undefined) => (v == null ? "—" : v.toPrecision(3));
       const byOrder = new Map(rows.map((x) => [x.order, x]));
       const shown = ch.harmonics.filter((h) => h.order >= 2 && (byOrder.get(h.order)?.verdict === "fail" || (h.measuredRms ?? 0) >= 0.02 * ch.fundamentalA)).slice(0, 16);
       if (shown.length > 0) {
         ensure(14 * (shown.length + 1));
-        const widths = [50, 90, 90, 90, 120];
+        const widths = rowUnit === "A" ? [50, 90, 90, 90, 120] : [45, 80, 80, 80, 80, 110];
+        const last = widths.length - 1;
         const row = (cells: string[], bold = false) => {
           const y = doc.y;
           let x = margin;
           doc.font(bold ? "Helvetica-Bold" : "Helvetica").fontSize(8.5).fillColor(ink);
           cells.forEach((c, k) => {
-            doc.text(safe(c), x + 3, y, { width: widths[k]! - 6, lineBreak: false, align: k === 0 || k === 4 ? "left" : "right" });
+            doc.text(safe(c), x + 3, y, { width: widths[k]! - 6, lineBreak: false, align: k === 0 || k === last ? "left" : "right" });
             x += widths[k]!;
           });
           doc.y = y + 12;
           doc.moveTo(margin, doc.y - 1).lineTo(margin + widths.reduce((a, b) => a + b, 0), doc.y - 1).lineWidth(0.3).strokeColor(line).stroke();
         };
         doc.moveDown(0.3);
-        row(["Order", "Measured, A", "Predicted, A", `Limit${rows[0] ? ` (${rows[0].unit})` : ""}`, "Predicted verdict"], true);
+        row(["Order", "Measured (A)", "Predicted (A)", "Table limit (A)", ...(rowUnit === "A" ? [] : [`Table limit (${rowUnit})`]), "Predicted verdict"], true);
         for (const h of shown) {
           const p = byOrder.get(h.order);
-          row([String(h.order), h.measuredRms === null ? "—" : h.measuredRms.toPrecision(3), h.rms === null ? "—" : h.rms.toPrecision(3), p?.limit == null ? "—" : p.limit.toPrecision(3), p?.verdict ?? "—"]);
+          const table = p ? tableLimitOf(p) : null;
+          const limitA = table === null || perRowUnitA === null ? null : table * perRowUnitA;
+          row([String(h.order), num(h.measuredRms), num(h.rms), num(limitA), ...(rowUnit === "A" ? [] : [num(table)]), p ? verdictLabel(p.verdict) : "—"]);
         }
       }
     }

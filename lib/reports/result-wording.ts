@@ -4,7 +4,20 @@
 // CSV all call these; nothing parses the words back. Relative imports: the evaluator and the
 // CLI import this file too.
 import { formatNumber } from "../compliance/format-number";
-import { CAPTURE_MEAN_RULE, type ContextInput, type NotEvaluatedCause, type PowerChoice, type RowRuleResult, type RuleAccumulation, type RuleStatistic, type ThresholdApplied, type TimeRuleSummary } from "../compliance/result";
+import {
+  CAPTURE_MEAN_RULE,
+  type BandCriterion,
+  type ConditionResult,
+  type ContextInput,
+  type NotEvaluatedCause,
+  type PowerChoice,
+  type RowRuleResult,
+  type RuleAccumulation,
+  type RuleStatistic,
+  type ThresholdApplied,
+  type TimeBasis,
+  type TimeRuleSummary,
+} from "../compliance/result";
 
 type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
 
@@ -230,4 +243,150 @@ export function powerChoiceRows(power: PowerChoice): Array<[string, string]> {
     ["Measured active power", watts(power.measuredW)],
     ["Power used for the limits", `${watts(power.usedW)} — ${powerChoiceText(power)} (IEC 61000-3-2: the declared power only within ${`±${formatNumber(power.tolerancePercent)} %`} of the measured)`],
   ];
+}
+
+/** "2024-03-04 00:00 UTC" — how every date and time reads on a sheet, PDF and CSV. */
+export function formatUtc(ms: number): string {
+  return `${new Date(ms).toISOString().slice(0, 16).replace("T", " ")} UTC`;
+}
+
+/** "a, b and c". */
+function joinAnd(items: string[]): string {
+  return items.length <= 1 ? (items[0] ?? "") : `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`;
+}
+
+/** What the user must give to choose a band by each criterion, in a reader's words. */
+const CRITERION_NEEDS: Record<BandCriterion, string> = {
+  iscOverIl: "Isc and IL (for Isc/IL)",
+  busVoltageV: "the bus voltage",
+  rsce: "Rsce",
+  ratedPowerW: "the rated power P",
+  phaseConfig: "the phase configuration",
+};
+
+/** A criterion's name and unit where its value is quoted ("bus voltage = 11000 V"). */
+export const CRITERION_NAMES: Record<BandCriterion, { name: string; unit: string }> = {
+  iscOverIl: { name: "Isc/IL", unit: "" },
+  busVoltageV: { name: "bus voltage", unit: " V" },
+  rsce: { name: "Rsce", unit: "" },
+  ratedPowerW: { name: "rated power", unit: " W" },
+  phaseConfig: { name: "phase configuration", unit: "" },
+};
+
+const PHASE_CONFIG_WORDS: Record<string, string> = {
+  "single-phase": "single-phase",
+  "balanced-three-phase": "balanced three-phase",
+  other: "other than single-phase or balanced three-phase",
+};
+
+/** A phase configuration of the context in words ("balanced three-phase"). */
+export function phaseConfigText(value: string): string {
+  return PHASE_CONFIG_WORDS[value] ?? value;
+}
+
+/** A context value as a reader writes it: whole numbers from 10,000 up, else 6 significant digits (3469020 W, 31.5385). */
+function contextNumber(value: number): string {
+  return Math.abs(value) >= 1e4 ? String(Math.round(value)) : String(Number(value.toPrecision(6)));
+}
+
+/** "bus voltage = 11000 V", "phase configuration balanced three-phase". */
+export function criterionValueText(criterion: BandCriterion, value: number | string): string {
+  const { name, unit } = CRITERION_NAMES[criterion];
+  if (typeof value === "string") return `${name} ${criterion === "phaseConfig" ? phaseConfigText(value) : value}`;
+  return `${name} = ${contextNumber(value)}${unit}`;
+}
+
+/**
+ * Why no band was chosen because inputs are missing.
+ *
+ * @example bandNotChosenText(["busVoltageV", "iscOverIl"], 13) // "band not chosen: the bus voltage and Isc and IL (for Isc/IL) not given (needed to choose among the 13 bands of this limit set)"
+ */
+export function bandNotChosenText(missing: BandCriterion[], bandCount: number): string {
+  return `band not chosen: ${joinAnd(missing.map((criterion) => CRITERION_NEEDS[criterion]))} not given (needed to choose among the ${bandCount} bands of this limit set)`;
+}
+
+/** Why no band applies: the context's values of the criteria the set's bands use, and the bands there are. */
+export function noBandText(values: Array<[BandCriterion, number | string]>, bandLabels: string[]): string {
+  const given = values.length > 0 ? values.map(([criterion, value]) => criterionValueText(criterion, value)).join(", ") : "this context";
+  return `no band of this limit set applies to ${given}; its bands: ${bandLabels.join("; ")}`;
+}
+
+/** A band condition's standing (conditions cannot be checked from harmonic magnitudes; an engineer confirms them). */
+export function conditionReasonText(condition: Pick<ConditionResult, "verdict">): string {
+  return condition.verdict === "pass"
+    ? "confirmed by the engineer in the evaluation context (it cannot be checked from harmonic magnitudes)"
+    : "cannot be checked from harmonic magnitudes; an engineer confirms it under “Change the context” when it holds";
+}
+
+/** Causes that concern the whole record (or the band), the same for every row: the notes explain them once. */
+const RECORD_CAUSES = new Set<NotEvaluatedCause["code"]>(["record-too-short", "no-complete-interval", "needs-other-values", "no-order-series", "no-logged-rows", "no-band"]);
+
+/** Rules with the same cause grouped: "“A”, “B” (why); “C” (why)". */
+function groupedByCause(results: Array<Pick<RowRuleResult, "label" | "cause">>): string {
+  const groups = new Map<string, string[]>();
+  for (const result of results) {
+    const why = result.cause ? causeText(result.cause) : "could not be evaluated";
+    groups.set(why, [...(groups.get(why) ?? []), `“${result.label}”`]);
+  }
+  return [...groups].map(([why, labels]) => `${labels.join(", ")} (${why})`).join("; ");
+}
+
+/**
+ * The time rules a row or aggregate could not apply: its own reasons rule by rule (grouped by cause);
+ * rules the whole record cannot support (too short, no band…) are pointed to the notes, which say why once.
+ *
+ * @example rulesNotAppliedText(results) // "time rules not applied to this record (see Notes)"
+ */
+export function rulesNotAppliedText(results: Array<Pick<RowRuleResult, "label" | "cause">>): string | undefined {
+  if (results.length === 0) return undefined;
+  const own = results.filter((result) => !result.cause || !RECORD_CAUSES.has(result.cause.code));
+  if (own.length === 0) return "time rules not applied to this record (see Notes)";
+  const others = own.length < results.length ? "; the other time rules not applied to this record (see Notes)" : "";
+  return `time rules not applied: ${groupedByCause(own)}${others}`;
+}
+
+/**
+ * The rule that decided a row: its statistic and value against its limit (table × multiplier, or an
+ * allowance's), e.g. "decided by “Every 1.5 s smoothed value ≤ 150 % of the limit”: maximum of 1.5 s
+ * smoothed values over the observation period = 3.54 A against 1.5 × the table limit 2.3 A = 3.45 A".
+ */
+export function decidedByRuleText(decider: Pick<RowRuleResult, "label" | "measures" | "statistic" | "measured" | "limit" | "tableLimit" | "multiplier" | "unit">): string {
+  const measured = `${formatNumber(decider.measured ?? Number.NaN)} ${decider.unit}`;
+  const limit = `${formatNumber(decider.limit ?? Number.NaN)} ${decider.unit}`;
+  const scaled = decider.tableLimit !== null && decider.limit !== null && Math.abs(decider.limit - decider.tableLimit * decider.multiplier) <= 1e-9 * Math.max(1e-12, Math.abs(decider.limit));
+  const against = scaled
+    ? decider.multiplier === 1
+      ? `the table limit ${limit}`
+      : `${formatNumber(decider.multiplier)} × the table limit ${formatNumber(decider.tableLimit as number)} ${decider.unit} = ${limit}`
+    : `the limit raised by an allowance, ${limit}`;
+  return `decided by “${decider.label}”: ${ruleStatisticText(decider)} = ${measured} against ${against}`;
+}
+
+/**
+ * The notes on a channel's time rules: what they were evaluated on, the rules not applied with why
+ * (rules with the same cause in one sentence), and what stood in. One sentence each.
+ *
+ * @example timeRulesNotes(["Daily 99th …"], basis, summary, true)
+ * // ["Time rules (“Daily 99th …”): the record gives 2 values of 10/12 cycles (0.4 s of record); …", "“Daily 99th …” was not applied: needs at least 3 s of record; the record has 0.4 s.", …]
+ */
+export function timeRulesNotes(labels: string[], basis: TimeBasis, summary: TimeRuleSummary[] | undefined, clockMatters: boolean): string[] {
+  const count = basis.valueCount;
+  const values =
+    basis.source === "none"
+      ? "no per-window values"
+      : `${count} ${basis.source === "windows" ? `value${count === 1 ? "" : "s"} of 10/12 cycles` : `${formatDurationS(basis.valueS ?? 0)} interval-log value${count === 1 ? "" : "s"}`} (${formatDurationS(basis.durationS)} of record)`;
+  const clock = !clockMatters ? "" : basis.startMs === null ? "; 10-minute values are counted from the record start, as no start time was given" : "; 10-minute values are aligned to the clock";
+  const notes = [`Time rules (${labels.map((label) => `“${label}”`).join(", ")}): the record gives ${values}${clock}.`];
+  const skipped = (summary ?? []).filter((rule) => rule.status === "not-evaluated");
+  const groups = new Map<string, string[]>();
+  for (const rule of skipped) {
+    const why = rule.cause ? causeText(rule.cause) : (rule.reason ?? "no values to apply it to");
+    groups.set(why, [...(groups.get(why) ?? []), `“${rule.label}”`]);
+  }
+  for (const [why, rules] of groups) notes.push(`${joinAnd(rules)} ${rules.length === 1 ? "was" : "were"} not applied: ${why}.`);
+  // The capture mean stands in only where a band was chosen (without one nothing was judged).
+  if (basis.snapshotFallback && skipped.some((rule) => rule.cause?.code !== "no-band")) {
+    notes.push("Where a time rule could not be applied, each order's r.m.s. mean over the record was compared with 1.0 × its table limit instead.");
+  }
+  return notes;
 }

@@ -26,8 +26,12 @@ export interface SpectrumBar {
   byTimeRule: boolean;
 }
 
-/** Channel-unit amount per one of the row's unit, or null when the scale is not known. */
-function unitScale(unit: string, scale: SpectrumScale): number | null {
+/**
+ * Channel-unit amount (A or V) per one of a row's unit (%IL, %Iref, %Vnom, %I1, %V1, A, V), or null
+ * when the base is not known — e.g. 2.6 A per %IL with IL = 260 A. Also used where a table shows a
+ * limit in amperes beside the row's own unit (the "try a fix" table).
+ */
+export function unitScale(unit: string, scale: SpectrumScale): number | null {
   const percentOf = (base: number | undefined) => (base !== undefined && Number.isFinite(base) && base > 0 ? base / 100 : null);
   switch (unit) {
     case "A":

@@ -131,10 +131,14 @@ function overByText(over: number): string {
   return `over the limit by ${Number(over.toPrecision(2))} %`;
 }
 
-/** Decimals enough for a failing row's percentage to read above the percentage it was allowed. */
+/**
+ * Decimals enough for a percentage to read on the side of the allowed percentage its verdict says: a
+ * failing row above it, a passing row just under it below it (99.96 %, not "100.0 %").
+ */
 function decimalsToShowExcess(pct: number, allowedPct: number, fails: boolean): number {
   let digits = 1;
-  while (fails && digits < 8 && Number(pct.toFixed(digits)) <= Number(allowedPct.toFixed(digits))) digits += 1;
+  const hidden = (d: number) => (fails ? Number(pct.toFixed(d)) <= Number(allowedPct.toFixed(d)) : pct < allowedPct && Number(pct.toFixed(d)) >= Number(allowedPct.toFixed(d)));
+  while (digits < 8 && hidden(digits)) digits += 1;
   return digits;
 }
 
@@ -161,7 +165,8 @@ export function formatPercentOfLimit(
   const fails = row.verdict === "fail";
   if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
   const scaled = Math.abs(allowedPct - 100) > 1e-9;
-  const shown = `${pct.toFixed(1)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : noun}`;
+  const digits = fails ? 1 : decimalsToShowExcess(pct, allowedPct, false);
+  const shown = `${pct.toFixed(digits)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : noun}`;
   if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
   const over = (row.measured / row.limit - 1) * 100;
   return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;

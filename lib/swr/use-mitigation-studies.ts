@@ -16,16 +16,20 @@ export interface SavedStudyDto {
   includeInReport: boolean;
   createdAt: string;
   authorName: string | null;
+  /** The evaluation the study started from (null: saved before studies recorded it). */
+  evaluationId: string | null;
+  evaluationCreatedAt: string | null;
 }
 
 export const captureStudiesKey = (captureBase: string) => `${captureBase}/studies`;
 
-/** The capture's front-end diagnosis (null key: not fetched). */
-export function useCaptureDiagnosis(captureBase: string | null) {
-  return useSWR<{ diagnosis: Diagnosis }>(captureBase ? `${captureBase}/diagnosis` : null, fetcher, { revalidateOnFocus: false });
+/** The front-end diagnosis of the analysis behind an evaluation of the capture (null key: not fetched). */
+export function useCaptureDiagnosis(captureBase: string | null, evaluationId: string | null) {
+  const key = captureBase ? `${captureBase}/diagnosis${evaluationId ? `?evaluation=${evaluationId}` : ""}` : null;
+  return useSWR<{ diagnosis: Diagnosis }>(key, fetcher, { revalidateOnFocus: false });
 }
 
-/** The capture's saved mitigation studies and whether this user may save one. */
+/** The capture's saved mitigation studies (a viewer's: those of the approved evaluation) and what this user may do. */
 export function useMitigationStudies(captureBase: string | null) {
-  return useSWR<{ studies: SavedStudyDto[]; canSave: boolean }>(captureBase ? captureStudiesKey(captureBase) : null, fetcher);
+  return useSWR<{ studies: SavedStudyDto[]; approvedEvaluationId: string | null; canSave: boolean; canTryFix: boolean }>(captureBase ? captureStudiesKey(captureBase) : null, fetcher);
 }

@@ -63,6 +63,42 @@ describe("headline numbers on the sheet", () => {
   });
 });
 
+describe("the per-order results on a phone", () => {
+  it("at 390 px: a card per order with order, measured / limit, % of limit and verdict in view, details on tap; the review panel reached from the top", async () => {
+    const engineer = await signedIn("engineer");
+    const beforeId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
+    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
+    await signInAs(page, "engineer");
+    await page.goto(url(`/captures/${beforeId}`));
+    const cards = page.locator("[data-testid=order-cards]");
+    await cards.waitFor({ state: "visible", timeout: 15_000 });
+    expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
+    // Failing orders first: h5 of the before-filter record, 14.62 %IL against the 7 %IL limit of IEEE Std 519-2014
+    // Table 2 (20 ≤ Isc/IL < 50, 3 ≤ h < 11).
+    const first = cards.locator("li").first();
+    expect(await first.getAttribute("data-verdict")).toBe("fail");
+    const summary = (await first.locator("summary").innerText()).replace(/\s+/g, " ");
+    expect(summary).toMatch(/^h5 [\d.]+ \/ 7 %IL [\d.]+ % of the limit Fail$/);
+    // Everything that carries the verdict is on screen.
+    const right = await cards.locator("summary").evaluateAll((els) => Math.max(...els.map((el) => el.getBoundingClientRect().right)));
+    expect(right).toBeLessThanOrEqual(390);
+    await first.locator("summary").click();
+    expect(await first.locator("dl").innerText()).toContain("Margin");
+    expect(await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth)).toBeLessThanOrEqual(0);
+    await snapAt(page, "order-cards-390", "[data-testid=order-cards]");
+    // The review panel sits below the sheet on a phone; a link near the top leads to it.
+    await page.evaluate(() => window.scrollTo(0, 0));
+    const jump = page.locator("[data-testid=review-jump] a");
+    expect(await jump.evaluate((el) => el.getBoundingClientRect().top + window.scrollY)).toBeLessThan(1500);
+    await jump.click();
+    await page.waitForFunction(() => {
+      const r = document.querySelector("[data-testid=review-panel]")?.getBoundingClientRect();
+      return r !== undefined && r.top >= 0 && r.top < window.innerHeight;
+    });
+    await page.close();
+  });
+});
+
 describe("chart values without a mouse", () => {
   it("the spectrum lists its failing orders in text, and the keyboard reaches and opens each chart's table", async () => {
     const engineer = await signedIn("engineer");

@@ -133,4 +133,38 @@ describe("limit tables in the browser", () => {
     await page.waitForSelector("[data-testid=forbidden]", { timeout: 10_000 });
     await page.close();
   });
+
+  it("the limit-table screens show the set's interpretation notes: read-only for a viewer, edited by an admin as a new revision", async () => {
+    const viewer = await browser.newPage({ viewport: { width: 375, height: 740 } });
+    await signInAs(viewer, "viewer");
+    await viewer.goto(url("/limits/ieee-519-2014-current"));
+    // One of the seeded IEEE 519 notes (the Isc/IL boundary choice), in plain words.
+    expect(await viewer.textContent("[data-testid=limit-set-notes]")).toContain("Isc/IL exactly on a row boundary");
+    expect(await viewer.locator("[data-testid=notes-editor]").count()).toBe(0);
+    expect(await viewer.locator("[data-testid=edit-link]").count()).toBe(0);
+    expect(await overflowPx(viewer)).toBeLessThanOrEqual(0);
+    await snap(viewer, "limits-notes-viewer-phone");
+    await viewer.close();
+
+    const page = await browser.newPage();
+    await signInAs(page, "admin");
+    await page.goto(url(`/limits/${key}/edit`));
+    const notes = page.locator("[data-testid=notes-editor]");
+    await notes.waitFor();
+    const before = await notes.inputValue();
+    const added = "Order 5 follows the utility's connection agreement (1.05 A), not the printed table.";
+    await notes.fill(`${before}\n\n${added}\n`);
+    await page.fill("[data-testid=revision-reason-input]", "Note the utility's order 5 figure");
+    await page.click("[data-testid=save-revision]");
+    await page.waitForURL(new RegExp(`/limits/${key}/revisions$`));
+    const rev3 = page.locator("[data-testid=revision-3]");
+    await rev3.waitFor();
+    expect(await rev3.locator("[data-testid=change]").allTextContents()).toEqual([expect.stringContaining("notes")]);
+    await page.goto(url(`/limits/${key}`));
+    const shown = await page.locator("[data-testid=limit-set-notes] li").allTextContents();
+    // The earlier notes stay as they were, the blank line is dropped, the new note is the last.
+    expect(shown.at(-1)).toBe(added);
+    expect(shown.length).toBe(before.split("\n").filter((l) => l.trim() !== "").length + 1);
+    await page.close();
+  });
 });

@@ -39,6 +39,20 @@ describe("mitigation study on the sheet", () => {
     expect(await page.textContent("[data-testid=prediction-label]")).toContain("PREDICTION — 5 % AC line reactor");
     expect(await page.getAttribute("[data-testid=prediction-verdict]", "data-verdict")).toBe("fail");
     expect(await page.locator("[data-testid=prediction-row-5]").count()).toBe(1);
+    // One unit per column, units in the headers. IEEE Std 519-2014 Table 2, 20 ≤ Isc/IL < 50 (8200 A / 260 A):
+    // h5 is limited to 7.0 % of IL, i.e. 18.2 A with IL = 260 A.
+    expect(await page.locator("[data-testid=prediction-table] thead th").allTextContents()).toEqual([
+      "Order",
+      "Measured (A)",
+      "Predicted (A)",
+      "Table limit (A)",
+      "Table limit (%IL)",
+      "Verdict measured → predicted",
+    ]);
+    const h5 = await page.locator("[data-testid=prediction-row-5] td").allTextContents();
+    expect(h5.slice(3, 5)).toEqual(["18.2", "7"]);
+    // The prediction says what it starts from: the evaluation the sheet shows (this one is not approved yet).
+    expect(await page.textContent("[data-testid=fix-starting-point]")).toContain("Starts from the evaluation this sheet shows — not approved");
     expect(await page.textContent("[data-testid=prediction-caution]")).toContain("model prediction");
 
     // Instead a 4.7th-tuned 3 Mvar filter at the 11 kV PCC: predicted to pass.
@@ -75,6 +89,23 @@ describe("mitigation study on the sheet", () => {
     await page.click("[data-testid=fix-predict]");
     await page.locator("[data-testid=prediction-label]").waitFor({ timeout: 30_000 });
     expect(await page.locator("[data-testid=save-study]").count()).toBe(0);
+    await page.close();
+  }, 120_000);
+
+  it("a viewer reads the saved studies of the approved sheet, each with its starting evaluation, and is offered no what-if", async () => {
+    const engineer = await signedIn("engineer");
+    const approvedId = await demoCaptureId(engineer, "Compressor drives at full load — after filter");
+    const title = `Approved-sheet study ${Date.now()}`;
+    const saved = await engineer.request("POST", `/api/captures/${approvedId}/studies`, { title, includeInReport: false, inputs: { mitigations: [{ kind: "reactor", percent: 3 }] } });
+    expect(saved.status).toBe(201);
+    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
+    await signInAs(page, "viewer");
+    await page.goto(url(`/captures/${approvedId}`));
+    const study = page.locator("[data-testid=saved-study]", { hasText: title });
+    await study.waitFor({ timeout: 30_000 });
+    expect(await study.locator("[data-testid=study-started-from]").textContent()).toMatch(/^Starts from this sheet's approved evaluation \(\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\)$/);
+    expect(await page.locator("[data-testid=try-fix]").count()).toBe(0);
+    await snap(page, "mitigation-viewer");
     await page.close();
   }, 120_000);
 });

@@ -69,6 +69,12 @@ describe("customers", () => {
     expect(res.status).toBe(200);
     const html = await res.text();
     expect(html).toContain("Quillbrook Cold Store Ltd");
-    expect(html).toContain("Ruth Castellane");
+    expect(html).toContain("Ruth Castellane (Quillbrook Cold Store Ltd)");
+  });
+
+  it("the demo viewer's display name names the customer she belongs to, not the utility", async () => {
+    const { users } = (await (await admin.request("GET", "/api/users")).json()) as { users: { email: string; name: string }[] };
+    const viewer = users.find((u) => u.email === "viewer@ordwise.test");
+    expect(viewer?.name).toBe("Ruth Castellane (Quillbrook Cold Store Ltd)");
   });
 });

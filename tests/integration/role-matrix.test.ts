@@ -70,7 +70,8 @@ const routes: RouteCase[] = [
   { method: "GET", path: "/api/captures/:capture/diagnosis", allowed: ALL, status: 200 },
   { method: "GET", path: "/api/captures/:capture/studies", allowed: ALL, status: 200 },
   { method: "POST", path: "/api/captures/:capture/studies", allowed: REVIEW, body: {}, status: 422 },
-  { method: "POST", path: "/api/captures/:capture/studies/preview", allowed: ALL, body: {}, status: 422 },
+  // Viewers read saved studies but run no new what-ifs.
+  { method: "POST", path: "/api/captures/:capture/studies/preview", allowed: UPLOAD, body: {}, status: 422 },
   // Limit sets: :missing is a well-formed key of no set and :revision a well-formed revision number, so an allowed
   // reader gets 404; a write gets 422 (its body or its revision segment is invalid) and nothing changes.
   { method: "GET", path: "/api/limit-sets", allowed: ALL, status: 200 },

@@ -1,7 +1,8 @@
 // Front-end diagnosis and mitigation studies through the API, on the demo compressor-drive capture.
 import { beforeAll, describe, expect, it } from "vitest";
-import { demoCaptureId, json } from "../support/captures";
+import { analysedCapture, currentCsv, demoCaptureId, json } from "../support/captures";
 import { Client, signedIn } from "../support/http";
+import { pdfText } from "../unit/reports/pdf-text";
 
 let engineer: Client;
 let tech: Client;
@@ -77,5 +78,67 @@ describe("diagnosis and mitigation studies", () => {
     expect(reactor.predictedVerdict).toBe("fail");
     expect(filter.predictedVerdict).toBe("pass");
     expect(filter.includeInReport).toBe(true);
+  });
+});
+
+// A study starts from one evaluation and says which. Outside the team (viewers, share links) only the studies of the
+// approved evaluation exist; viewers run no new what-ifs. On the old code a viewer listed (and got in the PDF) a
+// study of a newer, unapproved evaluation, could run previews, and every study started from the newest evaluation.
+describe("studies follow the evaluation they start from", () => {
+  it("a viewer sees only studies of the approved evaluation and runs none; the team names the evaluation", async () => {
+    const viewer = await signedIn("viewer");
+    const admin = await signedIn("admin");
+    const { sites } = await json<{ sites: { id: string; name: string }[] }>(await tech.request("GET", "/api/sites"));
+    // A site of the demo viewer's customer. The record (tests/support currentCsv): I1 = 10 A, h3 = 3 A.
+    const siteId = sites.find((s) => s.name.startsWith("Quillbrook Cold Store"))!.id;
+    const id = await analysedCapture(tech, siteId, `Study starting points ${Date.now()}`, currentCsv(3));
+    expect((await tech.request("POST", `/api/captures/${id}/review`, { action: "submitted" })).status).toBe(200);
+    const [approved] = (await json<{ evaluations: { id: string }[] }>(await engineer.request("GET", `/api/captures/${id}/evaluations`))).evaluations;
+    expect((await engineer.request("POST", `/api/captures/${id}/review`, { action: "approved", evaluationId: approved!.id })).status).toBe(200);
+    const inputs = { mitigations: [{ kind: "active-filter", ratingA: 5 }] };
+    // Saved without naming an evaluation: it starts from the sheet's default, the approved one.
+    const fromApproved = await json<{ studyId: string; evaluationId: string }>(await engineer.request("POST", `/api/captures/${id}/studies`, { title: "From the approved result", includeInReport: true, inputs }));
+    expect(fromApproved.evaluationId).toBe(approved!.id);
+
+    // A newer evaluation (Class B, not approved) and a study started from it.
+    const newer = await json<{ evaluationId: string }>(await admin.request("POST", `/api/captures/${id}/evaluations`, { limitSetKey: "iec-61000-3-2-class-b", context: {} }));
+    const fromNewer = await json<{ studyId: string; evaluationId: string }>(
+      await engineer.request("POST", `/api/captures/${id}/studies`, { title: "From the unapproved result", includeInReport: true, inputs, evaluationId: newer.evaluationId }),
+    );
+    expect(fromNewer.evaluationId).toBe(newer.evaluationId);
+
+    // The team chooses the starting point: each preview is judged against its evaluation's limit set.
+    const previewOf = async (evaluationId: string) =>
+      (await json<{ evaluationId: string; result: { compliance: { limitSet: { key: string } } } }>(await engineer.request("POST", `/api/captures/${id}/studies/preview`, { ...inputs, evaluationId })));
+    expect((await previewOf(approved!.id)).result.compliance.limitSet.key).toBe("iec-61000-3-2-class-a");
+    expect((await previewOf(newer.evaluationId)).result.compliance.limitSet.key).toBe("iec-61000-3-2-class-b");
+    const team = await json<{ studies: { id: string; evaluationId: string }[] }>(await engineer.request("GET", `/api/captures/${id}/studies`));
+    expect(Object.fromEntries(team.studies.map((s) => [s.id, s.evaluationId]))).toEqual({ [fromApproved.studyId]: approved!.id, [fromNewer.studyId]: newer.evaluationId });
+
+    // The viewer: the approved evaluation's study only, in the list and in the PDF; no what-ifs (403).
+    const seen = await json<{ studies: { id: string }[]; canTryFix: boolean; canSave: boolean }>(await viewer.request("GET", `/api/captures/${id}/studies`));
+    expect(seen.studies.map((s) => s.id)).toEqual([fromApproved.studyId]);
+    expect(seen).toMatchObject({ canTryFix: false, canSave: false });
+    expect((await viewer.request("POST", `/api/captures/${id}/studies/preview`, inputs)).status).toBe(403);
+    expect((await viewer.request("POST", `/api/captures/${id}/studies/preview`, { ...inputs, evaluationId: newer.evaluationId })).status).toBe(403);
+    // The diagnosis a viewer reads is of the approved result; naming the newer evaluation is "not found".
+    expect((await viewer.request("GET", `/api/captures/${id}/diagnosis`)).status).toBe(200);
+    expect((await viewer.request("GET", `/api/captures/${id}/diagnosis?evaluation=${newer.evaluationId}`)).status).toBe(404);
+    const pdfOf = async (res: Response) => {
+      expect(res.status).toBe(200);
+      return pdfText(Buffer.from(await res.arrayBuffer()));
+    };
+    const viewerPdf = await pdfOf(await viewer.request("GET", `/api/captures/${id}/report`));
+    expect(viewerPdf).toContain("From the approved result");
+    expect(viewerPdf).not.toContain("From the unapproved result");
+    // A share link shows the approved evaluation and only its studies.
+    const { url } = await json<{ url: string }>(await engineer.request("POST", `/api/captures/${id}/shares`, { label: "utility", expiresInDays: 7 }));
+    const sharedPdf = await pdfOf(await fetch(new URL(`/api/shared/${url.split("/share/")[1]}/report`, process.env.APP_URL)));
+    expect(sharedPdf).toContain("From the approved result");
+    expect(sharedPdf).not.toContain("From the unapproved result");
+    // The team's PDF of the newer evaluation carries the study started from it, not the approved one's.
+    const newerPdf = await pdfOf(await engineer.request("GET", `/api/captures/${id}/report?evaluation=${newer.evaluationId}`));
+    expect(newerPdf).toContain("From the unapproved result");
+    expect(newerPdf).not.toContain("From the approved result");
   });
 });

@@ -81,8 +81,9 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
           No captures match. {can(user.role, "captures:upload") ? "Register one with “New capture”." : ""}
         </p>
       ) : (
-        <div className="panel overflow-x-auto p-0 sm:p-0">
-          <table className="table-base" data-testid="capture-table">
+        <div className="panel p-0 sm:overflow-x-auto sm:p-0">
+          {/* On a phone each capture is a card (the table stacks), so the verdict and review never sit off-screen. */}
+          <table className="table-base table-stack" data-testid="capture-table">
             <thead>
               <tr><th>Capture</th><th>Site</th><th>Status</th><th>Verdict</th><th>Review</th><th>Registered</th></tr>
             </thead>
@@ -90,9 +91,9 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
               {items.map((c) => (
                 <tr key={c.id}>
                   <td><Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link></td>
-                  <td className="text-ink-soft">{c.siteName}</td>
-                  <td>{statusLabels[c.status]}</td>
-                  <td>
+                  <td className="text-ink-soft" data-label="Site">{c.siteName}</td>
+                  <td data-label="Status">{statusLabels[c.status]}</td>
+                  <td data-label="Verdict">
                     {/* The team sees the latest verdict; a viewer only ever the approved one. */}
                     {(() => {
                       const shown = user.role === "viewer" ? c.verdict : (c.latestVerdict ?? c.verdict);
@@ -104,13 +105,13 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                       </span>
                     )}
                   </td>
-                  <td data-testid="capture-review">
+                  <td data-testid="capture-review" data-label="Review">
                     {c.approved ? "Approved" : reviewLabels[c.reviewState]}
                     {c.newerAwaitsReview && user.role !== "viewer" && (
                       <span className="block text-xs text-caution" data-testid="newer-awaits">A newer result awaits review</span>
                     )}
                   </td>
-                  <td className="whitespace-nowrap text-ink-soft">
+                  <td className="text-ink-soft sm:whitespace-nowrap" data-label="Registered">
                     {c.createdAt.toISOString().slice(0, 10)}
                     {c.uploadedByName ? ` · ${c.uploadedByName}` : ""}
                   </td>

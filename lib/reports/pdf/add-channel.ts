@@ -1,5 +1,6 @@
 import { formatOrders, groupReasons, verdictLabel } from "../format";
 import type { ChannelBlock } from "../sheet-report";
+import { conditionReasonText } from "../result-wording";
 import { tableLimitIfDifferent } from "../time-rules";
 import { addAggregateTable } from "./add-aggregate-table";
 import { addOrderTable } from "./add-order-table";
@@ -39,6 +40,6 @@ export function addChannel(w: PdfWriter, block: ChannelBlock, { withBand, withCh
   for (const c of block.conditions) {
     w.ensure(20);
     doc.font("Helvetica").fontSize(8).fillColor(pdfColours.soft);
-    w.text(`Condition ${c.id} (${c.verdict === "pass" ? "holds" : "not evaluated"}): ${c.text} — ${c.reason}`);
+    w.text(`Condition (${c.verdict === "pass" ? "holds" : "not evaluated"}): ${c.text} — ${conditionReasonText(c)}`);
   }
 }

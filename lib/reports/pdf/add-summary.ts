@@ -42,7 +42,7 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
     ["File", sheet.capture.originalFilename],
     ["Captured", sheet.capture.capturedAt ? formatWhen(sheet.capture.capturedAt) : "not given"],
     ["Uploaded", `${formatWhen(sheet.capture.createdAt)}${sheet.uploaderName ? ` by ${sheet.uploaderName}` : ""}`],
-    ["Limit set", `${evaluation.limitSetName} (${evaluation.limitSetKey})`],
+    ["Limit set", evaluation.limitSetName],
     ["Standard and edition", `${result.limitSet.standard}, ${result.limitSet.edition}`],
     ["Scope", result.limitSet.scope],
     ["Limit-set revision", `Revision ${evaluation.revisionNumber}`],
@@ -51,12 +51,6 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
     ...(result.power ? powerChoiceRows(result.power) : []),
     ["Sign-off", describeSignOff(sheet).label],
   ]);
-  const setupRows = describeSetup(sheet);
-  if (setupRows.length > 0) {
-    w.heading("Set-up behind this result");
-    w.keyValues(setupRows);
-  }
-
   // The limits line: which table and revision, and whether it was verified against the printed edition.
   const limits = limitsLine({ standard: result.limitSet.standard, edition: result.limitSet.edition, revisionNumber: evaluation.revisionNumber, verification: sheet.limitsVerification ?? null });
   doc.font(limits.verified ? "Helvetica" : "Helvetica-Bold").fontSize(9);
@@ -75,6 +69,14 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
       w.heading(`Headline numbers — ${table.title.toLowerCase()}`);
       w.keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
     }
+  }
+
+  // The set-up after the headline numbers, so those stay on page 1 (an interval log's
+  // column-by-column list stays on the web sheet, on demand).
+  const setupRows = describeSetup(sheet);
+  if (setupRows.length > 0) {
+    w.heading("Set-up behind this result");
+    w.keyValues(setupRows);
   }
 
   w.heading("Evaluation context");

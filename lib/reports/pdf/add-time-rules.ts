@@ -26,6 +26,7 @@ export function addTimeRules(w: PdfWriter, result: ComplianceResult, worst: Chan
       rule.status === "applied"
         ? `applied over ${rule.valueCount} values${rule.periodCount > 0 ? ` in ${rule.periodCount} period(s)` : ""}; ${rule.failures === 0 ? "nothing over its limit" : `${rule.failures} over its limit`}${rule.note ? `; ${rule.note}` : ""}`
         : `NOT EVALUATED: ${rule.note ?? "no reason given"}`;
-    w.keyValues([[`${rule.label}`, `${rule.statistic || rule.rule}; limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
+    // A result stored before rules said what they measure has only the label; the rule's id is never printed.
+    w.keyValues([[`${rule.label}`, `${rule.statistic ? `${rule.statistic}; ` : ""}limit ${formatMultiplier(rule.multiplier)}; ${status}`]]);
   }
 }

@@ -177,13 +177,14 @@ describe("IEEE Std 519-2014 at the PCC, Isc/IL in the 20–50 band (Table 2, C)"
 });
 
 describe("missing context → not evaluated, never pass", () => {
-  test("IEEE 519 without ilA: every row not evaluated, the reason names ilA, verdict incomplete", () => {
+  test("IEEE 519 without IL: every row not evaluated, the reason names IL in a reader's words, verdict incomplete", () => {
     const result = run("ieee-519-2014-current", { channels: [{ name: "Ia", fundamentalRms: 80, harmonics: { 5: 1 } }] }, { busVoltageV: 480, iscA: 3000 });
     expect(result.verdict).toBe("incomplete");
     expect(result.rows.length).toBe(49);
     for (const candidate of result.rows) {
       expect(candidate.verdict).toBe("not-evaluated");
-      expect(candidate.reason).toContain("ilA");
+      expect(candidate.reason).toContain("band not chosen: Isc and IL (for Isc/IL) not given");
+      expect(candidate.reason).not.toContain("ilA");
     }
     expect(aggregate(result, "TDD").verdict).toBe("not-evaluated");
   });
@@ -193,10 +194,10 @@ describe("missing context → not evaluated, never pass", () => {
     expect(result.rows.some((candidate) => candidate.verdict === "pass")).toBe(false);
   });
 
-  test("Class D without ratedPowerW → incomplete, reason names ratedPowerW", () => {
+  test("Class D without the rated power → incomplete, the reason names it in a reader's words", () => {
     const result = run("iec-61000-3-2-class-d", { channels: [{ name: "I", fundamentalRms: 1, harmonics: { 3: 0.2 } }] });
     expect(result.verdict).toBe("incomplete");
-    expect(result.band.reason).toContain("ratedPowerW");
+    expect(result.band.reason).toContain("band not chosen: the rated power P not given");
   });
 
   test("Class C > 25 W without λ and without measured power: h3 (30·λ %) not evaluated naming lambda; others judged", () => {
@@ -365,14 +366,13 @@ describe("IEC 61000-3-12:2011 Rsce bands and interpolation", () => {
   test("Rsce below 33 has no row → incomplete with the reason", () => {
     const result = run("iec-61000-3-12", spec, { ...balanced, rsce: 20 });
     expect(result.verdict).toBe("incomplete");
-    expect(result.band.reason).toContain("rsce = 20");
+    expect(result.band.reason).toContain("no band of this limit set applies to phase configuration balanced three-phase, Rsce = 20");
   });
 
   test("missing phaseConfig and rsce → not evaluated, both named; measured % of Iref still shown", () => {
     const result = run("iec-61000-3-12", spec, { irefA: 50 });
     expect(result.verdict).toBe("incomplete");
-    expect(result.band.reason).toContain("phaseConfig");
-    expect(result.band.reason).toContain("rsce");
+    expect(result.band.reason).toContain("band not chosen: the phase configuration and Rsce not given");
     expect(row(result, 5).measured).toBeCloseTo(16, 9);
     expect(row(result, 5).verdict).toBe("not-evaluated");
   });

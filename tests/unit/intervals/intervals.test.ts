@@ -98,6 +98,8 @@ describe("importIntervalLog", () => {
     expect([...log.channels[0]!.orders.keys()].sort((a, b) => a - b)).toEqual([1, 2, 3, 4, 5, 7, 9, 11, 13, 17, 19]);
     expect(log.gaps).toEqual([]);
     expect(log.lines[0]).toBe(5);
+    // The suggested mapping leaves the three "H5 max" columns out (a max is not an average); the log names them.
+    expect(log.unmappedColumns).toEqual(["I1 H5 max [A]", "I2 H5 max [A]", "I3 H5 max [A]"]);
   });
 
   test("gaps are reported with where and how long, not bridged (DD.MM.YYYY, ';', decimal comma)", () => {
@@ -111,7 +113,7 @@ describe("importIntervalLog", () => {
       { afterLine: 83, fromMs: Date.UTC(2024, 2, 4, 14, 10), toMs: Date.UTC(2024, 2, 4, 16, 10), durationS: 7200, missingIntervals: 12 },
     ]);
     expect(log.warnings[0]).toBe(
-      "gap of 30 min (3 intervals missing) between line 20 (2024-03-04 03:00:00Z) and line 21 (2024-03-04 03:40:00Z); not bridged",
+      "gap of 30 min (3 intervals missing) between line 20 (2024-03-04 03:00 UTC) and line 21 (2024-03-04 03:40 UTC); not bridged",
     );
     expect(log.channels[0]!.orders.get(5)![0]).toBeCloseTo(4.99, 9);
   });
@@ -122,7 +124,7 @@ describe("importIntervalLog", () => {
     ["error-non-numeric.csv", 'line 4, column "I1 H5 avg [A]": "n/a" is not a number'],
     [
       "error-non-monotonic.csv",
-      'line 6, column "Timestamp": timestamp 2024-03-04 00:30:00Z is the same as the previous row\'s (line 5, 2024-03-04 00:30:00Z); timestamps must increase',
+      'line 6, column "Timestamp": timestamp 2024-03-04 00:30 UTC is the same as the previous row\'s (line 5, 2024-03-04 00:30 UTC); timestamps must increase',
     ],
   ])("%s → %s", (name, message) => {
     const text = fixture(name);

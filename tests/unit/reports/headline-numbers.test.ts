@@ -7,7 +7,7 @@ import { buildSheetCsv } from "@/lib/reports/build-sheet-csv";
 import { buildSheetPdf } from "@/lib/reports/build-sheet-pdf";
 import { headlineTable } from "@/lib/reports/headline-table";
 import { makeSheet } from "./make-sheet";
-import { pdfText } from "./pdf-text";
+import { pdfPageTexts, pdfText } from "./pdf-text";
 
 const rate = 12_800;
 const n = Math.round(0.4 * rate); // 20 cycles of 50 Hz
@@ -180,5 +180,16 @@ describe("headline numbers in the PDF (page 1) and the CSV", () => {
     expect(at).toBeLessThan(text.indexOf("Evaluation context"));
     expect(text).toContain("Three-phase total");
     expect(text).toContain("0.866 lagging");
+  });
+
+  test("all of them fit on page 1 beside a full set-up (six mapped channels and the file hash), which follows them", async () => {
+    const channels = Object.fromEntries(["Va", "Vb", "Vc", "Ia", "Ib", "Ic"].map((name) => [name, { quantity: name.startsWith("V") ? "voltage" : "current", scale: 1 }]));
+    const withSetup = { ...sheet, analysis: { result: threePhase(30), setup: { mapping: { channels } }, fileSha256: "ab".repeat(32) } };
+    const pages = pdfPageTexts(await buildSheetPdf(withSetup, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") }));
+    expect(pages.length).toBeGreaterThan(1);
+    const first = pages[0]!;
+    for (const table of ["currents", "voltages", "power", "unbalance"]) expect(first).toMatch(new RegExp(`Headline numbers . ${table}`));
+    expect(first).toContain("Three-phase total");
+    expect(first.indexOf("Set-up behind this result")).toBeGreaterThan(first.search(/Headline numbers . unbalance/));
   });
 });

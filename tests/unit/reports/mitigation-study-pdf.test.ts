@@ -19,11 +19,21 @@ test("a chosen study prints on its own page marked as a prediction, with verdict
   });
   const without = pdfText(await buildSheetPdf(sheet, { compress: false }));
   expect(without).not.toContain("Mitigation study");
-  const text = pdfText(await buildSheetPdf(sheet, { compress: false, studies: [{ title: "Reactor on the drive", modelVersion: "frontends-1", result, createdAt: new Date("2026-03-03T00:00:00Z"), authorName: "Eve Engineer" }] }));
+  const study = { title: "Reactor on the drive", modelVersion: "frontends-1", result, createdAt: new Date("2026-03-03T00:00:00Z"), authorName: "Eve Engineer", evaluationCreatedAt: new Date("2026-03-02T10:01:00Z") };
+  const text = pdfText(await buildSheetPdf(sheet, { compress: false, studies: [study] }));
   expect(text).toContain("Mitigation study");
   expect(text).toContain("prediction");
   expect(text).toContain("Reactor on the drive");
   expect(text).toContain("5 % AC line reactor");
   expect(text).toContain(`Predicted verdict: ${result.compliance!.verdict.toUpperCase()}`);
   expect(text).toContain("model prediction");
+  // The study says which evaluation it started from, and names the limit set, not its internal key.
+  expect(text).toContain("Starts from the evaluation of 2026-03-02 10:01 UTC");
+  expect(text).not.toContain("ieee-519-2014-current");
+  // One unit per column: the table limit in amperes and, in a column of its own, in %IL. IEEE Std 519-2014
+  // Table 2, 20 ≤ Isc/IL < 50 (Isc/IL = 5000/150 = 33.3): 7.0 % for 3 ≤ h < 11 and 3.5 % for 11 ≤ h < 17;
+  // × IL = 150 A gives 10.5 A and 5.25 A.
+  expect(text).toContain("Measured (A)\nPredicted (A)\nTable limit (A)\nTable limit (%IL)\nPredicted verdict");
+  expect(text).toMatch(/\n5\n[\d.]+\n[\d.]+\n10\.5\n7\.00\n(Fail|Pass)\n/);
+  expect(text).toMatch(/\n11\n[\d.]+\n[\d.]+\n5\.25\n3\.50\n(Fail|Pass)\n/);
 }, 30_000);

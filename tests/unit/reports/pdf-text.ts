@@ -3,8 +3,19 @@
 // asserting on our own reports; not a general PDF parser.
 import { inflateSync } from "node:zlib";
 
-/** The text of each content stream in file order (pdfkit writes one per page, in page order). */
+export function pdfText(pdf: Buffer): string {
+  return pdfStreamTexts(pdf).join("\n");
+}
+
+/**
+ * The text of each content stream that holds any, in file order: with pdfkit one per page (a
+ * page's footer, drawn last, lands in its own page's stream), so [0] is page 1.
+ */
 export function pdfPageTexts(pdf: Buffer): string[] {
+  return pdfStreamTexts(pdf).filter((text) => text !== "");
+}
+
+function pdfStreamTexts(pdf: Buffer): string[] {
   const raw = pdf.toString("latin1");
   const streams: string[] = [];
   const re = /<<([^]*?)>>\s*stream\r?\n/g;
@@ -33,8 +44,4 @@ export function pdfPageTexts(pdf: Buffer): string[] {
     }
     return lines.join("\n");
   });
-}
-
-export function pdfText(pdf: Buffer): string {
-  return pdfPageTexts(pdf).filter((page) => page !== "").join("\n");
 }

@@ -47,6 +47,12 @@ describe("% of limit: against the table limit, with enough digits to explain the
     expect(formatPercentOfLimit({ ...row, measured: 0.45, percentOfLimit: 100, verdict: "pass" })).toBe("100.0 %");
   });
 
+  test("just under the limit and passing: 0.9996 %IL against 1 %IL reads 99.96 %, not 100.0 % (arithmetic)", () => {
+    const row = { measured: 0.9996, limit: 1, percentOfLimit: 99.96, verdict: "pass" };
+    expect(formatPercentOfLimit(row, { standalone: true })).toBe("99.96 % of the limit");
+    expect(formatPercentOfLimit({ ...row, measured: 0.9, percentOfLimit: 90 })).toBe("90.0 %");
+  });
+
   test("a rule with a multiplier: 3.54 A smoothed maximum against 1.5 × 2.3 A (IEC 61000-3-2 Table 1 h3, clause 6.2) reads 153.9 % of the table limit — rule allows 150 %", () => {
     const rule = { rule: "smoothed-max", label: "max", measured: 3.54, limit: 3.45, tableLimit: 2.3, multiplier: 1.5, unit: "A", percentOfLimit: (3.54 / 3.45) * 100, verdict: "fail" as const };
     const row = { measured: 3.54, limit: 3.45, percentOfLimit: rule.percentOfLimit, verdict: "fail", decidedBy: "smoothed-max", rowRules: [rule] };

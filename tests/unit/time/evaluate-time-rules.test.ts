@@ -46,7 +46,8 @@ describe("IEC 61000-3-2:2018+A1:2020 Class A: average of 1.5 s smoothed values a
     expect(h11).toMatchObject({ verdict: "fail", decidedBy: "smoothed-max" });
     expect(h11.measured).toBeCloseTo(0.6, 3);
     expect(h11.limit).toBeCloseTo(0.495, 9);
-    expect(h11.reason).toContain('decided by "Every 1.5 s smoothed value ≤ 150 % of the limit"');
+    // IEC 61000-3-2:2018+A1:2020 Table 1, n = 11: 0.33 A; the 150 % rule allows 0.495 A; the maximum 0.6 A exceeds it.
+    expect(h11.reason).toContain("decided by “Every 1.5 s smoothed value ≤ 150 % of the limit”: maximum of 1.5 s smoothed values over the observation period = 0.6 A against 1.5 × the table limit 0.33 A = 0.495 A");
     expect(result.verdict).toBe("fail");
   });
 
@@ -199,7 +200,8 @@ describe("records too short for a rule → not-evaluated with the minimum durati
       status: "not-evaluated",
       reason: "needs at least 10 min of record; the record has 2 min",
     });
-    expect(result.notes.join(" ")).toContain("the capture r.m.s. mean is compared with 1.0 × the limit");
+    expect(result.notes).toContain("“Weekly 99th percentile of 10 min values < 1.5 × limit” and “Weekly 95th percentile of 10 min values < 1.0 × limit” were not applied: needs at least 10 min of record; the record has 2 min.");
+    expect(result.notes).toContain("Where a time rule could not be applied, each order's r.m.s. mean over the record was compared with 1.0 × its table limit instead.");
   });
 
   test("IEC 61000-3-2: a 2-window capture (0.4 s) cannot use the 1.5 s rules; the snapshot comparison decides (I3 2.5 A > 2.30 A, Table 1)", () => {

@@ -73,17 +73,18 @@ export function UsersAdmin({ myId }: { myId: string }) {
       </form>
       {message && <p className="text-sm" role="status">{message}</p>}
       {error && <p className="text-sm text-fail">{error.message}</p>}
-      <div className="panel overflow-x-auto">
-        <table className="table-base" data-testid="user-table">
+      <div className="panel p-0 sm:overflow-x-auto sm:p-5">
+        {/* On a phone each user is a card (the table stacks): name, e-mail, role, status and the buttons, nothing off-screen. */}
+        <table className="table-base table-stack" data-testid="user-table">
           <thead>
-            <tr><th>Name</th><th>E-mail</th><th>Role</th><th>Status</th><th /></tr>
+            <tr><th>Name</th><th>E-mail</th><th>Role</th><th>Status</th><th><span className="sr-only">Actions</span></th></tr>
           </thead>
           <tbody>
             {data?.users.map((u) => (
-              <tr key={u.id}>
-                <td>{u.name}</td>
-                <td className="break-all">{u.email}</td>
-                <td>
+              <tr key={u.id} data-testid="user-row">
+                <td className="font-medium">{u.name}</td>
+                <td className="stack-wide break-all" data-label="E-mail">{u.email}</td>
+                <td data-label="Role">
                   <select
                     aria-label={`Role of ${u.email}`}
                     className="rounded border border-line bg-paper-raised px-2 py-1 text-sm"
@@ -94,18 +95,20 @@ export function UsersAdmin({ myId }: { myId: string }) {
                     {roles.map((r) => <option key={r} value={r}>{roleLabels[r]}</option>)}
                   </select>
                 </td>
-                <td>{!u.active ? "Deactivated" : u.invited ? "Invited" : "Active"}</td>
-                <td className="space-x-2 whitespace-nowrap text-right">
-                  {u.active && u.invited && (
-                    <button type="button" className="btn-quiet py-1" onClick={() => resend(u.id, u.email)}>
-                      Resend invitation
-                    </button>
-                  )}
-                  {u.id !== myId && (
-                    <button type="button" className="btn-quiet py-1" onClick={() => update(u.id, { active: !u.active })}>
-                      {u.active ? "Deactivate" : "Reactivate"}
-                    </button>
-                  )}
+                <td data-label="Status">{!u.active ? "Deactivated" : u.invited ? "Invited" : "Active"}</td>
+                <td className="sm:whitespace-nowrap sm:text-right">
+                  <span className="flex flex-wrap gap-2 sm:justify-end">
+                    {u.active && u.invited && (
+                      <button type="button" className="btn-quiet py-1" onClick={() => resend(u.id, u.email)}>
+                        Resend invitation
+                      </button>
+                    )}
+                    {u.id !== myId && (
+                      <button type="button" className="btn-quiet py-1" onClick={() => update(u.id, { active: !u.active })}>
+                        {u.active ? "Deactivate" : "Reactivate"}
+                      </button>
+                    )}
+                  </span>
                 </td>
               </tr>
             ))}

@@ -69,7 +69,9 @@ export interface BandDraft {
 }
 
 export interface ContentDraft {
-  extra: Omit<LimitSetRevisionContent, "bands">;
+  extra: Omit<LimitSetRevisionContent, "bands" | "notes">;
+  /** The set's interpretation notes as typed, one per line (blank lines dropped on saving). */
+  notesText: string;
   bands: BandDraft[];
 }
 
@@ -102,9 +104,10 @@ export function emptyAggregate(basis: Basis = "%I1"): AggregateDraft {
 
 /** Content → working copy. */
 export function toDraft(content: LimitSetRevisionContent): ContentDraft {
-  const { bands, ...extra } = content;
+  const { bands, notes, ...extra } = content;
   return {
     extra,
+    notesText: (notes ?? []).join("\n"),
     bands: bands.map(({ label, applicability, orderRows, aggregates, ...bandExtra }) => ({
       id: newId(),
       label,
@@ -155,8 +158,10 @@ function rangeOf(d: RangeDraft): Record<string, unknown> | undefined {
 export function fromDraft(draft: ContentDraft): unknown {
   // Meta, then bands, then rules: the order a person reads the JSON in.
   const { rules, ...meta } = draft.extra;
+  const notes = draft.notesText.split("\n").map((line) => line.trim()).filter((line) => line !== "");
   return {
     ...meta,
+    ...(notes.length > 0 ? { notes } : {}),
     bands: draft.bands.map((band) => {
       const applicability: Record<string, unknown> = {};
       for (const k of rangeKeys) {

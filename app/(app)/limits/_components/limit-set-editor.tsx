@@ -307,7 +307,28 @@ export function LimitSetEditor({ setKey, content, revisionNumber }: { setKey: st
       </div>
 
       {mode === "form" ? (
-        draft.bands.map((band, b) => <BandEditor key={band.id} band={band} b={b} errors={shown} update={updateBand(b)} />)
+        <>
+          <div className="panel space-y-2">
+            <label htmlFor="limit-set-notes" className="field-label">Interpretation notes (one per line)</label>
+            <p className="text-xs text-ink-muted">
+              Choices the printed standard leaves open, in plain words for a customer (e.g. which row a value on a boundary uses). Printed once under Notes on every sheet and PDF judged with this revision.
+            </p>
+            <textarea
+              id="limit-set-notes"
+              data-testid="notes-editor"
+              rows={Math.min(10, Math.max(3, draft.notesText.split("\n").length + 1))}
+              className="field-input"
+              value={draft.notesText}
+              onChange={(e) => {
+                setServerErrors({});
+                const notesText = e.target.value;
+                setDraft((d) => ({ ...d, notesText }));
+              }}
+            />
+            <Messages messages={under(shown, "content.notes")} testId="notes-errors" />
+          </div>
+          {draft.bands.map((band, b) => <BandEditor key={band.id} band={band} b={b} errors={shown} update={updateBand(b)} />)}
+        </>
       ) : (
         <div className="panel space-y-2">
           <label htmlFor="content-json" className="field-label">Revision content (JSON)</label>

@@ -155,6 +155,19 @@ export function RevisionTable({ content }: { content: LimitSetRevisionContent })
         <p className="text-ink-soft">{content.description}</p>
         <p className="text-ink-muted">Applies to: {content.appliesTo}</p>
       </section>
+      <section className="panel text-sm" data-testid="limit-set-notes" aria-labelledby="limit-set-notes-heading">
+        <h2 id="limit-set-notes-heading" className="mb-2">Interpretation notes</h2>
+        {content.notes && content.notes.length > 0 ? (
+          <>
+            <p className="mb-2 text-ink-muted">Printed once under Notes on every sheet and PDF judged with this revision.</p>
+            <ul className="list-disc space-y-1 pl-5">
+              {content.notes.map((note) => <li key={note}>{note}</li>)}
+            </ul>
+          </>
+        ) : (
+          <p className="text-ink-muted">This revision has no interpretation notes.</p>
+        )}
+      </section>
       {content.bands.map((band, b) => {
         const applies = applicabilityText(band);
         return (

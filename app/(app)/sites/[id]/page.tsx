@@ -1,4 +1,5 @@
 import Link from "next/link";
+import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { listCaptures } from "@/db/queries/captures";
 import { getSiteById } from "@/db/queries/sites";
 import { orNotFound, requirePage, uuidOr404 } from "@/lib/auth/page";
@@ -37,8 +38,13 @@ export default async function SitePage({ params }: { params: Promise<{ id: strin
             {captures.items.slice(0, 8).map((c) => (
               <li key={c.id} className="flex flex-wrap items-baseline justify-between gap-2 py-1.5">
                 <Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link>
-                <span className="text-ink-muted">
-                  {c.verdict ?? c.status} · {c.createdAt.toISOString().slice(0, 10)}
+                <span className="flex items-center gap-2 text-ink-muted">
+                  {/* As the captures list shows it: the team the latest verdict, a viewer the approved one. */}
+                  {(() => {
+                    const shown = user.role === "viewer" ? c.verdict : (c.latestVerdict ?? c.verdict);
+                    return shown ? <VerdictBadge verdict={shown} /> : <span>not analysed yet</span>;
+                  })()}
+                  {c.createdAt.toISOString().slice(0, 10)}
                 </span>
               </li>
             ))}

@@ -4,14 +4,17 @@ import { useMemo, useState } from "react";
 import { mutate } from "swr";
 import { SpectrumChart } from "@/app/_components/charts/spectrum-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
+import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { FAMILY_LABELS, PARAMETER_LABELS } from "@/lib/frontends/family-labels";
 import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { MitigationStudyInputs } from "@/lib/mitigation/study-inputs";
 import type { Mitigation, WhatIfResult } from "@/lib/mitigation/types";
 import { formatWhen } from "@/lib/reports/format";
+import { unitScale } from "@/lib/reports/spectrum-bars";
+import { tableLimitOf } from "@/lib/reports/time-rules";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
-import { captureStudiesKey, useCaptureDiagnosis, useMitigationStudies } from "@/lib/swr/use-mitigation-studies";
+import { captureStudiesKey, useCaptureDiagnosis, useMitigationStudies, type SavedStudyDto } from "@/lib/swr/use-mitigation-studies";
 
 const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "—" : Number(v.toPrecision(digits)).toString());
 
@@ -22,22 +25,26 @@ const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "
  */
 export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult }) {
   // The sheet's charts URL carries the shown evaluation as a query (…/charts?evaluation=…); only its path names the capture.
-  const chartsPath = chartsUrl.split("?")[0]!;
+  const [chartsPath, query] = chartsUrl.split("?") as [string, string | undefined];
   const base = chartsPath.startsWith("/api/captures/") && chartsPath.endsWith("/charts") ? chartsPath.slice(0, -"/charts".length) : null;
+  // Every diagnosis and study here starts from the evaluation the sheet shows.
+  const evaluationId = new URLSearchParams(query ?? "").get("evaluation");
   // Interval logs have no waveform to diagnose (409): the panels stay away.
-  const { error } = useCaptureDiagnosis(base);
+  const { error } = useCaptureDiagnosis(base, evaluationId);
+  const { data: studies } = useMitigationStudies(base);
   if (!base || (error instanceof FetchError && error.status === 409)) return null;
   return (
     <div className="space-y-4" data-testid="mitigation-panels">
-      <LikelySource base={base} channelName={channel.channel} />
-      <TryFix base={base} channel={channel} />
-      <SavedStudies base={base} />
+      <LikelySource base={base} evaluationId={evaluationId} channelName={channel.channel} />
+      {/* Viewers read the saved studies of the approved sheet but run no new what-ifs. */}
+      {studies?.canTryFix && <TryFix base={base} evaluationId={evaluationId} approved={evaluationId !== null && evaluationId === studies.approvedEvaluationId} channel={channel} context={result.context} />}
+      <SavedStudies base={base} evaluationId={evaluationId} />
     </div>
   );
 }
 
-function LikelySource({ base, channelName }: { base: string; channelName: string }) {
-  const { data, error, isLoading } = useCaptureDiagnosis(base);
+function LikelySource({ base, evaluationId, channelName }: { base: string; evaluationId: string | null; channelName: string }) {
+  const { data, error, isLoading } = useCaptureDiagnosis(base, evaluationId);
   const dx = data?.diagnosis.channels.find((c) => c.name === channelName);
   return (
     <section className="panel text-sm" data-testid="likely-source" aria-labelledby="likely-source-heading">
@@ -65,7 +72,11 @@ function LikelySource({ base, channelName }: { base: string; channelName: string
                   <td className="py-1 pr-2">{FAMILY_LABELS[c.family]}</td>
                   <td className="py-1 pr-2">
                     {Object.entries(c.parameters)
-                      .map(([name, v]) => `${PARAMETER_LABELS[name] ?? name} ${fmt(v)}`)
+                      .map(([name, v]) => {
+                        // "firing angle 10°", "commutation reactance 12.7 %": the value, then its unit.
+                        const p = PARAMETER_LABELS[name] ?? { label: "fitted parameter", unit: "" };
+                        return `${p.label} ${fmt(v)}${p.unit === "°" ? "°" : p.unit ? ` ${p.unit}` : ""}`;
+                      })
                       .join(" · ") || "—"}
                   </td>
                   <td className="py-1 text-right tabular-nums">{c.fitErrorPercent.toFixed(1)}</td>
@@ -124,7 +135,7 @@ function inputsOf(f: FixForm): MitigationStudyInputs {
   return { mitigations, ...(f.filter && f.xOverR.trim() !== "" ? { network: { xOverR: Number(f.xOverR) } } : {}) };
 }
 
-function TryFix({ base, channel }: { base: string; channel: ChannelCompliance }) {
+function TryFix({ base, evaluationId, approved, channel, context }: { base: string; evaluationId: string | null; approved: boolean; channel: ChannelCompliance; context: EvaluationContext }) {
   const [form, setForm] = useState<FixForm>(initialForm);
   const [prediction, setPrediction] = useState<{ inputs: MitigationStudyInputs; result: WhatIfResult } | null>(null);
   const [error, setError] = useState<string | null>(null);
@@ -137,7 +148,7 @@ function TryFix({ base, channel }: { base: string; channel: ChannelCompliance })
     setError(null);
     try {
       const inputs = inputsOf(form);
-      const { result } = await sendJson<{ result: WhatIfResult }>(`${base}/studies/preview`, "POST", inputs);
+      const { result } = await sendJson<{ result: WhatIfResult }>(`${base}/studies/preview`, "POST", { ...inputs, ...(evaluationId ? { evaluationId } : {}) });
       setPrediction({ inputs, result });
     } catch (err) {
       setPrediction(null);
@@ -164,6 +175,9 @@ function TryFix({ base, channel }: { base: string; channel: ChannelCompliance })
     <section className="panel text-sm" data-testid="try-fix" aria-labelledby="try-fix-heading">
       <h2 id="try-fix-heading" className="mb-1">Try a fix</h2>
       <p className="mb-3 text-ink-muted">Pick mitigations; Ordwise predicts the current into the supply and judges it against the same limit set revision and context as this sheet.</p>
+      <p className="mb-3 text-ink-soft" data-testid="fix-starting-point">
+        Starts from the evaluation this sheet shows{approved ? " — the approved one" : " — not approved; viewers and share links will not see studies of it"}. To start from another, open it from Evaluations.
+      </p>
       <form onSubmit={predict} className="space-y-2">
         <div className="flex flex-wrap items-center gap-3">{check("reactor", "AC line reactor")}{num("reactorPercent", "%")}</div>
         <div className="flex flex-wrap items-center gap-3">{check("choke", "DC choke")}{num("chokePercent", "%")}</div>
@@ -192,13 +206,13 @@ function TryFix({ base, channel }: { base: string; channel: ChannelCompliance })
           {error}
         </p>
       )}
-      {prediction && <PredictionView result={prediction.result} channel={channel} />}
-      {prediction && <SaveStudy base={base} inputs={prediction.inputs} />}
+      {prediction && <PredictionView result={prediction.result} channel={channel} context={context} />}
+      {prediction && <SaveStudy base={base} evaluationId={evaluationId} inputs={prediction.inputs} />}
     </section>
   );
 }
 
-function PredictionView({ result, channel }: { result: WhatIfResult; channel: ChannelCompliance }) {
+function PredictionView({ result, channel, context }: { result: WhatIfResult; channel: ChannelCompliance; context: EvaluationContext }) {
   const predictedChannel = result.channels.find((c) => c.name === channel.channel) ?? result.channels[0];
   const predictedRows = result.compliance?.channels.find((c) => c.channel === channel.channel)?.rows ?? [];
   const charts = useMemo(() => {
@@ -217,6 +231,16 @@ function PredictionView({ result, channel }: { result: WhatIfResult; channel: Ch
   if (!predictedChannel || !charts) return null;
   const measuredByOrder = new Map(channel.rows.map((r) => [r.order, r]));
   const predictedByOrder = new Map(predictedRows.map((r) => [r.order, r]));
+  // One unit per column: the limit in amperes (converted with the base the evaluator used) and, where
+  // the table states it in another unit (%IL, %Iref, %I1), that unit in its own column.
+  const rowUnit = channel.rows.find((r) => r.limit !== null)?.unit ?? "A";
+  const perRowUnitA = unitScale(rowUnit, {
+    fundamentalRms: predictedChannel?.fundamentalA ?? 0,
+    ilA: context.ilA,
+    irefA: channel.derived.irefA ?? context.irefA,
+    nominalVoltageV: context.nominalVoltageV,
+  });
+  const limitA = (limit: number | null | undefined) => (limit == null || perRowUnitA === null ? null : limit * perRowUnitA);
   const orders = predictedChannel.harmonics.filter((h) => h.order >= 2 && (measuredByOrder.get(h.order)?.limit != null || (h.measuredRms ?? 0) > 0.01 * predictedChannel.fundamentalA));
   return (
     <div className="mt-4 space-y-3" data-testid="prediction">
@@ -245,9 +269,10 @@ function PredictionView({ result, channel }: { result: WhatIfResult; channel: Ch
         <thead className="text-ink-muted">
           <tr>
             <th className="py-1 pr-2">Order</th>
-            <th className="py-1 pr-2 text-right">Measured, A</th>
-            <th className="py-1 pr-2 text-right">Predicted, A</th>
-            <th className="py-1 pr-2 text-right">Limit ({channel.rows[0]?.unit ?? "—"})</th>
+            <th className="py-1 pr-2 text-right">Measured (A)</th>
+            <th className="py-1 pr-2 text-right">Predicted (A)</th>
+            <th className="py-1 pr-2 text-right">Table limit (A)</th>
+            {rowUnit !== "A" && <th className="py-1 pr-2 text-right">Table limit ({rowUnit})</th>}
             <th className="py-1">Verdict measured → predicted</th>
           </tr>
         </thead>
@@ -260,7 +285,8 @@ function PredictionView({ result, channel }: { result: WhatIfResult; channel: Ch
                 <td className="py-1 pr-2">{h.order}</td>
                 <td className="py-1 pr-2 text-right tabular-nums">{fmt(h.measuredRms)}</td>
                 <td className="py-1 pr-2 text-right tabular-nums">{fmt(h.rms)}</td>
-                <td className="py-1 pr-2 text-right tabular-nums">{fmt(m?.limit)}</td>
+                <td className="py-1 pr-2 text-right tabular-nums">{fmt(limitA(m ? tableLimitOf(m) : null))}</td>
+                {rowUnit !== "A" && <td className="py-1 pr-2 text-right tabular-nums">{fmt(m ? tableLimitOf(m) : null)}</td>}
                 <td className="py-1">
                   {m ? <VerdictBadge verdict={m.verdict} /> : "—"} → {p ? <VerdictBadge verdict={p.verdict} /> : "—"}
                 </td>
@@ -292,7 +318,7 @@ function PredictionView({ result, channel }: { result: WhatIfResult; channel: Ch
   );
 }
 
-function SaveStudy({ base, inputs }: { base: string; inputs: MitigationStudyInputs }) {
+function SaveStudy({ base, evaluationId, inputs }: { base: string; evaluationId: string | null; inputs: MitigationStudyInputs }) {
   const { data } = useMitigationStudies(base);
   const [title, setTitle] = useState("");
   const [includeInReport, setInclude] = useState(true);
@@ -304,7 +330,7 @@ function SaveStudy({ base, inputs }: { base: string; inputs: MitigationStudyInpu
     setBusy(true);
     setMessage(null);
     try {
-      await sendJson(`${base}/studies`, "POST", { title, includeInReport, inputs });
+      await sendJson(`${base}/studies`, "POST", { title, includeInReport, inputs, ...(evaluationId ? { evaluationId } : {}) });
       setMessage("Study saved.");
       setTitle("");
       await mutate(captureStudiesKey(base));
@@ -329,27 +355,51 @@ function SaveStudy({ base, inputs }: { base: string; inputs: MitigationStudyInpu
   );
 }
 
-function SavedStudies({ base }: { base: string }) {
+/** Where a saved study started from, as the list shows it beside the study. */
+function startedFrom(study: SavedStudyDto, shownId: string | null, approvedId: string | null): { text: string; elsewhere: boolean } {
+  if (!study.evaluationId || !study.evaluationCreatedAt) return { text: "starting evaluation not recorded", elsewhere: true };
+  const when = formatWhen(new Date(study.evaluationCreatedAt));
+  const approved = study.evaluationId === approvedId ? "approved " : "";
+  if (study.evaluationId === shownId) return { text: `from this sheet's ${approved}evaluation (${when})`, elsewhere: false };
+  return { text: `from another ${approved}evaluation (${when})`, elsewhere: true };
+}
+
+function SavedStudies({ base, evaluationId }: { base: string; evaluationId: string | null }) {
   const { data, error } = useMitigationStudies(base);
+  // The sheet without ?evaluation= shows its default (approved, else newest): the studies of the approved one are "this sheet's".
+  const shownId = evaluationId ?? data?.approvedEvaluationId ?? null;
+  const captureHref = base.replace(/^\/api/, "");
   return (
     <section className="panel text-sm" data-testid="saved-studies" aria-labelledby="saved-studies-heading">
       <h2 id="saved-studies-heading" className="mb-2">Mitigation studies — predictions</h2>
       {error && <p className="text-fail">{error.message}</p>}
       {data && data.studies.length === 0 && <p className="text-ink-muted">No saved studies.</p>}
       <ul className="space-y-2">
-        {data?.studies.map((s) => (
-          <li key={s.id} className="border-t border-line pt-2" data-testid="saved-study">
-            <div className="flex flex-wrap items-center gap-2">
-              <span className="font-medium">{s.title}</span>
-              {s.predictedVerdict !== "none" && <VerdictBadge verdict={s.predictedVerdict} />}
-              <span className="text-ink-muted">predicted</span>
-              {s.includeInReport && <span className="text-ink-muted">· in the PDF</span>}
-            </div>
-            <div className="text-ink-soft">
-              {s.inputs.mitigations.map((m) => describeMitigation(m as Mitigation)).join(" + ")} · {s.authorName ?? "unknown"}, {formatWhen(new Date(s.createdAt))} · model {s.modelVersion}
-            </div>
-          </li>
-        ))}
+        {data?.studies.map((s) => {
+          const from = startedFrom(s, shownId, data.approvedEvaluationId);
+          return (
+            <li key={s.id} className="border-t border-line pt-2" data-testid="saved-study" data-evaluation={s.evaluationId ?? ""}>
+              <div className="flex flex-wrap items-center gap-2">
+                <span className="font-medium">{s.title}</span>
+                {s.predictedVerdict !== "none" && <VerdictBadge verdict={s.predictedVerdict} />}
+                <span className="text-ink-muted">predicted</span>
+                {s.includeInReport && <span className="text-ink-muted">· in the PDF</span>}
+              </div>
+              <div className="text-ink-soft">
+                {s.inputs.mitigations.map((m) => describeMitigation(m as Mitigation)).join(" + ")} · {s.authorName ?? "unknown"}, {formatWhen(new Date(s.createdAt))} · model {s.modelVersion}
+              </div>
+              <div className={from.elsewhere ? "text-caution" : "text-ink-soft"} data-testid="study-started-from">
+                Starts {from.text}
+                {from.elsewhere && s.evaluationId && (
+                  <>
+                    {" — "}
+                    <a className="underline" href={`${captureHref}?evaluation=${s.evaluationId}`}>open that evaluation</a>
+                  </>
+                )}
+              </div>
+            </li>
+          );
+        })}
       </ul>
     </section>
   );

@@ -9,7 +9,7 @@ import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
-import { powerChoiceRows } from "@/lib/reports/result-wording";
+import { conditionReasonText, powerChoiceRows } from "@/lib/reports/result-wording";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -110,7 +110,7 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
             {channel.conditions.map((c) => (
               <li key={c.id}>
                 <VerdictBadge verdict={c.verdict} /> <span className="font-medium">{c.text}</span>
-                <span className="block text-ink-soft">{c.reason}</span>
+                <span className="block text-ink-soft">{conditionReasonText(c)}</span>
               </li>
             ))}
           </ul>

@@ -35,7 +35,7 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
         <div>
           <dt className="text-xs uppercase tracking-wide text-ink-muted">Limit set</dt>
           <dd data-testid="sheet-limit-set">
-            <span className="font-medium">{evaluation.limitSetName}</span> <code className="text-xs text-ink-soft">{evaluation.limitSetKey}</code>
+            <span className="font-medium">{evaluation.limitSetName}</span>
             <span className="block text-ink-soft">
               {result.limitSet.standard}, {result.limitSet.edition} · <span data-testid="sheet-revision">revision {evaluation.revisionNumber}</span>
             </span>
@@ -85,9 +85,17 @@ export function SheetHeader({ sheet }: { sheet: Sheet }) {
             <dt className="text-xs uppercase tracking-wide text-ink-muted">Set-up behind this result</dt>
             <dd data-testid="sheet-setup">
               <ul>
-                {setup.map(([k, v]) => (
-                  <li key={k} className="break-all">
+                {setup.map(([k, v, details]) => (
+                  <li key={k} className="[overflow-wrap:anywhere]">
                     <span className="text-ink-soft">{k}</span> {v}
+                    {details && details.length > 0 && (
+                      <details className="mt-1" data-testid="setup-details">
+                        <summary className="cursor-pointer text-copper-dark">Show all {details.length}</summary>
+                        <ul className="mt-1 columns-1 text-xs text-ink-soft sm:columns-2 lg:columns-3">
+                          {details.map((d) => <li key={d} className="[overflow-wrap:anywhere]">{d}</li>)}
+                        </ul>
+                      </details>
+                    )}
                   </li>
                 ))}
               </ul>

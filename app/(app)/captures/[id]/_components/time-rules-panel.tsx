@@ -39,8 +39,9 @@ export function TimeRulesPanel({ rules, basis, channelName }: { rules: TimeRuleL
               )}
             </div>
             <p className="text-ink-soft">
-              {rule.statistic ? `${rule.statistic.charAt(0).toUpperCase()}${rule.statistic.slice(1)}` : rule.rule}
-              {" · "}limit {formatMultiplier(rule.multiplier)}
+              {/* A result stored before rules said what they measure has only the rule's label (above); its id is never shown. */}
+              {rule.statistic ? `${rule.statistic.charAt(0).toUpperCase()}${rule.statistic.slice(1)} · ` : ""}
+              limit {formatMultiplier(rule.multiplier)}
               {rule.interval && <> · values: {rule.interval}</>}
               {rule.period && <> · accumulated over: {rule.period}</>}
             </p>

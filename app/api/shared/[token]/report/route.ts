@@ -1,3 +1,4 @@
+import { listMitigationStudies } from "@/db/queries/studies";
 import { withPublic } from "@/lib/api/with-auth";
 import { AppError } from "@/lib/errors";
 import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
@@ -8,5 +9,7 @@ export const GET = withPublic<{ token: string }>(async ({ params }) => {
   const sheet = await loadSharedSheet({ token: params.token });
   if (!sheet.evaluation) throw new AppError("not_found", "This link is no longer valid.");
   // Review comments are internal to the team; the shared PDF shows only who did what and when.
-  return pdfResponse(sheet, { includeComments: false });
+  // The studies chosen for the report that started from the evaluation shown (the approved one), as a viewer's PDF has them.
+  const studies = await listMitigationStudies({ captureId: sheet.capture.id, onlyForReport: true, evaluationId: sheet.evaluation.id });
+  return pdfResponse(sheet, { includeComments: false, studies });
 });
