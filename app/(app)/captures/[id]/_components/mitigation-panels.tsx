@@ -4,7 +4,7 @@ import { useMemo, useState } from "react";
 import { mutate } from "swr";
 import { SpectrumChart } from "@/app/_components/charts/spectrum-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
+import type { ChannelCompliance } from "@/lib/compliance/result";
 import { FAMILY_LABELS, PARAMETER_LABELS } from "@/lib/frontends/family-labels";
 import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { MitigationStudyInputs } from "@/lib/mitigation/study-inputs";
@@ -20,7 +20,7 @@ const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "
  * a "try a fix" form with the predicted spectrum and verdicts, and the capture's saved studies.
  * Nothing shows on share pages (their charts URL is not a capture's).
  */
-export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult }) {
+export function MitigationPanels({ chartsUrl, channel }: { chartsUrl: string; channel: ChannelCompliance }) {
   // The sheet's charts URL carries the shown evaluation as a query (…/charts?evaluation=…); only its path names the capture.
   const chartsPath = chartsUrl.split("?")[0]!;
   const base = chartsPath.startsWith("/api/captures/") && chartsPath.endsWith("/charts") ? chartsPath.slice(0, -"/charts".length) : null;
