@@ -327,7 +327,7 @@ export async function storeAnalysisResult({
         createdBy: actorId,
       })
       .returning({ id: evaluations.id });
-    await insertSheetParts(tx, { evaluationId: e!.id, result: evaluation.result });
+    await insertSheetParts({ evaluationId: e!.id, result: evaluation.result }, tx);
     await tx
       .update(captures)
       .set({ status: "done", progressPercent: 100, failureReason: null, updatedAt: new Date() })
@@ -365,7 +365,7 @@ export async function insertEvaluation({
       .insert(evaluations)
       .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, charts, createdBy: actorId })
       .returning({ id: evaluations.id });
-    await insertSheetParts(tx, { evaluationId: e!.id, result });
+    await insertSheetParts({ evaluationId: e!.id, result }, tx);
     await onNewResult(tx, captureId);
     await insertAuditEvent(tx, { actorId, action: "capture.reevaluate", entityType: "capture", entityId: captureId, details: { evaluationId: e!.id } });
     return e!.id;

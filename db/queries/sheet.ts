@@ -122,7 +122,7 @@ export async function getSheetEvaluation({ captureId, evaluationId }: { captureI
 }
 
 /** Stores a result's sheet parts (lib/reports/result-head.ts) for an evaluation; nothing when they exist. */
-export async function insertSheetParts(tx: Tx | Db, { evaluationId, result }: { evaluationId: string; result: ComplianceResult }): Promise<void> {
+export async function insertSheetParts({ evaluationId, result }: { evaluationId: string; result: ComplianceResult }, tx: Tx | Db = db): Promise<void> {
   const { head, channels } = splitResult(result);
   await tx
     .insert(evaluationSheetParts)
@@ -145,7 +145,7 @@ export async function getSheetView({ captureId, evaluationId, channel }: { captu
   // Stored before its parts were: split the whole result once, keep the parts for the next view.
   const [whole] = await db.select({ result: evaluations.result }).from(evaluations).where(eq(evaluations.id, row.id));
   const parts = splitResult(whole!.result);
-  await insertSheetParts(db, { evaluationId: row.id, result: whole!.result });
+  await insertSheetParts({ evaluationId: row.id, result: whole!.result });
   return { ...view, head: parts.head, channel: channel === null ? null : (parts.channels.find((c) => c.channel === channel) ?? parts.channels[0] ?? null) };
 }
 

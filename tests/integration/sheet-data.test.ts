@@ -4,7 +4,7 @@
 import { desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { analyses, evaluations } from "@/db/schema";
+import { analyses, evaluationSheetParts, evaluations } from "@/db/schema";
 import { demoCaptureId, listedCapture } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
@@ -67,6 +67,31 @@ describe("chart data", () => {
     expect(row?.charts).not.toBeNull();
     // Once filled, the cache is as immutable as the rest of the evaluation.
     await expect(db.update(evaluations).set({ charts: null }).where(eq(evaluations.id, older!.id))).rejects.toThrow();
+    const body = (await res.json()) as { evaluationId: string; channels: { name: string }[] };
+    expect(body.evaluationId).toBe(older!.id);
+    expect(body.channels.map((c) => c.name)).toEqual(stored!.charts!.channels.map((c) => c.name));
+  });
+
+  it("is the stored chart data as it is, with the evaluation's own id in front", async () => {
+    // A second evaluation holding the same chart data: its answer differs from the first one's only in the id.
+    const [stored] = await db.select().from(evaluations).where(eq(evaluations.id, evaluationId));
+    const { id: _id, createdAt: _createdAt, ...rest } = stored!;
+    const [copy] = await db.insert(evaluations).values(rest).returning({ id: evaluations.id });
+    const body = (await (await engineer.request("GET", `/api/captures/${captureId}/charts?evaluation=${copy!.id}`)).json()) as Record<string, unknown>;
+    expect(body).toEqual({ evaluationId: copy!.id, ...stored!.charts });
+  });
+});
+
+describe("the sheet page's parts", () => {
+  it("an evaluation stored before them gets its head and channels split from the whole result on its first view, never changed", async () => {
+    const [stored] = await db.select().from(evaluations).where(eq(evaluations.id, evaluationId));
+    const { id: _id, createdAt: _createdAt, ...rest } = stored!;
+    const [copy] = await db.insert(evaluations).values(rest).returning({ id: evaluations.id });
+    const page = await engineer.request("GET", `/captures/${captureId}?evaluation=${copy!.id}`);
+    expect(page.status).toBe(200);
+    const parts = await db.select().from(evaluationSheetParts).where(eq(evaluationSheetParts.evaluationId, copy!.id)).orderBy(evaluationSheetParts.part);
+    expect(parts.map((p) => p.channel)).toEqual([null, ...stored!.result.channels.map((c) => c.channel)]);
+    await expect(db.update(evaluationSheetParts).set({ channel: "other" }).where(eq(evaluationSheetParts.evaluationId, copy!.id))).rejects.toThrow();
   });
 });
 
