@@ -1,12 +1,17 @@
+import os from "node:os";
+
 // Load benchmark of the sheet against the stack `npm start` already serves. Starts nothing.
 // Run: npm run bench:web [-- --url http://127.0.0.1:3000] [--capture ID] [--clients 50] [--seconds 10]
+//      [--case charts,sheet,json]
 // Signs in as the demo engineer, picks an analysed capture (or --capture), and for each of
 //   GET /api/captures/:id/charts?evaluation=…  (what the sheet's charts fetch)
 //   GET /captures/:id                            (the sheet page, server-rendered)
 //   GET /api/captures/:id                        (the capture JSON the progress poller reads)
 // runs `clients` concurrent loops for `seconds`, then prints count, requests/s, errors and p50/p95/p99
-// against the targets of the issue. Bounded: at most --max-requests per case (default 50 000), each request
-// times out after 10 s, and only a loopback address is accepted.
+// against the targets of the issue, with the response size and the machine's load average (the
+// machine may be shared; a number means little without it). `--case` runs only the named cases.
+// Bounded: at most --max-requests per case (default 50 000), each request times out after 10 s,
+// and only a loopback address is accepted.
 
 const args = process.argv.slice(2);
 function arg(name: string, fallback: string): string {
@@ -20,6 +25,7 @@ const seconds = Math.min(60, Math.max(1, Number(arg("seconds", "10"))));
 const maxRequests = Math.min(200_000, Math.max(1, Number(arg("max-requests", "50000"))));
 const email = arg("email", "engineer@ordwise.test");
 const password = arg("password", "ordwise-demo-2026");
+const caseNames = new Set(arg("case", "charts,sheet,json").split(",").map((c) => c.trim()));
 
 const loopback = new Set(["127.0.0.1", "localhost", "[::1]", "::1"]);
 if (!loopback.has(base.hostname)) {
@@ -60,13 +66,18 @@ interface CaseResult {
   p95: number;
   p99: number;
   targetP95Ms: number;
+  bytes: number;
+  load: string;
 }
+
+const loadAverage = () => os.loadavg().map((l) => l.toFixed(2)).join(" ");
 
 async function runCase(name: string, path: string, cookie: string, targetP95Ms: number): Promise<CaseResult> {
   const url = new URL(path, base);
   const latencies: number[] = [];
   let errors = 0;
   let started = 0;
+  let bytes = 0;
   const deadline = performance.now() + seconds * 1000;
   const t0 = performance.now();
   const loop = async () => {
@@ -75,7 +86,7 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
       const t = performance.now();
       try {
         const res = await fetch(url, { headers: { cookie }, signal: AbortSignal.timeout(10_000) });
-        await res.arrayBuffer();
+        bytes = (await res.arrayBuffer()).byteLength;
         if (!res.ok) errors += 1;
         else latencies.push(performance.now() - t);
       } catch {
@@ -95,6 +106,8 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
     p95: percentile(latencies, 95),
     p99: percentile(latencies, 99),
     targetP95Ms,
+    bytes,
+    load: loadAverage(),
   };
 }
 
@@ -108,15 +121,17 @@ if (!captureId) {
 }
 const { evaluations } = await getJson<{ evaluations: { id: string }[] }>(`/api/captures/${captureId}/evaluations`, cookie);
 const evaluationId = evaluations[0]?.id;
+console.log(`load average before: ${loadAverage()}`);
 console.log(`bench:web ${base.origin} · capture ${captureId} · ${clients} clients × ${seconds} s per case (at most ${maxRequests} requests)`);
 
-const cases: Array<[string, string, number]> = [
-  ["GET /api/captures/:id/charts", `/api/captures/${captureId}/charts${evaluationId ? `?evaluation=${evaluationId}` : ""}`, 150],
-  ["GET /captures/:id (sheet page)", `/captures/${captureId}`, 400],
-  ["GET /api/captures/:id", `/api/captures/${captureId}`, 100],
+const cases: Array<[string, string, string, number]> = [
+  ["charts", "GET /api/captures/:id/charts", `/api/captures/${captureId}/charts${evaluationId ? `?evaluation=${evaluationId}` : ""}`, 150],
+  ["sheet", "GET /captures/:id (sheet page)", `/captures/${captureId}`, 400],
+  ["json", "GET /api/captures/:id", `/api/captures/${captureId}`, 100],
 ];
 const results: CaseResult[] = [];
-for (const [name, path, target] of cases) {
+for (const [key, name, path, target] of cases) {
+  if (!caseNames.has(key)) continue;
   // A short warm-up so the first compile/cache fill is not measured.
   await fetch(new URL(path, base), { headers: { cookie }, signal: AbortSignal.timeout(30_000) }).then((r) => r.arrayBuffer()).catch(() => undefined);
   results.push(await runCase(name, path, cookie, target));
@@ -126,8 +141,7 @@ const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(1)} ms` : "—");
 for (const r of results) {
   const verdict = r.count === 0 ? "NO DATA" : r.p95 < r.targetP95Ms ? "within target" : "OVER TARGET";
   console.log(
-    `${r.name.padEnd(34)} n=${String(r.count).padStart(6)}  ${r.perSecond.toFixed(1).padStart(7)}/s  errors ${r.errors}  p50 ${ms(r.p50)}  p95 ${ms(r.p95)}  p99 ${ms(r.p99)}  (p95 target < ${r.targetP95Ms} ms: ${verdict})`,
+    `${r.name.padEnd(34)} n=${String(r.count).padStart(6)}  ${r.perSecond.toFixed(1).padStart(7)}/s  errors ${r.errors}  p50 ${ms(r.p50)}  p95 ${ms(r.p95)}  p99 ${ms(r.p99)}  (p95 target < ${r.targetP95Ms} ms: ${verdict})  ${(r.bytes / 1024).toFixed(1)} kB  load ${r.load}`,
   );
 }
-process.exit(results.some((r) => r.count === 0) ? 1 : 0);
-export {};
+process.exit(results.length === 0 || results.some((r) => r.count === 0) ? 1 : 0);

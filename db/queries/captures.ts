@@ -25,10 +25,12 @@ import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
 import type { HeadlineSource } from "@/lib/reports/headline-numbers";
+import { analysisSummary } from "@/lib/reports/analysis-summary";
 import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
 import { insertAuditEvent } from "./audit";
 import { capturesVisibleTo } from "./scope";
+import { insertSheetParts } from "./sheet";
 
 export const capturesPerPage = 20;
 
@@ -304,6 +306,7 @@ export async function storeAnalysisResult({
       .values({
         captureId,
         result: analysis,
+        summary: analysisSummary(analysis),
         waveform,
         trends: trends ?? null,
         createdBy: actorId,
@@ -325,6 +328,7 @@ export async function storeAnalysisResult({
         createdBy: actorId,
       })
       .returning({ id: evaluations.id });
+    await insertSheetParts({ evaluationId: e!.id, result: evaluation.result }, tx);
     await tx
       .update(captures)
       .set({ status: "done", progressPercent: 100, failureReason: null, updatedAt: new Date() })
@@ -333,36 +337,6 @@ export async function storeAnalysisResult({
     await insertAuditEvent(tx, { actorId, action: "capture.analysed", entityType: "capture", entityId: captureId, details: { verdict: evaluation.result.verdict, evaluationId: e!.id } });
     return { analysisId: a!.id, evaluationId: e!.id };
   });
-}
-
-/**
- * The newest analysis without its per-order and per-window arrays (built in PostgreSQL, so the large
- * document never leaves the database): what the sheet, PDF and CSV need for the headline numbers.
- */
-/** What the sheet needs of an analysis for its headline numbers and set-up, built in PostgreSQL without the per-order data. */
-export type AnalysisSummary = HeadlineSource & { sampleIntervalS: number };
-
-/** One analysis without its per-order arrays (the sheet's headline numbers and set-up), with the set-up and file hash behind it. */
-export async function getAnalysisSummary({ id }: { id: string }): Promise<{
-  id: string;
-  createdAt: Date;
-  result: AnalysisSummary;
-  setup: Record<string, unknown> | null;
-  fileSha256: string | null;
-} | null> {
-  const r = analyses.result;
-  const slim = dsql<AnalysisSummary>`jsonb_build_object(
-    'fundamentalHz', ${r}->'fundamentalHz',
-    'sampleIntervalS', ${r}->'sampleIntervalS',
-    'power', ${r}->'power',
-    'sequence', coalesce((select jsonb_agg(s.v - 'orders' order by s.i) from jsonb_array_elements(coalesce(${r}->'sequence', '[]'::jsonb)) with ordinality as s(v, i)), '[]'::jsonb),
-    'channels', coalesce((select jsonb_agg(c.v - 'harmonics' - 'series' - 'harmonicSeries' - 'groups' order by c.i) from jsonb_array_elements(${r}->'channels') with ordinality as c(v, i)), '[]'::jsonb)
-  )`;
-  const [a] = await db
-    .select({ id: analyses.id, createdAt: analyses.createdAt, result: slim, setup: analyses.setup, fileSha256: analyses.fileSha256 })
-    .from(analyses)
-    .where(eq(analyses.id, id));
-  return a ? { ...a, setup: (a.setup as Record<string, unknown> | null) ?? null, fileSha256: a.fileSha256 ?? null } : null;
 }
 
 export async function latestAnalysis({ captureId }: { captureId: string }) {
@@ -392,6 +366,7 @@ export async function insertEvaluation({
       .insert(evaluations)
       .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, charts, createdBy: actorId })
       .returning({ id: evaluations.id });
+    await insertSheetParts({ evaluationId: e!.id, result }, tx);
     await onNewResult(tx, captureId);
     await insertAuditEvent(tx, { actorId, action: "capture.reevaluate", entityType: "capture", entityId: captureId, details: { evaluationId: e!.id } });
     return e!.id;
@@ -429,20 +404,6 @@ export async function listEvaluations({ captureId }: { captureId: string }): Pro
     .leftJoin(users, eq(users.id, evaluations.createdBy))
     .where(eq(evaluations.captureId, captureId))
     .orderBy(desc(evaluations.createdAt));
-}
-
-/**
- * The precomputed chart data of an evaluation of a capture (the newest when no id is given), with its id.
- * `charts` is null for evaluations stored before the data was precomputed. Reads one row, no analysis.
- */
-export async function getEvaluationCharts({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {
-  const [row] = await db
-    .select({ id: evaluations.id, analysisId: evaluations.analysisId, charts: evaluations.charts })
-    .from(evaluations)
-    .where(and(eq(evaluations.captureId, captureId), evaluationId ? eq(evaluations.id, evaluationId) : undefined))
-    .orderBy(desc(evaluations.createdAt))
-    .limit(1);
-  return row ?? null;
 }
 
 /** Stores chart data computed late for an older evaluation, so the next request reads it. */

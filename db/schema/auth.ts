@@ -1,4 +1,4 @@
-import { boolean, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
+import { boolean, index, integer, pgTable, text, timestamp } from "drizzle-orm/pg-core";
 import { roleEnum } from "./enums";
 import { createdAtColumn, idColumn } from "./columns";
 
@@ -14,15 +14,20 @@ export const users = pgTable("users", {
 });
 
 // Shape required by @lucia-auth/adapter-drizzle.
-export const sessions = pgTable("sessions", {
-  id: text("id").primaryKey(),
-  userId: text("user_id")
-    .notNull()
-    .references(() => users.id, { onDelete: "cascade" }),
-  expiresAt: timestamp("expires_at", { withTimezone: true, mode: "date" }).notNull(),
-  // When the session began: a session ends 7 days after this however active it is (lib/auth/session.ts).
-  createdAt: timestamp("created_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
-});
+export const sessions = pgTable(
+  "sessions",
+  {
+    id: text("id").primaryKey(),
+    userId: text("user_id")
+      .notNull()
+      .references(() => users.id, { onDelete: "cascade" }),
+    expiresAt: timestamp("expires_at", { withTimezone: true, mode: "date" }).notNull(),
+    // When the session began: a session ends 7 days after this however active it is (lib/auth/session.ts).
+    createdAt: timestamp("created_at", { withTimezone: true, mode: "date" }).notNull().defaultNow(),
+  },
+  // A user's sessions are ended together (deactivation, password change).
+  (t) => [index("sessions_user_idx").on(t.userId)],
+);
 
 export const invitations = pgTable("invitations", {
   id: idColumn(),

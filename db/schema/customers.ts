@@ -1,4 +1,4 @@
-import { pgTable, primaryKey, text } from "drizzle-orm/pg-core";
+import { index, pgTable, primaryKey, text } from "drizzle-orm/pg-core";
 import { users } from "./auth";
 import { createdAtColumn, idColumn, requiredRef } from "./columns";
 
@@ -19,7 +19,8 @@ export const customerMembers = pgTable(
       .notNull()
       .references(() => users.id, { onDelete: "cascade" }),
   },
-  (t) => [primaryKey({ columns: [t.customerId, t.userId] })],
+  // By user: the viewers' visibility filter looks up a user's customers on every request.
+  (t) => [primaryKey({ columns: [t.customerId, t.userId] }), index("customer_members_user_idx").on(t.userId)],
 );
 
 export type Customer = typeof customers.$inferSelect;

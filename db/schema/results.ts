@@ -1,7 +1,9 @@
-import { index, jsonb, pgTable, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "@/lib/analysis/types";
-import type { ComplianceResult } from "@/lib/compliance/result";
+import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
+import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
 import type { ChartData } from "@/lib/reports/chart-data";
+import type { ResultHead } from "@/lib/reports/result-head";
 import type { IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
 import { users } from "./auth";
 import { captures } from "./captures";
@@ -21,6 +23,9 @@ export const analyses = pgTable(
     // Interval logs: per-channel trend series with their limits (lib/intervals).
     trends: jsonb("trends").$type<IntervalTrend[]>(),
     waveform: jsonb("waveform").$type<{ timeS: number[]; channels: { name: string; values: number[] }[] }>(),
+    // The result without its per-order and per-window arrays (lib/reports/analysis-summary.ts), written with
+    // the analysis: what the sheet, PDF and CSV read for the headline numbers. \`json\`: read back as written.
+    summary: json("summary").$type<AnalysisSummary>(),
     // The set-up this analysis ran with (mapping, scales, sample interval), who saved it, and the file's SHA-256.
     setup: jsonb("setup").$type<Record<string, unknown>>(),
     setupBy: text("setup_by").references(() => users.id),
@@ -40,14 +45,33 @@ export const evaluations = pgTable(
     analysisId: requiredRef("analysis_id", () => analyses.id, "cascade"),
     limitSetRevisionId: requiredRef("limit_set_revision_id", () => limitSetRevisions.id, "restrict"),
     context: jsonb("context").$type<Record<string, unknown>>().notNull(),
-    result: jsonb("result").$type<ComplianceResult>().notNull(),
+    // \`json\`, not \`jsonb\`: both documents are written once and read whole (never queried inside), and a
+    // \`json\` value comes back as the stored text without conversion — the charts route sends it as it is.
+    result: json("result").$type<ComplianceResult>().notNull(),
     verdict: text("verdict").notNull(),
     // The charts' data (lib/reports/chart-data.ts), built when the evaluation is stored; null for older rows.
-    charts: jsonb("charts").$type<ChartData>(),
+    charts: json("charts").$type<ChartData>(),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAtColumn(),
   },
   (t) => [index("evaluations_capture_idx").on(t.captureId)],
+);
+
+// An evaluation's result split for the sheet page (lib/reports/result-head.ts), written with the evaluation (or
+// on the first view of one stored before): part 0 is the head, parts 1… the channel blocks, worst first, so a
+// page reads the head and one channel. Derived data: never updated (migration 0008 refuses it).
+export const evaluationSheetParts = pgTable(
+  "evaluation_sheet_parts",
+  {
+    evaluationId: uuid("evaluation_id")
+      .notNull()
+      .references(() => evaluations.id, { onDelete: "cascade" }),
+    part: integer("part").notNull(),
+    // The channel of a channel part; null for the head.
+    channel: text("channel"),
+    data: json("data").$type<ResultHead | ChannelCompliance>().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.evaluationId, t.part] })],
 );
 
 export const reviewEvents = pgTable(

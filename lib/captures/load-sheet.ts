@@ -1,67 +1,62 @@
 import "server-only";
 import {
   getApproval,
-  getCaptureById,
-  getEvaluation,
-  getEvaluationCharts,
-  getUserContact,
   getAnalysisById,
-  getAnalysisSummary,
+  getEvaluation,
   latestAnalysis,
   listEvaluations,
   listReviewEvents,
   saveEvaluationCharts,
 } from "@/db/queries/captures";
-import { getRevisionVerification } from "@/db/queries/limit-verifications";
-import { getSiteById } from "@/db/queries/sites";
+import type { VerificationView } from "@/db/queries/limit-verifications";
+import { getSheetCapture, getSheetEvaluation, getSheetView, getVisibleChartsJson } from "@/db/queries/sheet";
 import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { buildChartData } from "@/lib/reports/chart-data";
 
-/**
- * Everything the pass/fail sheet shows, in one plain object: the page, the PDF report,
- * the CSV export and the share page all render from this.
- * By default the approved evaluation while one exists, else the newest. Viewers and share links
- * (`approvedOnly`) see only the approved evaluation of an approved capture — never a newer, unreviewed one.
- * `reader` limits what is visible (viewers: approved sheets of their customers' sites, no internal review comments).
- */
-export async function loadSheet({
-  captureId,
-  evaluationId,
-  reader,
-  approvedOnly = reader.role === "viewer",
-}: {
+interface SheetArgs {
   captureId: string;
   evaluationId?: string;
   reader: Reader;
   approvedOnly?: boolean;
-}) {
-  const capture = await getCaptureById({ id: captureId, reader });
+}
+
+/** An evaluation as a sheet reads it: its analysis summary, its revision's verification, and `P` of it. */
+type ReadEvaluation<P> = (args: { captureId: string; evaluationId?: string }) => Promise<
+  ({ id: string; analysis: NonNullable<Awaited<ReturnType<typeof getSheetEvaluation>>>["analysis"]; verification: VerificationView | null } & P) | null
+>;
+
+/**
+ * Everything the pass/fail sheet shows, in one plain object, with `read`'s part of the shown evaluation.
+ * By default the approved evaluation while one exists, else the newest. Viewers and share links
+ * (`approvedOnly`) see only the approved evaluation of an approved capture — never a newer, unreviewed one.
+ * `reader` limits what is visible (viewers: approved sheets of their customers' sites, no internal review comments).
+ */
+async function loadSheetWith<P extends object>({ captureId, evaluationId, reader, approvedOnly = reader.role === "viewer" }: SheetArgs, read: ReadEvaluation<P>) {
+  // Two round trips: the capture (with its site and uploader) decides what may be read; then the rest at once.
+  const { capture, site, uploaderName } = await getSheetCapture({ id: captureId, reader });
   if (approvedOnly && capture.approvedEvaluationId && evaluationId && evaluationId !== capture.approvedEvaluationId) {
     throw new AppError("not_found", "No such evaluation of this capture.");
   }
   const shownId = evaluationId ?? capture.approvedEvaluationId ?? undefined;
-  const [site, allEvaluations, allReviews, uploader, evaluation, approval] = await Promise.all([
-    getSiteById({ id: capture.siteId, reader }),
+  const [allEvaluations, allReviews, loaded, approval] = await Promise.all([
     listEvaluations({ captureId }),
     canSeeReviewComments(reader) ? listReviewEvents({ captureId }) : Promise.resolve([]),
-    getUserContact({ id: capture.uploadedBy }),
-    getEvaluation({ captureId, evaluationId: shownId }),
+    // The shown evaluation with its analysis summary and its revision's verification, without chart data.
+    read({ captureId, evaluationId: shownId }),
     getApproval({ captureId, evaluationId: capture.approvedEvaluationId }),
   ]);
-  if (evaluationId && !evaluation) throw new AppError("not_found", "No such evaluation of this capture.");
-  const analysis = evaluation ? await getAnalysisSummary({ id: evaluation.analysisId }) : null;
+  if (evaluationId && !loaded) throw new AppError("not_found", "No such evaluation of this capture.");
   // Outside the team only the approved result and its history exist.
   const evaluations = approvedOnly && capture.approvedEvaluationId ? allEvaluations.filter((e) => e.id === capture.approvedEvaluationId) : allEvaluations;
   const reviews = approvedOnly && approval ? allReviews.filter((r) => r.createdAt <= approval.createdAt) : allReviews;
-  const summary = evaluation ? allEvaluations.find((e) => e.id === evaluation.id) ?? null : null;
+  const summary = loaded ? allEvaluations.find((e) => e.id === loaded.id) ?? null : null;
   const newest = allEvaluations[0] ?? null;
-  // Whether the revision this evaluation was judged against has been checked against the printed standard.
-  const limitsVerification = summary ? await getRevisionVerification({ revisionId: summary.revisionId }) : null;
+  const { id: _id, analysis, verification, ...payload } = loaded ?? { id: null, analysis: null, verification: null };
   return {
     capture,
     site,
-    uploaderName: uploader?.name ?? null,
+    uploaderName,
     analysis: analysis
       ? {
           id: analysis.id,
@@ -71,32 +66,60 @@ export async function loadSheet({
           fileSha256: analysis.fileSha256 ?? capture.sha256 ?? null,
         }
       : null,
-    evaluation: evaluation && summary ? { ...summary, result: evaluation.result } : null,
+    evaluation: loaded && summary ? { ...summary, ...(payload as P) } : null,
     /** The approval of the shown evaluation, when it is the approved one. */
-    approval: approval && evaluation && approval.evaluationId === evaluation.id ? approval : null,
+    approval: approval && loaded && approval.evaluationId === loaded.id ? approval : null,
     /** The newest evaluation when it is newer than the approved one the team is looking at. */
     newerResult: !approvedOnly && capture.approvedEvaluationId && newest && newest.id !== capture.approvedEvaluationId ? { id: newest.id, createdAt: newest.createdAt } : null,
     evaluations,
     reviews,
-    limitsVerification,
+    /** Whether the revision this evaluation was judged against has been checked against the printed standard. */
+    limitsVerification: summary ? verification : null,
   };
 }
 
-export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
+/** The sheet with the shown evaluation's whole result: what the PDF report, the CSV export and the comparison render. */
+export function loadSheet(args: SheetArgs) {
+  return loadSheetWith(args, async (a) => getSheetEvaluation(a));
+}
 
 /**
- * The waveform, spectrum and trend data for the charts (loaded by the client through SWR): the data
- * precomputed when the evaluation was stored, read in two queries. The charts follow the shown
- * evaluation: a named one for the team, else the approved one while one exists, else the newest;
- * viewers always get the approved one. Evaluations stored before precomputation get theirs built once here and saved.
+ * The sheet as its page (and the share page) shows it: the shown evaluation's result without its rows
+ * (`result`, lib/reports/result-head.ts) and one channel whole (`shownChannel`: the one named `channel`,
+ * else the first, i.e. worst) — what the page renders and sends, not the whole result.
  */
-export async function loadChartData({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }) {
-  const capture = await getCaptureById({ id: captureId, reader });
-  const named = reader.role === "viewer" && capture.approvedEvaluationId ? undefined : evaluationId;
-  if (reader.role === "viewer" && evaluationId && evaluationId !== capture.approvedEvaluationId) throw new AppError("not_found", "No such evaluation of this capture.");
-  const stored = await getEvaluationCharts({ captureId, evaluationId: named ?? capture.approvedEvaluationId ?? undefined });
+export function loadSheetPage({ channel, ...args }: SheetArgs & { channel?: string }) {
+  return loadSheetWith(args, async (a) => {
+    const view = await getSheetView({ ...a, channel });
+    return view && { id: view.id, analysis: view.analysis, verification: view.verification, result: view.head, shownChannel: view.channel };
+  });
+}
+
+export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
+export type SheetPage = Awaited<ReturnType<typeof loadSheetPage>>;
+
+/** The stored chart JSON of an evaluation with its id as the first member, without parsing it. */
+function withEvaluationId(evaluationId: string, chartsJson: string): string {
+  const body = chartsJson.trim().slice(1);
+  return `{"evaluationId":${JSON.stringify(evaluationId)}${body.trimStart().startsWith("}") ? "" : ","}${body}`;
+}
+
+/**
+ * The waveform, spectrum and trend data for the charts (loaded by the client through SWR), as JSON text:
+ * the data precomputed when the evaluation was stored, sent as stored (never parsed and serialised
+ * again), read in one query with the capture's visibility. The charts follow the shown evaluation: a
+ * named one for the team, else the approved one while one exists, else the newest; viewers always get
+ * the approved one. Evaluations stored before precomputation get theirs built once here and saved.
+ * `evaluationId` is the evaluation the data belongs to (the response's validator).
+ */
+export async function loadChartJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{ evaluationId: string | null; json: string }> {
+  const viewer = reader.role === "viewer";
+  const found = await getVisibleChartsJson({ captureId, reader, evaluationId: viewer ? undefined : evaluationId });
+  if (!found) throw new AppError("not_found", "No such capture.");
+  if (viewer && evaluationId && evaluationId !== found.approvedEvaluationId) throw new AppError("not_found", "No such evaluation of this capture.");
+  const stored = found.evaluation;
   if (evaluationId && !stored) throw new AppError("not_found", "No such evaluation of this capture.");
-  if (stored?.charts) return { evaluationId: stored.id, ...stored.charts };
+  if (stored?.chartsJson) return { evaluationId: stored.id, json: withEvaluationId(stored.id, stored.chartsJson) };
   const [analysis, evaluation] = await Promise.all([
     stored ? getAnalysisById({ id: stored.analysisId }) : latestAnalysis({ captureId }),
     stored ? getEvaluation({ captureId, evaluationId: stored.id }) : null,
@@ -104,7 +127,5 @@ export async function loadChartData({ captureId, reader, evaluationId }: { captu
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
   const charts = buildChartData({ analysis: analysis.result, waveform: analysis.waveform ?? null, trends: analysis.trends ?? null, evaluation: evaluation?.result ?? null });
   if (stored && stored.analysisId === analysis.id) await saveEvaluationCharts({ evaluationId: stored.id, charts });
-  return { evaluationId: stored?.id ?? null, ...charts };
+  return { evaluationId: stored?.id ?? null, json: JSON.stringify({ evaluationId: stored?.id ?? null, ...charts }) };
 }
-
-export type ChartData = Awaited<ReturnType<typeof loadChartData>>;

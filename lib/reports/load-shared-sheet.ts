@@ -2,7 +2,7 @@ import "server-only";
 import { z } from "zod";
 import { findShareLink } from "@/db/queries/captures";
 import { hashToken } from "@/db/queries/users";
-import { loadChartData, loadSheet } from "@/lib/captures/load-sheet";
+import { loadChartJson, loadSheet, loadSheetPage } from "@/lib/captures/load-sheet";
 import { systemReader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 
@@ -33,8 +33,14 @@ export async function loadSharedSheet({ token }: { token: string }) {
   return { ...(await loadSheet({ captureId, reader: systemReader, approvedOnly: true })), shareExpiresAt: expiresAt };
 }
 
+/** The shared sheet as its page shows it (lib/captures/load-sheet.ts, loadSheetPage): one channel, named or the worst. */
+export async function loadSharedSheetPage({ token, channel }: { token: string; channel?: string }) {
+  const { captureId, expiresAt } = await sharedLink(token);
+  return { ...(await loadSheetPage({ captureId, reader: systemReader, approvedOnly: true, channel })), shareExpiresAt: expiresAt };
+}
+
 /** Chart data for a share link, with the same check as the sheet. */
 export async function loadSharedChartData({ token }: { token: string }) {
   const captureId = await sharedCaptureId(token);
-  return loadChartData({ captureId, reader: systemReader });
+  return loadChartJson({ captureId, reader: systemReader });
 }

@@ -1,7 +1,7 @@
 // The part of a loaded sheet (lib/captures/load-sheet.ts) that the PDF and CSV builders read.
 // Structural, so `loadSheet(...)` results fit and unit tests can build one by hand.
 import type { AnalysisResult } from "@/lib/analysis/types";
-import type { ComplianceResult } from "@/lib/compliance/result";
+import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import type { HeadlineSource } from "./headline-numbers";
 import type { RevisionVerification } from "./limits-line";
 
@@ -44,7 +44,7 @@ export interface SheetReport {
 export type ChannelBlock = ReturnType<typeof channelBlocks>[number];
 
 /** The channel blocks of a result: every evaluated channel, or the top level when none are listed. */
-export function channelBlocks(result: ComplianceResult) {
+export function channelBlocks(result: ComplianceResult): ChannelCompliance[] {
   if (result.channels.length > 0) return result.channels;
   return [
     {
@@ -55,7 +55,9 @@ export function channelBlocks(result: ComplianceResult) {
       aggregates: result.aggregates,
       conditions: result.conditions,
       verdict: result.verdict,
-      derived: { notes: [] as string[] },
+      derived: { notes: [] },
+      ...(result.timeRules ? { timeRules: result.timeRules } : {}),
+      ...(result.power ? { power: result.power } : {}),
     },
   ];
 }

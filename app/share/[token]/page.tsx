@@ -2,20 +2,28 @@ import type { Metadata } from "next";
 import { notFound } from "next/navigation";
 import { SafetyFooter, SafetyNote } from "@/app/_components/safety-note";
 import { formatWhen, reviewActionLabels } from "@/lib/reports/format";
-import { loadSharedSheet } from "@/lib/reports/load-shared-sheet";
+import { loadSharedSheetPage } from "@/lib/reports/load-shared-sheet";
 import { HeadlineSummary } from "@/app/(app)/captures/[id]/_components/headline-summary";
 import { LimitsLine } from "@/app/(app)/captures/[id]/_components/limits-line";
 import { SheetBody } from "@/app/(app)/captures/[id]/_components/sheet-body";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
+import { sheetBodyData } from "@/lib/reports/sheet-body-data";
 import { SheetHeader, SheetNotes } from "@/app/(app)/captures/[id]/_components/sheet-header";
 import { orNotFound } from "@/lib/auth/page";
 
 export const metadata: Metadata = { title: "Shared sheet", robots: { index: false, follow: false } };
 
 /** A read-only sheet opened with a share link: no session, no actions, no way into the rest of the app. */
-export default async function SharedSheetPage({ params }: { params: Promise<{ token: string }> }) {
+export default async function SharedSheetPage({
+  params,
+  searchParams,
+}: {
+  params: Promise<{ token: string }>;
+  searchParams: Promise<Record<string, string | string[] | undefined>>;
+}) {
   const { token } = await params;
-  const sheet = await orNotFound(loadSharedSheet({ token }));
+  const { channel } = await searchParams;
+  const sheet = await orNotFound(loadSharedSheetPage({ token, channel: typeof channel === "string" ? channel : undefined }));
   const evaluation = sheet.evaluation;
   if (!evaluation) notFound();
   const signOffs = sheet.reviews.filter((r) => r.action !== "comment");
@@ -40,7 +48,7 @@ export default async function SharedSheetPage({ params }: { params: Promise<{ to
           <SafetyNote />
         </div>
         <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-        <SheetBody result={evaluation.result} chartsUrl={`/api/shared/${token}/charts`} />
+        {evaluation.shownChannel && <SheetBody data={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/shared/${token}/charts`} />}
         <SheetNotes notes={evaluation.result.notes} />
         <section className="panel text-sm" data-testid="shared-signoff">
           <h2 className="mb-2">Sign-off</h2>

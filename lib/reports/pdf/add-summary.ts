@@ -76,7 +76,7 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
   const setupRows = describeSetup(sheet);
   if (setupRows.length > 0) {
     w.heading("Set-up behind this result");
-    w.keyValues(setupRows);
+    w.keyValues(setupRows.map(([label, value]): [string, string] => [label, value]));
   }
 
   w.heading("Evaluation context");

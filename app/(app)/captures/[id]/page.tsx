@@ -2,13 +2,15 @@ import Link from "next/link";
 import { z } from "zod";
 import { SafetyNote } from "@/app/_components/safety-note";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import { getEvaluation, listCaptures, listLimitSetChoices } from "@/db/queries/captures";
+import { listLimitSetChoices } from "@/db/queries/captures";
+import { getSheetView, listSiteSiblings } from "@/db/queries/sheet";
 import { orNotFound, requirePage, uuidOr404 } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
-import { loadSheet } from "@/lib/captures/load-sheet";
+import { loadSheetPage } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { formatWhen, reviewStateLabels, summariseContext } from "@/lib/reports/format";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
+import { sheetBodyData } from "@/lib/reports/sheet-body-data";
 import { CaptureActions } from "./_components/capture-actions";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
@@ -34,7 +36,8 @@ export default async function CaptureSheetPage({
   const query = await searchParams;
   uuidOr404(id);
   const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
-  const sheet = await orNotFound(loadSheet({ captureId: id, evaluationId: requested, reader: user }));
+  const channel = typeof query.channel === "string" ? query.channel : undefined;
+  const sheet = await orNotFound(loadSheetPage({ captureId: id, evaluationId: requested, reader: user, channel }));
   const { capture, evaluation } = sheet;
 
   // An approved result stays on show while a newer analysis is queued, running or failed.
@@ -75,19 +78,18 @@ export default async function CaptureSheetPage({
   const latestId = sheet.evaluations[0]?.id ?? null;
   const canReview = can(user.role, "captures:review");
   const canShare = can(user.role, "captures:share");
-  const [limitSets, siblings] = await Promise.all([
+  // The evaluation made just before the shown one, to show the two side by side.
+  const shownIndex = sheet.evaluations.findIndex((e) => e.id === evaluation.id);
+  const previousSummary = shownIndex >= 0 ? sheet.evaluations[shownIndex + 1] : undefined;
+  const [limitSets, others, previous] = await Promise.all([
     canReview ? listLimitSetChoices() : Promise.resolve([]),
-    listCaptures({ query: { site: capture.siteId, status: "done", page: 1 }, reader: user }),
+    listSiteSiblings({ siteId: capture.siteId, exceptId: capture.id, reader: user }),
+    previousSummary ? getSheetView({ captureId: capture.id, evaluationId: previousSummary.id, channel: null }) : null,
   ]);
-  const others = siblings.items.filter((c) => c.id !== capture.id);
   // The sheet's default is the approved evaluation while one exists, else the newest.
   const defaultId = capture.approvedEvaluationId ?? latestId;
   const evalQuery = evaluation.id !== defaultId ? `?evaluation=${evaluation.id}` : "";
   const context = EvaluationContextSchema.safeParse(evaluation.context);
-  // The evaluation made just before the shown one, to show the two side by side.
-  const shownIndex = sheet.evaluations.findIndex((e) => e.id === evaluation.id);
-  const previousSummary = shownIndex >= 0 ? sheet.evaluations[shownIndex + 1] : undefined;
-  const previous = previousSummary ? await getEvaluation({ captureId: capture.id, evaluationId: previousSummary.id }) : null;
 
   return (
     <div className="space-y-4">
@@ -129,9 +131,9 @@ export default async function CaptureSheetPage({
         <section className="panel grid gap-3 text-sm sm:grid-cols-2" data-testid="evaluation-pair">
           {[
             { title: "This evaluation", summary: evaluation, result: evaluation.result, href: null },
-            { title: "The one before", summary: previousSummary, result: previous.result, href: `/captures/${capture.id}?evaluation=${previousSummary.id}` },
+            { title: "The one before", summary: previousSummary, result: previous.head, href: `/captures/${capture.id}?evaluation=${previousSummary.id}` },
           ].map((side) => {
-            const failing = side.result.rows.filter((r) => r.verdict === "fail").map((r) => `h${r.order}`);
+            const failing = side.result.failingOrders.map((order) => `h${order}`);
             return (
               <div key={side.title} className="min-w-0">
                 <p className="text-xs uppercase tracking-wide text-ink-muted">{side.title}</p>
@@ -155,7 +157,7 @@ export default async function CaptureSheetPage({
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
           <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-          <SheetBody result={evaluation.result} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />
+          {evaluation.shownChannel && <SheetBody data={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />}
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 

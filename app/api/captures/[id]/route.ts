@@ -1,14 +1,15 @@
 import { NextResponse } from "next/server";
-import { getCaptureById, switchCaptureKind, withdrawCapture } from "@/db/queries/captures";
+import { switchCaptureKind, withdrawCapture } from "@/db/queries/captures";
+import { getCaptureStatus } from "@/db/queries/sheet";
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { switchKindSchema } from "@/lib/validations/capture";
 
-// GET /api/captures/:id — one capture with its status and progress
+// GET /api/captures/:id — one capture's identity, status and progress (what the progress view polls; not its set-up)
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    return NextResponse.json({ capture: await getCaptureById({ id, reader: user }) });
+    return NextResponse.json({ capture: await getCaptureStatus({ id, reader: user }) });
   },
   { permission: "captures:read" },
 );

@@ -5,7 +5,7 @@ import { mutate } from "swr";
 import { SpectrumChart } from "@/app/_components/charts/spectrum-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { EvaluationContext } from "@/lib/compliance/model";
-import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
+import type { ChannelCompliance } from "@/lib/compliance/result";
 import { FAMILY_LABELS, PARAMETER_LABELS } from "@/lib/frontends/family-labels";
 import { describeMitigation } from "@/lib/mitigation/describe-mitigation";
 import type { MitigationStudyInputs } from "@/lib/mitigation/study-inputs";
@@ -23,7 +23,7 @@ const fmt = (v: number | null | undefined, digits = 3): string => (v == null ? "
  * a "try a fix" form with the predicted spectrum and verdicts, and the capture's saved studies.
  * Nothing shows on share pages (their charts URL is not a capture's).
  */
-export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult }) {
+export function MitigationPanels({ chartsUrl, channel, context }: { chartsUrl: string; channel: ChannelCompliance; context: EvaluationContext }) {
   // The sheet's charts URL carries the shown evaluation as a query (…/charts?evaluation=…); only its path names the capture.
   const [chartsPath, query] = chartsUrl.split("?") as [string, string | undefined];
   const base = chartsPath.startsWith("/api/captures/") && chartsPath.endsWith("/charts") ? chartsPath.slice(0, -"/charts".length) : null;
@@ -37,7 +37,7 @@ export function MitigationPanels({ chartsUrl, channel, result }: { chartsUrl: st
     <div className="space-y-4" data-testid="mitigation-panels">
       <LikelySource base={base} evaluationId={evaluationId} channelName={channel.channel} />
       {/* Viewers read the saved studies of the approved sheet but run no new what-ifs. */}
-      {studies?.canTryFix && <TryFix base={base} evaluationId={evaluationId} approved={evaluationId !== null && evaluationId === studies.approvedEvaluationId} channel={channel} context={result.context} />}
+      {studies?.canTryFix && <TryFix base={base} evaluationId={evaluationId} approved={evaluationId !== null && evaluationId === studies.approvedEvaluationId} channel={channel} context={context} />}
       <SavedStudies base={base} evaluationId={evaluationId} />
     </div>
   );

@@ -1,5 +1,7 @@
 "use client";
 
+import Link from "next/link";
+import { usePathname, useSearchParams } from "next/navigation";
 import { useMemo, useState } from "react";
 import { IntervalTrendChart } from "@/app/_components/charts/interval-trend-chart";
 import { OrderTrendChart } from "@/app/_components/charts/order-trend-chart";
@@ -7,9 +9,11 @@ import { SpectrumChart, type SpectrumMode } from "@/app/_components/charts/spect
 import { TrendChart } from "@/app/_components/charts/trend-chart";
 import { WaveformChart } from "@/app/_components/charts/waveform-chart";
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
+import type { EvaluationContext } from "@/lib/compliance/model";
+import type { ChannelCompliance } from "@/lib/compliance/result";
 import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
 import { conditionReasonText, powerChoiceRows } from "@/lib/reports/result-wording";
+import type { SheetBodyData } from "@/lib/reports/sheet-body-data";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -19,19 +23,21 @@ import { OrderCards } from "./order-cards";
 import { OrderTable } from "./order-table";
 import { TimeRulesPanel } from "./time-rules-panel";
 
-function channelsOf(result: ComplianceResult): ChannelCompliance[] {
-  if (result.channels.length > 0) return result.channels;
-  return [{ channel: result.channel ?? "—", phase: null, band: result.band, rows: result.rows, aggregates: result.aggregates, conditions: result.conditions, verdict: result.verdict, derived: { notes: [] }, ...(result.timeRules ? { timeRules: result.timeRules } : {}) }];
-}
-
 /**
  * The interactive part of a sheet: channel/phase selector, aggregates, charts and the per-order
- * table of the chosen channel. Used by the signed-in sheet and the read-only share page.
+ * table of the chosen channel. Used by the signed-in sheet and the read-only share page. It gets the
+ * shown channel only (lib/reports/sheet-body-data.ts); choosing another one is a link (`?channel=`),
+ * which the server answers with that channel's data.
  */
-export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; chartsUrl: string }) {
-  const channels = useMemo(() => channelsOf(result), [result]);
-  const [selected, setSelected] = useState(channels[0]?.channel ?? "");
-  const channel = channels.find((c) => c.channel === selected) ?? channels[0]!;
+export function SheetBody({ data, chartsUrl }: { data: SheetBodyData; chartsUrl: string }) {
+  const { channels, channel } = data;
+  const pathname = usePathname();
+  const searchParams = useSearchParams();
+  const channelHref = (name: string) => {
+    const query = new URLSearchParams(searchParams.toString());
+    query.set("channel", name);
+    return `${pathname}?${query.toString()}`;
+  };
   const reasons = groupReasons(channel.rows);
   const rules = useMemo(() => timeRuleLines(channel.timeRules, channel.rows, channel.aggregates), [channel]);
   return (
@@ -40,18 +46,19 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
         <div className="flex flex-wrap items-center gap-2" role="group" aria-label="Channel" data-testid="channel-select">
           <span className="text-sm text-ink-soft">Channel</span>
           {channels.map((c) => (
-            <button
+            <Link
               key={c.channel}
-              type="button"
-              onClick={() => setSelected(c.channel)}
-              aria-pressed={c.channel === channel.channel}
+              href={channelHref(c.channel)}
+              scroll={false}
+              replace
+              aria-current={c.channel === channel.channel ? "true" : undefined}
               data-testid={`channel-${c.channel}`}
               className={`inline-flex items-center gap-2 rounded-md border px-2.5 py-1.5 text-sm ${c.channel === channel.channel ? "border-copper bg-copper-light font-semibold" : "border-line bg-paper-raised hover:bg-paper-sunk"}`}
             >
               {c.channel}
               {c.phase ? <span className="text-ink-muted">phase {c.phase.toUpperCase()}</span> : null}
               <VerdictBadge verdict={c.verdict} testId={`channel-verdict-${c.channel}`} />
-            </button>
+            </Link>
           ))}
         </div>
       )}
@@ -78,9 +85,9 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
 
       <AggregateCards aggregates={channel.aggregates} />
 
-      <SheetCharts chartsUrl={chartsUrl} channel={channel} result={result} smoothing={rules.some((r) => r.interval === "1.5 s smoothed")} />
+      <SheetCharts chartsUrl={chartsUrl} channel={channel} context={data.context} smoothing={rules.some((r) => r.interval === "1.5 s smoothed")} />
 
-      <TimeRulesPanel key={`rules-${channel.channel}`} rules={rules} basis={result.timeBasis} channelName={channel.channel} />
+      <TimeRulesPanel key={`rules-${channel.channel}`} rules={rules} basis={data.timeBasis} channelName={channel.channel} />
 
       {/* Wide screens: the sortable table. Phones: one card per order, no sideways scrolling. */}
       <section className="panel hidden p-0 sm:p-0 md:block" aria-labelledby="orders-heading">
@@ -90,7 +97,7 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
         <OrderCards key={`cards-${channel.channel}`} rows={channel.rows} channelName={channel.channel} />
       </div>
 
-      <MitigationPanels key={`fix-${channel.channel}`} chartsUrl={chartsUrl} channel={channel} result={result} />
+      <MitigationPanels key={`fix-${channel.channel}`} chartsUrl={chartsUrl} channel={channel} context={data.context} />
       {reasons.length > 0 && (
         <section className="panel text-sm" data-testid="row-reasons">
           <h2 className="mb-2">Why some orders are not a plain pass or fail</h2>
@@ -120,12 +127,12 @@ export function SheetBody({ result, chartsUrl }: { result: ComplianceResult; cha
   );
 }
 
-function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: string; channel: ChannelCompliance; result: ComplianceResult; smoothing: boolean }) {
-  const ilA = result.context.ilA;
+function SheetCharts({ chartsUrl, channel, context, smoothing }: { chartsUrl: string; channel: ChannelCompliance; context: EvaluationContext; smoothing: boolean }) {
+  const ilA = context.ilA;
   // The bases the evaluator divided by, so %IL / %Iref / %Vnom rows decided by a time rule draw at the channel's scale.
   const spectrumScale = useMemo(
-    () => ({ ilA: result.context.ilA, irefA: channel.derived.irefA ?? result.context.irefA, nominalVoltageV: result.context.nominalVoltageV }),
-    [result.context.ilA, result.context.irefA, result.context.nominalVoltageV, channel.derived.irefA],
+    () => ({ ilA: context.ilA, irefA: channel.derived.irefA ?? context.irefA, nominalVoltageV: context.nominalVoltageV }),
+    [context.ilA, context.irefA, context.nominalVoltageV, channel.derived.irefA],
   );
   const { data, error, isLoading } = useCaptureCharts(chartsUrl);
   const [mode, setMode] = useState<SpectrumMode>("amperes");
@@ -230,7 +237,7 @@ function SheetCharts({ chartsUrl, channel, result, smoothing }: { chartsUrl: str
               series={orderSeries}
               row={trendRow}
               windowDurationS={data.windowDurationS}
-              context={result.context}
+              context={context}
               irefA={channel.derived.irefA}
               showSmoothed={smoothing}
             />

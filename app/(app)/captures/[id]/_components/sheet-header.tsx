@@ -1,11 +1,11 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
-import type { Sheet } from "@/lib/captures/load-sheet";
+import type { Sheet, SheetPage } from "@/lib/captures/load-sheet";
 import { describeSetup } from "@/lib/reports/describe-setup";
 import { describeSignOff } from "@/lib/reports/describe-sign-off";
 import { describeContext, formatWhen } from "@/lib/reports/format";
 
 /** Who, what, when and against which limits: the top of every sheet (signed-in and shared). */
-export function SheetHeader({ sheet }: { sheet: Sheet }) {
+export function SheetHeader({ sheet }: { sheet: Sheet | SheetPage }) {
   const { capture, site, evaluation } = sheet;
   if (!evaluation) return null;
   const result = evaluation.result;
