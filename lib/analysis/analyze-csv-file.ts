@@ -1,6 +1,7 @@
 // Analyses a CSV file on disk in two streaming passes, with memory that does not grow with the
 // record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
-// parses again and analyses each window from a ring buffer as soon as its samples are in.
+// replays the rows pass 1 kept (when they fit KEEP_ROWS_BYTES) or parses the file again, and analyses
+// each window from a ring buffer as soon as its samples are in.
 import { analyzeImported } from "./analyze-imported";
 import type { StageTimings } from "./analyze-samples";
 import { assembleAnalysisResult } from "./assemble-analysis-result";
@@ -14,6 +15,7 @@ import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
 import { RowCollector } from "./row-collector";
+import { RowStore } from "./row-store";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
 import { SecondPass, STEP_MESSAGE } from "./stream-second-pass";
@@ -22,13 +24,25 @@ import { WindowAnalyzer } from "./window-analyzer";
 
 /** Timings of the streaming path: pass 1 is `importMs`; pass 2's parsing is `rereadMs`. */
 export interface StreamTimings extends StageTimings {
-  /** Pass 2 minus the time spent in windows: re-parsing, time-axis and clipping checks. */
+  /** Pass 2 minus the time spent in windows: replaying the kept rows or re-parsing, time-axis and clipping checks. */
   rereadMs?: number;
 }
 
-/** Internal knobs, for tests: the frequency segment (default 2^18 samples) sets the look-ahead (two segments). */
+/**
+ * Pass 1's parsed rows are kept for pass 2 when the record's numbers (8 bytes each, time column
+ * included) are estimated to fit in this many bytes: 64 MiB holds a 60 s, 4-channel record at
+ * 25.6 kS/s with its time column (61 MB). Longer records are read twice, so memory stays bounded.
+ */
+export const KEEP_ROWS_BYTES = 64 * 2 ** 20;
+
+/**
+ * Internal knobs, for tests: the frequency segment (default 2^18 samples) sets the look-ahead (two
+ * segments); `keepRowsBytes` (default {@link KEEP_ROWS_BYTES}; 0 reads the file twice) the budget
+ * for keeping pass 1's rows.
+ */
 export interface StreamTuning {
   segmentSamples?: number;
+  keepRowsBytes?: number;
 }
 
 /**
@@ -40,12 +54,16 @@ export interface StreamTuning {
  * passes: pass 1 parses every row (every parse error with its line), fits the time axis
  * incrementally, checks monotonicity, accumulates each channel's extremes and r.m.s., and
  * measures the fundamental per segment and tracks its phase (so each window spans whole cycles
- * of its own fundamental); pass 2 parses again, checks steps/residuals against the
- * whole-record fit and clipping runs against the extremes, and analyses each 10/12-cycle window
- * from a ring buffer as soon as its samples are in. Only per-window numbers are kept.
+ * of its own fundamental); pass 2 takes the same rows again — replayed from memory when pass 1
+ * could keep them within {@link KEEP_ROWS_BYTES} (judged from the file's size and its head's row
+ * length), else parsed from the file again — checks steps/residuals against the whole-record fit
+ * and clipping runs against the extremes, and analyses each 10/12-cycle window from a ring buffer
+ * as soon as its samples are in. Only per-window numbers are kept. Either way pass 2 sees the same
+ * numbers in the same chunks, so the result does not depend on which.
  *
- * Complexity O(file size) twice + O(samples·taps); memory ≈ 16 B × (channels + 1) × 2^19 for the
- * look-ahead, a 128 k-sample ring per channel, plus ≈ 52 numbers per channel per window.
+ * Complexity O(file size) once or twice + O(samples·taps); memory ≈ 16 B × (channels + 1) × 2^19
+ * for the look-ahead, at most {@link KEEP_ROWS_BYTES} of kept rows, a 128 k-sample ring per
+ * channel, plus ≈ 52 numbers per channel per window.
  *
  * @param timings filled with milliseconds per stage (importMs = pass 1, rereadMs = pass 2 parsing).
  * @throws AnalysisInputError for every input problem, with `line`/`column` where it applies.
@@ -64,7 +82,7 @@ export async function analyzeCsvFile(
     ...(options.channels ? { channels: options.channels } : {}),
   };
   checkOverrides(importOptions);
-  const { head, layout } = await readCsvHead(path);
+  const { head, layout, estimatedRows } = await readCsvHead(path);
   const columns = planColumns(layout, options.channels);
   const channelColumns = columns.filter((c) => c.role === "channel");
   const timeColumn = columns.find((c) => c.role === "time");
@@ -82,7 +100,11 @@ export async function analyzeCsvFile(
     stated,
     (timeColumn?.index ?? 0) + 1,
   );
-  collector1 = new RowCollector(layout, columns, first);
+  // Keep the rows for pass 2 when the whole record is expected to fit the budget (else read it twice).
+  const keepRowsBytes = tuning.keepRowsBytes ?? KEEP_ROWS_BYTES;
+  const expectedBytes = 8 * estimatedRows * (channelColumns.length + (timeColumn ? 1 : 0));
+  const store = new RowStore(first, expectedBytes <= keepRowsBytes ? keepRowsBytes : 0);
+  collector1 = new RowCollector(layout, columns, store);
   await readCsvRows(path, head, collector1);
 
   if (!first.streaming) {
@@ -192,10 +214,16 @@ export async function analyzeCsvFile(
     : null;
   let collector2: RowCollector | undefined;
   const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
-  collector2 = new RowCollector(layout, columns, second);
-  await readCsvRows(path, head, collector2);
-  if (collector2.rows !== n) {
-    throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+  if (store.complete) {
+    // The rows pass 1 kept, replayed: the same chunks the file would give again.
+    collector2 = collector1;
+    await store.replay(second);
+  } else {
+    collector2 = new RowCollector(layout, columns, second);
+    await readCsvRows(path, head, collector2);
+    if (collector2.rows !== n) {
+      throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+    }
   }
   second.drain();
   if (second.residualError) throw second.residualError;
