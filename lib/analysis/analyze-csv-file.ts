@@ -14,8 +14,8 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
+import { replayRows } from "./replay-rows";
 import { RowCollector } from "./row-collector";
-import { RowStore } from "./row-store";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
 import { SecondPass, STEP_MESSAGE } from "./stream-second-pass";
@@ -90,6 +90,8 @@ export async function analyzeCsvFile(
   const firstVoltage = channelColumns.findIndex((c) => c.quantity === "voltage");
   const estimation = firstVoltage >= 0 ? [firstVoltage] : channelColumns.map((_, i) => i);
   const stated = options.sampleIntervalS ?? intervalFromPreamble(layout.preamble, layout.decimalComma)?.sampleIntervalS ?? null;
+  // Keep the rows for pass 2 when the whole record is expected to fit the budget (else read it twice).
+  const keepRows = Math.floor((tuning.keepRowsBytes ?? KEEP_ROWS_BYTES) / (8 * (channelColumns.length + (timeColumn ? 1 : 0))));
   let collector1: RowCollector | undefined;
   const first = new FirstPass(
     () => collector1!,
@@ -99,12 +101,9 @@ export async function analyzeCsvFile(
     segmentSamples,
     stated,
     (timeColumn?.index ?? 0) + 1,
+    estimatedRows <= keepRows ? keepRows : 0,
   );
-  // Keep the rows for pass 2 when the whole record is expected to fit the budget (else read it twice).
-  const keepRowsBytes = tuning.keepRowsBytes ?? KEEP_ROWS_BYTES;
-  const expectedBytes = 8 * estimatedRows * (channelColumns.length + (timeColumn ? 1 : 0));
-  const store = new RowStore(first, expectedBytes <= keepRowsBytes ? keepRowsBytes : 0);
-  collector1 = new RowCollector(layout, columns, store);
+  collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);
 
   if (!first.streaming) {
@@ -214,10 +213,10 @@ export async function analyzeCsvFile(
     : null;
   let collector2: RowCollector | undefined;
   const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
-  if (store.complete) {
+  if (first.kept) {
     // The rows pass 1 kept, replayed: the same chunks the file would give again.
     collector2 = collector1;
-    await store.replay(second);
+    await replayRows(first.kept, n, second);
   } else {
     collector2 = new RowCollector(layout, columns, second);
     await readCsvRows(path, head, collector2);

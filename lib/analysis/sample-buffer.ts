@@ -37,6 +37,11 @@ export class SampleBuffer {
     this.length += count;
   }
 
+  /** The stored values as a view, never a copy (valid until the next push or append). */
+  view(): Float64Array {
+    return this.data.subarray(0, this.length);
+  }
+
   /** The stored values (a view; trimmed copy when the spare capacity is large). */
   values(): Float64Array {
     return this.length < this.data.length * 0.75 ? this.data.slice(0, this.length) : this.data.subarray(0, this.length);

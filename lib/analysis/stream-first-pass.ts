@@ -22,7 +22,13 @@ export interface PendingError {
  * through that segment (the windows' boundaries come from the reference channel's track).
  */
 export class FirstPass implements RowSink {
+  /** The look-ahead, until the record outgrows it. */
   memory: MemorySink | null;
+  /**
+   * Every row so far (the look-ahead kept on), while the record stays within `keepRows` rows:
+   * pass 2 then replays them instead of reading the file again. Null once over.
+   */
+  kept: MemorySink | null = null;
   streaming = false;
   /** Least-squares line t = start + interval·row over the whole time column. */
   readonly fit = new LineFit();
@@ -50,8 +56,10 @@ export class FirstPass implements RowSink {
     private readonly segmentSamples: number,
     private readonly statedIntervalS: number | null,
     private readonly timeColumn: number,
+    /** Rows to keep for pass 2 at most (0: none); the look-ahead is sized for them (untouched memory costs nothing). */
+    private readonly keepRows = 0,
   ) {
-    this.memory = new MemorySink(channelCount, hasTime, 2 * segmentSamples + ROW_CHUNK);
+    this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows));
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.ratios = estimation.map(() => []);
     this.trackers = estimation.map(() => new PhaseTracker());
@@ -65,15 +73,20 @@ export class FirstPass implements RowSink {
       if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
       return;
     }
+    if (this.kept) {
+      if (this.rows <= this.keepRows) this.kept.accept(timesS, values, count);
+      else this.kept = null;
+    }
     this.stream(timesS, values, count, firstRow);
   }
 
   private switchToStreaming(): void {
     const memory = this.memory!;
     this.memory = null;
+    this.kept = this.rows <= this.keepRows ? memory : null;
     this.streaming = true;
     const rows = this.rows;
-    const times = memory.times?.values() ?? null;
+    const times = memory.times?.view() ?? null;
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
       const fit = new LineFit();
@@ -85,7 +98,7 @@ export class FirstPass implements RowSink {
     if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
     this.stream(
       times,
-      memory.channels.map((c) => c.values()),
+      memory.channels.map((c) => c.view()),
       rows,
       0,
     );
