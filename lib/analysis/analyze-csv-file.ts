@@ -183,15 +183,15 @@ export async function analyzeCsvFile(
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
   if (timings) timings.checksMs = performance.now() - clock;
   clock = performance.now();
-  const ratios = first.ratios[estimation.indexOf(reference)]!;
+  const ratios = first.estimator.ratios[estimation.indexOf(reference)]!;
   const segmentHz = ratios.map((r) => {
     if (r instanceof AnalysisInputError) throw r;
     return r * sampleRateHz;
   });
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.trackers[estimation.indexOf(reference)]!.finish());
-  if (timings) timings.fundamentalMs = first.fundamentalMs + performance.now() - clock;
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.estimator.trackers[estimation.indexOf(reference)]!.finish());
+  if (timings) timings.fundamentalMs = first.estimator.fundamentalMs + performance.now() - clock;
 
   // Pass 2.
   const secondStarted = performance.now();

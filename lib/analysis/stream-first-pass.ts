@@ -1,13 +1,12 @@
 // Pass 1 of the streaming CSV analysis (see analyze-csv-file.ts): parse and check every row, fit the time
 // axis, and measure and track the fundamental per segment.
 import { ChannelScan } from "./channel-scan";
-import { AnalysisInputError } from "./errors";
-import { estimateFundamental } from "./estimate-fundamental";
+import type { AnalysisInputError } from "./errors";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { MemorySink } from "./import-csv";
 import { LineFit } from "./line-fit";
-import { PhaseTracker } from "./phase-tracker";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
+import { SegmentEstimator } from "./segment-estimator";
 
 export interface PendingError {
   row: number;
@@ -35,11 +34,8 @@ export class FirstPass implements RowSink {
   firstTimeS = Number.NaN;
   rows = 0;
   readonly scans: ChannelScan[];
-  /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
-  readonly ratios: (number | AnalysisInputError)[][];
-  /** The fundamental's phase through the record, per estimation channel (fed segment by segment, as the in-memory path does). */
-  readonly trackers: PhaseTracker[];
-  fundamentalMs = 0;
+  /** Each segment's fundamental and the phase track, per estimation channel (fed segment by segment, as the in-memory path does). */
+  readonly estimator: SegmentEstimator;
   private provisionalRateHz = 0;
   private previousTimeS = Number.NaN;
   monotonicError: PendingError | null = null;
@@ -61,8 +57,7 @@ export class FirstPass implements RowSink {
   ) {
     this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows));
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
-    this.ratios = estimation.map(() => []);
-    this.trackers = estimation.map(() => new PhaseTracker());
+    this.estimator = new SegmentEstimator(estimation.length);
     this.segmentBuffers = estimation.map(() => new Float64Array(2 * segmentSamples));
   }
 
@@ -144,26 +139,8 @@ export class FirstPass implements RowSink {
   }
 
   private estimate(length: number): void {
-    const started = performance.now();
-    for (let e = 0; e < this.estimation.length; e++) {
-      const list = this.ratios[e]!;
-      if (list.some((r) => r instanceof AnalysisInputError)) continue;
-      // No usable rate yet (no interval stated, or a broken time axis): the error is reported after pass 1.
-      if (!(this.provisionalRateHz > 0)) {
-        list.push(Number.NaN);
-        continue;
-      }
-      try {
-        const segment = this.segmentBuffers[e]!.subarray(0, length);
-        const ratio = estimateFundamental(segment, this.provisionalRateHz) / this.provisionalRateHz;
-        list.push(ratio);
-        this.trackers[e]!.feed(segment, length, ratio);
-      } catch (error) {
-        if (!(error instanceof AnalysisInputError)) throw error;
-        list.push(error);
-      }
-    }
-    this.fundamentalMs += performance.now() - started;
+    // No usable rate yet (no interval stated, or a broken time axis): the error is reported after pass 1.
+    this.estimator.estimate(this.segmentBuffers, length, this.provisionalRateHz);
   }
 
   /** The last segment: whatever the look-ahead holds at the end (one to two segments). */
