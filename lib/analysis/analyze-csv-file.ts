@@ -2,6 +2,7 @@
 // record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
 // replays the rows pass 1 kept (when they fit KEEP_ROWS_BYTES) or parses the file again, and analyses
 // each window from a ring buffer as soon as its samples are in.
+import type { AnalysisHelper } from "./analysis-helper";
 import { analyzeImported } from "./analyze-imported";
 import type { StageTimings } from "./analyze-samples";
 import { assembleAnalysisResult } from "./assemble-analysis-result";
@@ -43,7 +44,16 @@ export const KEEP_ROWS_BYTES = 64 * 2 ** 20;
 export interface StreamTuning {
   segmentSamples?: number;
   keepRowsBytes?: number;
+  /**
+   * A helper thread (the command line starts one): while pass 1 keeps the rows, in shared memory,
+   * it measures the frequency segments during pass 1 and the later windows during pass 2. The
+   * same functions on the same numbers: the result does not change, only the time it takes.
+   */
+  helper?: AnalysisHelper | null;
 }
+
+/** Share of the windows the main thread measures when a helper thread takes the rest (it also replays the rows). */
+const HELPER_MAIN_SHARE = 0.45;
 
 /**
  * Analyses a CSV file on disk with memory independent of the record's length (the worker's and
@@ -102,6 +112,7 @@ export async function analyzeCsvFile(
     stated,
     (timeColumn?.index ?? 0) + 1,
     estimatedRows <= keepRows ? keepRows : 0,
+    tuning.helper ?? null,
   );
   collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);
@@ -183,15 +194,16 @@ export async function analyzeCsvFile(
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
   if (timings) timings.checksMs = performance.now() - clock;
   clock = performance.now();
-  const ratios = first.estimator.ratios[estimation.indexOf(reference)]!;
+  const measured = await first.segmentResults();
+  const ratios = measured.ratios[estimation.indexOf(reference)]!;
   const segmentHz = ratios.map((r) => {
     if (r instanceof AnalysisInputError) throw r;
     return r * sampleRateHz;
   });
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.estimator.trackers[estimation.indexOf(reference)]!.finish());
-  if (timings) timings.fundamentalMs = first.estimator.fundamentalMs + performance.now() - clock;
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, measured.tracks[estimation.indexOf(reference)]!);
+  if (timings) timings.fundamentalMs = measured.fundamentalMs + performance.now() - clock;
 
   // Pass 2.
   const secondStarted = performance.now();
@@ -211,8 +223,32 @@ export async function analyzeCsvFile(
         channelColumns.map((c) => ({ name: c.header, unit: unitOf(c) })),
       )
     : null;
+  // With the rows kept in shared memory, the helper thread measures the later windows while this
+  // thread measures the earlier ones; they are added to the totals in window order.
+  const windowCount = plan.windowBounds.length - 1;
+  const helper = first.kept?.channels[0]?.shared ? (tuning.helper ?? null) : null;
+  const split = helper ? Math.round(HELPER_MAIN_SHARE * windowCount) : windowCount;
+  const helped = helper
+    ? (() => {
+        const out = new Float64Array(new SharedArrayBuffer(8 * (windowCount - split) * analyzer.measurementLength));
+        const done = helper.measureWindows({
+          channels: first.kept!.channels.map((c) => c.view()),
+          analyzerChannels: channelColumns.map((c) => ({ name: c.header, quantity: c.quantity!, phase: c.phase, scale: 1 })),
+          reference,
+          shape: plan.shape,
+          recordSamples: n,
+          windowBounds: plan.windowBounds,
+          from: split,
+          to: windowCount,
+          out,
+        });
+        // Awaited below; an input error thrown before then must not leave it unhandled.
+        done.catch(() => undefined);
+        return { out, done };
+      })()
+    : null;
   let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
+  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, split);
   if (first.kept) {
     // The rows pass 1 kept, replayed: the same chunks the file would give again.
     collector2 = collector1;
@@ -226,6 +262,13 @@ export async function analyzeCsvFile(
   }
   second.drain();
   if (second.residualError) throw second.residualError;
+  if (helped) {
+    await helped.done;
+    const started = performance.now();
+    const length = analyzer.measurementLength;
+    for (let w = split; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray((w - split) * length, (w - split + 1) * length));
+    second.windowsMs += performance.now() - started;
+  }
   const clipWarnings = channelColumns.map((c, i) => first.scans[i]!.clipWarning(c.header, 1, unitOf(c))).filter((w): w is string => w !== null);
   warnings.splice(clipWarningsAt, 0, ...clipWarnings);
   if (timings) {

@@ -42,8 +42,9 @@ export class MemorySink implements RowSink {
   readonly channels: SampleBuffer[];
   readonly times: SampleBuffer | null;
 
-  constructor(channelCount: number, hasTime: boolean, expectedRows: number) {
-    this.channels = Array.from({ length: channelCount }, () => new SampleBuffer(expectedRows));
+  /** @param shared numbers in SharedArrayBuffers (see {@link SampleBuffer}), for the analysis helper thread to read. */
+  constructor(channelCount: number, hasTime: boolean, expectedRows: number, shared = false) {
+    this.channels = Array.from({ length: channelCount }, () => new SampleBuffer(expectedRows, shared));
     this.times = hasTime ? new SampleBuffer(expectedRows) : null;
   }
 
