@@ -362,7 +362,7 @@ async function main(): Promise<void> {
     console.log(`  CPU          ${cpuS.toFixed(3)} s   user+sys (${processCpuS !== undefined ? "the child process" : "this process"}; steadier than wall time on a shared machine)`);
     console.log(`  peak RSS     ${rssMB.toFixed(0)} MB   target < ${bench.targets.rssMB} MB (${processRssMB !== undefined ? "the child process's getrusage maxrss" : "sampled every 10 ms"})`);
     console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
-    if (timings.rereadMs !== undefined) console.log(`  pass 2 parse ${ms(timings.rereadMs)}   (re-parse, time-axis and clipping checks, ring buffer)`);
+    if (timings.rereadMs !== undefined) console.log(`  pass 2 rows  ${ms(timings.rereadMs)}   (the kept rows replayed, or the file parsed again; time-axis and clipping checks, ring buffer)`);
     console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
     console.log(
       `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}${timings.rereadMs !== undefined ? " — inside pass 1" : ""}, aggregation ${ms(timings.aggregateMs)})`,

@@ -3,6 +3,7 @@
 // pass 2 measures the other half. It runs the same functions on the same numbers (read from shared
 // memory), so the result is the same as in one thread, number for number.
 import { existsSync } from "node:fs";
+import { availableParallelism } from "node:os";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { AnalysisInputError, type AnalysisErrorCode } from "./errors";
@@ -96,10 +97,11 @@ export class AnalysisHelper {
 
   /**
    * Starts the helper thread from its built module (`entry`, JavaScript), or returns null when
-   * there is none (then the analysis runs in one thread, with the same result).
+   * there is none or the machine has a single core (then the analysis runs in one thread, with
+   * the same result).
    */
   static start(entry: URL): AnalysisHelper | null {
-    if (!existsSync(fileURLToPath(entry))) return null;
+    if (availableParallelism() < 2 || !existsSync(fileURLToPath(entry))) return null;
     return new AnalysisHelper(new Worker(entry));
   }
 
