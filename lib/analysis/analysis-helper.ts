@@ -3,7 +3,7 @@
 // pass 2 measures the other half. It runs the same functions on the same numbers (read from shared
 // memory), so the result is the same as in one thread, number for number.
 import { existsSync } from "node:fs";
-import { availableParallelism } from "node:os";
+import { availableParallelism, loadavg } from "node:os";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { AnalysisInputError, type AnalysisErrorCode } from "./errors";
@@ -96,12 +96,21 @@ export class AnalysisHelper {
   }
 
   /**
+   * Whether a second thread would run on a core of its own: the machine has two or more and its
+   * load over the last minute leaves at least half a core idle. On a busy machine the helper
+   * only adds work (its own start-up, code compiled twice) for the same result.
+   */
+  static wouldHelp(): boolean {
+    const cores = availableParallelism();
+    return cores >= 2 && loadavg()[0]! < cores - 0.5;
+  }
+
+  /**
    * Starts the helper thread from its built module (`entry`, JavaScript), or returns null when
-   * there is none or the machine has a single core (then the analysis runs in one thread, with
-   * the same result).
+   * there is none (then the analysis runs in one thread, with the same result).
    */
   static start(entry: URL): AnalysisHelper | null {
-    if (availableParallelism() < 2 || !existsSync(fileURLToPath(entry))) return null;
+    if (!existsSync(fileURLToPath(entry))) return null;
     return new AnalysisHelper(new Worker(entry));
   }
 
