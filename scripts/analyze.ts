@@ -3,6 +3,7 @@
 // With --limits KEY the current revision of the limit set is read from PostgreSQL when DATABASE_URL
 // is set (the same query the worker uses), otherwise from the seed files; the output says which.
 import { pathToFileURL } from "node:url";
+import { AnalysisHelper } from "@/lib/analysis/analysis-helper";
 import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { formatComplianceTable } from "@/lib/compliance/format-compliance-table";
 import { formatAnalysisText } from "@/lib/pipeline/format-analysis-text";
@@ -40,8 +41,13 @@ function sourceLine(limitSet: LimitSetRevision, source: LimitSetSource): string 
 }
 
 /** Analyses (and judges) one file; returns what to print. */
-async function runFile(file: string, request: AnalyzeRequest, limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null): Promise<string> {
-  const { analysis } = await runCaptureAnalysis(file, request.mapping, request.context, { cycles: 0 });
+async function runFile(
+  file: string,
+  request: AnalyzeRequest,
+  limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null,
+  helper: AnalysisHelper | null,
+): Promise<string> {
+  const { analysis } = await runCaptureAnalysis(file, request.mapping, request.context, { cycles: 0, helper });
   if (!limits) {
     const extra = await mitigationAdditions(request, analysis, undefined);
     return request.json ? JSON.stringify({ file, ...analysis, ...extra.json }) : `${file}\n\n${formatAnalysisText(analysis)}\n${extra.text}`;
@@ -98,10 +104,16 @@ const oneLine = (message: string): string => message.replace(/\s*\n\s*/g, " ");
 export async function main(argv: string[]): Promise<number> {
   let request: AnalyzeRequest;
   let limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null = null;
+  let helper: AnalysisHelper | null = null;
   try {
     request = parseAnalyzeArgs(argv);
+    // A second thread for the analysis when a core is free for it, from the bundle's helper module
+    // (dist/cli/analysis-helper-thread.mjs, built beside this entry; without it the analysis runs in one
+    // thread, with the same result). Started first, so that its start-up overlaps loading the limit set.
+    helper = AnalysisHelper.wouldHelp() ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
     if (request.limitSetKey) limits = await loadLimitSet(request.limitSetKey);
   } catch (error) {
+    await helper?.close();
     if (error instanceof UsageError && argv.includes("--help")) {
       process.stdout.write(`${error.message}\n`);
       return 0;
@@ -114,17 +126,21 @@ export async function main(argv: string[]): Promise<number> {
     return 2;
   }
   let code = 0;
-  for (const [i, file] of request.files.entries()) {
-    try {
-      const out = await runFile(file, request, limits);
-      process.stdout.write(request.json ? `${out}\n` : `${i > 0 ? "\n" : ""}${out}\n`);
-    } catch (error) {
-      const input = isAnalysisInputError(error) || error instanceof MitigationInputError;
-      const message = oneLine(error instanceof Error ? error.message : String(error));
-      process.stderr.write(`${input ? "error" : "internal error"}: ${file}: ${message}\n`);
-      if (request.json) process.stdout.write(`${JSON.stringify({ file, error: message })}\n`);
-      code = Math.max(code, input ? 1 : 2);
+  try {
+    for (const [i, file] of request.files.entries()) {
+      try {
+        const out = await runFile(file, request, limits, helper);
+        process.stdout.write(request.json ? `${out}\n` : `${i > 0 ? "\n" : ""}${out}\n`);
+      } catch (error) {
+        const input = isAnalysisInputError(error) || error instanceof MitigationInputError;
+        const message = oneLine(error instanceof Error ? error.message : String(error));
+        process.stderr.write(`${input ? "error" : "internal error"}: ${file}: ${message}\n`);
+        if (request.json) process.stdout.write(`${JSON.stringify({ file, error: message })}\n`);
+        code = Math.max(code, input ? 1 : 2);
+      }
     }
+  } finally {
+    await helper?.close();
   }
   return code;
 }

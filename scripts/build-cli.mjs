@@ -1,5 +1,5 @@
 // Bundles the analysis command line once (scripts/analyze.ts → dist/cli/analyze.mjs plus lazily
-// loaded chunks) so `npm run analyze` starts without transpiling TypeScript on every run.
+// loaded chunks, and the analysis helper thread it starts → dist/cli/analysis-helper-thread.mjs) so `npm run analyze` starts without transpiling TypeScript on every run.
 // Run by `npm start`/`npm test` (scripts/stack.mjs) and by scripts/analyze.mjs when the bundle is
 // missing or older than any file it was built from.
 //   node scripts/build-cli.mjs            build when stale
@@ -11,6 +11,7 @@ import { fileURLToPath, pathToFileURL } from "node:url";
 const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const outDir = path.join(root, "dist", "cli");
 export const bundlePath = path.join(outDir, "analyze.mjs");
+const helperPath = path.join(outDir, "analysis-helper-thread.mjs");
 const inputsPath = path.join(outDir, "inputs.json");
 
 /** True when the bundle is missing or any of its inputs (or the lock file, or this script) changed after it was built. */
@@ -53,7 +54,8 @@ export async function buildCli() {
   const { build } = await import("esbuild");
   const result = await build({
     absWorkingDir: root,
-    entryPoints: ["scripts/analyze.ts"],
+    // The command line, and the analysis helper thread it starts (lib/analysis/analysis-helper.ts) beside it.
+    entryPoints: { analyze: "scripts/analyze.ts", "analysis-helper-thread": "lib/analysis/analysis-helper-thread.ts" },
     outdir: outDir,
     outExtension: { ".js": ".mjs" },
     chunkNames: "chunk-[hash]",
@@ -77,12 +79,15 @@ export async function buildCli() {
   });
   fs.mkdirSync(outDir, { recursive: true });
   const entry = result.outputFiles.find((f) => f.path === bundlePath);
-  for (const file of result.outputFiles) if (file !== entry) fs.writeFileSync(file.path, file.contents);
+  const helper = result.outputFiles.find((f) => f.path === helperPath);
+  for (const file of result.outputFiles) if (file !== entry && file !== helper) fs.writeFileSync(file.path, file.contents);
   const inputs = Object.keys(result.metafile.inputs).filter((f) => !f.startsWith("node_modules/") && !f.includes(":"));
   const tmp = `.${process.pid}.tmp`;
   fs.writeFileSync(inputsPath + tmp, JSON.stringify(inputs));
+  fs.writeFileSync(helperPath + tmp, helper.contents);
   fs.writeFileSync(bundlePath + tmp, entry.contents);
   fs.renameSync(inputsPath + tmp, inputsPath);
+  fs.renameSync(helperPath + tmp, helperPath);
   fs.renameSync(bundlePath + tmp, bundlePath);
   // Chunks of earlier builds that nothing references any more (kept a minute for runs still loading them).
   const current = new Set(result.outputFiles.map((f) => path.basename(f.path)));

@@ -1,6 +1,8 @@
 // Analyses a CSV file on disk in two streaming passes, with memory that does not grow with the
 // record: pass 1 parses and checks every row and tracks the fundamental (per segment, per block); pass 2
-// parses again and analyses each window from a ring buffer as soon as its samples are in.
+// replays the rows pass 1 kept (when they fit KEEP_ROWS_BYTES) or parses the file again, and analyses
+// each window from a ring buffer as soon as its samples are in.
+import type { AnalysisHelper } from "./analysis-helper";
 import { analyzeImported } from "./analyze-imported";
 import type { StageTimings } from "./analyze-samples";
 import { assembleAnalysisResult } from "./assemble-analysis-result";
@@ -13,6 +15,7 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
+import { replayRows } from "./replay-rows";
 import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
@@ -22,14 +25,35 @@ import { WindowAnalyzer } from "./window-analyzer";
 
 /** Timings of the streaming path: pass 1 is `importMs`; pass 2's parsing is `rereadMs`. */
 export interface StreamTimings extends StageTimings {
-  /** Pass 2 minus the time spent in windows: re-parsing, time-axis and clipping checks. */
+  /** Pass 2 minus the time spent in windows: replaying the kept rows or re-parsing, time-axis and clipping checks. */
   rereadMs?: number;
 }
 
-/** Internal knobs, for tests: the frequency segment (default 2^18 samples) sets the look-ahead (two segments). */
+/**
+ * Pass 1's parsed rows are kept for pass 2 when the record's numbers (8 bytes each, time column
+ * included) are estimated to fit in this many bytes: 64 MiB holds a 60 s, 4-channel record at
+ * 25.6 kS/s with its time column (61 MB). Longer records are read twice, so memory stays bounded.
+ */
+export const KEEP_ROWS_BYTES = 64 * 2 ** 20;
+
+/**
+ * Internal knobs, for tests: the frequency segment (default 2^18 samples) sets the look-ahead (two
+ * segments); `keepRowsBytes` (default {@link KEEP_ROWS_BYTES}; 0 reads the file twice) the budget
+ * for keeping pass 1's rows.
+ */
 export interface StreamTuning {
   segmentSamples?: number;
+  keepRowsBytes?: number;
+  /**
+   * A helper thread (the command line starts one): while pass 1 keeps the rows, in shared memory,
+   * it measures the frequency segments during pass 1 and the later windows during pass 2. The
+   * same functions on the same numbers: the result does not change, only the time it takes.
+   */
+  helper?: AnalysisHelper | null;
 }
+
+/** Share of the windows the main thread measures when a helper thread takes the rest (it also replays the rows). */
+const HELPER_MAIN_SHARE = 0.45;
 
 /**
  * Analyses a CSV file on disk with memory independent of the record's length (the worker's and
@@ -40,12 +64,16 @@ export interface StreamTuning {
  * passes: pass 1 parses every row (every parse error with its line), fits the time axis
  * incrementally, checks monotonicity, accumulates each channel's extremes and r.m.s., and
  * measures the fundamental per segment and tracks its phase (so each window spans whole cycles
- * of its own fundamental); pass 2 parses again, checks steps/residuals against the
- * whole-record fit and clipping runs against the extremes, and analyses each 10/12-cycle window
- * from a ring buffer as soon as its samples are in. Only per-window numbers are kept.
+ * of its own fundamental); pass 2 takes the same rows again — replayed from memory when pass 1
+ * could keep them within {@link KEEP_ROWS_BYTES} (judged from the file's size and its head's row
+ * length), else parsed from the file again — checks steps/residuals against the whole-record fit
+ * and clipping runs against the extremes, and analyses each 10/12-cycle window from a ring buffer
+ * as soon as its samples are in. Only per-window numbers are kept. Either way pass 2 sees the same
+ * numbers in the same chunks, so the result does not depend on which.
  *
- * Complexity O(file size) twice + O(samples·taps); memory ≈ 16 B × (channels + 1) × 2^19 for the
- * look-ahead, a 128 k-sample ring per channel, plus ≈ 52 numbers per channel per window.
+ * Complexity O(file size) once or twice + O(samples·taps); memory ≈ 16 B × (channels + 1) × 2^19
+ * for the look-ahead, at most {@link KEEP_ROWS_BYTES} of kept rows, a 128 k-sample ring per
+ * channel, plus ≈ 52 numbers per channel per window.
  *
  * @param timings filled with milliseconds per stage (importMs = pass 1, rereadMs = pass 2 parsing).
  * @throws AnalysisInputError for every input problem, with `line`/`column` where it applies.
@@ -64,7 +92,7 @@ export async function analyzeCsvFile(
     ...(options.channels ? { channels: options.channels } : {}),
   };
   checkOverrides(importOptions);
-  const { head, layout } = await readCsvHead(path);
+  const { head, layout, estimatedRows } = await readCsvHead(path);
   const columns = planColumns(layout, options.channels);
   const channelColumns = columns.filter((c) => c.role === "channel");
   const timeColumn = columns.find((c) => c.role === "time");
@@ -72,6 +100,8 @@ export async function analyzeCsvFile(
   const firstVoltage = channelColumns.findIndex((c) => c.quantity === "voltage");
   const estimation = firstVoltage >= 0 ? [firstVoltage] : channelColumns.map((_, i) => i);
   const stated = options.sampleIntervalS ?? intervalFromPreamble(layout.preamble, layout.decimalComma)?.sampleIntervalS ?? null;
+  // Keep the rows for pass 2 when the whole record is expected to fit the budget (else read it twice).
+  const keepRows = Math.floor((tuning.keepRowsBytes ?? KEEP_ROWS_BYTES) / (8 * (channelColumns.length + (timeColumn ? 1 : 0))));
   let collector1: RowCollector | undefined;
   const first = new FirstPass(
     () => collector1!,
@@ -81,6 +111,8 @@ export async function analyzeCsvFile(
     segmentSamples,
     stated,
     (timeColumn?.index ?? 0) + 1,
+    estimatedRows <= keepRows ? keepRows : 0,
+    tuning.helper ?? null,
   );
   collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);
@@ -162,15 +194,16 @@ export async function analyzeCsvFile(
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
   if (timings) timings.checksMs = performance.now() - clock;
   clock = performance.now();
-  const ratios = first.ratios[estimation.indexOf(reference)]!;
+  const measured = await first.segmentResults();
+  const ratios = measured.ratios[estimation.indexOf(reference)]!;
   const segmentHz = ratios.map((r) => {
     if (r instanceof AnalysisInputError) throw r;
     return r * sampleRateHz;
   });
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
-  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, first.trackers[estimation.indexOf(reference)]!.finish());
-  if (timings) timings.fundamentalMs = first.fundamentalMs + performance.now() - clock;
+  const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, measured.tracks[estimation.indexOf(reference)]!);
+  if (timings) timings.fundamentalMs = measured.fundamentalMs + performance.now() - clock;
 
   // Pass 2.
   const secondStarted = performance.now();
@@ -190,15 +223,52 @@ export async function analyzeCsvFile(
         channelColumns.map((c) => ({ name: c.header, unit: unitOf(c) })),
       )
     : null;
+  // With the rows kept in shared memory, the helper thread measures the later windows while this
+  // thread measures the earlier ones; they are added to the totals in window order.
+  const windowCount = plan.windowBounds.length - 1;
+  const helper = first.kept?.channels[0]?.shared ? (tuning.helper ?? null) : null;
+  const split = helper ? Math.round(HELPER_MAIN_SHARE * windowCount) : windowCount;
+  const helped = helper
+    ? (() => {
+        const out = new Float64Array(new SharedArrayBuffer(8 * (windowCount - split) * analyzer.measurementLength));
+        const done = helper.measureWindows({
+          channels: first.kept!.channels.map((c) => c.view()),
+          analyzerChannels: channelColumns.map((c) => ({ name: c.header, quantity: c.quantity!, phase: c.phase, scale: 1 })),
+          reference,
+          shape: plan.shape,
+          recordSamples: n,
+          windowBounds: plan.windowBounds,
+          from: split,
+          to: windowCount,
+          out,
+        });
+        // Awaited below; an input error thrown before then must not leave it unhandled.
+        done.catch(() => undefined);
+        return { out, done };
+      })()
+    : null;
   let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform);
-  collector2 = new RowCollector(layout, columns, second);
-  await readCsvRows(path, head, collector2);
-  if (collector2.rows !== n) {
-    throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, split);
+  if (first.kept) {
+    // The rows pass 1 kept, replayed: the same chunks the file would give again.
+    collector2 = collector1;
+    await replayRows(first.kept, n, second);
+  } else {
+    collector2 = new RowCollector(layout, columns, second);
+    await readCsvRows(path, head, collector2);
+    if (collector2.rows !== n) {
+      throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+    }
   }
   second.drain();
   if (second.residualError) throw second.residualError;
+  if (helped) {
+    await helped.done;
+    const started = performance.now();
+    const length = analyzer.measurementLength;
+    for (let w = split; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray((w - split) * length, (w - split + 1) * length));
+    second.windowsMs += performance.now() - started;
+  }
   const clipWarnings = channelColumns.map((c, i) => first.scans[i]!.clipWarning(c.header, 1, unitOf(c))).filter((w): w is string => w !== null);
   warnings.splice(clipWarningsAt, 0, ...clipWarnings);
   if (timings) {

@@ -1,5 +1,6 @@
 // The analysis pipeline on samples already in memory: fundamental → windows → resample → FFT →
 // per-order values, groups, indices, power, sequence components, aggregation.
+import { arrayWindowSource } from "./array-window-source";
 import { assembleAnalysisResult } from "./assemble-analysis-result";
 import { ChannelScan } from "./channel-scan";
 import { checkOptions } from "./check-options";
@@ -10,7 +11,7 @@ import { planWindows } from "./plan-windows";
 import { PhaseTracker } from "./phase-tracker";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import type { AnalysisOptions, AnalysisResult, PhaseLabel, Quantity } from "./types";
-import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
+import { WindowAnalyzer } from "./window-analyzer";
 
 /** One channel handed to {@link analyzeSamples}; values in A or V before any `scale` override. */
 export interface SampleChannel {
@@ -145,18 +146,7 @@ export function analyzeSamples(capture: SampleCapture, options: AnalysisOptions 
     n,
     plan.windowBounds.length - 1,
   );
-  const source: WindowSource = {
-    copyWindow(ci, first, span, period, target) {
-      const { samples, scale } = usable[ci]!;
-      for (let k = 0; k < span; k++) {
-        let j = first + k;
-        while (j < 0) j += period;
-        while (j >= n) j -= period;
-        if (j < 0) j = 0;
-        target[k] = samples[j]! * scale;
-      }
-    },
-  };
+  const source = arrayWindowSource(usable, n);
   const windowBounds = plan.windowBounds;
   for (let w = 0; w + 1 < windowBounds.length; w++) analyzer.addWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source);
   lap("windowsMs");

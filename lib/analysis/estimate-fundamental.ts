@@ -14,6 +14,20 @@ function hann(n: number, length: number): number {
   return 0.5 - 0.5 * Math.cos((2 * Math.PI * n) / length);
 }
 
+/** Per transform size: the Hann window (the same numbers {@link hann} gives) and the transform's input and output, reused by every segment. */
+const coarseScratch = new Map<number, { window: Float64Array; input: Float64Array; out: Float64Array }>();
+
+function scratchFor(size: number): { window: Float64Array; input: Float64Array; out: Float64Array } {
+  let scratch = coarseScratch.get(size);
+  if (!scratch) {
+    const window = new Float64Array(size);
+    for (let i = 0; i < size; i++) window[i] = hann(i, size);
+    scratch = { window, input: new Float64Array(size), out: new Float64Array(2 * size) };
+    coarseScratch.set(size, scratch);
+  }
+  return scratch;
+}
+
 /** Coarse estimate: Hann-windowed FFT of the first 2^k samples, peak in the band, log-parabolic interpolation. */
 function coarseEstimate(samples: ArrayLike<number>, sampleRateHz: number): number {
   let size = 1;
@@ -21,9 +35,8 @@ function coarseEstimate(samples: ArrayLike<number>, sampleRateHz: number): numbe
   let mean = 0;
   for (let i = 0; i < size; i++) mean += samples[i]!;
   mean /= size;
-  const input = new Float64Array(size);
-  for (let i = 0; i < size; i++) input[i] = (samples[i]! - mean) * hann(i, size);
-  const out = new Float64Array(2 * size);
+  const { window, input, out } = scratchFor(size);
+  for (let i = 0; i < size; i++) input[i] = (samples[i]! - mean) * window[i]!;
   getFft(size).realTransform(out, input);
   const binHz = sampleRateHz / size;
   const magnitude = (k: number): number => Math.hypot(out[2 * k]!, out[2 * k + 1]!);

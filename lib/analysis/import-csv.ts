@@ -42,8 +42,9 @@ export class MemorySink implements RowSink {
   readonly channels: SampleBuffer[];
   readonly times: SampleBuffer | null;
 
-  constructor(channelCount: number, hasTime: boolean, expectedRows: number) {
-    this.channels = Array.from({ length: channelCount }, () => new SampleBuffer(expectedRows));
+  /** @param shared numbers in SharedArrayBuffers (see {@link SampleBuffer}), for the analysis helper thread to read. */
+  constructor(channelCount: number, hasTime: boolean, expectedRows: number, shared = false) {
+    this.channels = Array.from({ length: channelCount }, () => new SampleBuffer(expectedRows, shared));
     this.times = hasTime ? new SampleBuffer(expectedRows) : null;
   }
 
@@ -145,16 +146,9 @@ export function importCsvText(text: string, options: ImportOptions = {}): Import
  */
 export async function importCsvFile(path: string, options: ImportOptions = {}): Promise<ImportedCapture> {
   checkOverrides(options);
-  const { sizeBytes, head, layout } = await readCsvHead(path);
-  const headLines = head.split(layout.newline);
-  const sampleLines = headLines.slice(layout.dataStartLine - 1, -1);
-  const bytesPerRow = sampleLines.length > 0 ? sampleLines.reduce((sum, l) => sum + l.length + layout.newline.length, 0) / sampleLines.length : 64;
+  const { head, layout, estimatedRows } = await readCsvHead(path);
   const columns = planColumns(layout, options.channels);
-  const sink = new MemorySink(
-    columns.filter((c) => c.role === "channel").length,
-    columns.some((c) => c.role === "time"),
-    (sizeBytes / bytesPerRow) * 1.02 + 16,
-  );
+  const sink = new MemorySink(columns.filter((c) => c.role === "channel").length, columns.some((c) => c.role === "time"), estimatedRows * 1.02 + 16);
   const collector = new RowCollector(layout, columns, sink);
   await readCsvRows(path, head, collector);
   return finishImport(collector, sink, options);

@@ -18,13 +18,37 @@ export interface CsvHead {
   layout: CsvLayout;
   /** Detected once from the head's bytes (also in `layout.encoding`, which the row readers use). */
   encoding: TextEncodingName;
+  /** Data rows the file holds if its rows are as long as the head's (for sizing buffers; not a count). */
+  estimatedRows: number;
 }
 
 /**
- * The file as a stream of text chunks in its own encoding. UTF-8 takes Node's own decoder (the
- * fast path of large captures); UTF-16 and Windows-1252 go through a streaming TextDecoder, which
- * carries a character split between chunks over to the next one.
+ * The file as UTF-8 byte chunks of about 1 MB, read into one buffer that is reused for every
+ * chunk (a chunk is valid until the next is asked for): fresh 1 MB buffers cost more in page
+ * faults than the scanner spends reading them. A UTF-8 file is handed on as read (no decoding
+ * to text); UTF-16 and Windows-1252 are decoded by a streaming TextDecoder, which carries a
+ * character split between chunks over to the next one, and re-encoded as UTF-8.
  */
+async function* byteChunks(path: string, encoding: TextEncodingName): AsyncGenerator<Uint8Array> {
+  const handle = await open(path, "r");
+  try {
+    const buffer = new Uint8Array(1 << 20);
+    const decoder = encoding === "utf-8" ? null : new TextDecoder(encoding);
+    const encoder = new TextEncoder();
+    for (;;) {
+      const { bytesRead } = await handle.read(buffer, 0, buffer.length, null);
+      if (bytesRead === 0) break;
+      const chunk = buffer.subarray(0, bytesRead);
+      yield decoder ? encoder.encode(decoder.decode(chunk, { stream: true })) : chunk;
+    }
+    const rest = decoder?.decode() ?? "";
+    if (rest.length > 0) yield encoder.encode(rest);
+  } finally {
+    await handle.close();
+  }
+}
+
+/** The file as a stream of text chunks in its own encoding (for papaparse). */
 function textStream(path: string, encoding: TextEncodingName): Readable {
   if (encoding === "utf-8") return createReadStream(path, { encoding: "utf8", highWaterMark: 1 << 20 });
   const decoder = new TextDecoder(encoding);
@@ -74,46 +98,65 @@ export async function readCsvHead(path: string): Promise<CsvHead> {
   }
   const layout = detectLayout(head, sizeBytes <= HEAD_BYTES);
   layout.encoding = encoding;
-  return { sizeBytes, head, layout, encoding };
+  const sampleLines = head.split(layout.newline).slice(layout.dataStartLine - 1, -1);
+  const bytesPerRow = sampleLines.length > 0 ? sampleLines.reduce((sum, l) => sum + l.length + layout.newline.length, 0) / sampleLines.length : 64;
+  return { sizeBytes, head, layout, encoding, estimatedRows: sizeBytes / bytesPerRow };
 }
 
 /**
- * Streams a file whose head is plain (no quotes): complete lines of each 1 MB chunk go through the
- * fast scanner; a chunk that does contain quotes goes through papaparse, which handles quoting.
+ * Streams a file whose head is plain (no quotes) as UTF-8 bytes: complete lines of each 1 MB chunk
+ * go through the fast scanner; from a line with a quote on, the rest of the chunk is decoded and
+ * goes through papaparse, which handles quoting.
  */
 async function readPlain(path: string, collector: RowCollector): Promise<void> {
-  const stream = textStream(path, collector.layout.encoding ?? "utf-8");
-  let partial = "";
+  const utf8 = new TextDecoder("utf-8", { ignoreBOM: true });
+  /** The start of a line cut by the end of the previous chunk. */
+  let partial: Uint8Array = new Uint8Array(0);
   let first = true;
-  const consume = (block: string): void => {
-    if (block.includes('"')) {
-      const rows = Papa.parse<string[]>(block, { delimiter: collector.layout.delimiter, newline: "\n" }).data;
-      // papaparse yields a last empty row for the final newline of the block; addRows counts it as a line otherwise.
-      if (block.endsWith("\n")) rows.pop();
-      collector.addRows(rows.map((r) => r.map((f) => f.replace(/\r$/, ""))));
-    } else {
-      collector.addPlainLines(block);
-    }
+  const consume = (block: Uint8Array, start: number, end: number): void => {
+    // The scanner reads up to the first line with a quote; papaparse takes the rest of the block.
+    const quoted = collector.addPlainBytes(block, start, end);
+    if (quoted >= end) return;
+    const text = utf8.decode(block.subarray(quoted, end));
+    const rows = Papa.parse<string[]>(text, { delimiter: collector.layout.delimiter, newline: "\n" }).data;
+    // papaparse yields a last empty row for the final newline of the block; addRows counts it as a line otherwise.
+    if (text.endsWith("\n")) rows.pop();
+    collector.addRows(rows.map((r) => r.map((f) => f.replace(/\r$/, ""))));
   };
   try {
-    for await (const chunk of stream as AsyncIterable<string>) {
-      let text = partial + chunk;
-      if (first && text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+    for await (const chunk of byteChunks(path, collector.layout.encoding ?? "utf-8")) {
+      let start = 0;
+      // A UTF-8 byte-order mark (decoded encodings have lost theirs).
+      if (first && chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) start = 3;
       first = false;
-      const cut = text.lastIndexOf("\n");
-      if (cut < 0) {
-        partial = text;
+      const firstEnd = chunk.indexOf(10, start);
+      if (firstEnd < 0) {
+        partial = join(partial, chunk.subarray(start));
         continue;
       }
-      partial = text.slice(cut + 1);
-      consume(text.slice(0, cut + 1));
+      // The line the previous chunk cut, completed by this one's first line.
+      if (partial.length > 0) {
+        const line = join(partial, chunk.subarray(start, firstEnd + 1));
+        consume(line, 0, line.length);
+        start = firstEnd + 1;
+      }
+      const cut = chunk.lastIndexOf(10) + 1;
+      consume(chunk, start, cut);
+      partial = chunk.slice(cut);
     }
   } catch (error) {
-    stream.destroy();
     if (error instanceof AnalysisInputError) throw error;
     throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: ${error instanceof Error ? error.message : String(error)}`);
   }
-  if (partial.length > 0) consume(partial);
+  if (partial.length > 0) consume(partial, 0, partial.length);
+}
+
+function join(a: Uint8Array, b: Uint8Array): Uint8Array {
+  if (a.length === 0) return b.slice();
+  const joined = new Uint8Array(a.length + b.length);
+  joined.set(a);
+  joined.set(b, a.length);
+  return joined;
 }
 
 /** Streams a file with quotes or \r line ends through papaparse. */

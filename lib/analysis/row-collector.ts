@@ -4,11 +4,11 @@
 import type { CsvLayout } from "./detect-layout";
 import { AnalysisInputError } from "./errors";
 import { parseNumber } from "./parse-number";
+import { PlainLineScanner } from "./plain-line-scanner";
 import type { ColumnPlan } from "./plan-columns";
 
 /** Rows per chunk handed to a {@link RowSink}. */
 export const ROW_CHUNK = 1 << 15;
-const POW10 = Array.from({ length: 23 }, (_, k) => 10 ** k);
 
 /**
  * Largest magnitude a sample may have once in A, V or s. Squares, products and sums of 10^8
@@ -49,16 +49,10 @@ export class RowCollector {
   private readonly gaps: { row: number; lines: number }[] = [];
   firstTimeText = "";
   lastTimeText = "";
-  /** Where the last fast-path row is, so its time text is only cut out once, at the end. */
-  private lastBlock: string | null = null;
-  private lastLineStart = 0;
-  private lastLineEnd = 0;
-  private readonly delimiterCode: number;
-  private readonly decimalCode: number;
-  private readonly channelSlots: Int32Array;
+  /** Decodes a line the fast path hands to addRows (and the time texts it keeps). */
+  private readonly decoder = new TextDecoder("utf-8", { ignoreBOM: true });
   private readonly timeSlot: number;
-  private readonly timeToBase: number;
-  private readonly rowValues: Float64Array;
+  private readonly scanner: PlainLineScanner;
   rows = 0;
 
   constructor(
@@ -74,12 +68,19 @@ export class RowCollector {
     this.buffers = this.channelColumns.map(() => new Float64Array(ROW_CHUNK));
     this.times = this.timeColumn ? new Float64Array(ROW_CHUNK) : null;
     this.factors = Float64Array.from(this.channelColumns.map((c) => c.toBase * c.scale));
-    this.delimiterCode = layout.delimiter.charCodeAt(0);
-    this.decimalCode = layout.decimalComma ? 44 : 46;
-    this.channelSlots = Int32Array.from(this.channelColumns.map((c) => c.index));
     this.timeSlot = this.timeColumn?.index ?? 0;
-    this.timeToBase = this.timeColumn?.toBase ?? 1;
-    this.rowValues = new Float64Array(layout.columnCount);
+    this.scanner = new PlainLineScanner(
+      {
+        columnCount: layout.columnCount,
+        delimiterCode: layout.delimiter.charCodeAt(0),
+        decimalCode: layout.decimalComma ? 44 : 46,
+        channelSlots: Int32Array.from(this.channelColumns.map((c) => c.index)),
+        timeSlot: this.timeSlot,
+        timeToBase: this.timeColumn?.toBase ?? 1,
+      },
+      this.buffers,
+      this.times,
+    );
   }
 
   lineOfRow = (row: number): number => {
@@ -118,7 +119,6 @@ export class RowCollector {
         times[this.fill] = t * timeColumn.toBase;
         if (this.rows === 0) this.firstTimeText = cell;
         this.lastTimeText = cell;
-        this.lastBlock = null;
       }
       for (let c = 0; c < channelColumns.length; c++) {
         const plan = channelColumns[c]!;
@@ -133,116 +133,57 @@ export class RowCollector {
   }
 
   /**
-   * Fast path for plain numeric text (no quotes): scans complete lines of `block` straight from
-   * character codes into the buffers, without per-row arrays or substrings. Any line it cannot
-   * read exactly (whitespace, unusual number forms, wrong field count, text) goes through
-   * {@link addRows} so the checks and messages are identical.
+   * Fast path for plain numeric text (no quotes): reads lines straight from their UTF-8 bytes
+   * ({@link addPlainBytes}). Any line it cannot read exactly (whitespace, unusual number forms,
+   * wrong field count, text) goes through {@link addRows} so the checks and messages are identical.
    */
   addPlainLines(block: string): void {
-    const { columnCount, delimiterCode, decimalCode, buffers, times, channelSlots, timeSlot, timeToBase } = this;
-    const values = this.rowValues;
-    const length = block.length;
-    let pos = 0;
-    while (pos < length) {
-      let end = block.indexOf("\n", pos);
-      if (end < 0) end = length;
-      let lineEnd = end;
-      if (lineEnd > pos && block.charCodeAt(lineEnd - 1) === 13) lineEnd--;
-      const lineStart = pos;
-      pos = end + 1;
+    this.addPlainBytes(new TextEncoder().encode(block));
+  }
+
+  /**
+   * {@link addPlainLines} on UTF-8 bytes (`bytes[start..end)`, whole lines), so a file is read
+   * without decoding it to text ({@link PlainLineScanner}); a line the scanner cannot read is
+   * decoded and handed to {@link addRows}. Stops before the first line holding a double quote and
+   * returns its start (`end` when every line was read): quoted fields need a CSV parser.
+   */
+  addPlainBytes(bytes: Uint8Array, start = 0, end = bytes.length): number {
+    const scanner = this.scanner;
+    let pos = start;
+    while (pos < end) {
       if (this.lineNo + 1 < this.starts) {
         this.lineNo++;
+        pos = lineEndOf(bytes, pos, end).next;
         continue;
       }
-      if (lineEnd === lineStart) {
-        this.addRows([[""]]);
-        continue;
+      const room = ROW_CHUNK - this.fill;
+      const rows = scanner.scan(bytes, pos, end, this.fill, room);
+      if (rows > 0) {
+        if (this.rows === 0 && this.times) this.firstTimeText = this.timeText(bytes, pos, lineEndOf(bytes, pos, end).end);
+        if (this.times) this.lastTimeText = this.timeText(bytes, scanner.lastLineStart, scanner.lastLineEnd);
+        this.lineNo += rows;
+        this.rows += rows;
+        this.fill += rows;
+        if (this.fill === ROW_CHUNK) this.flush();
       }
-      // Parse up to columnCount fields with the exact fast path (integer mantissa / power of ten).
-      let field = 0;
-      let i = lineStart;
-      let ok = true;
-      while (field < columnCount) {
-        let negative = false;
-        let c = block.charCodeAt(i);
-        if (c === 45 || c === 43) {
-          negative = c === 45;
-          c = block.charCodeAt(++i);
-        }
-        let mantissa = 0;
-        let digits = 0;
-        let scale = 0;
-        while (c >= 48 && c <= 57) {
-          mantissa = mantissa * 10 + (c - 48);
-          digits++;
-          c = block.charCodeAt(++i);
-        }
-        if (c === decimalCode) {
-          c = block.charCodeAt(++i);
-          while (c >= 48 && c <= 57) {
-            mantissa = mantissa * 10 + (c - 48);
-            digits++;
-            scale--;
-            c = block.charCodeAt(++i);
-          }
-        }
-        if (digits === 0 || digits > 15) {
-          ok = false;
-          break;
-        }
-        if (c === 101 || c === 69) {
-          c = block.charCodeAt(++i);
-          let expNegative = false;
-          if (c === 45 || c === 43) {
-            expNegative = c === 45;
-            c = block.charCodeAt(++i);
-          }
-          let exponent = 0;
-          let expDigits = 0;
-          while (c >= 48 && c <= 57 && expDigits < 4) {
-            exponent = exponent * 10 + (c - 48);
-            expDigits++;
-            c = block.charCodeAt(++i);
-          }
-          if (expDigits === 0) {
-            ok = false;
-            break;
-          }
-          scale += expNegative ? -exponent : exponent;
-        }
-        if (scale < -22 || scale > 22) {
-          ok = false;
-          break;
-        }
-        // One correctly rounded operation on exact operands: the same double as Number(text).
-        const magnitude = scale < 0 ? mantissa / POW10[-scale]! : mantissa * POW10[scale]!;
-        values[field++] = negative ? -magnitude : magnitude;
-        if (i >= lineEnd) break;
-        if (c !== delimiterCode) {
-          ok = false;
-          break;
-        }
-        i++;
-      }
-      // Trailing fields beyond the columns must be empty delimiters only (as addRows accepts any extra).
-      if (!ok || field < columnCount) {
-        this.addRows([block.slice(lineStart, lineEnd).split(this.layout.delimiter)]);
-        continue;
-      }
-      this.lineNo++;
-      if (times) {
-        const t = values[timeSlot]! * timeToBase;
-        times[this.fill] = t;
-        if (this.rows === 0) this.firstTimeText = block.slice(lineStart, lineEnd).split(this.layout.delimiter)[timeSlot] ?? "";
-        this.lastLineStart = lineStart;
-        this.lastLineEnd = lineEnd;
-        this.lastBlock = block;
-      }
-      const fill = this.fill;
-      for (let c = 0; c < channelSlots.length; c++) buffers[c]![fill] = values[channelSlots[c]!]!;
-      this.rows++;
-      if (++this.fill === ROW_CHUNK) this.flush();
+      pos = scanner.pos;
+      // Stopped before the end with room left: a line the scanner cannot read.
+      if (pos >= end || rows === room) continue;
+      const line = lineEndOf(bytes, pos, end);
+      if (bytes.subarray(pos, line.end).indexOf(34) >= 0) return pos;
+      this.addRows([this.decodeLine(bytes, pos, line.end).split(this.layout.delimiter)]);
+      pos = line.next;
     }
+    return end;
+  }
+
+  /** The time column's text on one line (for the printed resolution of the time stamps). */
+  private timeText(bytes: Uint8Array, start: number, end: number): string {
+    return this.decodeLine(bytes, start, end).split(this.layout.delimiter)[this.timeSlot] ?? "";
+  }
+
+  private decodeLine(bytes: Uint8Array, start: number, end: number): string {
+    return this.decoder.decode(bytes.subarray(start, end));
   }
 
   /** Hands the rows collected so far to the sink, unit prefix and user scale applied (value × factor, as the import always did). */
@@ -279,15 +220,11 @@ export class RowCollector {
   }
 
   /**
-   * Ends the rows: flushes, cuts out the last time text and checks that there are rows and
+   * Ends the rows: flushes and checks that there are rows and
    * channels. Returns the column notes as warnings.
    */
   end(): string[] {
     this.flush();
-    if (this.lastBlock !== null) {
-      this.lastTimeText = this.lastBlock.slice(this.lastLineStart, this.lastLineEnd).split(this.layout.delimiter)[this.timeSlot] ?? "";
-      this.lastBlock = null;
-    }
     const warnings: string[] = [];
     for (const plan of this.columns) if (plan.note) warnings.push(plan.note);
     if (this.rows === 0) {
@@ -307,6 +244,15 @@ export class RowCollector {
     if (!this.timeColumn) return 0;
     return Math.max(printedResolution(this.firstTimeText), printedResolution(this.lastTimeText)) * this.timeColumn.toBase;
   }
+}
+
+/** Where the line starting at `start` ends (before "\n" or "\r\n") and where the next one starts. */
+function lineEndOf(bytes: Uint8Array, start: number, end: number): { end: number; next: number } {
+  let lineEnd = start;
+  while (lineEnd < end && bytes[lineEnd] !== 10) lineEnd++;
+  const next = lineEnd + 1;
+  if (lineEnd > start && bytes[lineEnd - 1] === 13) lineEnd--;
+  return { end: lineEnd, next };
 }
 
 /** Index of the first of `count` values that is not finite or beyond ±{@link MAX_SAMPLE_MAGNITUDE}, or −1. */

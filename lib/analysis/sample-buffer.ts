@@ -10,14 +10,25 @@
 export class SampleBuffer {
   private data: Float64Array;
   length = 0;
+  /** The numbers are in a SharedArrayBuffer (another thread may read them). */
+  readonly shared: boolean;
 
-  constructor(initialCapacity = 1024) {
-    this.data = new Float64Array(Math.max(16, Math.ceil(initialCapacity)));
+  /**
+   * @param shared back the numbers with a SharedArrayBuffer, so another thread can read them
+   *   (a thread holding a view keeps seeing the old numbers once the buffer grows past its capacity).
+   */
+  constructor(initialCapacity = 1024, shared = false) {
+    this.shared = shared;
+    this.data = this.allocate(Math.max(16, Math.ceil(initialCapacity)));
+  }
+
+  private allocate(capacity: number): Float64Array {
+    return this.shared ? new Float64Array(new SharedArrayBuffer(8 * capacity)) : new Float64Array(capacity);
   }
 
   push(value: number): void {
     if (this.length === this.data.length) {
-      const grown = new Float64Array(this.data.length * 2);
+      const grown = this.allocate(this.data.length * 2);
       grown.set(this.data);
       this.data = grown;
     }
@@ -29,12 +40,17 @@ export class SampleBuffer {
     if (this.length + count > this.data.length) {
       let capacity = this.data.length * 2;
       while (capacity < this.length + count) capacity *= 2;
-      const grown = new Float64Array(capacity);
+      const grown = this.allocate(capacity);
       grown.set(this.data.subarray(0, this.length));
       this.data = grown;
     }
     this.data.set(source.subarray(0, count), this.length);
     this.length += count;
+  }
+
+  /** The stored values as a view, never a copy (valid until the next push or append). */
+  view(): Float64Array {
+    return this.data.subarray(0, this.length);
   }
 
   /** The stored values (a view; trimmed copy when the spare capacity is large). */

@@ -1,13 +1,13 @@
 // Pass 1 of the streaming CSV analysis (see analyze-csv-file.ts): parse and check every row, fit the time
 // axis, and measure and track the fundamental per segment.
 import { ChannelScan } from "./channel-scan";
-import { AnalysisInputError } from "./errors";
-import { estimateFundamental } from "./estimate-fundamental";
+import type { AnalysisInputError } from "./errors";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { MemorySink } from "./import-csv";
 import { LineFit } from "./line-fit";
-import { PhaseTracker } from "./phase-tracker";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
+import { SegmentEstimator } from "./segment-estimator";
+import type { AnalysisHelper, SegmentResults } from "./analysis-helper";
 
 export interface PendingError {
   row: number;
@@ -22,24 +22,33 @@ export interface PendingError {
  * through that segment (the windows' boundaries come from the reference channel's track).
  */
 export class FirstPass implements RowSink {
+  /** The look-ahead, until the record outgrows it. */
   memory: MemorySink | null;
+  /**
+   * Every row so far (the look-ahead kept on), while the record stays within `keepRows` rows:
+   * pass 2 then replays them instead of reading the file again. Null once over.
+   */
+  kept: MemorySink | null = null;
   streaming = false;
   /** Least-squares line t = start + interval·row over the whole time column. */
   readonly fit = new LineFit();
   firstTimeS = Number.NaN;
   rows = 0;
   readonly scans: ChannelScan[];
-  /** f / provisional rate per segment, per estimation channel (errors kept, thrown if that channel is the reference). */
-  readonly ratios: (number | AnalysisInputError)[][];
-  /** The fundamental's phase through the record, per estimation channel (fed segment by segment, as the in-memory path does). */
-  readonly trackers: PhaseTracker[];
-  fundamentalMs = 0;
+  /** Each segment's fundamental and the phase track, per estimation channel (fed segment by segment, as the in-memory path does). */
+  private readonly estimator: SegmentEstimator;
   private provisionalRateHz = 0;
   private previousTimeS = Number.NaN;
   monotonicError: PendingError | null = null;
   stepError: { row: number; stepS: number } | null = null;
-  private readonly segmentBuffers: Float64Array[];
+  /** The look-ahead's samples of the estimation channels (not needed while the helper thread measures from the kept rows). */
+  private segmentBuffers: Float64Array[] | null = null;
   private segmentFill = 0;
+  /** Segments measured (or sent to be) so far. */
+  private segments = 0;
+  /** The helper thread measuring the segments from the kept rows, while they are kept. */
+  private remote: AnalysisHelper | null = null;
+  private remoteResults: Promise<SegmentResults> | null = null;
 
   constructor(
     private readonly collector: () => RowCollector,
@@ -50,12 +59,15 @@ export class FirstPass implements RowSink {
     private readonly segmentSamples: number,
     private readonly statedIntervalS: number | null,
     private readonly timeColumn: number,
+    /** Rows to keep for pass 2 at most (0: none); the look-ahead is sized for them (untouched memory costs nothing). */
+    private readonly keepRows = 0,
+    /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
+    private readonly helper: AnalysisHelper | null = null,
   ) {
-    this.memory = new MemorySink(channelCount, hasTime, 2 * segmentSamples + ROW_CHUNK);
+    const shared = helper !== null && keepRows > 0;
+    this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
-    this.ratios = estimation.map(() => []);
-    this.trackers = estimation.map(() => new PhaseTracker());
-    this.segmentBuffers = estimation.map(() => new Float64Array(2 * segmentSamples));
+    this.estimator = new SegmentEstimator(estimation.length);
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
@@ -65,15 +77,22 @@ export class FirstPass implements RowSink {
       if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
       return;
     }
+    if (this.kept) {
+      if (this.rows <= this.keepRows) this.kept.accept(timesS, values, count);
+      else this.dropKept(firstRow);
+    }
     this.stream(timesS, values, count, firstRow);
   }
 
   private switchToStreaming(): void {
     const memory = this.memory!;
     this.memory = null;
+    this.kept = this.rows <= this.keepRows ? memory : null;
+    if (this.kept && this.helper) this.remote = this.helper;
+    else this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
     this.streaming = true;
     const rows = this.rows;
-    const times = memory.times?.values() ?? null;
+    const times = memory.times?.view() ?? null;
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
       const fit = new LineFit();
@@ -85,7 +104,7 @@ export class FirstPass implements RowSink {
     if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
     this.stream(
       times,
-      memory.channels.map((c) => c.values()),
+      memory.channels.map((c) => c.view()),
       rows,
       0,
     );
@@ -116,45 +135,81 @@ export class FirstPass implements RowSink {
     let offset = 0;
     while (offset < count) {
       const take = Math.min(count - offset, 2 * this.segmentSamples - this.segmentFill);
-      for (let e = 0; e < this.estimation.length; e++) {
-        this.segmentBuffers[e]!.set(values[this.estimation[e]!]!.subarray(offset, offset + take), this.segmentFill);
+      const buffers = this.segmentBuffers;
+      if (buffers) {
+        for (let e = 0; e < this.estimation.length; e++) buffers[e]!.set(values[this.estimation[e]!]!.subarray(offset, offset + take), this.segmentFill);
       }
       this.segmentFill += take;
       offset += take;
       // A full look-ahead means its first segment is not the last one (the last takes the remainder).
       if (this.segmentFill === 2 * this.segmentSamples) {
-        this.estimate(this.segmentSamples);
-        for (const buffer of this.segmentBuffers) buffer.copyWithin(0, this.segmentSamples, this.segmentFill);
+        this.estimate(this.segmentSamples, false);
+        if (buffers) for (const buffer of buffers) buffer.copyWithin(0, this.segmentSamples, this.segmentFill);
         this.segmentFill -= this.segmentSamples;
       }
     }
   }
 
-  private estimate(length: number): void {
-    const started = performance.now();
-    for (let e = 0; e < this.estimation.length; e++) {
-      const list = this.ratios[e]!;
-      if (list.some((r) => r instanceof AnalysisInputError)) continue;
+  /** Measures the next segment, here or (its samples being kept in shared memory) in the helper thread. */
+  private estimate(length: number, last: boolean): void {
+    const start = this.segments * this.segmentSamples;
+    if (this.remote) {
+      const results = this.remote.sendSegment({
+        channels: this.estimation.map((e) => this.kept!.channels[e]!.view()),
+        provisionalRateHz: this.provisionalRateHz,
+        start,
+        length,
+        first: this.segments === 0,
+        last,
+      });
+      if (results) {
+        // Awaited by segmentResults(); an input error thrown before then must not leave it unhandled.
+        results.catch(() => undefined);
+        this.remoteResults = results;
+      }
+    } else {
       // No usable rate yet (no interval stated, or a broken time axis): the error is reported after pass 1.
-      if (!(this.provisionalRateHz > 0)) {
-        list.push(Number.NaN);
-        continue;
-      }
-      try {
-        const segment = this.segmentBuffers[e]!.subarray(0, length);
-        const ratio = estimateFundamental(segment, this.provisionalRateHz) / this.provisionalRateHz;
-        list.push(ratio);
-        this.trackers[e]!.feed(segment, length, ratio);
-      } catch (error) {
-        if (!(error instanceof AnalysisInputError)) throw error;
-        list.push(error);
-      }
+      this.estimator.estimate(this.segmentBuffers!, length, this.provisionalRateHz);
     }
-    this.fundamentalMs += performance.now() - started;
+    this.segments++;
+  }
+
+  /**
+   * The record outgrew the rows it may keep (its size was misjudged from its head): the helper
+   * thread, which reads the kept rows, is let go and the segments it was sent are measured here
+   * from the rows kept so far (the same numbers), and the look-ahead refilled from them.
+   */
+  private dropKept(firstRow: number): void {
+    const kept = this.kept!;
+    this.kept = null;
+    if (!this.remote) return;
+    this.remote = null;
+    const channels = this.estimation.map((e) => kept.channels[e]!.view());
+    for (let k = 0; k < this.segments; k++) {
+      const start = k * this.segmentSamples;
+      this.estimator.estimate(
+        channels.map((c) => c.subarray(start, start + this.segmentSamples)),
+        this.segmentSamples,
+        this.provisionalRateHz,
+      );
+    }
+    const from = this.segments * this.segmentSamples;
+    this.segmentBuffers = channels.map((c) => {
+      const buffer = new Float64Array(2 * this.segmentSamples);
+      buffer.set(c.subarray(from, firstRow));
+      return buffer;
+    });
   }
 
   /** The last segment: whatever the look-ahead holds at the end (one to two segments). */
   end(): void {
-    if (this.streaming && this.segmentFill > 0) this.estimate(this.segmentFill);
+    if (this.streaming && this.segmentFill > 0) this.estimate(this.segmentFill, true);
+  }
+
+  /** Every segment's fundamental (f / provisional rate, or the channel's error), the phase tracks and the time spent, per estimation channel (after {@link end}). */
+  async segmentResults(): Promise<SegmentResults> {
+    if (this.remoteResults) return this.remoteResults;
+    const { ratios, trackers, fundamentalMs } = this.estimator;
+    return { ratios, tracks: trackers.map((t) => t.finish()), fundamentalMs };
   }
 }

@@ -31,6 +31,8 @@ export class SecondPass implements RowSink, WindowSource {
     private readonly span: number,
     private readonly timeCheck: { intervalS: number; startS: number; toleranceS: number; column: number } | null,
     private readonly waveform: WaveformCollector | null,
+    /** Windows below this are analysed here (the rest by the analysis helper thread). */
+    private readonly windowLimit = windowBounds.length - 1,
   ) {
     // Holds the pending window, one period folded back, and one incoming chunk.
     let capacity = 1;
@@ -58,7 +60,7 @@ export class SecondPass implements RowSink, WindowSource {
     const { windowBounds, analyzer } = this;
     const available = Math.min(this.filled, this.recordSamples);
     const started = performance.now();
-    while (this.window + 1 < windowBounds.length) {
+    while (this.window < this.windowLimit) {
       const start = windowBounds[this.window]!;
       if (Math.min(Math.floor(start) - this.padding + this.span, this.recordSamples) > available) break;
       analyzer.addWindow(start, windowBounds[this.window + 1]! - start, this);

@@ -54,6 +54,7 @@ export class WindowAnalyzer {
   private readonly pairActive: Float64Array;
   private readonly pairProduct: { re: number; im: number }[];
   private readonly sequenceSq: { pos: Float64Array; neg: Float64Array; zero: Float64Array }[];
+  private readonly measurement: Float64Array;
 
   /**
    * @param reference index of the channel whose fundamental phase is the zero of all phases.
@@ -96,6 +97,7 @@ export class WindowAnalyzer {
     this.pairActive = new Float64Array(pairs.length);
     this.pairProduct = pairs.map(() => ({ re: 0, im: 0 }));
     this.sequenceSq = sets.map(() => ({ pos: new Float64Array(stride), neg: new Float64Array(stride), zero: new Float64Array(stride) }));
+    this.measurement = new Float64Array(this.measurementLength);
   }
 
   private reserve(windows: number): void {
@@ -110,12 +112,30 @@ export class WindowAnalyzer {
 
   /**
    * Analyses one window of `windowSamples` samples (fractional) starting at sample `start`
-   * (fractional), reading its samples from `source`.
+   * (fractional), reading its samples from `source`: {@link measureWindow} then {@link accumulateWindow}.
    *
    * Complexity O(channels · (points·taps + points·log points)).
    */
   addWindow(start: number, windowSamples: number, source: WindowSource): void {
-    const { channels, fft, scratch, reference, pairs, sets, pairActive, pairProduct, sequenceSq, stride } = this;
+    this.measureWindow(start, windowSamples, source, this.measurement);
+    this.accumulateWindow(this.measurement);
+  }
+
+  /** Numbers {@link measureWindow} writes per window (see its layout). */
+  get measurementLength(): number {
+    return this.channels.length * (7 * this.stride + 3) + this.pairs.length + 1;
+  }
+
+  /**
+   * Measures one window without adding it to the totals, so windows can be measured in any order
+   * (or in another thread, by an analyzer built alike) and added in order by {@link accumulateWindow}.
+   * Writes into `out` ({@link measurementLength} numbers), per channel: order r.m.s. (orders + 1),
+   * bin re and im, group, subgroup, interharmonic group and subgroup squares (orders + 1 each),
+   * then r.m.s., peak and THD; then each voltage–current pair's Σ v·i over the points; then the
+   * reference channel's fundamental angle.
+   */
+  measureWindow(start: number, windowSamples: number, source: WindowSource, out: Float64Array): void {
+    const { channels, fft, scratch, reference, pairs, stride } = this;
     const { cycles, points, resolvableOrder, thdMaxOrder, halfWidth, padding, span } = this.shape;
     const n = this.recordSamples;
     const binScale = Math.SQRT2 / points;
@@ -126,13 +146,21 @@ export class WindowAnalyzer {
     const plan = planResample(start - first, windowSamples / points, points, this.plan, halfWidth);
     this.plan = plan;
     const period = Math.round(windowSamples);
-    const w = this.count;
-    this.reserve(w + 1);
     const windowFirst = Math.floor(start);
     const windowEnd = Math.min(n, Math.floor(start + windowSamples));
+    const block = 7 * stride + 3;
     let referenceAngle = 0;
     for (let ci = 0; ci < channels.length; ci++) {
       const ch = channels[ci]!;
+      const base = ci * block;
+      const rms = base;
+      const re = base + stride;
+      const im = base + 2 * stride;
+      const group = base + 3 * stride;
+      const subgroup = base + 4 * stride;
+      const inter = base + 5 * stride;
+      const interSub = base + 6 * stride;
+      out.fill(0, base, base + block);
       // The window with padding; beyond the record the source continues it periodically (it spans whole cycles).
       source.copyWindow(ci, first, span, period, scratch);
       let peak = 0;
@@ -146,41 +174,79 @@ export class WindowAnalyzer {
       const windowRms = Math.sqrt(sumSquares / points);
       fft.realTransform(ch.spectrum, ch.points);
       const spec = ch.spectrum;
-      const base = w * stride;
-      ch.orderRms[base] = spec[0]! / points;
-      ch.windowRe[0] = spec[0]! / points;
-      ch.windowIm[0] = 0;
+      out[rms] = spec[0]! / points;
+      out[re] = spec[0]! / points;
       for (let h = 1; h <= resolvableOrder; h++) {
         const k = cycles * h;
-        const re = spec[2 * k]! * binScale;
-        const im = spec[2 * k + 1]! * binScale;
-        ch.windowRe[h] = re;
-        ch.windowIm[h] = im;
-        ch.orderRms[base + h] = Math.hypot(re, im);
+        const binRe = spec[2 * k]! * binScale;
+        const binIm = spec[2 * k + 1]! * binScale;
+        out[re + h] = binRe;
+        out[im + h] = binIm;
+        out[rms + h] = Math.hypot(binRe, binIm);
         // IEC 61000-4-7:2002+A1:2008 clause 3.2 harmonic group (clause and formula from memory): bins k±(N/2−1) plus half of k±N/2.
         const halfCycles = cycles / 2;
-        let group = 0.5 * (binSq(spec, k - halfCycles) + binSq(spec, k + halfCycles));
-        for (let i = -halfCycles + 1; i < halfCycles; i++) group += binSq(spec, k + i);
-        ch.groupSq[h]! += group;
-        ch.subgroupSq[h]! += binSq(spec, k - 1) + binSq(spec, k) + binSq(spec, k + 1);
-        let inter = 0;
-        let interSub = 0;
+        let sum = 0.5 * (binSq(spec, k - halfCycles) + binSq(spec, k + halfCycles));
+        for (let i = -halfCycles + 1; i < halfCycles; i++) sum += binSq(spec, k + i);
+        out[group + h] = sum;
+        out[subgroup + h] = binSq(spec, k - 1) + binSq(spec, k) + binSq(spec, k + 1);
+        let interSum = 0;
+        let interSubSum = 0;
         for (let i = 1; i < cycles; i++) {
           const sq = binSq(spec, k + i);
-          inter += sq;
-          if (i >= 2 && i <= cycles - 2) interSub += sq;
+          interSum += sq;
+          if (i >= 2 && i <= cycles - 2) interSubSum += sq;
         }
-        ch.interGroupSq[h]! += inter;
-        ch.interSubgroupSq[h]! += interSub;
+        out[inter + h] = interSum;
+        out[interSub + h] = interSubSum;
       }
-      ch.windowRms[w] = windowRms;
-      ch.windowPeak[w] = peak;
       let harmonicSq = 0;
-      for (let h = 2; h <= Math.min(thdMaxOrder, resolvableOrder); h++) harmonicSq += ch.orderRms[base + h]! ** 2;
-      const fundamental = ch.orderRms[base + 1]!;
-      ch.windowThd[w] = fundamental > 0 ? (100 * Math.sqrt(harmonicSq)) / fundamental : 0;
-      if (ci === reference) referenceAngle = Math.atan2(ch.windowIm[1]!, ch.windowRe[1]!);
+      for (let h = 2; h <= Math.min(thdMaxOrder, resolvableOrder); h++) harmonicSq += out[rms + h]! ** 2;
+      const fundamental = out[rms + 1]!;
+      out[base + 7 * stride] = windowRms;
+      out[base + 7 * stride + 1] = peak;
+      out[base + 7 * stride + 2] = fundamental > 0 ? (100 * Math.sqrt(harmonicSq)) / fundamental : 0;
+      if (ci === reference) referenceAngle = Math.atan2(out[im + 1]!, out[re + 1]!);
     }
+    const tail = channels.length * block;
+    for (let p = 0; p < pairs.length; p++) {
+      const v = channels[pairs[p]!.voltage]!;
+      const i = channels[pairs[p]!.current]!;
+      let sum = 0;
+      for (let m = 0; m < points; m++) sum += v.points[m]! * i.points[m]!;
+      out[tail + p] = sum;
+    }
+    out[tail + pairs.length] = referenceAngle;
+  }
+
+  /** Adds a window {@link measureWindow} measured to the totals, as the next window. */
+  accumulateWindow(measurement: Float64Array): void {
+    const { channels, pairs, sets, pairActive, pairProduct, sequenceSq, stride } = this;
+    const { points, resolvableOrder } = this.shape;
+    const w = this.count;
+    this.reserve(w + 1);
+    const block = 7 * stride + 3;
+    for (let ci = 0; ci < channels.length; ci++) {
+      const ch = channels[ci]!;
+      const base = ci * block;
+      const rowStart = w * stride;
+      ch.orderRms[rowStart] = measurement[base]!;
+      ch.windowRe[0] = measurement[base + stride]!;
+      ch.windowIm[0] = 0;
+      for (let h = 1; h <= resolvableOrder; h++) {
+        ch.windowRe[h] = measurement[base + stride + h]!;
+        ch.windowIm[h] = measurement[base + 2 * stride + h]!;
+        ch.orderRms[rowStart + h] = measurement[base + h]!;
+        ch.groupSq[h]! += measurement[base + 3 * stride + h]!;
+        ch.subgroupSq[h]! += measurement[base + 4 * stride + h]!;
+        ch.interGroupSq[h]! += measurement[base + 5 * stride + h]!;
+        ch.interSubgroupSq[h]! += measurement[base + 6 * stride + h]!;
+      }
+      ch.windowRms[w] = measurement[base + 7 * stride]!;
+      ch.windowPeak[w] = measurement[base + 7 * stride + 1]!;
+      ch.windowThd[w] = measurement[base + 7 * stride + 2]!;
+    }
+    const tail = channels.length * block;
+    const referenceAngle = measurement[tail + pairs.length]!;
     // Phases relative to the reference fundamental: rotate order h by −h·φ_ref.
     for (const ch of channels) {
       for (let h = 1; h <= resolvableOrder; h++) {
@@ -193,9 +259,7 @@ export class WindowAnalyzer {
     for (let p = 0; p < pairs.length; p++) {
       const v = channels[pairs[p]!.voltage]!;
       const i = channels[pairs[p]!.current]!;
-      let sum = 0;
-      for (let m = 0; m < points; m++) sum += v.points[m]! * i.points[m]!;
-      pairActive[p]! += sum / points;
+      pairActive[p]! += measurement[tail + p]! / points;
       // V1·conj(I1)
       pairProduct[p]!.re += v.windowRe[1]! * i.windowRe[1]! + v.windowIm[1]! * i.windowIm[1]!;
       pairProduct[p]!.im += v.windowIm[1]! * i.windowRe[1]! - v.windowRe[1]! * i.windowIm[1]!;

@@ -1,11 +1,12 @@
 // CSV import variants and input errors, on the committed fixtures (fixtures/generate.ts).
-import { readFileSync } from "node:fs";
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
+import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { describe, expect, test } from "vitest";
 import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
 import { analyzeCsvText } from "@/lib/analysis/analyze-csv-text";
 import { AnalysisInputError } from "@/lib/analysis/errors";
-import { importCsvText } from "@/lib/analysis/import-csv";
+import { importCsvFile, importCsvText } from "@/lib/analysis/import-csv";
 import { inspectCsv } from "@/lib/analysis/inspect-csv";
 
 const fixture = (name: string): string => join(process.cwd(), "fixtures", name);
@@ -122,6 +123,36 @@ describe("import variants", () => {
     for (const name of ["single-phase-50hz.csv", "three-phase-60hz-semicolon.csv", "tab-preamble-one-window.csv", "units-row.csv"]) {
       const fromFile = await analyzeCsvFile(fixture(name));
       expect(fromFile).toEqual(analyzeCsvText(read(name)));
+    }
+  });
+
+  test("a file is read as bytes in 1 MB chunks: lines cut between chunks, CR LF, a byte-order mark, odd lines and a quoted line halfway give the text path's samples", async () => {
+    // 40,000 rows ≈ 1.3 MB, so the file arrives in two chunks with a line cut between them.
+    const lines = ["Time (s),Va (V),Ia (A)"];
+    for (let k = 0; k < 40_000; k++) {
+      const t = (k / 6400).toFixed(7);
+      const va = (325 * Math.cos((2 * Math.PI * 50 * k) / 6400)).toFixed(3);
+      const ia = (14.1 * Math.cos((2 * Math.PI * 50 * k) / 6400 - 0.5)).toFixed(4);
+      // Lines the byte scanner cannot read itself: spaces, an exponent of more digits, a leading "+", a quoted cell.
+      if (k === 1_000) lines.push(`${t}, ${va} ,${ia}`);
+      else if (k === 2_000) lines.push(`${t},${va},${Number(ia).toExponential(17)}`);
+      else if (k === 3_000) lines.push(`+${t},${va},${ia}`);
+      else if (k === 30_000) lines.push(`${t},"${va}",${ia}`);
+      else lines.push(`${t},${va},${ia}`);
+    }
+    const text = `\uFEFF${lines.join("\r\n")}\r\n`;
+    const dir = mkdtempSync(join(tmpdir(), "ordwise-import-"));
+    try {
+      const path = join(dir, "crlf-bom.csv");
+      writeFileSync(path, text);
+      const fromFile = await importCsvFile(path);
+      // The text path reads a file with a quote through papaparse from its first line: an independent reader.
+      const fromText = importCsvText(text);
+      expect(fromFile.rowCount).toBe(40_000);
+      expect(fromFile.channels.map((c) => Array.from(c.samples))).toEqual(fromText.channels.map((c) => Array.from(c.samples)));
+      expect(fromFile.sampleIntervalS).toBe(fromText.sampleIntervalS);
+    } finally {
+      rmSync(dir, { recursive: true, force: true });
     }
   });
 

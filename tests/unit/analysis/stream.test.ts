@@ -115,6 +115,12 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
     expect(diff.worst, diff.where).toBeLessThan(1e-6);
   });
 
+  test("pass 2 gives the same result, number for number, from the rows pass 1 kept and from reading the file again", async () => {
+    const kept = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
+    const reread = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT, keepRowsBytes: 0 });
+    expect(kept).toEqual(reread);
+  });
+
   test("every window is cut to its own fundamental: a 0.2 Hz ramp keeps every window whole", async () => {
     const streamed = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
     expect(streamed.fundamentalHz).toBeCloseTo(50, 2);

@@ -1,0 +1,73 @@
+// The analysis helper thread (see analysis-helper.ts): measures frequency segments (SegmentEstimator)
+// and windows (WindowAnalyzer.measureWindow) of a record held in shared memory, for the main thread.
+// Built as its own module by scripts/build-cli.mjs; started with `new Worker(...)`.
+import { parentPort } from "node:worker_threads";
+import type { HelperAnswer, HelperRequest, SentInputError } from "./analysis-helper";
+import { arrayWindowSource } from "./array-window-source";
+import { AnalysisInputError } from "./errors";
+import { SegmentEstimator } from "./segment-estimator";
+import { WindowAnalyzer } from "./window-analyzer";
+
+function send(value: number | AnalysisInputError): number | SentInputError {
+  if (typeof value === "number") return value;
+  const { code, message, line, column } = value;
+  return { error: { code, message, ...(line !== undefined ? { line } : {}), ...(column !== undefined ? { column } : {}) } };
+}
+
+let estimator: SegmentEstimator | null = null;
+/** A segment that failed before the last one (only the last is answered). */
+let segmentFailure: string | null = null;
+
+function describe(error: unknown): string {
+  return error instanceof Error ? (error.stack ?? error.message) : String(error);
+}
+
+function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): HelperAnswer | null {
+  const { channels, provisionalRateHz, start, length, first, last } = request;
+  if (first || !estimator) {
+    estimator = new SegmentEstimator(channels.length);
+    segmentFailure = null;
+  }
+  if (segmentFailure === null) {
+    try {
+      estimator.estimate(
+        channels.map((c) => c.subarray(start, start + length)),
+        length,
+        provisionalRateHz,
+      );
+    } catch (error) {
+      segmentFailure = describe(error);
+    }
+  }
+  if (!last) return null;
+  const done = estimator;
+  estimator = null;
+  if (segmentFailure !== null) return { type: "failed", message: segmentFailure };
+  return { type: "estimates", ratios: done.ratios.map((list) => list.map(send)), tracks: done.trackers.map((t) => t.finish()), fundamentalMs: done.fundamentalMs };
+}
+
+function answer(request: HelperRequest): HelperAnswer | null {
+  if (request.type === "segment") return measureSegment(request);
+  const started = performance.now();
+  const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, from, to, out } = request;
+  const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);
+  const source = arrayWindowSource(
+    channels.map((samples) => ({ samples, scale: 1 })),
+    recordSamples,
+  );
+  const length = analyzer.measurementLength;
+  for (let w = from; w < to; w++) {
+    analyzer.measureWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source, out.subarray((w - from) * length, (w - from + 1) * length));
+  }
+  return { type: "windows", ms: performance.now() - started };
+}
+
+parentPort?.on("message", (request: HelperRequest) => {
+  let reply: HelperAnswer | null;
+  try {
+    reply = answer(request);
+  } catch (error) {
+    reply = { type: "failed", message: describe(error) };
+  }
+  if (reply) parentPort!.postMessage(reply);
+});
