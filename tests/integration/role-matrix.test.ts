@@ -4,6 +4,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import { listedCapture } from "../support/captures";
 import { Client, signedIn, type DemoRole } from "../support/http";
 
 type Who = DemoRole | "anonymous";
@@ -126,9 +127,9 @@ beforeAll(async () => {
   const admin = clients.get("admin")!;
   const users = (await (await admin.request("GET", "/api/users")).json()) as { users: { id: string; email: string }[] };
   userId = users.users.find((u) => u.email === "viewer@ordwise.test")!.id;
-  // The demo viewer's own list: approved captures of her customer's sites only.
-  const list = (await (await clients.get("viewer")!.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; reviewState: string }[] };
-  const mine = list.items.find((c) => c.reviewState === "approved")!;
+  // From the demo viewer's own list (approved captures of her customer's sites only): the demo's approved capture,
+  // found page by page (other tests add captures in front of it).
+  const mine = await listedCapture<{ id: string; title: string; siteId: string }>(clients.get("viewer")!, "Compressor drives at full load — after filter");
   captureId = mine.id;
   siteId = mine.siteId;
 });
