@@ -12,7 +12,8 @@ export interface VerificationView extends RevisionVerification {
   createdAt: Date;
 }
 
-const columns = {
+/** A verification as sheets and the limit-table screens show it. */
+export const verificationColumns = {
   edition: limitSetVerifications.edition,
   checked: limitSetVerifications.checked,
   verifiedByName: limitSetVerifications.verifiedByName,
@@ -20,12 +21,6 @@ const columns = {
   note: limitSetVerifications.note,
   createdAt: limitSetVerifications.createdAt,
 };
-
-/** The newest verification of a revision (by its id), or null when it is not yet verified. */
-export async function getRevisionVerification({ revisionId }: { revisionId: string }): Promise<VerificationView | null> {
-  const [row] = await db.select(columns).from(limitSetVerifications).where(eq(limitSetVerifications.revisionId, revisionId)).orderBy(desc(limitSetVerifications.createdAt)).limit(1);
-  return row ?? null;
-}
 
 async function revisionId(key: string, number: number): Promise<string> {
   const [row] = await db
@@ -40,7 +35,7 @@ async function revisionId(key: string, number: number): Promise<string> {
 /** Every verification of a revision, newest first (the limit-table screens). */
 export async function listRevisionVerifications({ key, number }: { key: string; number: number }): Promise<VerificationView[]> {
   const id = await revisionId(key, number);
-  return db.select(columns).from(limitSetVerifications).where(eq(limitSetVerifications.revisionId, id)).orderBy(desc(limitSetVerifications.createdAt));
+  return db.select(verificationColumns).from(limitSetVerifications).where(eq(limitSetVerifications.revisionId, id)).orderBy(desc(limitSetVerifications.createdAt));
 }
 
 /** Records that `actor` checked a revision against the printed edition. The revision itself is not touched. */
@@ -60,7 +55,7 @@ export async function verifyRevision({
     const [row] = await tx
       .insert(limitSetVerifications)
       .values({ revisionId: id, ...input, verifiedById: actor.id, verifiedByName: actor.name })
-      .returning(columns);
+      .returning(verificationColumns);
     await insertAuditEvent(tx, { actorId: actor.id, action: "limit_set.verify", entityType: "limit_set_revision", entityId: id, details: { key, number, ...input } });
     return row!;
   });

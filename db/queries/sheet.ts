@@ -7,7 +7,7 @@ import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/resul
 import { AppError } from "@/lib/errors";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
 import { splitResult, type ResultHead } from "@/lib/reports/result-head";
-import type { VerificationView } from "./limit-verifications";
+import { verificationColumns, type VerificationView } from "./limit-verifications";
 import { capturesVisibleTo, sitesVisibleTo } from "./scope";
 
 // The reads behind a sheet (page, share page, PDF, CSV) and its charts: few queries, each reading only
@@ -45,14 +45,7 @@ function summaryOf(r: typeof analyses.result) {
 /** The newest verification of the evaluation's limit-set revision (a lateral subquery of a query on evaluations). */
 function newestVerification() {
   return db
-    .select({
-      edition: limitSetVerifications.edition,
-      checked: limitSetVerifications.checked,
-      verifiedByName: limitSetVerifications.verifiedByName,
-      verifiedOn: limitSetVerifications.verifiedOn,
-      note: limitSetVerifications.note,
-      createdAt: limitSetVerifications.createdAt,
-    })
+    .select(verificationColumns)
     .from(limitSetVerifications)
     .where(eq(limitSetVerifications.revisionId, evaluations.limitSetRevisionId))
     .orderBy(desc(limitSetVerifications.createdAt))
