@@ -46,7 +46,30 @@ function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): H
   return { type: "estimates", ratios: done.ratios.map((list) => list.map(send)), tracks: done.trackers.map((t) => t.finish()), fundamentalMs: done.fundamentalMs };
 }
 
+/** Bytes per memory page touched by prefault (4 KiB: the smallest common page). */
+const PAGE_BYTES = 4096;
+
+/**
+ * Touches every page of the arrays with an atomic add of zero (see AnalysisHelper.prefault), in
+ * the order the main thread fills them: row by row across the arrays.
+ */
+function prefault(arrays: Float64Array[]): void {
+  const words = arrays.map((a) => new Int32Array(a.buffer, a.byteOffset, a.length * 2));
+  const longest = Math.max(0, ...words.map((w) => w.length));
+  for (let i = 0; i < longest; i += PAGE_BYTES / 4) {
+    for (const w of words) if (i < w.length) Atomics.add(w, i, 0);
+  }
+}
+
 function answer(request: HelperRequest): HelperAnswer | null {
+  if (request.type === "prefault") {
+    try {
+      prefault(request.arrays);
+    } catch {
+      // Touching pages only saves time; the main thread writes them either way.
+    }
+    return null;
+  }
   if (request.type === "segment") return measureSegment(request);
   const started = performance.now();
   const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, from, to, out } = request;

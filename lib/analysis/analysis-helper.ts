@@ -15,8 +15,13 @@ export interface SentInputError {
   error: { code: AnalysisErrorCode; message: string; line?: number; column?: number };
 }
 
-/** What the main thread asks of the helper thread (in order; each answered in order). */
+/** What the main thread asks of the helper thread (in order; answered in order, where answered). */
 export type HelperRequest =
+  | {
+      type: "prefault";
+      /** SharedArrayBuffer-backed arrays the main thread is about to fill (see {@link AnalysisHelper.prefault}). Not answered. */
+      arrays: Float64Array[];
+    }
   | {
       type: "segment";
       /** The estimation channels, SharedArrayBuffer-backed, as long as the record will be. */
@@ -137,6 +142,16 @@ export class AnalysisHelper {
       if (a.type !== "estimates") throw new Error(`analysis helper thread answered ${a.type} to a segment`);
       return { ratios: a.ratios.map((list) => list.map(receiveRatio)), tracks: a.tracks, fundamentalMs: a.fundamentalMs };
     });
+  }
+
+  /**
+   * Has the helper touch every memory page of `arrays` (shared, about to be filled by this thread)
+   * ahead of this thread, so that the operating system maps them there, in parallel, rather than
+   * here on first write. Each page gets an atomic add of zero to one of its words, which leaves
+   * whatever this thread has written, or writes meanwhile, unchanged.
+   */
+  prefault(arrays: Float64Array[]): void {
+    if (!this.failure) this.worker.postMessage({ type: "prefault", arrays } satisfies HelperRequest);
   }
 
   /** Measures windows `from` … `to` − 1 into `out` (see WindowAnalyzer.measureWindow); resolves when done. */

@@ -45,7 +45,7 @@ export class MemorySink implements RowSink {
   /** @param shared numbers in SharedArrayBuffers (see {@link SampleBuffer}), for the analysis helper thread to read. */
   constructor(channelCount: number, hasTime: boolean, expectedRows: number, shared = false) {
     this.channels = Array.from({ length: channelCount }, () => new SampleBuffer(expectedRows, shared));
-    this.times = hasTime ? new SampleBuffer(expectedRows) : null;
+    this.times = hasTime ? new SampleBuffer(expectedRows, shared) : null;
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number): void {

@@ -48,6 +48,11 @@ export class SampleBuffer {
     this.length += count;
   }
 
+  /** The whole backing array, filled or not (valid until the buffer grows). */
+  storage(): Float64Array {
+    return this.data;
+  }
+
   /** The stored values as a view, never a copy (valid until the next push or append). */
   view(): Float64Array {
     return this.data.subarray(0, this.length);

@@ -65,7 +65,10 @@ export class FirstPass implements RowSink {
     private readonly helper: AnalysisHelper | null = null,
   ) {
     const shared = helper !== null && keepRows > 0;
-    this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
+    const memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
+    this.memory = memory;
+    // The helper maps the pages of the rows about to be kept while this thread parses.
+    if (shared) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage()));
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
