@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
 import { evaluations, limitSetRevisions } from "@/db/schema";
 import { appUrl } from "../support/env";
-import { analysedCapture, json } from "../support/captures";
+import { analysedCapture, demoCaptureId, json } from "../support/captures";
 import { Client, signedIn } from "../support/http";
 
 let engineer: Client;
@@ -13,8 +13,8 @@ let captureId = "";
 
 beforeAll(async () => {
   engineer = await signedIn("engineer");
-  const list = (await (await engineer.request("GET", "/api/captures")).json()) as { items: { id: string; reviewState: string }[] };
-  captureId = list.items.find((c) => c.reviewState === "approved")!.id;
+  // An approved demo capture, found by title (other test files add captures in front of it).
+  captureId = await demoCaptureId(engineer, "Heater controller, 1.8 kW");
 });
 
 function expectCommonHeaders(res: Response, what: string) {

@@ -5,6 +5,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import { demoCaptureId } from "../support/captures";
 import { appUrl } from "../support/env";
 import { Client, signedIn } from "../support/http";
 
@@ -44,8 +45,8 @@ let admin: Client;
 
 beforeAll(async () => {
   admin = await signedIn("admin");
-  const list = (await (await admin.request("GET", "/api/captures")).json()) as { items: { id: string; reviewState: string }[] };
-  captureId = list.items.find((c) => c.reviewState === "approved")!.id;
+  // An approved demo capture, found by title (other test files add captures in front of it).
+  captureId = await demoCaptureId(admin, "Compressor drives at full load — after filter");
 });
 
 /**

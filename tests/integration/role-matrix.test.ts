@@ -4,6 +4,7 @@
 import fs from "node:fs";
 import path from "node:path";
 import { beforeAll, describe, expect, it } from "vitest";
+import { listedCapture } from "../support/captures";
 import { Client, signedIn, type DemoRole } from "../support/http";
 
 type Who = DemoRole | "anonymous";
@@ -125,9 +126,9 @@ beforeAll(async () => {
   const admin = clients.get("admin")!;
   const users = (await (await admin.request("GET", "/api/users")).json()) as { users: { id: string; email: string }[] };
   userId = users.users.find((u) => u.email === "viewer@ordwise.test")!.id;
-  // The demo viewer's own list: approved captures of her customer's sites only.
-  const list = (await (await clients.get("viewer")!.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; reviewState: string }[] };
-  const mine = list.items.find((c) => c.reviewState === "approved")!;
+  // The demo capture approved at the viewer's customer's site, found by title in her own list (other test
+  // files add approved captures of their own in front of it).
+  const mine = await listedCapture<{ id: string; title: string; siteId: string }>(clients.get("viewer")!, "Compressor drives at full load — after filter");
   captureId = mine.id;
   siteId = mine.siteId;
 });
@@ -193,12 +194,9 @@ describe("role matrix — object level", () => {
   beforeAll(async () => {
     const admin = clients.get("admin")!;
     const viewer = clients.get("viewer")!;
-    const all = (await (await admin.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; title: string; reviewState: string }[] };
-    const visible = (await (await viewer.request("GET", "/api/captures")).json()) as { items: { id: string }[] };
-    const visibleIds = new Set(visible.items.map((c) => c.id));
     // The demo scenario approves a capture at a site of another customer (Bench B); the viewer must not see it.
-    const other = all.items.find((c) => c.reviewState === "approved" && !visibleIds.has(c.id))!;
-    expect(other).toBeDefined();
+    const other = await listedCapture<{ id: string; title: string; siteId: string }>(admin, "Heater controller, 1.8 kW");
+    await expect(listedCapture(viewer, other.title)).rejects.toThrow(/no analysed capture/);
     otherCaptureId = other.id;
     otherSiteId = other.siteId;
     otherTitle = other.title;
