@@ -63,16 +63,17 @@ export class FirstPass implements RowSink {
     private readonly keepRows = 0,
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
+    /** Rows the file is expected to hold (judged from its head): how far the helper maps memory ahead. */
+    expectedRows = 0,
   ) {
     const shared = helper !== null && keepRows > 0;
     const memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
     this.memory = memory;
     // The helper maps the pages of the rows to be kept beyond the look-ahead while this thread parses
     // (the look-ahead is filled first, before the helper could get ahead of this thread).
-    if (shared) {
-      const from = 2 * segmentSamples + ROW_CHUNK;
-      helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage().subarray(Math.min(from, keepRows))));
-    }
+    const from = 2 * segmentSamples + ROW_CHUNK;
+    const to = Math.min(keepRows, Math.ceil(1.02 * expectedRows) + ROW_CHUNK);
+    if (shared && to > from) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage().subarray(from, to)));
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
