@@ -27,6 +27,8 @@ import { WindowAnalyzer } from "./window-analyzer";
 export interface StreamTimings extends StageTimings {
   /** Pass 2 minus the time spent in windows: replaying the kept rows or re-parsing, time-axis and clipping checks. */
   rereadMs?: number;
+  /** Time this thread waited for the analysis helper thread (its segment estimates, then its windows). */
+  helperWaitMs?: number;
 }
 
 /**
@@ -113,6 +115,7 @@ export async function analyzeCsvFile(
     (timeColumn?.index ?? 0) + 1,
     estimatedRows <= keepRows ? keepRows : 0,
     tuning.helper ?? null,
+    estimatedRows,
   );
   collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);
@@ -195,6 +198,8 @@ export async function analyzeCsvFile(
   if (timings) timings.checksMs = performance.now() - clock;
   clock = performance.now();
   const measured = await first.segmentResults();
+  const segmentsWaitMs = first.segmentsMeasuredElsewhere ? performance.now() - clock : 0;
+  if (timings && first.segmentsMeasuredElsewhere) timings.helperWaitMs = segmentsWaitMs;
   const ratios = measured.ratios[estimation.indexOf(reference)]!;
   const segmentHz = ratios.map((r) => {
     if (r instanceof AnalysisInputError) throw r;
@@ -203,7 +208,8 @@ export async function analyzeCsvFile(
   const bounds = segmentBounds(n, segmentSamples);
   if (bounds.length - 1 !== segmentHz.length) throw new Error(`segment count mismatch: ${bounds.length - 1} bounds, ${segmentHz.length} estimates`);
   const plan = planWindows(segmentHz, bounds, sampleRateHz, analysisOptions, warnings, measured.tracks[estimation.indexOf(reference)]!);
-  if (timings) timings.fundamentalMs = measured.fundamentalMs + performance.now() - clock;
+  // With the helper, its measuring ran alongside pass 1: this thread's share is the wait and the plan.
+  if (timings) timings.fundamentalMs = (first.segmentsMeasuredElsewhere ? 0 : measured.fundamentalMs) + performance.now() - clock;
 
   // Pass 2.
   const secondStarted = performance.now();
@@ -263,7 +269,9 @@ export async function analyzeCsvFile(
   second.drain();
   if (second.residualError) throw second.residualError;
   if (helped) {
+    const waitStarted = performance.now();
     await helped.done;
+    if (timings) timings.helperWaitMs = (timings.helperWaitMs ?? 0) + performance.now() - waitStarted;
     const started = performance.now();
     const length = analyzer.measurementLength;
     for (let w = split; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray((w - split) * length, (w - split + 1) * length));

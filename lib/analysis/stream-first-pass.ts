@@ -63,12 +63,17 @@ export class FirstPass implements RowSink {
     private readonly keepRows = 0,
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
+    /** Rows the file is expected to hold (judged from its head): how far the helper maps memory ahead. */
+    expectedRows = 0,
   ) {
     const shared = helper !== null && keepRows > 0;
     const memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
     this.memory = memory;
-    // The helper maps the pages of the rows about to be kept while this thread parses.
-    if (shared) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage()));
+    // The helper maps the pages of the rows to be kept beyond the look-ahead while this thread parses
+    // (the look-ahead is filled first, before the helper could get ahead of this thread).
+    const from = 2 * segmentSamples + ROW_CHUNK;
+    const to = Math.min(keepRows, Math.ceil(1.02 * expectedRows) + ROW_CHUNK);
+    if (shared && to > from) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage().subarray(from, to)));
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
@@ -207,6 +212,11 @@ export class FirstPass implements RowSink {
   /** The last segment: whatever the look-ahead holds at the end (one to two segments). */
   end(): void {
     if (this.streaming && this.segmentFill > 0) this.estimate(this.segmentFill, true);
+  }
+
+  /** True when the helper thread measured the segments (its time ran alongside this thread's). */
+  get segmentsMeasuredElsewhere(): boolean {
+    return this.remoteResults !== null;
   }
 
   /** Every segment's fundamental (f / provisional rate, or the channel's error), the phase tracks and the time spent, per estimation channel (after {@link end}). */

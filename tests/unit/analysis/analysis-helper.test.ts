@@ -11,6 +11,7 @@ import { AnalysisHelper } from "@/lib/analysis/analysis-helper";
 import { analyzeCsvFile } from "@/lib/analysis/analyze-csv-file";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import type { AnalysisOptions } from "@/lib/analysis/types";
+import { driftingCaptureText } from "./signals";
 
 const dir = mkdtempSync(join(tmpdir(), "ordwise-helper-"));
 let helper: AnalysisHelper | null = null;
@@ -38,25 +39,9 @@ afterAll(async () => {
 const SEGMENT = 4096;
 const RATE = 6400;
 
-/**
- * Va, Ia, Vb, Ib at 6.4 kS/s, fundamental drifting 49.9 → 50.1 Hz, 5th/7th/11th harmonics.
- * `padFirst` rows at the start get wide padding, so the head promises fewer rows than there are.
- */
+/** The drifting four-channel capture of signals.ts; the first `padFirst` rows padded wide. */
 function captureText(seconds: number, padFirst = 0): string {
-  const rows = Math.round(seconds * RATE);
-  const lines = ["Time (s),Va (V),Ia (A),Vb (V),Ib (A)"];
-  const b = (-2 * Math.PI) / 3;
-  for (let k = 0; k < rows; k++) {
-    const t = k / RATE;
-    const phase = 2 * Math.PI * (49.9 * t + (0.1 * t * t) / seconds);
-    const va = 325 * Math.cos(phase) + 6 * Math.cos(5 * phase + 0.3);
-    const vb = 325 * Math.cos(phase + b) + 6 * Math.cos(5 * (phase + b) + 0.3);
-    const ia = 0.4 + 10 * Math.cos(phase - 0.6) + 2 * Math.cos(5 * phase - 1) + 1.2 * Math.cos(7 * phase + 0.5) + 0.4 * Math.cos(11 * phase);
-    const ib = 10 * Math.cos(phase + b - 0.6) + 2 * Math.cos(5 * (phase + b) - 1);
-    const cells = [t.toFixed(7), va.toFixed(2), ia.toFixed(4), vb.toFixed(2), ib.toFixed(4)];
-    lines.push(k < padFirst ? cells.map((c) => c.padStart(40)).join(",") : cells.join(","));
-  }
-  return `${lines.join("\n")}\n`;
+  return driftingCaptureText(seconds, RATE, padFirst);
 }
 
 describe("with the helper thread the result is the one-thread result, number for number", { timeout: 60_000 }, () => {

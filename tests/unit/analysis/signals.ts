@@ -38,3 +38,29 @@ export function rampingMultiTone(startHz: number, rampHz: number, rateHz: number
   }
   return samples;
 }
+
+/**
+ * A four-channel capture as CSV text ("Time (s),Va (V),Ia (A),Vb (V),Ib (A)"): Va, Ia, Vb, Ib at
+ * `rateHz`, fundamental drifting 49.9 → 50.1 Hz over the record (phase = 2π(49.9·t + 0.1·t²/T)),
+ * 5th/7th/11th harmonics, a DC offset on Ia and Ib clipped at ±11 A (so the DC-offset and clipping
+ * warnings appear). The first `padFirst` rows have every cell padded with spaces to 40 characters
+ * (a head that promises fewer rows than the file holds).
+ */
+export function driftingCaptureText(seconds: number, rateHz: number, padFirst = 0): string {
+  const rows = Math.round(seconds * rateHz);
+  const lines = ["Time (s),Va (V),Ia (A),Vb (V),Ib (A)"];
+  const b = (-2 * Math.PI) / 3;
+  for (let k = 0; k < rows; k++) {
+    const t = k / rateHz;
+    // Frequency ramps linearly by 0.2 Hz over the record: phase = 2π(49.9·t + 0.1·t²/seconds).
+    const phase = 2 * Math.PI * (49.9 * t + (0.1 * t * t) / seconds);
+    const va = 325 * Math.cos(phase) + 6 * Math.cos(5 * phase + 0.3);
+    const vb = 325 * Math.cos(phase + b) + 6 * Math.cos(5 * (phase + b) + 0.3);
+    const ia = 0.4 + 10 * Math.cos(phase - 0.6) + 2 * Math.cos(5 * phase - 1) + 1.2 * Math.cos(7 * phase + 0.5) + 0.4 * Math.cos(11 * phase);
+    const ibRaw = 10 * Math.cos(phase + b - 0.6) + 2 * Math.cos(5 * (phase + b) - 1);
+    const ib = Math.max(-11, Math.min(11, ibRaw));
+    const cells = [t.toFixed(7), va.toFixed(2), ia.toFixed(4), vb.toFixed(2), ib.toFixed(4)];
+    lines.push(k < padFirst ? cells.map((c) => c.padStart(40)).join(",") : cells.join(","));
+  }
+  return `${lines.join("\n")}\n`;
+}

@@ -10,6 +10,7 @@ import { analyzeImported } from "@/lib/analysis/analyze-imported";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import { importCsvText } from "@/lib/analysis/import-csv";
 import type { AnalysisOptions, AnalysisResult } from "@/lib/analysis/types";
+import { driftingCaptureText } from "./signals";
 
 const dir = mkdtempSync(join(tmpdir(), "ordwise-stream-"));
 afterAll(() => rmSync(dir, { recursive: true, force: true }));
@@ -23,21 +24,7 @@ const RATE = 6400;
  * offset on Ia and Ib clipped at 95 % of its peak (so both warnings appear).
  */
 function captureText(seconds: number): string {
-  const rows = Math.round(seconds * RATE);
-  const lines = ["Time (s),Va (V),Ia (A),Vb (V),Ib (A)"];
-  const b = (-2 * Math.PI) / 3;
-  for (let k = 0; k < rows; k++) {
-    const t = k / RATE;
-    // Frequency ramps linearly by 0.2 Hz over the record: phase = 2π(49.9·t + 0.1·t²/seconds).
-    const phase = 2 * Math.PI * (49.9 * t + (0.1 * t * t) / seconds);
-    const va = 325 * Math.cos(phase) + 6 * Math.cos(5 * phase + 0.3);
-    const vb = 325 * Math.cos(phase + b) + 6 * Math.cos(5 * (phase + b) + 0.3);
-    const ia = 0.4 + 10 * Math.cos(phase - 0.6) + 2 * Math.cos(5 * phase - 1) + 1.2 * Math.cos(7 * phase + 0.5) + 0.4 * Math.cos(11 * phase);
-    const ibRaw = 10 * Math.cos(phase + b - 0.6) + 2 * Math.cos(5 * (phase + b) - 1);
-    const ib = Math.max(-11, Math.min(11, ibRaw));
-    lines.push(`${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(4)},${vb.toFixed(2)},${ib.toFixed(4)}`);
-  }
-  return `${lines.join("\n")}\n`;
+  return driftingCaptureText(seconds, RATE);
 }
 
 function write(name: string, text: string): string {
