@@ -29,7 +29,7 @@ describe("importIntervalLogFile", () => {
     expect(fromFile.intervalS).toBe(600);
     // …and the streamed chunks change nothing against the whole text read at once.
     expect(fromFile).toEqual(importIntervalLog(text, mapping));
-  });
+  }, 30_000);
 
   test("a Latin-1 log with a preamble, ';' cells, decimal commas and a quoted header holding the delimiter", async () => {
     // "µ" is one byte (0xB5) in Latin-1, which is not valid UTF-8 on its own.

@@ -142,7 +142,7 @@ describe("the words a reader gets name no internal identifier", () => {
     const offenders = new Map<string, string>();
     for (const j of judged) for (const w of sheetWords(j)) for (const name of internalNames(w)) if (!offenders.has(name)) offenders.set(name, `«${name}» in “${w.slice(0, 200)}” (${j.label})`);
     expect([...offenders.values()]).toEqual([]);
-  });
+  }, 60_000);
 
   test("the CSV of each of them", () => {
     const offenders = new Map<string, string>();
@@ -151,7 +151,7 @@ describe("the words a reader gets name no internal identifier", () => {
       for (const name of internalNames(csv)) if (!offenders.has(name)) offenders.set(name, `«${name}» in “${around(csv, name)}” (${j.label})`);
     }
     expect([...offenders.values()]).toEqual([]);
-  });
+  }, 60_000);
 
   test("the PDF of each of them", async () => {
     const offenders = new Map<string, string>();
