@@ -21,17 +21,27 @@ import {
 
 type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
 
-/** "600 s" → "10 min", 86400 → "24 h", 604800 → "7 days", 2.04 → "2.04 s". */
+/**
+ * A duration for people, the one duration wording of the sheet, the PDF, the CSV and the importers'
+ * messages: from an hour up to the nearest minute ("1 h 31 min"), from a minute up to the nearest
+ * second ("2 min 5 s"), below that three significant figures ("2.04 s"); whole days as hours
+ * ("24 h", "48 h") except a week ("7 days"). O(1).
+ *
+ * @example formatDurationS(600) // "10 min"
+ */
 export function formatDurationS(seconds: number): string {
   if (seconds >= 86_400 && Number.isInteger(seconds / 86_400)) return seconds / 86_400 === 7 ? "7 days" : `${seconds / 3600} h`;
   if (seconds >= 3600) {
-    const h = Math.floor(seconds / 3600);
-    const min = Math.round((seconds - h * 3600) / 60);
+    // Rounded first, so 7199 s reads "2 h", never "1 h 60 min".
+    const minutes = Math.round(seconds / 60);
+    const h = Math.floor(minutes / 60);
+    const min = minutes - h * 60;
     return min === 0 ? `${h} h` : `${h} h ${min} min`;
   }
   if (seconds >= 60) {
-    const min = Math.floor(seconds / 60);
-    const s = Math.round(seconds - min * 60);
+    const whole = Math.round(seconds);
+    const min = Math.floor(whole / 60);
+    const s = whole - min * 60;
     return s === 0 ? `${min} min` : `${min} min ${s} s`;
   }
   return `${Number(seconds.toPrecision(3))} s`;
@@ -284,16 +294,22 @@ export function phaseConfigText(value: string): string {
   return PHASE_CONFIG_WORDS[value] ?? value;
 }
 
-/** A context value as a reader writes it: whole numbers from 10,000 up, else 6 significant digits (3469020 W, 31.5385). */
-function contextNumber(value: number): string {
-  return Math.abs(value) >= 1e4 ? String(Math.round(value)) : String(Number(value.toPrecision(6)));
+/**
+ * A context value quoted against a band's bounds: whole numbers as they are, others to six
+ * significant figures (not the four of formatNumber), so a value just below a bound
+ * (Isc/IL = 49.9996) never prints as the bound itself. O(1).
+ *
+ * @example formatContextValue(49.99963) // "49.9996"
+ */
+export function formatContextValue(value: number): string {
+  return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
 }
 
 /** "bus voltage = 11000 V", "phase configuration balanced three-phase". */
 export function criterionValueText(criterion: BandCriterion, value: number | string): string {
   const { name, unit } = CRITERION_NAMES[criterion];
   if (typeof value === "string") return `${name} ${criterion === "phaseConfig" ? phaseConfigText(value) : value}`;
-  return `${name} = ${contextNumber(value)}${unit}`;
+  return `${name} = ${formatContextValue(value)}${unit}`;
 }
 
 /**

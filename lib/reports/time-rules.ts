@@ -2,7 +2,7 @@
 // verdict, what each rule measures, and what the rules were evaluated on.
 import type { ComplianceAggregate, ComplianceRow, RowRuleResult, TimeBasis, TimeRuleSummary } from "@/lib/compliance/result";
 import { formatNumber, formatPercent } from "./format";
-import { accumulationText, formatMultiplier, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
+import { accumulationText, formatDurationS, formatMultiplier, formatUtc, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
 
 /** A rule of the revision as the time-rules panel lists it. */
 export interface TimeRuleLine extends Omit<TimeRuleSummary, "accumulation" | "reason"> {
@@ -72,13 +72,6 @@ export function tableLimitOf(row: Pick<ComplianceRow, "limit" | "decidedBy" | "r
   return decidingRule(row)?.tableLimit ?? row.limit;
 }
 
-function formatDuration(seconds: number): string {
-  if (seconds >= 86_400) return `${Number((seconds / 86_400).toPrecision(3))} days`;
-  if (seconds >= 3600) return `${Number((seconds / 3600).toPrecision(3))} h`;
-  if (seconds >= 60) return `${Number((seconds / 60).toPrecision(3))} min`;
-  return `${Number(seconds.toPrecision(3))} s`;
-}
-
 const COVERAGE: Record<TimeBasis["coverage"], string> = {
   all: "every time rule applied",
   partial: "some time rules applied",
@@ -91,9 +84,9 @@ const COVERAGE: Record<TimeBasis["coverage"], string> = {
  */
 export function describeTimeBasis(basis: TimeBasis): Array<[string, string]> {
   const source = basis.source === "windows" ? "10/12-cycle analysis windows" : basis.source === "interval-log" ? "interval log" : "no per-value series";
-  const out: Array<[string, string]> = [["Record", `${formatDuration(basis.durationS)} of ${source}`]];
-  out.push(["Values", basis.valueS !== null ? `${basis.valueCount} × ${formatDuration(basis.valueS)}` : String(basis.valueCount)]);
-  if (basis.startMs !== null) out.push(["Starts", `${new Date(basis.startMs).toISOString().slice(0, 16).replace("T", " ")} UTC`]);
+  const out: Array<[string, string]> = [["Record", `${formatDurationS(basis.durationS)} of ${source}`]];
+  out.push(["Values", basis.valueS !== null ? `${basis.valueCount} × ${formatDurationS(basis.valueS)}` : String(basis.valueCount)]);
+  if (basis.startMs !== null) out.push(["Starts", formatUtc(basis.startMs)]);
   const fallback = basis.snapshotFallback
     ? "; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
     : "; a rule that cannot be evaluated leaves its rows not evaluated";

@@ -259,8 +259,9 @@ describe("the pass/fail sheet", () => {
     await signInAs(page, "technician");
     await page.goto(url(`/captures/${id}`));
     await page.waitForSelector("[data-testid=failure-reason]", { timeout: 30_000 });
-    // 3 rows at 1 ms: 3 ms of record, where a window needs 10 cycles at 50 Hz (0.2 s).
-    expect(await page.textContent("[data-testid=failure-reason]")).toContain("record is shorter than one analysis window: 0.00300 s of data");
+    // 3 rows at 1 ms: 3 ms of record, where a window needs 10 cycles at 50 Hz (0.2 s). The reason stands
+    // as a sentence of its own, so it starts with a capital (the engine's message starts in lower case).
+    expect(await page.textContent("[data-testid=failure-reason]")).toContain("Why it failedRecord is shorter than one analysis window: 0.00300 s of data");
     expect(await page.getAttribute("[data-testid=fix-mapping]", "href")).toBe(`/captures/${id}/setup`);
     await snapAt(page, "sheet-failed", "body");
     await page.close();

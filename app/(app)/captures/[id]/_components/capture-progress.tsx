@@ -3,6 +3,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef } from "react";
+import { failureReasonText } from "@/lib/reports/format";
 import { useCapture, type CaptureStatusDto } from "@/lib/swr/use-capture";
 
 const labels: Record<string, string> = {
@@ -33,7 +34,7 @@ export function CaptureProgress({ initial, canFix }: { initial: CaptureStatusDto
       {capture.status === "failed" ? (
         <div className="rounded-md border border-fail/40 bg-fail-light px-4 py-3 text-fail" role="alert" data-testid="failure-reason">
           <p className="font-semibold">Why it failed</p>
-          <p className="mt-1 text-ink">{capture.failureReason ?? "No reason was recorded."}</p>
+          <p className="mt-1 text-ink">{failureReasonText(capture.failureReason)}</p>
         </div>
       ) : (
         <div>
