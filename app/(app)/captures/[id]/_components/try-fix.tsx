@@ -1,6 +1,7 @@
 "use client";
 
 import { useState } from "react";
+import { SubmitButton } from "@/app/_components/submit-button";
 import { useRequest } from "@/app/_components/use-request";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ChannelCompliance } from "@/lib/compliance/result";
@@ -111,9 +112,9 @@ export function TryFix({ base, evaluationId, approved, channel, context }: { bas
           {num("xOverR", "source X/R (default 10)")}
         </div>
         <div className="flex flex-wrap items-center gap-3">{check("active", "Active filter")}{num("ratingA", "A")}</div>
-        <button type="submit" className="btn-primary" disabled={busy} data-testid="fix-predict">
-          {busy ? "Predicting…" : "Predict"}
-        </button>
+        <SubmitButton busy={busy} busyLabel="Predicting…" testId="fix-predict">
+          Predict
+        </SubmitButton>
       </form>
       {error && (
         <p className="mt-2 text-fail" role="alert" data-testid="fix-error">
