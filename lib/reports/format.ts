@@ -27,6 +27,19 @@ export const reviewStateLabels: Record<string, string> = {
   sent_back: "Sent back",
 };
 
+/**
+ * A capture's processing status for people: `label` where statuses are listed or filtered, `sentence`
+ * where the capture's own page says what is happening.
+ */
+export const captureStatusLabels: Record<string, { label: string; sentence: string }> = {
+  uploading: { label: "Uploading", sentence: "Waiting for the file to arrive" },
+  uploaded: { label: "Needs mapping", sentence: "Uploaded — the channels need mapping before analysis" },
+  queued: { label: "Queued", sentence: "Queued for analysis" },
+  running: { label: "Analysing", sentence: "Analysing" },
+  done: { label: "Analysed", sentence: "Analysed" },
+  failed: { label: "Failed", sentence: "The analysis failed" },
+};
+
 export const reviewActionLabels: Record<string, string> = {
   submitted: "Submitted for review",
   approved: "Approved",

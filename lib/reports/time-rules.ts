@@ -67,7 +67,7 @@ export function tableLimitIfDifferent(row: Pick<ComplianceRow, "limit" | "decide
   return Math.abs(table - row.limit) <= 1e-9 * Math.max(Math.abs(table), Math.abs(row.limit)) ? null : table;
 }
 
-/** The table limit of a row: the deciding rule's, else the applied limit (snapshot rows use the table limit as is). */
+/** The table limit of a row: the deciding rule's, else the applied limit (capture-mean rows use the table limit as is). */
 export function tableLimitOf(row: Pick<ComplianceRow, "limit" | "decidedBy" | "rowRules">): number | null {
   return decidingRule(row)?.tableLimit ?? row.limit;
 }
@@ -152,14 +152,14 @@ export function formatPercentOfLimit(
   const table = tableLimitOf(row);
   const pct = percentOfTableLimit(row);
   // `standalone` (a card or a line of text, no "% of limit" column heading above): "87.7 % of the limit".
-  const noun = options.standalone ? " of the limit" : "";
-  if (pct === null || table === null || row.limit === null || row.measured === null) return `${formatPercent(row.percentOfLimit)}${row.percentOfLimit === null ? "" : noun}`;
+  const ofTheLimit = options.standalone ? " of the limit" : "";
+  if (pct === null || table === null || row.limit === null || row.measured === null) return `${formatPercent(row.percentOfLimit)}${row.percentOfLimit === null ? "" : ofTheLimit}`;
   const allowedPct = (row.limit / table) * 100;
   const fails = row.verdict === "fail";
   if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
   const scaled = Math.abs(allowedPct - 100) > 1e-9;
   const digits = fails ? 1 : decimalsToShowExcess(pct, allowedPct, false);
-  const shown = `${pct.toFixed(digits)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : noun}`;
+  const shown = `${pct.toFixed(digits)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : ofTheLimit}`;
   if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
   const over = (row.measured / row.limit - 1) * 100;
   return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;

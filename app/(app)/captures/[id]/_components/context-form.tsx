@@ -48,7 +48,7 @@ export function ContextForm({
     const parsed = reevaluateSchema.safeParse({ limitSetKey: form.get("limitSetKey"), context });
     if (!parsed.success) {
       const errs: Record<string, string[]> = {};
-      for (const issue of parsed.error.issues) (errs[issue.path.join(".")] ??= []).push(issue.message.includes("expected number") ? "Enter a number" : issue.message);
+      for (const issue of parsed.error.issues) (errs[issue.path.join(".")] ??= []).push(issue.code === "invalid_type" && issue.expected === "number" ? "Enter a number" : issue.message);
       setFieldErrors(errs);
       setError("Some values need attention.");
       return;
