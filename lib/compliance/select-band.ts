@@ -1,6 +1,6 @@
 // Choosing the applicability band of a limit set for an evaluation context, with a reason a
 // reviewer can check ("Isc/IL = 50 exactly → 50 ≤ Isc/IL < 100 because …").
-import { bandNotChosenText, CRITERION_NAMES, criterionValueText, formatContextValue, noBandText, phaseConfigText } from "../reports/result-wording";
+import { bandNotChosenText, CRITERION_NAMES, criterionValueText, formatContextValue, noBandText, phaseConfigText } from "../reports/band-wording";
 import type { Band, EvaluationContext, LimitSetRevisionContent, Range } from "./model";
 import type { BandCriterion } from "./result";
 

@@ -27,17 +27,24 @@ export const reviewStateLabels: Record<string, string> = {
   sent_back: "Sent back",
 };
 
-/**
- * A capture's processing status for people: `label` where statuses are listed or filtered, `sentence`
- * where the capture's own page says what is happening.
- */
-export const captureStatusLabels: Record<string, { label: string; sentence: string }> = {
-  uploading: { label: "Uploading", sentence: "Waiting for the file to arrive" },
-  uploaded: { label: "Needs mapping", sentence: "Uploaded — the channels need mapping before analysis" },
-  queued: { label: "Queued", sentence: "Queued for analysis" },
-  running: { label: "Analysing", sentence: "Analysing" },
-  done: { label: "Analysed", sentence: "Analysed" },
-  failed: { label: "Failed", sentence: "The analysis failed" },
+/** A capture's processing status where statuses are listed or filtered. */
+export const captureStatusLabels: Record<string, string> = {
+  uploading: "Uploading",
+  uploaded: "Needs mapping",
+  queued: "Queued",
+  running: "Analysing",
+  done: "Analysed",
+  failed: "Failed",
+};
+
+/** The same status as the capture's own page says it, as a sentence. */
+export const captureStatusSentences: Record<string, string> = {
+  uploading: "Waiting for the file to arrive",
+  uploaded: "Uploaded — the channels need mapping before analysis",
+  queued: "Queued for analysis",
+  running: "Analysing",
+  done: "Analysed",
+  failed: "The analysis failed",
 };
 
 export const reviewActionLabels: Record<string, string> = {

@@ -10,8 +10,7 @@ import { captureListQuerySchema } from "@/lib/validations/capture";
 
 export const metadata = { title: "Captures" };
 
-// The filters' choices, in the words of the one label maps (lib/reports/format.ts).
-const statusFilterLabels = Object.fromEntries(Object.entries(captureStatusLabels).map(([status, { label }]) => [status, label]));
+// The verdict filter's choices, in the words of the one verdict-label map (lib/reports/format.ts).
 const verdictFilterLabels = Object.fromEntries((["pass", "fail", "incomplete"] as const).map((v) => [v, verdictLabels[v]]));
 
 /** A filter's choice among `options` (value → label), or "Any". */
@@ -48,7 +47,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
           </select>
         </div>
         <AnyOfSelect name="verdict" label="Verdict" value={query.verdict} options={verdictFilterLabels} />
-        <AnyOfSelect name="status" label="Status" value={query.status} options={statusFilterLabels} />
+        <AnyOfSelect name="status" label="Status" value={query.status} options={captureStatusLabels} />
         <div className="grid grid-cols-2 gap-2">
           <div>
             <label htmlFor="f-from" className="field-label">From</label>
@@ -81,7 +80,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                 <tr key={c.id}>
                   <td><Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link></td>
                   <td className="text-ink-soft" data-label="Site">{c.siteName}</td>
-                  <td data-label="Status">{captureStatusLabels[c.status]?.label ?? c.status}</td>
+                  <td data-label="Status">{captureStatusLabels[c.status] ?? c.status}</td>
                   <td data-label="Verdict">
                     {/* The team sees the latest verdict; a viewer only ever the approved one. */}
                     {(() => {

@@ -5,7 +5,8 @@
 import { describe, expect, test } from "vitest";
 import { describeFilterReport } from "@/lib/mitigation/describe-filter-report";
 import { failureReasonText, formatNumber, formatWhen, sentenceStart } from "@/lib/reports/format";
-import { formatContextValue, formatDurationS } from "@/lib/reports/result-wording";
+import { formatContextValue } from "@/lib/reports/band-wording";
+import { formatDurationS } from "@/lib/reports/result-wording";
 
 describe("formatNumber", () => {
   test.each([

@@ -3,7 +3,7 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef } from "react";
-import { captureStatusLabels, failureReasonText } from "@/lib/reports/format";
+import { captureStatusSentences, failureReasonText } from "@/lib/reports/format";
 import { useCapture, type CaptureStatusDto } from "@/lib/swr/use-capture";
 
 /** Status of a capture that is not analysed yet; polls while queued/running and reloads the page when it settles. */
@@ -21,7 +21,7 @@ export function CaptureProgress({ initial, canFix }: { initial: CaptureStatusDto
   const busy = capture.status === "queued" || capture.status === "running";
   return (
     <section className="panel space-y-3" data-testid="capture-progress" data-status={capture.status}>
-      <p className="font-medium" data-testid="capture-status">{captureStatusLabels[capture.status]?.sentence ?? capture.status}</p>
+      <p className="font-medium" data-testid="capture-status">{captureStatusSentences[capture.status] ?? capture.status}</p>
       {capture.status === "failed" ? (
         <div className="rounded-md border border-fail/40 bg-fail-light px-4 py-3 text-fail" role="alert" data-testid="failure-reason">
           <p className="font-semibold">Why it failed</p>
