@@ -59,15 +59,24 @@ async function writeCapture(path: string, seconds: number, driftHz = 0): Promise
   await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
 }
 
+/** The input bench/out/NAME, written by `write` when it is not there yet (inputs are cached between runs); resolves to its path. */
+async function cachedInput(name: string, write: (path: string) => Promise<void> | void): Promise<string> {
+  const path = join(outDir, name);
+  if (!existsSync(path)) {
+    mkdirSync(outDir, { recursive: true });
+    await write(path);
+  }
+  return path;
+}
+
+/** The 60 s, 4-channel capture (60 MB) the engine, scanner and CLI cases read. */
+const capture60s = () => cachedInput("capture-60s-4ch-25k6.csv", (path) => writeCapture(path, 60));
+
 export const BENCH_CASES: BenchCase[] = [
   {
     name: "csv-60s-4ch-25k6",
     description: "60 s, 4 channels (Va, Ia, Vb, Ib), 25.6 kS/s, time column: CSV file → result via the streaming path",
-    prepare: async () => {
-      const path = join(outDir, "capture-60s-4ch-25k6.csv");
-      if (!existsSync(path)) await writeCapture(path, 60);
-      return path;
-    },
+    prepare: capture60s,
     run: async (path) => {
       const timings: StageTimings = {};
       const result = await analyzeCsvFile(path, {}, timings);
@@ -83,15 +92,12 @@ export const BENCH_CASES: BenchCase[] = [
     name: "csv-10min-4ch-25k6",
     description:
       "10 min, 4 channels (Va, Ia, Vb, Ib), 25.6 kS/s (15.4 M rows), fundamental drifting ±0.05 Hz: CSV file → result, two streaming passes, memory independent of length",
-    prepare: async () => {
-      const path = join(outDir, "capture-10min-4ch-25k6.csv");
-      if (!existsSync(path)) {
+    prepare: () =>
+      cachedInput("capture-10min-4ch-25k6.csv", async (path) => {
         const started = performance.now();
         await writeCapture(path, 600, 0.05);
         console.log(`  (generated ${path} in ${((performance.now() - started) / 1000).toFixed(1)} s)`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const timings: StageTimings = {};
       const result = await analyzeCsvFile(path, { includeOrderSeries: true, keepWaveformCycles: 3 }, timings);
@@ -109,10 +115,8 @@ export const BENCH_CASES: BenchCase[] = [
   {
     name: "interval-log-week-3ch",
     description: "a week of 10-minute values (1,008 rows), 3 current channels × orders 1–50 + THD + r.m.s.: import + IEEE 519 percentile evaluation",
-    prepare: async () => {
-      const path = join(outDir, "interval-week-3ch-50.csv");
-      if (!existsSync(path)) {
-        mkdirSync(dirname(path), { recursive: true });
+    prepare: () =>
+      cachedInput("interval-week-3ch-50.csv", (path) => {
         const channels = ["I1", "I2", "I3"];
         const headers = ["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])];
         const lines = [headers.join(",")];
@@ -128,9 +132,7 @@ export const BENCH_CASES: BenchCase[] = [
           lines.push(cells.join(","));
         }
         writeFileSync(path, `${lines.join("\n")}\n`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const { readFileSync } = await import("node:fs");
       const { inspectIntervalLog, importIntervalLog, evaluateIntervalLog } = await import("../lib/intervals");
@@ -185,11 +187,7 @@ function intervalCases(): BenchCase[] {
     {
       name: "interval-log-60mb",
       description: "37 days of 1-minute values (53,500 rows × 156 columns, ≈ 60 MB): the worker's judge of a stored log (read, import, IEEE 519 percentiles, trends)",
-      prepare: async () => {
-        const path = join(outDir, "interval-month-1min-3ch.csv");
-        if (!existsSync(path)) await writeIntervalLog(path, 53_500, 60_000);
-        return path;
-      },
+      prepare: () => cachedInput("interval-month-1min-3ch.csv", (path) => writeIntervalLog(path, 53_500, 60_000)),
       run: async (path) => {
         const { judgeBenchIntervalLog } = await import("./bench-interval-log");
         const started = performance.now();
@@ -202,11 +200,7 @@ function intervalCases(): BenchCase[] {
       name: "scanner-vs-papaparse-60mb",
       description:
         "why waveform records keep their own scanner: the 60 s, 4-channel capture (60 MB) read into the same row collector by the fast scanner and by papaparse (the reader quoted files take)",
-      prepare: async () => {
-        const path = join(outDir, "capture-60s-4ch-25k6.csv");
-        if (!existsSync(path)) await writeCapture(path, 60);
-        return path;
-      },
+      prepare: capture60s,
       run: async (path) => {
         const { readCsvHead, readCsvRows } = await import("../lib/analysis/read-csv-rows");
         const { RowCollector } = await import("../lib/analysis/row-collector");
@@ -255,8 +249,7 @@ function cliCases(): BenchCase[] {
       name: "cli-60s-4ch-25k6",
       description: "the whole `npm run analyze -- FILE --json --limits iec-61000-3-2-class-a` process (node scripts/analyze.mjs, bundled) on the 60 s, 4-channel capture",
       prepare: async () => {
-        const path = join(outDir, "capture-60s-4ch-25k6.csv");
-        if (!existsSync(path)) await writeCapture(path, 60);
+        const path = await capture60s();
         // Build the bundle now if stale, so its build time is not counted.
         const built = await runChild([join(dirname(fileURLToPath(import.meta.url)), "build-cli.mjs")]);
         if (built.code !== 0) throw new Error("building the CLI bundle failed");
@@ -291,9 +284,8 @@ function diagnoseCase(): BenchCase {
   return {
     name: "diagnose-6pulse-3ch",
     description: "front-end diagnosis of a 3-phase six-pulse drive capture (orders 2–50, 9 families fitted per channel)",
-    prepare: async () => {
-      const path = join(outDir, "drive-6pulse-2s.csv");
-      if (!existsSync(path)) {
+    prepare: () =>
+      cachedInput("drive-6pulse-2s.csv", async (path) => {
         const { simulateSixPulseCapacitorCycle } = await import("../lib/frontends/simulate-six-pulse-capacitor");
         const { currentA } = simulateSixPulseCapacitorCycle({ acInductancePercent: 1, dcChokePercent: 0, loadPercent: 100 });
         const n = currentA.length;
@@ -310,11 +302,8 @@ function diagnoseCase(): BenchCase {
           const i = [0, -1 / 3, 1 / 3].map((s) => (141 * at(c + s)).toFixed(3));
           lines.push([(k / rate).toFixed(7), ...v, ...i].join(","));
         }
-        mkdirSync(dirname(path), { recursive: true });
         writeFileSync(path, `${lines.join("\n")}\n`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const { diagnoseChannels } = await import("../lib/frontends/diagnose-channels");
       const started = performance.now();

@@ -24,7 +24,6 @@ import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
 import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
-import type { HeadlineSource } from "@/lib/reports/headline-numbers";
 import { analysisSummary } from "@/lib/reports/analysis-summary";
 import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";

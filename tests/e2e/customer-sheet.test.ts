@@ -2,7 +2,7 @@
 // only their own customer's sheets (a demo capture of another customer's site answers 404).
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snapAt, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snapAt, url } from "../support/browser";
 import { signedIn } from "../support/http";
 import { demoCaptureId } from "../support/captures";
 
@@ -24,9 +24,7 @@ afterAll(async () => {
 
 describe("headline numbers on the sheet", () => {
   it("at 1280 px: a row per phase with units in the column labels, above the per-order table", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${ownId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${ownId}`, viewport: { width: 1280, height: 900 } });
     const table = page.locator("[data-testid=headline-current-table]");
     await table.waitFor({ state: "visible", timeout: 15_000 });
     expect(await page.locator("[data-testid=headline-current-cards]").isVisible()).toBe(false);
@@ -48,9 +46,7 @@ describe("headline numbers on the sheet", () => {
   });
 
   it("at 390 px: a card per phase, no sideways scrolling", async () => {
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${ownId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${ownId}`, viewport: { width: 390, height: 844 } });
     const cards = page.locator("[data-testid=headline-current-cards]");
     await cards.waitFor({ state: "visible", timeout: 15_000 });
     expect(await page.locator("[data-testid=headline-current-table]").isVisible()).toBe(false);
@@ -67,9 +63,7 @@ describe("the per-order results on a phone", () => {
   it("at 390 px: a card per order with order, measured / limit, % of limit and verdict in view, details on tap; the review panel reached from the top", async () => {
     const engineer = await signedIn("engineer");
     const beforeId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
-    const page = await browser.newPage({ viewport: { width: 390, height: 844 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${beforeId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${beforeId}`, viewport: { width: 390, height: 844 } });
     const cards = page.locator("[data-testid=order-cards]");
     await cards.waitFor({ state: "visible", timeout: 15_000 });
     expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
@@ -103,9 +97,7 @@ describe("chart values without a mouse", () => {
   it("the spectrum lists its failing orders in text, and the keyboard reaches and opens each chart's table", async () => {
     const engineer = await signedIn("engineer");
     const beforeId = await demoCaptureId(engineer, "Compressor drives at full load — before filter");
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${beforeId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${beforeId}`, viewport: { width: 1280, height: 900 } });
     await page.waitForSelector("[data-testid=spectrum-table]", { timeout: 20_000 });
     // The demo's before-filter record fails at least one order (the after-filter one is the fix).
     expect(await page.textContent("[data-testid=spectrum-failing]")).toMatch(/^Over the limit: h\d+ \(/);
@@ -134,9 +126,7 @@ describe("compare two captures", () => {
   it("draws both spectra with their limits and hides orders below threshold in both on request", async () => {
     const engineer = await signedIn("engineer");
     const psu = await demoCaptureId(engineer, "Desktop power supply, 180 W rated");
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/compare?a=${psu}&b=${otherId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/compare?a=${psu}&b=${otherId}`, viewport: { width: 1280, height: 900 } });
     await page.waitForSelector("[data-testid=compare-spectrum] svg", { timeout: 15_000 });
     expect(await page.locator("[data-testid=compare-spectrum] rect").count()).toBeGreaterThan(10);
     const before = await page.locator("[data-testid=compare-table] tbody tr").count();
@@ -152,9 +142,7 @@ describe("compare two captures", () => {
 
 describe("a viewer sees only their own customer's sheets", () => {
   it("reads the approved sheet of her customer's site, without review comments, and gets 404 for another customer's", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "viewer");
-    await page.goto(url(`/captures/${ownId}`));
+    const page = await openSignedIn(browser, "viewer", { path: `/captures/${ownId}`, viewport: { width: 1280, height: 900 } });
     await page.locator("[data-testid=headline-summary]").waitFor({ timeout: 15_000 });
     expect(await page.textContent("main")).not.toContain("Approved for the utility submission");
     await page.goto(url("/captures"));

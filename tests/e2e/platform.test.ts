@@ -1,6 +1,6 @@
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snap, url } from "../support/browser";
 
 let browser: Browser;
 beforeAll(async () => {
@@ -12,9 +12,7 @@ afterAll(async () => {
 
 describe("platform in the browser", () => {
   it("an admin signs in, creates a site (with a field error first) and signs out", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "admin");
-    await page.goto(url("/sites/new"));
+    const page = await openSignedIn(browser, "admin", { path: "/sites/new" });
     await page.fill("#site-name", "Tamsin Reach Substation Feeder 2");
     await page.fill("#site-nominalVoltageV", "not a number");
     await page.click("button[type=submit]");
@@ -37,8 +35,7 @@ describe("platform in the browser", () => {
   });
 
   it("a viewer cannot reach admin pages and sees no admin navigation", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "viewer");
+    const page = await openSignedIn(browser, "viewer");
     expect(await page.locator("nav a", { hasText: "Users" }).count()).toBe(0);
     const res = await page.goto(url("/admin/users"));
     expect(res?.status()).toBe(403);
@@ -48,9 +45,7 @@ describe("platform in the browser", () => {
   });
 
   it("works at phone width", async () => {
-    const page = await browser.newPage({ viewport: { width: 375, height: 740 } });
-    await signInAs(page, "engineer");
-    await page.goto(url("/sites"));
+    const page = await openSignedIn(browser, "engineer", { path: "/sites", viewport: { width: 375, height: 740 } });
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
     await snap(page, "sites-phone");

@@ -2,28 +2,16 @@ import Link from "next/link";
 import { listCaptures } from "@/db/queries/captures";
 import { listSites } from "@/db/queries/sites";
 import { PageHeader } from "@/app/_components/page-header";
+import { VerdictBadge } from "@/app/_components/verdict-badge";
 import { requirePage } from "@/lib/auth/page";
 import { can } from "@/lib/auth/permissions";
+import { captureStatusLabels, reviewStateLabels, verdictLabel, verdictLabels } from "@/lib/reports/format";
 import { captureListQuerySchema } from "@/lib/validations/capture";
 
 export const metadata = { title: "Captures" };
 
-const statusLabels: Record<string, string> = {
-  uploading: "Uploading",
-  uploaded: "Needs mapping",
-  queued: "Queued",
-  running: "Analysing",
-  done: "Analysed",
-  failed: "Failed",
-};
-const reviewLabels: Record<string, string> = { draft: "Draft", in_review: "In review", approved: "Approved", sent_back: "Sent back" };
-const verdictStyle: Record<string, string> = {
-  pass: "bg-pass-light text-pass",
-  fail: "bg-fail-light text-fail",
-  incomplete: "bg-caution-light text-caution",
-};
-const verdictText: Record<string, string> = { pass: "✓ Pass", fail: "✗ Fail", incomplete: "? Incomplete" };
-const verdictFilterLabels: Record<string, string> = { pass: "Pass", fail: "Fail", incomplete: "Incomplete" };
+// The verdict filter's choices, in the words of the one verdict-label map (lib/reports/format.ts).
+const verdictFilterLabels = Object.fromEntries((["pass", "fail", "incomplete"] as const).map((v) => [v, verdictLabels[v]]));
 
 /** A filter's choice among `options` (value → label), or "Any". */
 function AnyOfSelect({ name, label, value, options }: { name: string; label: string; value: string | undefined; options: Record<string, string> }) {
@@ -59,7 +47,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
           </select>
         </div>
         <AnyOfSelect name="verdict" label="Verdict" value={query.verdict} options={verdictFilterLabels} />
-        <AnyOfSelect name="status" label="Status" value={query.status} options={statusLabels} />
+        <AnyOfSelect name="status" label="Status" value={query.status} options={captureStatusLabels} />
         <div className="grid grid-cols-2 gap-2">
           <div>
             <label htmlFor="f-from" className="field-label">From</label>
@@ -92,21 +80,21 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
                 <tr key={c.id}>
                   <td><Link href={`/captures/${c.id}`} className="font-medium hover:text-copper">{c.title}</Link></td>
                   <td className="text-ink-soft" data-label="Site">{c.siteName}</td>
-                  <td data-label="Status">{statusLabels[c.status]}</td>
+                  <td data-label="Status">{captureStatusLabels[c.status] ?? c.status}</td>
                   <td data-label="Verdict">
                     {/* The team sees the latest verdict; a viewer only ever the approved one. */}
                     {(() => {
                       const shown = user.role === "viewer" ? c.verdict : (c.latestVerdict ?? c.verdict);
-                      return shown ? <span className={`rounded px-1.5 py-0.5 text-xs font-semibold ${verdictStyle[shown] ?? ""}`}>{verdictText[shown] ?? shown}</span> : "—";
+                      return shown ? <VerdictBadge verdict={shown} testId="capture-verdict" /> : "—";
                     })()}
                     {user.role !== "viewer" && c.approvedVerdict && c.approvedVerdict !== (c.latestVerdict ?? c.verdict) && (
                       <span className="mt-1 block text-xs text-ink-soft" data-testid="approved-verdict">
-                        approved as {verdictText[c.approvedVerdict] ?? c.approvedVerdict}; latest differs
+                        approved as {verdictLabel(c.approvedVerdict)}; latest differs
                       </span>
                     )}
                   </td>
                   <td data-testid="capture-review" data-label="Review">
-                    {c.approved ? "Approved" : reviewLabels[c.reviewState]}
+                    {c.approved ? "Approved" : (reviewStateLabels[c.reviewState] ?? c.reviewState)}
                     {c.newerAwaitsReview && user.role !== "viewer" && (
                       <span className="block text-xs text-caution" data-testid="newer-awaits">A newer result awaits review</span>
                     )}
