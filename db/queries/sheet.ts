@@ -37,6 +37,7 @@ function summaryOf(r: typeof analyses.result) {
     'fundamentalHz', ${r}->'fundamentalHz',
     'sampleIntervalS', ${r}->'sampleIntervalS',
     'power', ${r}->'power',
+    'intervalLog', ${r}->'intervalLog',
     'sequence', coalesce((select jsonb_agg(s.v - 'orders' order by s.i) from jsonb_array_elements(coalesce(${r}->'sequence', '[]'::jsonb)) with ordinality as s(v, i)), '[]'::jsonb),
     'channels', coalesce((select jsonb_agg(c.v - 'harmonics' - 'series' - 'harmonicSeries' - 'groups' order by c.i) from jsonb_array_elements(${r}->'channels') with ordinality as c(v, i)), '[]'::jsonb)
   )::json)`;

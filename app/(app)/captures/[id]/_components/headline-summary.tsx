@@ -15,11 +15,12 @@ export function HeadlineSummary({ headline }: { headline: HeadlineNumbers | null
       {tables.map((t) => (
         <div key={t.key} className="space-y-2" data-testid={`headline-${t.key}`}>
           <h3 className="text-sm font-semibold text-ink-soft">{t.title}</h3>
+          {t.caption && <p className="text-xs text-ink-soft" data-testid={`headline-${t.key}-caption`}>{t.caption}</p>}
           <div className="hidden overflow-x-auto md:block" data-testid={`headline-${t.key}-table`}>
             <table className="table-base tabular-nums">
               <thead>
                 <tr>
-                  <th scope="col" className="!normal-case !tracking-normal">{t.key === "power" ? "Pair" : "Channel"}</th>
+                  <th scope="col" className="!normal-case !tracking-normal">{t.rowHeader}</th>
                   {t.columns.map((c) => <th key={c.key} scope="col" className="!normal-case !tracking-normal">{c.label}</th>)}
                 </tr>
               </thead>
