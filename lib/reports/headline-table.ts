@@ -72,7 +72,7 @@ function intervalTables(log: HeadlineIntervalLog, fundamentalHz: number): Headli
   const tables: HeadlineTable[] = [];
   const caption =
     `Over the ${log.rowCount} logged ${formatDurationS(log.intervalS)} values from ${formatUtc(log.startMs)} to ${formatUtc(log.endMs)}: ` +
-    "r.m.s. mean (√ of the mean of squares), 95th percentile (nearest rank) or maximum, as each column says; each value is the logger's interval average unless its cell says otherwise.";
+    "the mean is the r.m.s. mean (√ of the mean of squares), the 95th percentile by nearest rank; each value is the logger's interval average unless its cell says otherwise.";
   for (const quantity of ["current", "voltage"] as const) {
     const channels = log.channels.filter((c) => c.quantity === quantity);
     if (channels.length === 0) continue;
@@ -80,15 +80,15 @@ function intervalTables(log: HeadlineIntervalLog, fundamentalHz: number): Headli
     const withTdd = quantity === "current";
     const il = log.ilA !== null ? ` = ${formatNumber(log.ilA)} A` : "";
     const columns: Array<HeadlineColumn & { of: (c: (typeof channels)[number]) => { value: number | string; cell: string } }> = [
-      { key: "rmsMean", label: `RMS, r.m.s. mean (${unit})`, of: (c) => loggedCell(c.rms, "rmsMean", null) },
-      { key: "rmsMax", label: `RMS, maximum (${unit})`, of: (c) => loggedCell(c.rms, "max", null) },
-      { key: "fundamentalRmsMean", label: `Fundamental RMS, r.m.s. mean (${unit})`, of: (c) => loggedCell(c.fundamental, "rmsMean", null) },
-      { key: "thdP95", label: "THD, 95th percentile (% of fundamental)", of: (c) => loggedCell(c.thdPercent, "p95", 2) },
-      { key: "thdMax", label: "THD, maximum (% of fundamental)", of: (c) => loggedCell(c.thdPercent, "max", 2) },
+      { key: "rmsMean", label: `RMS (${unit}), mean`, of: (c) => loggedCell(c.rms, "rmsMean", null) },
+      { key: "rmsMax", label: `RMS (${unit}), maximum`, of: (c) => loggedCell(c.rms, "max", null) },
+      { key: "fundamentalRmsMean", label: `Fundamental RMS (${unit}), mean`, of: (c) => loggedCell(c.fundamental, "rmsMean", null) },
+      { key: "thdP95", label: "THD (% of fundamental), 95th percentile", of: (c) => loggedCell(c.thdPercent, "p95", 2) },
+      { key: "thdMax", label: "THD (% of fundamental), maximum", of: (c) => loggedCell(c.thdPercent, "max", 2) },
       ...(withTdd
         ? [
-            { key: "tddP95", label: `TDD, 95th percentile (% of IL${il})`, of: (c: (typeof channels)[number]) => loggedCell(c.tddPercent, "p95", 2, c.distortion && log.ilA === null ? "— (no IL)" : NOT_LOGGED) },
-            { key: "tddMax", label: `TDD, maximum (% of IL${il})`, of: (c: (typeof channels)[number]) => loggedCell(c.tddPercent, "max", 2, c.distortion && log.ilA === null ? "— (no IL)" : NOT_LOGGED) },
+            { key: "tddP95", label: `TDD (% of IL${il}), 95th percentile`, of: (c: (typeof channels)[number]) => loggedCell(c.tddPercent, "p95", 2, c.distortion && log.ilA === null ? "— (no IL)" : NOT_LOGGED) },
+            { key: "tddMax", label: `TDD (% of IL${il}), maximum`, of: (c: (typeof channels)[number]) => loggedCell(c.tddPercent, "max", 2, c.distortion && log.ilA === null ? "— (no IL)" : NOT_LOGGED) },
           ]
         : []),
     ];

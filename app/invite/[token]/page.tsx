@@ -15,7 +15,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
           <p className="text-sm text-ink-soft">
             {invitation.name} ({invitation.email}) — choose a password of at least 12 characters.
           </p>
-          <p className="text-sm text-ink-soft" data-testid="invite-expires">This link expires on {formatWhen(invitation.expiresAt)}.</p>
+          <p className="text-sm text-ink-soft" data-testid="invite-expires">{`This link expires on ${formatWhen(invitation.expiresAt)}.`}</p>
           <AcceptForm token={token} />
         </>
       ) : (

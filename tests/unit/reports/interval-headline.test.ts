@@ -60,13 +60,13 @@ describe("an interval log's headline numbers", () => {
     const tables = headlineTable(h);
     const currents = tables.find((t) => t.key === "current")!;
     expect(currents.columns.map((c) => c.label)).toEqual([
-      "RMS, r.m.s. mean (A)",
-      "RMS, maximum (A)",
-      "Fundamental RMS, r.m.s. mean (A)",
-      "THD, 95th percentile (% of fundamental)",
-      "THD, maximum (% of fundamental)",
-      "TDD, 95th percentile (% of IL = 50 A)",
-      "TDD, maximum (% of IL = 50 A)",
+      "RMS (A), mean",
+      "RMS (A), maximum",
+      "Fundamental RMS (A), mean",
+      "THD (% of fundamental), 95th percentile",
+      "THD (% of fundamental), maximum",
+      "TDD (% of IL = 50 A), 95th percentile",
+      "TDD (% of IL = 50 A), maximum",
     ]);
     expect(currents.rows[0]!.cells).toEqual(["11.98", "20", "10", "19.00 (of interval maxima)", "20.00 (of interval maxima)", "3.80 (of interval maxima)", "4.00 (of interval maxima)"]);
     expect(currents.caption).toContain("20 logged 10 min values from 2024-03-04 00:00 UTC to 2024-03-04 03:20 UTC");
@@ -98,7 +98,7 @@ describe("an interval log's headline numbers", () => {
     sheet.evaluation!.result = result;
     const lines = buildSheetCsv(sheet).split("\r\n");
     expect(lines).toContain(
-      "Headline numbers: currents over the logged period,\"RMS, r.m.s. mean (A)\",\"RMS, maximum (A)\",\"Fundamental RMS, r.m.s. mean (A)\",\"THD, 95th percentile (% of fundamental)\",\"THD, maximum (% of fundamental)\",\"TDD, 95th percentile (% of IL = 50 A)\",\"TDD, maximum (% of IL = 50 A)\"",
+      "Headline numbers: currents over the logged period,\"RMS (A), mean\",\"RMS (A), maximum\",\"Fundamental RMS (A), mean\",\"THD (% of fundamental), 95th percentile\",\"THD (% of fundamental), maximum\",\"TDD (% of IL = 50 A), 95th percentile\",\"TDD (% of IL = 50 A), maximum\"",
     );
     const i1Line = lines.find((l) => l.startsWith("I1,"))!.split(",");
     expect(Number(i1Line[1])).toBeCloseTo(rmsMeanK, 6);
@@ -108,7 +108,7 @@ describe("an interval log's headline numbers", () => {
     const first = pdfPageTexts(await buildSheetPdf(sheet, { compress: false, generatedAt: new Date("2026-03-03T00:00:00Z") }))[0]!;
     expect(first).toMatch(/Headline numbers . currents over the logged period/);
     expect(first).toMatch(/Headline numbers . not in this log/);
-    expect(first).toMatch(/TDD, 95th percentile \(% of IL = 50 A\) 3\.80 \(of interval\s+maxima\)/);
+    expect(first).toMatch(/TDD \(% of IL = 50 A\), 95th percentile 3\.80 \(of interval\s+maxima\)/);
     expect(first).toContain("Power (P, S, displacement");
     expect(first.indexOf("not logged (they need the waveform)")).toBeLessThan(first.indexOf("Evaluation context"));
   });
