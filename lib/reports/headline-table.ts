@@ -28,6 +28,8 @@ export interface HeadlineTable {
   caption?: string;
   /** What a row is: "Channel", "Pair" or "Quantity". */
   rowHeader: string;
+  /** A list of short statements (what an interval log does not hold) rather than a table of values. */
+  list?: boolean;
   columns: HeadlineColumn[];
   rows: HeadlineRow[];
 }
@@ -116,6 +118,7 @@ function intervalTables(log: HeadlineIntervalLog, fundamentalHz: number): Headli
     key: "not-logged",
     title: "Not in this log",
     rowHeader: "Quantity",
+    list: true,
     columns: [{ key: "status", label: "In this log" }],
     rows: absent.map(([key, label, cell]) => ({ key, label, values: [cell], cells: [cell] })),
   });

@@ -119,11 +119,9 @@ describe("an interval log's headline numbers", () => {
     await signInAs(page, "engineer");
     await page.goto(url(`/captures/${logId}`));
     await page.locator("[data-testid=chart-interval-trend] canvas").waitFor({ timeout: 20_000 });
-    // uPlot draws axis labels on the canvas; they are exposed through its axis formatter — read them through the legend instead:
-    // hovering the plot's left edge shows the first logged time (2024-03-04 00:00 UTC; fixtures/intervals/generate.ts).
-    const over = page.locator("[data-testid=chart-interval-trend] .u-over");
-    const box = (await over.boundingBox())!;
-    await page.mouse.move(box.x + 1, box.y + box.height / 2);
+    // uPlot draws its axis labels on the canvas, so the time is read from the legend: hovering the plot's left edge
+    // shows the first logged times (2024-03-04 00:00 UTC onwards; fixtures/intervals/generate.ts).
+    await page.locator("[data-testid=chart-interval-trend] .u-over").hover({ position: { x: 1, y: 60 } });
     await page.waitForFunction(() => /2024-03-0\d \d\d:\d\d UTC/.test(document.querySelector("[data-testid=chart-interval-trend] .u-legend")?.textContent ?? ""));
     expect(await page.locator("[data-testid=chart-interval-trend] .u-legend").textContent()).toContain("2024-03-04 00:");
     await context.close();

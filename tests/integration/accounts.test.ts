@@ -50,6 +50,10 @@ describe("the invitation e-mail says when its link expires", () => {
     const page = await (await new Client().request("GET", `/invite/${token}`)).text();
     expect(page).toContain(`This link expires on ${when}.`);
 
+    // The dev mailbox lists the mail with its arrival time in the same form.
+    const mailbox = (await (await a.request("GET", "/dev/mailbox")).text()).replaceAll("<!-- -->", "");
+    expect(mailbox).toMatch(new RegExp(`to ${email.replace(/[.+]/g, "\\$&")} · \\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2} UTC`));
+
     // A resent link's mail says its own stored expiry.
     expect((await a.request("POST", `/api/users/${id}/invitation`)).status).toBe(200);
     await inviteTokens(email, 2);

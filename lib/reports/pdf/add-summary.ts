@@ -68,8 +68,8 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
     for (const table of headlineTable(headline)) {
       w.heading(`Headline numbers — ${table.title.toLowerCase()}`);
       if (table.caption) w.text(table.caption, { continued: false });
-      // A one-column table (what an interval log lacks) needs no column label beside each value.
-      w.keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.length === 1 ? r.cells[0]! : table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
+      // A list (what an interval log lacks) needs no column label beside each statement.
+      w.keyValues(table.rows.map((r): [string, string] => [r.label, table.list ? r.cells[0]! : table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
     }
   }
 

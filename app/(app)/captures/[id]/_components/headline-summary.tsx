@@ -1,7 +1,7 @@
 import type { HeadlineNumbers } from "@/lib/reports/headline-numbers";
 import { headlineTable, type HeadlineTable } from "@/lib/reports/headline-table";
 
-/** A one-column table (what an interval log does not hold) reads as a short list at any width. */
+/** A list table (what an interval log does not hold) reads as short statements at any width. */
 function HeadlineList({ t }: { t: HeadlineTable }) {
   return (
     <ul className="grid gap-x-6 gap-y-1 text-sm sm:grid-cols-2" data-testid={`headline-${t.key}-list`}>
@@ -71,7 +71,7 @@ export function HeadlineSummary({ headline }: { headline: HeadlineNumbers | null
         <div key={t.key} className="space-y-2" data-testid={`headline-${t.key}`}>
           <h3 className="text-sm font-semibold text-ink-soft">{t.title}</h3>
           {t.caption && <p className="text-xs text-ink-soft" data-testid={`headline-${t.key}-caption`}>{t.caption}</p>}
-          {t.columns.length === 1 ? <HeadlineList t={t} /> : <HeadlineRows t={t} />}
+          {t.list ? <HeadlineList t={t} /> : <HeadlineRows t={t} />}
         </div>
       ))}
     </section>
