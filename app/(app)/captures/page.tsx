@@ -69,7 +69,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
           {problems.map((p) => <li key={p.key}>{p.label}: “{p.value}” — {p.message}. This filter was ignored.</li>)}
         </ul>
       )}
-      <form className="panel grid gap-3 sm:grid-cols-5 sm:items-end" method="get" data-testid="capture-filters">
+      <form className="panel grid gap-3 sm:grid-cols-3 sm:items-end lg:grid-cols-6" method="get" data-testid="capture-filters">
         <div>
           <label htmlFor="f-site" className="field-label">Site</label>
           <select id="f-site" name="site" defaultValue={query.site ?? ""} className="field-input">
@@ -79,7 +79,7 @@ export default async function CapturesPage({ searchParams }: { searchParams: Pro
         </div>
         <AnyOfSelect name="verdict" label="Verdict" value={query.verdict} options={verdictFilterLabels} />
         <AnyOfSelect name="status" label="Status" value={query.status} options={statusLabels} />
-        <fieldset className="min-w-0">
+        <fieldset className="min-w-0 sm:col-span-2">
           <legend className="sr-only">Registered between</legend>
           <div className="grid grid-cols-2 gap-2">
             <IsoDateInput id="f-from" name="from" label="From" defaultValue={raw.from} error={problems.find((p) => p.key === "from")?.message} />
