@@ -235,14 +235,20 @@ function buildIntervalLog(mapping: IntervalMapping, times: number[], rowLines: n
     const values = raw[j]!; // converted in place below
     if (c.kind === "thd") {
       channel.thdPercent = values;
+      channel.logged = { ...channel.logged, thd: c.statistic };
       return;
     }
     if (c.unit === "%") {
       const fundamental = fundamentals.get(c.channel)!;
       for (let k = 0; k < n; k++) values[k] = (values[k]! / 100) * fundamental[k]!;
     } else for (let k = 0; k < n; k++) values[k] = values[k]! * c.scale;
-    if (c.kind === "rms") channel.rms = values;
-    else channel.orders.set(c.order as number, values);
+    if (c.kind === "rms") {
+      channel.rms = values;
+      channel.logged = { ...channel.logged, rms: c.statistic };
+    } else {
+      channel.orders.set(c.order as number, values);
+      if (c.order === 1) channel.logged = { ...channel.logged, fundamental: c.statistic };
+    }
   });
   for (const channel of channels.values()) {
     if (channel.orders.size === 0 && channel.thdPercent === null) warnings.push(`channel ${channel.name} has no harmonic or THD column`);

@@ -123,6 +123,16 @@ export function partialSumText(unavailableOrders: number[], record: "analysis" |
   return `${gap}; the partial value ${alreadyFails ? "already exceeds the limit" : "cannot show compliance"}`;
 }
 
+/**
+ * How an interval log's THD or TDD values were formed when the log does not hold every order of the
+ * aggregate: from its THD column, which covers the logger's own order range.
+ *
+ * @example loggedThdText([6, 8, 10, 12]) // "distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders 6–12 (4 orders) are not logged one by one)"
+ */
+export function loggedThdText(unloggedOrders: number[]): string {
+  return `distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders ${describeOrders(unloggedOrders)} are not logged one by one)`;
+}
+
 /** "not evaluated: " + the cause. */
 export function notEvaluatedText(cause: NotEvaluatedCause): string {
   return `not evaluated: ${causeText(cause)}`;
@@ -150,7 +160,9 @@ function ordinal(p: number): string {
 export function statisticText(measures: RuleStatistic): string {
   if (measures.kind === "capture-mean") return `r.m.s. mean over the capture's ${measures.windowCount ?? 0} window(s)`;
   const what = measures.kind === "mean" ? "average" : measures.kind === "max" ? "maximum" : `${ordinal(measures.percentile ?? 0)} percentile (nearest rank)`;
-  const over = measures.accumulationS === undefined ? " over the observation period" : ` per ${formatDurationS(measures.accumulationS)} period (worst period)`;
+  // "per 7-day period", "per 24 h period".
+  const period = measures.accumulationS === 7 * 86_400 ? "7-day" : measures.accumulationS === undefined ? "" : formatDurationS(measures.accumulationS);
+  const over = measures.accumulationS === undefined ? " over the observation period" : ` per ${period} period (worst period)`;
   return `${what} of ${VALUES_NAME[measures.intervalS ?? 0]}${over}`;
 }
 
@@ -289,13 +301,15 @@ function groupedByCause(results: Array<Pick<RowRuleResult, "label" | "cause">>):
  * The time rules a row or aggregate could not apply: its own reasons rule by rule (grouped by cause);
  * rules the whole record cannot support (too short, no band…) are pointed to the notes, which say why once.
  *
- * @example rulesNotAppliedText(results) // "time rules not applied to this record (see Notes)"
+ * @example rulesNotAppliedText(results) // "1 time rule not applied to this record (see Notes)"
  */
 export function rulesNotAppliedText(results: Array<Pick<RowRuleResult, "label" | "cause">>): string | undefined {
   if (results.length === 0) return undefined;
   const own = results.filter((result) => !result.cause || !RECORD_CAUSES.has(result.cause.code));
-  if (own.length === 0) return "time rules not applied to this record (see Notes)";
-  const others = own.length < results.length ? "; the other time rules not applied to this record (see Notes)" : "";
+  const count = (n: number) => (n === 1 ? "1 time rule" : `${n} time rules`);
+  if (own.length === 0) return `${count(results.length)} not applied to this record (see Notes)`;
+  const rest = results.length - own.length;
+  const others = rest > 0 ? `; ${rest === 1 ? "1 other time rule" : `${rest} other time rules`} not applied to this record (see Notes)` : "";
   return `time rules not applied: ${groupedByCause(own)}${others}`;
 }
 

@@ -176,6 +176,11 @@ describe("the pass/fail sheet", () => {
     const res = await shared.goto(shareUrl);
     expect(res?.status()).toBe(200);
     expect(await shared.textContent("[data-testid=sheet-title]")).toBe(failingTitle);
+    // The page says when the link expires: 7 days from now, as YYYY-MM-DD HH:MM UTC.
+    const expiry = (await shared.textContent("[data-testid=share-expiry]")) ?? "";
+    const until = /works until (\d{4}-\d{2}-\d{2}) (\d{2}:\d{2}) UTC/.exec(expiry);
+    expect(until).not.toBeNull();
+    expect(Math.abs(Date.parse(`${until![1]}T${until![2]}:00Z`) - (Date.now() + 7 * 86_400_000))).toBeLessThan(10 * 60_000);
     expect(await shared.locator("[data-testid=order-row-3]").getAttribute("data-verdict")).toBe("fail");
     await shared.waitForSelector("[data-testid=safety-note]", { timeout: 10_000 });
     // Read-only: no actions and no way into the app.
