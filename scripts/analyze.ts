@@ -110,7 +110,10 @@ export async function main(argv: string[]): Promise<number> {
     // A second thread for the analysis when a core is free for it, from the bundle's helper module
     // (dist/cli/analysis-helper-thread.mjs, built beside this entry; without it the analysis runs in one
     // thread, with the same result). Started first, so that its start-up overlaps loading the limit set.
-    helper = AnalysisHelper.wouldHelp() ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
+    // ORDWISE_ANALYSIS_HELPER=on|off overrides the rule (tests and benchmarks take either path on purpose).
+    const helperSetting = process.env.ORDWISE_ANALYSIS_HELPER;
+    const wanted = helperSetting === "on" || (helperSetting !== "off" && AnalysisHelper.wouldHelp());
+    helper = wanted ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
     if (request.limitSetKey) limits = await loadLimitSet(request.limitSetKey);
   } catch (error) {
     await helper?.close();

@@ -3,8 +3,9 @@
 // Built as its own module by scripts/build-cli.mjs; started with `new Worker(...)`.
 import { parentPort } from "node:worker_threads";
 import type { HelperAnswer, HelperRequest, SentInputError } from "./analysis-helper";
-import { arrayWindowSource } from "./array-window-source";
+import { CompactColumn, type CompactColumnData } from "./compact-column";
 import { AnalysisInputError } from "./errors";
+import { KeptRows } from "./kept-rows";
 import { SegmentEstimator } from "./segment-estimator";
 import { WindowAnalyzer } from "./window-analyzer";
 
@@ -22,6 +23,16 @@ function describe(error: unknown): string {
   return error instanceof Error ? (error.stack ?? error.message) : String(error);
 }
 
+/** Per estimation channel, the segment unpacked (reused from segment to segment). */
+const segmentScratch: Float64Array[] = [];
+
+function unpacked(e: number, data: CompactColumnData, start: number, length: number): Float64Array {
+  let scratch = segmentScratch[e];
+  if (!scratch || scratch.length < length) scratch = segmentScratch[e] = new Float64Array(length);
+  CompactColumn.from(data).decode(start, start + length, scratch);
+  return scratch.subarray(0, length);
+}
+
 function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): HelperAnswer | null {
   const { channels, provisionalRateHz, start, length, first, last } = request;
   if (first || !estimator) {
@@ -31,7 +42,7 @@ function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): H
   if (segmentFailure === null) {
     try {
       estimator.estimate(
-        channels.map((c) => c.subarray(start, start + length)),
+        channels.map((data, e) => unpacked(e, data, start, length)),
         length,
         provisionalRateHz,
       );
@@ -74,10 +85,7 @@ function answer(request: HelperRequest): HelperAnswer | null {
   const started = performance.now();
   const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, from, to, out } = request;
   const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);
-  const source = arrayWindowSource(
-    channels.map((samples) => ({ samples, scale: 1 })),
-    recordSamples,
-  );
+  const source = KeptRows.windowSource(channels, recordSamples);
   const length = analyzer.measurementLength;
   for (let w = from; w < to; w++) {
     analyzer.measureWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source, out.subarray((w - from) * length, (w - from + 1) * length));

@@ -7,6 +7,7 @@ import { availableParallelism, loadavg } from "node:os";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { AnalysisInputError, type AnalysisErrorCode } from "./errors";
+import type { CompactColumnData } from "./compact-column";
 import type { PhaseTrack } from "./phase-tracker";
 import type { AnalyzerChannel, WindowShape } from "./window-types";
 
@@ -24,8 +25,8 @@ export type HelperRequest =
     }
   | {
       type: "segment";
-      /** The estimation channels, SharedArrayBuffer-backed, as long as the record will be. */
-      channels: Float64Array[];
+      /** The estimation channels as kept (in shared memory), holding at least the segment's rows. */
+      channels: CompactColumnData[];
       /** f is measured as f / rate; the rate is the provisional one pass 1 fits on its look-ahead. */
       provisionalRateHz: number;
       /** Segment [start, start + length) of the record; segments come in order. */
@@ -38,8 +39,8 @@ export type HelperRequest =
     }
   | {
       type: "windows";
-      /** Every channel, SharedArrayBuffer-backed, `recordSamples` long. */
-      channels: Float64Array[];
+      /** Every channel as kept (in shared memory), `recordSamples` rows. */
+      channels: CompactColumnData[];
       analyzerChannels: AnalyzerChannel[];
       reference: number;
       shape: WindowShape;

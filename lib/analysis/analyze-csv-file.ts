@@ -15,7 +15,6 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
-import { replayRows } from "./replay-rows";
 import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
@@ -232,13 +231,13 @@ export async function analyzeCsvFile(
   // With the rows kept in shared memory, the helper thread measures the later windows while this
   // thread measures the earlier ones; they are added to the totals in window order.
   const windowCount = plan.windowBounds.length - 1;
-  const helper = first.kept?.channels[0]?.shared ? (tuning.helper ?? null) : null;
+  const helper = first.kept?.shared ? (tuning.helper ?? null) : null;
   const split = helper ? Math.round(HELPER_MAIN_SHARE * windowCount) : windowCount;
   const helped = helper
     ? (() => {
         const out = new Float64Array(new SharedArrayBuffer(8 * (windowCount - split) * analyzer.measurementLength));
         const done = helper.measureWindows({
-          channels: first.kept!.channels.map((c) => c.view()),
+          channels: first.kept!.channels.map((c) => c.data),
           analyzerChannels: channelColumns.map((c) => ({ name: c.header, quantity: c.quantity!, phase: c.phase, scale: 1 })),
           reference,
           shape: plan.shape,
@@ -258,7 +257,7 @@ export async function analyzeCsvFile(
   if (first.kept) {
     // The rows pass 1 kept, replayed: the same chunks the file would give again.
     collector2 = collector1;
-    await replayRows(first.kept, n, second);
+    await first.kept.replay(n, second);
   } else {
     collector2 = new RowCollector(layout, columns, second);
     await readCsvRows(path, head, collector2);

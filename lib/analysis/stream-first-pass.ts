@@ -4,6 +4,7 @@ import { ChannelScan } from "./channel-scan";
 import type { AnalysisInputError } from "./errors";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { MemorySink } from "./import-csv";
+import { KeptRows } from "./kept-rows";
 import { LineFit } from "./line-fit";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { SegmentEstimator } from "./segment-estimator";
@@ -25,10 +26,10 @@ export class FirstPass implements RowSink {
   /** The look-ahead, until the record outgrows it. */
   memory: MemorySink | null;
   /**
-   * Every row so far (the look-ahead kept on), while the record stays within `keepRows` rows:
-   * pass 2 then replays them instead of reading the file again. Null once over.
+   * Every row so far (packed into the look-ahead's memory and kept on there), while the record
+   * stays within `keepRows` rows: pass 2 then replays them instead of reading the file again. Null once over.
    */
-  kept: MemorySink | null = null;
+  kept: KeptRows | null = null;
   streaming = false;
   /** Least-squares line t = start + interval·row over the whole time column. */
   readonly fit = new LineFit();
@@ -64,16 +65,11 @@ export class FirstPass implements RowSink {
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
     /** Rows the file is expected to hold (judged from its head): how far the helper maps memory ahead. */
-    expectedRows = 0,
+    private readonly expectedRows = 0,
   ) {
     const shared = helper !== null && keepRows > 0;
-    const memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
-    this.memory = memory;
-    // The helper maps the pages of the rows to be kept beyond the look-ahead while this thread parses
-    // (the look-ahead is filled first, before the helper could get ahead of this thread).
-    const from = 2 * segmentSamples + ROW_CHUNK;
-    const to = Math.min(keepRows, Math.ceil(1.02 * expectedRows) + ROW_CHUNK);
-    if (shared && to > from) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage().subarray(from, to)));
+    // Room for 8 bytes per row to be kept: the kept rows are packed into the same memory (untouched memory costs nothing).
+    this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
@@ -95,9 +91,7 @@ export class FirstPass implements RowSink {
   private switchToStreaming(): void {
     const memory = this.memory!;
     this.memory = null;
-    this.kept = this.rows <= this.keepRows ? memory : null;
-    if (this.kept && this.helper) this.remote = this.helper;
-    else this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
+    const keep = this.rows <= this.keepRows;
     this.streaming = true;
     const rows = this.rows;
     const times = memory.times?.view() ?? null;
@@ -110,15 +104,47 @@ export class FirstPass implements RowSink {
       this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
     }
     if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
-    this.stream(
-      times,
-      memory.channels.map((c) => c.view()),
-      rows,
-      0,
-    );
+    const channels = memory.channels.map((c) => c.view());
+    this.check(times, channels, rows, 0);
+    if (keep && this.helper) {
+      // The helper thread measures the segments from the kept rows: packed first, then sent.
+      this.kept = KeptRows.packInPlace(memory, rows);
+      this.remote = this.helper;
+      this.prefaultKept(rows);
+      this.segmentsFrom(channels, rows);
+    } else {
+      // Measured here from copies of the look-ahead's numbers, taken before the rows are packed over them.
+      this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
+      this.segmentsFrom(channels, rows);
+      this.kept = keep ? KeptRows.packInPlace(memory, rows) : null;
+    }
+  }
+
+  /**
+   * Has the helper thread map the pages the kept rows are expected to fill beyond the look-ahead's
+   * (judged from the file's head and the bytes per row the look-ahead packed into), while this
+   * thread parses on.
+   */
+  private prefaultKept(rows: number): void {
+    const kept = this.kept!;
+    const ahead = Math.min(this.keepRows, Math.ceil(1.02 * this.expectedRows) + ROW_CHUNK) - rows;
+    if (ahead <= 0) return;
+    const pages: Float64Array[] = [];
+    for (const column of [...(kept.times ? [kept.times] : []), ...kept.channels]) {
+      const mapped = 8 * rows;
+      const expected = Math.min(column.bytes.byteLength, Math.ceil((column.usedBytes * (rows + ahead)) / rows / 8) * 8);
+      if (expected > mapped) pages.push(new Float64Array(column.bytes, mapped, (expected - mapped) / 8));
+    }
+    if (pages.length > 0) this.remote!.prefault(pages);
   }
 
   private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    this.check(timesS, values, count, firstRow);
+    this.segmentsFrom(values, count);
+  }
+
+  /** Time-axis fit and checks, and each channel's extremes and sum of squares. */
+  private check(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     if (timesS && this.hasTime) {
       if (firstRow === 0 && count > 0) this.firstTimeS = timesS[0]!;
       for (let r = 0; r < count; r++) this.fit.add(firstRow + r, timesS[r]!);
@@ -140,6 +166,10 @@ export class FirstPass implements RowSink {
       this.previousTimeS = previous;
     }
     for (let c = 0; c < this.channelCount; c++) this.scans[c]!.add(values[c]!, count);
+  }
+
+  /** Fills the look-ahead of the segments and measures (or sends) each segment as it is complete. */
+  private segmentsFrom(values: Float64Array[], count: number): void {
     let offset = 0;
     while (offset < count) {
       const take = Math.min(count - offset, 2 * this.segmentSamples - this.segmentFill);
@@ -163,7 +193,7 @@ export class FirstPass implements RowSink {
     const start = this.segments * this.segmentSamples;
     if (this.remote) {
       const results = this.remote.sendSegment({
-        channels: this.estimation.map((e) => this.kept!.channels[e]!.view()),
+        channels: this.estimation.map((e) => this.kept!.channels[e]!.data),
         provisionalRateHz: this.provisionalRateHz,
         start,
         length,
@@ -192,7 +222,7 @@ export class FirstPass implements RowSink {
     this.kept = null;
     if (!this.remote) return;
     this.remote = null;
-    const channels = this.estimation.map((e) => kept.channels[e]!.view());
+    const channels = this.estimation.map((e) => kept.channelRows(e, 0, firstRow));
     for (let k = 0; k < this.segments; k++) {
       const start = k * this.segmentSamples;
       this.estimator.estimate(

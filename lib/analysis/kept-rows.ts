@@ -1,0 +1,103 @@
+// The rows pass 1 of the streaming analysis keeps for pass 2 (see analyze-csv-file.ts), packed
+// column by column (CompactColumn) into the memory the look-ahead already mapped.
+import { CompactColumn, type CompactColumnData } from "./compact-column";
+import type { MemorySink } from "./import-csv";
+import { ROW_CHUNK, type RowSink } from "./row-collector";
+import type { WindowSource } from "./window-analyzer";
+
+/**
+ * The time column (when there is one) and every channel of the rows kept so far, each a
+ * {@link CompactColumn}: the same doubles back, in fewer bytes where a column prints a fixed
+ * number of decimals. In shared memory when the analysis helper thread is to read them.
+ *
+ * Complexity O(1) per value kept or read back.
+ *
+ * @example
+ * const kept = KeptRows.packInPlace(lookAhead, rows); kept.accept(times, values, count);
+ * await kept.replay(rows, secondPass);
+ */
+export class KeptRows {
+  private constructor(
+    readonly times: CompactColumn | null,
+    readonly channels: CompactColumn[],
+    /** The columns are in SharedArrayBuffers (the helper thread can read them). */
+    readonly shared: boolean,
+  ) {}
+
+  /**
+   * Packs the first `rows` rows of a look-ahead into its own memory (its arrays must have room
+   * for every row to be kept, 8 bytes each: the columns go on there) and keeps them from there.
+   */
+  static packInPlace(memory: MemorySink, rows: number): KeptRows {
+    const pack = (buffer: MemorySink["channels"][number]): CompactColumn => CompactColumn.packInPlace(buffer.storage(), rows);
+    return new KeptRows(memory.times ? pack(memory.times) : null, memory.channels.map(pack), memory.channels[0]?.shared ?? false);
+  }
+
+  /** Rows kept. */
+  get rows(): number {
+    return this.channels[0]?.rows ?? this.times?.rows ?? 0;
+  }
+
+  /** Keeps the next chunk of rows (every chunk but the last holds ROW_CHUNK rows). */
+  accept(timesS: Float64Array | null, values: Float64Array[], count: number): void {
+    if (this.times && timesS) this.times.append(timesS, count);
+    for (let c = 0; c < values.length; c++) this.channels[c]!.append(values[c]!, count);
+  }
+
+  /**
+   * Hands the `rows` kept rows to `sink` in the chunks a RowCollector reading the file would give
+   * ({@link ROW_CHUNK} rows, the last one shorter; same row indices), unpacked into arrays reused
+   * from chunk to chunk, and lets other work run between chunks (as reading the file would).
+   */
+  async replay(rows: number, sink: RowSink): Promise<void> {
+    if (this.rows !== rows) throw new Error(`KeptRows.replay: ${rows} rows expected, ${this.rows} kept`);
+    const times = this.times ? new Float64Array(ROW_CHUNK) : null;
+    const channels = this.channels.map(() => new Float64Array(ROW_CHUNK));
+    for (let first = 0; first < rows; first += ROW_CHUNK) {
+      const end = Math.min(rows, first + ROW_CHUNK);
+      if (times) this.times!.decode(first, end, times);
+      this.channels.forEach((column, c) => column.decode(first, end, channels[c]!));
+      sink.accept(times, channels, end - first, first);
+      await new Promise<void>((resolve) => setImmediate(resolve));
+    }
+  }
+
+  /** Rows `from … to − 1` of channel `c`, unpacked. */
+  channelRows(c: number, from: number, to: number): Float64Array {
+    const out = new Float64Array(to - from);
+    this.channels[c]!.decode(from, to, out);
+    return out;
+  }
+
+  /**
+   * A {@link WindowSource} over kept channels as another thread sees them ({@link CompactColumn.data}):
+   * indices before the record's start or past its end (`n` samples) are folded back by the
+   * window's period, as arrayWindowSource does for channels held whole.
+   *
+   * @example
+   * const source = KeptRows.windowSource(kept.channels.map((c) => c.data), n);
+   */
+  static windowSource(channels: readonly CompactColumnData[], n: number): WindowSource {
+    const columns = channels.map((data) => CompactColumn.from(data));
+    return {
+      copyWindow(ci, first, span, period, target) {
+        const column = columns[ci]!;
+        // Inside the record the window is one run of rows; only its ends may fold back.
+        const inFrom = Math.min(span, Math.max(0, -first));
+        const inTo = Math.max(inFrom, Math.min(span, n - first));
+        if (inFrom < inTo) column.decode(first + inFrom, first + inTo, target, inFrom);
+        for (let k = 0; k < span; k++) {
+          if (k === inFrom && inFrom < inTo) {
+            k = inTo - 1;
+            continue;
+          }
+          let j = first + k;
+          while (j < 0) j += period;
+          while (j >= n) j -= period;
+          if (j < 0) j = 0;
+          target[k] = column.at(j);
+        }
+      },
+    };
+  }
+}
