@@ -114,14 +114,13 @@ export async function analyzeCsvFile(
     (timeColumn?.index ?? 0) + 1,
     estimatedRows <= keepRows ? keepRows : 0,
     tuning.helper ?? null,
-    estimatedRows,
   );
   collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);
 
   if (!first.streaming) {
     // Short record: the look-ahead holds all of it; the in-memory path gives the reference result.
-    const capture = finishImport(collector1, first.memory!, importOptions);
+    const capture = finishImport(collector1, first.lookAhead(), importOptions);
     if (timings) timings.importMs = performance.now() - started;
     const result = analyzeImported(capture, { ...options, frequencySegmentSamples: segmentSamples }, timings);
     if (options.keepWaveformCycles) {

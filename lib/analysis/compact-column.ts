@@ -29,8 +29,8 @@ type ChunkView = Int16Array | Int32Array | Float64Array;
  * bit, so the analysis does not depend on how a column was kept.
  *
  * Chunks are appended in order; every chunk but the last holds exactly {@link ROW_CHUNK} rows (the
- * chunks a RowCollector hands on). The column can take over the memory of a column of doubles
- * and pack it in place ({@link CompactColumn.packInPlace}), so pages already mapped are reused.
+ * chunks a RowCollector hands on). A column packed into the memory of an array of doubles can be
+ * unpacked into it in place ({@link CompactColumn.unpackInPlace}).
  *
  * Complexity O(1) per value to pack (two passes over a chunk) and to unpack; memory 2, 4 or 8
  * bytes per value.
@@ -66,27 +66,12 @@ export class CompactColumn {
     return new CompactColumn(data.bytes, 0, data.table);
   }
 
-  /**
-   * Packs the first `rows` doubles of `doubles` (which must start at byte 0 of its buffer) into the
-   * same memory, chunk by chunk, and returns the column, which goes on from there. Each chunk's
-   * packed bytes start at or before its doubles, so nothing is overwritten before it is read.
-   */
-  static packInPlace(doubles: Float64Array, rows: number): CompactColumn {
-    if (doubles.byteOffset !== 0) throw new Error("CompactColumn.packInPlace: the doubles must start their buffer");
-    const column = new CompactColumn(doubles.buffer, doubles.length);
-    for (let first = 0; first < rows; first += ROW_CHUNK) {
-      const count = Math.min(ROW_CHUNK, rows - first);
-      column.append(doubles.subarray(first, first + count), count);
-    }
-    return column;
-  }
-
   /** Appends the first `count` values of `values` as the next chunk. */
   append(values: Float64Array, count: number): void {
     const chunk = this.rows / ROW_CHUNK;
     if (!Number.isInteger(chunk)) throw new Error("CompactColumn: only the last chunk may be shorter than ROW_CHUNK rows");
     if (count === 0) return;
-    // First look (read only: when packing in place, the values are overwritten by the second).
+    // First look: the decimals and the largest magnitude (hence the width).
     let decimals = 0;
     let largest = 0;
     let exact = true;
@@ -113,7 +98,6 @@ export class CompactColumn {
     if (offset + width * count > this.bytes.byteLength) throw new Error("CompactColumn: more rows than its memory holds");
     const view = width === 2 ? new Int16Array(this.bytes, offset, count) : width === 4 ? new Int32Array(this.bytes, offset, count) : new Float64Array(this.bytes, offset, count);
     if (width === 8) {
-      // copyWithin-safe: when packing in place a chunk of doubles starts at or after its own offset.
       (view as Float64Array).set(values.subarray(0, count));
     } else {
       const minusZero = width === 2 ? MINUS_ZERO_16 : MINUS_ZERO_32;
@@ -135,6 +119,38 @@ export class CompactColumn {
   /** Bytes used so far (the packed chunks). */
   get usedBytes(): number {
     return this.offset;
+  }
+
+  /** Bytes the last chunk packed into (0 before the first). */
+  get lastChunkBytes(): number {
+    const chunk = Math.ceil(this.rows / ROW_CHUNK) - 1;
+    return chunk < 0 ? 0 : this.offset - this.table[ENTRY * chunk]!;
+  }
+
+  /**
+   * Unpacks every row, in place, into `doubles` (a view of this column's memory from its first
+   * byte): row r becomes doubles[r]. Chunks are unpacked from the last to the first and each from
+   * its end, so no packed value is overwritten before it is read (a chunk's doubles start at or
+   * after its packed bytes). The column is spent afterwards.
+   */
+  unpackInPlace(doubles: Float64Array): void {
+    if (doubles.buffer !== this.bytes || doubles.byteOffset !== 0) throw new Error("CompactColumn.unpackInPlace: not this column's memory");
+    for (let chunk = Math.ceil(this.rows / ROW_CHUNK) - 1; chunk >= 0; chunk--) {
+      const first = chunk * ROW_CHUNK;
+      const count = Math.min(ROW_CHUNK, this.rows - first);
+      const view = this.view(chunk);
+      const divisor = this.table[ENTRY * chunk + 2]!;
+      if (divisor === 0) {
+        doubles.copyWithin(first, this.table[ENTRY * chunk]! / 8, this.table[ENTRY * chunk]! / 8 + count);
+        continue;
+      }
+      const minusZero = view instanceof Int16Array ? MINUS_ZERO_16 : MINUS_ZERO_32;
+      for (let i = count - 1; i >= 0; i--) {
+        const m = view[i]!;
+        doubles[first + i] = m === minusZero ? -0 : m / divisor;
+      }
+    }
+    this.rows = 0;
   }
 
   private view(chunk: number): ChunkView {

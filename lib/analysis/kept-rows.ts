@@ -2,6 +2,7 @@
 // column by column (CompactColumn) into the memory the look-ahead already mapped.
 import { CompactColumn, type CompactColumnData } from "./compact-column";
 import type { MemorySink } from "./import-csv";
+import type { SampleBuffer } from "./sample-buffer";
 import { ROW_CHUNK, type RowSink } from "./row-collector";
 import type { WindowSource } from "./window-analyzer";
 
@@ -13,7 +14,7 @@ import type { WindowSource } from "./window-analyzer";
  * Complexity O(1) per value kept or read back.
  *
  * @example
- * const kept = KeptRows.packInPlace(lookAhead, rows); kept.accept(times, values, count);
+ * const kept = KeptRows.over(lookAhead); kept.accept(times, values, count);
  * await kept.replay(rows, secondPass);
  */
 export class KeptRows {
@@ -25,12 +26,32 @@ export class KeptRows {
   ) {}
 
   /**
-   * Packs the first `rows` rows of a look-ahead into its own memory (its arrays must have room
-   * for every row to be kept, 8 bytes each: the columns go on there) and keeps them from there.
+   * Keeps rows packed in the memory of `memory`'s arrays (which must have room for 8 bytes per row
+   * to be kept), from its first byte on; shared when its arrays are.
    */
-  static packInPlace(memory: MemorySink, rows: number): KeptRows {
-    const pack = (buffer: MemorySink["channels"][number]): CompactColumn => CompactColumn.packInPlace(buffer.storage(), rows);
-    return new KeptRows(memory.times ? pack(memory.times) : null, memory.channels.map(pack), memory.channels[0]?.shared ?? false);
+  static over(memory: MemorySink): KeptRows {
+    const over = (buffer: SampleBuffer): CompactColumn => new CompactColumn(buffer.storage().buffer, buffer.storage().length);
+    return new KeptRows(memory.times ? over(memory.times) : null, memory.channels.map(over), memory.channels[0]?.shared ?? false);
+  }
+
+  /**
+   * Unpacks every row into the doubles of `memory` (the sink the rows were kept over, see
+   * {@link KeptRows.over}), in place, and returns it holding them: for the in-memory analysis.
+   */
+  unpackInPlace(memory: MemorySink): MemorySink {
+    const rows = this.rows;
+    const unpack = (column: CompactColumn, buffer: SampleBuffer): void => {
+      column.unpackInPlace(buffer.storage());
+      buffer.length = rows;
+    };
+    if (this.times && memory.times) unpack(this.times, memory.times);
+    this.channels.forEach((column, c) => unpack(column, memory.channels[c]!));
+    return memory;
+  }
+
+  /** Calls `visit` for the time column (when there is one), then for each channel (`index` counts them all). */
+  forEachColumn(visit: (column: CompactColumn, index: number) => void): void {
+    [...(this.times ? [this.times] : []), ...this.channels].forEach(visit);
   }
 
   /** Rows kept. */

@@ -10,6 +10,10 @@ import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { SegmentEstimator } from "./segment-estimator";
 import type { AnalysisHelper, SegmentResults } from "./analysis-helper";
 
+/** How far ahead of the kept rows the helper thread maps pages: this many chunks, at least this many bytes at a time. */
+const PREFAULT_CHUNKS = 4;
+const PREFAULT_MIN_BYTES = 64 * 1024;
+
 export interface PendingError {
   row: number;
   error: AnalysisInputError;
@@ -23,13 +27,14 @@ export interface PendingError {
  * through that segment (the windows' boundaries come from the reference channel's track).
  */
 export class FirstPass implements RowSink {
-  /** The look-ahead, until the record outgrows it. */
-  memory: MemorySink | null;
+  /** Where the rows are kept: the look-ahead, and the rows kept on for pass 2 (packed, see {@link kept}). */
+  private memory: MemorySink | null;
   /**
-   * Every row so far (packed into the look-ahead's memory and kept on there), while the record
-   * stays within `keepRows` rows: pass 2 then replays them instead of reading the file again. Null once over.
+   * Every row so far, packed into the look-ahead's memory (the look-ahead, then the rows kept on
+   * while the record stays within `keepRows` rows: pass 2 then replays them instead of reading the
+   * file again). Null once over.
    */
-  kept: KeptRows | null = null;
+  kept: KeptRows | null;
   streaming = false;
   /** Least-squares line t = start + interval·row over the whole time column. */
   readonly fit = new LineFit();
@@ -47,6 +52,8 @@ export class FirstPass implements RowSink {
   private segmentFill = 0;
   /** Segments measured (or sent to be) so far. */
   private segments = 0;
+  /** Per kept column (time first), the byte up to which the helper thread was asked to map pages. */
+  private readonly prefaulted: number[] = [];
   /** The helper thread measuring the segments from the kept rows, while they are kept. */
   private remote: AnalysisHelper | null = null;
   private remoteResults: Promise<SegmentResults> | null = null;
@@ -64,78 +71,97 @@ export class FirstPass implements RowSink {
     private readonly keepRows = 0,
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
-    /** Rows the file is expected to hold (judged from its head): how far the helper maps memory ahead. */
-    private readonly expectedRows = 0,
   ) {
     const shared = helper !== null && keepRows > 0;
-    // Room for 8 bytes per row to be kept: the kept rows are packed into the same memory (untouched memory costs nothing).
+    // Room for 8 bytes per row of the look-ahead and of the rows to be kept (untouched memory costs
+    // nothing); the rows are packed into it as they come (KeptRows), so fewer pages are touched.
     this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
+    this.kept = KeptRows.over(this.memory);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     this.rows = firstRow + count;
-    if (this.memory) {
-      this.memory.accept(timesS, values, count);
+    if (!this.streaming) {
+      this.kept!.accept(timesS, values, count);
+      this.prefaultKept();
       if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
       return;
     }
     if (this.kept) {
-      if (this.rows <= this.keepRows) this.kept.accept(timesS, values, count);
-      else this.dropKept(firstRow);
+      if (this.rows <= this.keepRows) {
+        this.kept.accept(timesS, values, count);
+        this.prefaultKept();
+      } else {
+        this.dropKept(firstRow);
+      }
     }
     this.stream(timesS, values, count, firstRow);
   }
 
+  /**
+   * The look-ahead's rows as doubles, for the in-memory analysis of a record that ended within it
+   * (unpacked in place: no new memory).
+   */
+  lookAhead(): MemorySink {
+    if (this.streaming) throw new Error("FirstPass.lookAhead: the record outgrew the look-ahead");
+    return this.kept!.unpackInPlace(this.memory!);
+  }
+
   private switchToStreaming(): void {
-    const memory = this.memory!;
     this.memory = null;
+    const kept = this.kept!;
     const keep = this.rows <= this.keepRows;
     this.streaming = true;
     const rows = this.rows;
-    const times = memory.times?.view() ?? null;
+    // The look-ahead's rows, unpacked chunk by chunk into arrays reused for each.
+    const times = kept.times ? new Float64Array(ROW_CHUNK) : null;
+    const channels = kept.channels.map(() => new Float64Array(ROW_CHUNK));
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
       const fit = new LineFit();
-      for (let r = 0; r < rows; r++) fit.add(r, times[r]!);
+      for (let first = 0; first < rows; first += ROW_CHUNK) {
+        const end = Math.min(rows, first + ROW_CHUNK);
+        kept.times!.decode(first, end, times);
+        for (let r = first; r < end; r++) fit.add(r, times[r - first]!);
+      }
       this.provisionalRateHz = 1 / fit.slope();
     } else {
       this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
     }
     if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
-    const channels = memory.channels.map((c) => c.view());
-    this.check(times, channels, rows, 0);
     if (keep && this.helper) {
-      // The helper thread measures the segments from the kept rows: packed first, then sent.
-      this.kept = KeptRows.packInPlace(memory, rows);
+      // The helper thread measures the segments from the kept rows.
       this.remote = this.helper;
-      this.prefaultKept(rows);
-      this.segmentsFrom(channels, rows);
     } else {
-      // Measured here from copies of the look-ahead's numbers, taken before the rows are packed over them.
       this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
-      this.segmentsFrom(channels, rows);
-      this.kept = keep ? KeptRows.packInPlace(memory, rows) : null;
     }
+    for (let first = 0; first < rows; first += ROW_CHUNK) {
+      const end = Math.min(rows, first + ROW_CHUNK);
+      if (times) kept.times!.decode(first, end, times);
+      kept.channels.forEach((column, c) => column.decode(first, end, channels[c]!));
+      this.stream(times, channels, end - first, first);
+    }
+    if (!keep) this.kept = null;
   }
 
   /**
-   * Has the helper thread map the pages the kept rows are expected to fill beyond the look-ahead's
-   * (judged from the file's head and the bytes per row the look-ahead packed into), while this
-   * thread parses on.
+   * Has the helper thread map the pages the kept rows will fill next (a few chunks ahead, at the
+   * bytes per row the last chunk packed into), while this thread parses on.
    */
-  private prefaultKept(rows: number): void {
-    const kept = this.kept!;
-    const ahead = Math.min(this.keepRows, Math.ceil(1.02 * this.expectedRows) + ROW_CHUNK) - rows;
-    if (ahead <= 0) return;
+  private prefaultKept(): void {
+    if (!this.kept?.shared || !this.helper) return;
     const pages: Float64Array[] = [];
-    for (const column of [...(kept.times ? [kept.times] : []), ...kept.channels]) {
-      const mapped = 8 * rows;
-      const expected = Math.min(column.bytes.byteLength, Math.ceil((column.usedBytes * (rows + ahead)) / rows / 8) * 8);
-      if (expected > mapped) pages.push(new Float64Array(column.bytes, mapped, (expected - mapped) / 8));
-    }
-    if (pages.length > 0) this.remote!.prefault(pages);
+    this.kept.forEachColumn((column, c) => {
+      const from = Math.max(column.usedBytes, this.prefaulted[c] ?? 0);
+      const to = Math.min(column.bytes.byteLength, column.usedBytes + PREFAULT_CHUNKS * column.lastChunkBytes);
+      if (to - from >= PREFAULT_MIN_BYTES) {
+        pages.push(new Float64Array(column.bytes, from, (to - from) / 8));
+        this.prefaulted[c] = to;
+      }
+    });
+    if (pages.length > 0) this.helper.prefault(pages);
   }
 
   private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {

@@ -73,33 +73,34 @@ describe("a packed column gives back every double bit for bit", () => {
     expect(sameBits(decoded, original)).toEqual([]);
   });
 
-  test("a look-ahead of doubles is packed into its own memory and the column goes on there; the kept rows read back as they were", () => {
-    const lookAheadRows = 3 * ROW_CHUNK;
-    const total = lookAheadRows + 2 * ROW_CHUNK + 999;
+  test("rows kept over a look-ahead's memory read back as they were: replayed in chunks, and unpacked in place into its doubles", async () => {
+    const total = 5 * ROW_CHUNK + 999;
     const channel = printed(total, 325, 2, 5);
+    channel[ROW_CHUNK + 3] = 1 / 3; // one chunk that must stay doubles
     const time = Float64Array.from({ length: total }, (_, k) => Number((k / 25_600).toFixed(7)));
     const memory = new MemorySink(1, true, total, true);
-    memory.accept(time.subarray(0, lookAheadRows), [channel.subarray(0, lookAheadRows)], lookAheadRows);
-    const kept = KeptRows.packInPlace(memory, lookAheadRows);
+    const kept = KeptRows.over(memory);
     expect(kept.shared).toBe(true);
-    for (let first = lookAheadRows; first < total; first += ROW_CHUNK) {
+    for (let first = 0; first < total; first += ROW_CHUNK) {
       const end = Math.min(total, first + ROW_CHUNK);
       kept.accept(time.slice(first, end), [channel.slice(first, end)], end - first);
     }
     expect(kept.rows).toBe(total);
+    // 2 bytes a value but the one chunk of doubles; the time column 4.
+    expect(kept.channels[0]!.usedBytes).toBe(8 * ROW_CHUNK + 2 * (total - ROW_CHUNK) + 2);
     expect(sameBits(kept.channelRows(0, 0, total), channel)).toEqual([]);
     const replayed = { times: new Float64Array(total), channel: new Float64Array(total) };
-    return kept
-      .replay(total, {
-        accept: (times, values, count, firstRow) => {
-          replayed.times.set(times!.subarray(0, count), firstRow);
-          replayed.channel.set(values[0]!.subarray(0, count), firstRow);
-        },
-      })
-      .then(() => {
-        expect(sameBits(replayed.times, time)).toEqual([]);
-        expect(sameBits(replayed.channel, channel)).toEqual([]);
-      });
+    await kept.replay(total, {
+      accept: (times: Float64Array | null, values: Float64Array[], count: number, firstRow: number) => {
+        replayed.times.set(times!.subarray(0, count), firstRow);
+        replayed.channel.set(values[0]!.subarray(0, count), firstRow);
+      },
+    });
+    expect(sameBits(replayed.times, time)).toEqual([]);
+    expect(sameBits(replayed.channel, channel)).toEqual([]);
+    const unpacked = kept.unpackInPlace(memory);
+    expect(sameBits(unpacked.times!.view(), time)).toEqual([]);
+    expect(sameBits(unpacked.channels[0]!.view(), channel)).toEqual([]);
   });
 
   test("windows cut from kept channels (as the helper thread reads them) equal windows cut from the channels held whole, folded back at both ends", () => {
