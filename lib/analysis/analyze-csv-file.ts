@@ -114,6 +114,7 @@ export async function analyzeCsvFile(
     (timeColumn?.index ?? 0) + 1,
     estimatedRows <= keepRows ? keepRows : 0,
     tuning.helper ?? null,
+    estimatedRows,
   );
   collector1 = new RowCollector(layout, columns, first);
   await readCsvRows(path, head, collector1);

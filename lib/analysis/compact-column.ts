@@ -66,16 +66,19 @@ export class CompactColumn {
     return new CompactColumn(data.bytes, 0, data.table);
   }
 
-  /** Appends the first `count` values of `values` as the next chunk. */
-  append(values: Float64Array, count: number): void {
+  /**
+   * Appends the first `count` values of `values` as the next chunk: packed, or (`pack` false) as
+   * the doubles they are (a chunk that is likely to be unpacked again soon).
+   */
+  append(values: Float64Array, count: number, pack = true): void {
     const chunk = this.rows / ROW_CHUNK;
     if (!Number.isInteger(chunk)) throw new Error("CompactColumn: only the last chunk may be shorter than ROW_CHUNK rows");
     if (count === 0) return;
     // First look: the decimals and the largest magnitude (hence the width).
     let decimals = 0;
     let largest = 0;
-    let exact = true;
-    for (let i = 0; i < count; i++) {
+    let exact = pack;
+    for (let i = 0; exact && i < count; i++) {
       const v = values[i]!;
       let p = POW10[decimals]!;
       if (Math.round(v * p) / p !== v) {

@@ -59,10 +59,13 @@ export class KeptRows {
     return this.channels[0]?.rows ?? this.times?.rows ?? 0;
   }
 
-  /** Keeps the next chunk of rows (every chunk but the last holds ROW_CHUNK rows). */
-  accept(timesS: Float64Array | null, values: Float64Array[], count: number): void {
-    if (this.times && timesS) this.times.append(timesS, count);
-    for (let c = 0; c < values.length; c++) this.channels[c]!.append(values[c]!, count);
+  /**
+   * Keeps the next chunk of rows (every chunk but the last holds ROW_CHUNK rows), packed or
+   * (`pack` false) as doubles.
+   */
+  accept(timesS: Float64Array | null, values: Float64Array[], count: number, pack = true): void {
+    if (this.times && timesS) this.times.append(timesS, count, pack);
+    for (let c = 0; c < values.length; c++) this.channels[c]!.append(values[c]!, count, pack);
   }
 
   /**

@@ -52,6 +52,8 @@ export class FirstPass implements RowSink {
   private segmentFill = 0;
   /** Segments measured (or sent to be) so far. */
   private segments = 0;
+  /** Whether the look-ahead's rows are packed (else kept as doubles until the record outgrows it). */
+  private readonly packLookAhead: boolean;
   /** Per kept column (time first), the byte up to which the helper thread was asked to map pages. */
   private readonly prefaulted: number[] = [];
   /** The helper thread measuring the segments from the kept rows, while they are kept. */
@@ -71,7 +73,13 @@ export class FirstPass implements RowSink {
     private readonly keepRows = 0,
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
+    /**
+     * Rows the file is expected to hold (judged from its head): a record expected to outgrow the
+     * look-ahead has it packed too; one expected to end within it keeps doubles (for the in-memory path).
+     */
+    expectedRows = 0,
   ) {
+    this.packLookAhead = expectedRows > 2 * segmentSamples;
     const shared = helper !== null && keepRows > 0;
     // Room for 8 bytes per row of the look-ahead and of the rows to be kept (untouched memory costs
     // nothing); the rows are packed into it as they come (KeptRows), so fewer pages are touched.
@@ -84,7 +92,7 @@ export class FirstPass implements RowSink {
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     this.rows = firstRow + count;
     if (!this.streaming) {
-      this.kept!.accept(timesS, values, count);
+      this.kept!.accept(timesS, values, count, this.packLookAhead);
       this.prefaultKept();
       if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
       return;
