@@ -1,6 +1,6 @@
 // `npm run analyze`: runs the bundled command line (dist/analyze.mjs), building it first when it is
 // missing or stale (scripts/build-cli.mjs). The command line itself is scripts/analyze.ts.
-import { buildCli, bundlePath, cliBundleIsStale } from "./build-cli.mjs";
+import { buildCli, bundlePath, cliBundleIsStale, startHelperPath } from "./build-cli.mjs";
 import { pathToFileURL } from "node:url";
 import v8 from "node:v8";
 
@@ -13,5 +13,9 @@ v8.setFlagsFromString("--no-concurrent-osr");
 v8.setFlagsFromString("--semi-space-growth-factor=1");
 
 if (cliBundleIsStale()) await buildCli();
+// The analysis helper thread (when a core is free for it) is started first, from a small module, so
+// that its start-up and warming up overlap loading the command line.
+const { startAnalysisHelper } = await import(pathToFileURL(startHelperPath).href);
+const helper = startAnalysisHelper();
 const { main } = await import(pathToFileURL(bundlePath).href);
-process.exitCode = await main(process.argv.slice(2));
+process.exitCode = await main(process.argv.slice(2), { helper });

@@ -46,17 +46,16 @@ export type HelperRequest =
       shape: WindowShape;
       recordSamples: number;
       windowBounds: Float64Array;
-      /** Windows from … to (exclusive) to measure. */
-      from: number;
-      to: number;
-      /** (to − from) × measurementLength numbers, SharedArrayBuffer-backed. */
+      /** The windows' claims (WindowClaims.cell): the helper takes windows from the back until none is left. */
+      claims: BigInt64Array;
+      /** Window w's measurement goes to numbers w × measurementLength … (SharedArrayBuffer-backed). */
       out: Float64Array;
     };
 
 /** The helper thread's answers. */
 export type HelperAnswer =
   | { type: "estimates"; ratios: (number | SentInputError)[][]; tracks: PhaseTrack[]; fundamentalMs: number }
-  | { type: "windows"; ms: number }
+  | { type: "windows"; ms: number; /** The first window it measured (the window count when none). */ from: number }
   | { type: "failed"; message: string };
 
 /** Pass 1's measuring, as the helper thread returns it. */
@@ -155,10 +154,14 @@ export class AnalysisHelper {
     if (!this.failure) this.worker.postMessage({ type: "prefault", arrays } satisfies HelperRequest);
   }
 
-  /** Measures windows `from` … `to` − 1 into `out` (see WindowAnalyzer.measureWindow); resolves when done. */
-  async measureWindows(request: Omit<Extract<HelperRequest, { type: "windows" }>, "type">): Promise<void> {
+  /**
+   * Measures windows from the back into `out` (see WindowAnalyzer.measureWindow), claiming each
+   * from `claims` first, until none is left; resolves to the first window it measured.
+   */
+  async measureWindows(request: Omit<Extract<HelperRequest, { type: "windows" }>, "type">): Promise<number> {
     const answer = await this.ask({ type: "windows", ...request });
     if (answer.type !== "windows") throw new Error(`analysis helper thread answered ${answer.type} to windows`);
+    return answer.from;
   }
 
   /** Stops the thread. */
