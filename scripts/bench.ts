@@ -7,9 +7,9 @@ import { createWriteStream, existsSync, mkdirSync, rmSync, statSync, writeFileSy
 import { availableParallelism, loadavg } from "node:os";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { AnalysisHelper } from "../lib/analysis/analysis-helper";
 import { analyzeCsvFile } from "../lib/analysis/analyze-csv-file";
 import type { StreamTimings } from "../lib/analysis/analyze-csv-file";
+import { analysisHelperWanted } from "./start-analysis-helper";
 
 type StageTimings = StreamTimings;
 
@@ -264,7 +264,8 @@ function cliCases(): BenchCase[] {
       },
       run: async (path) => {
         // The CLI's own rule for its helper thread, read just before it starts (the load can change in between).
-        const helperNote = `helper thread ${AnalysisHelper.wouldHelp() ? "on" : "off"} (1-min load ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`;
+        const forced = process.env.ORDWISE_ANALYSIS_HELPER === "on" || process.env.ORDWISE_ANALYSIS_HELPER === "off" ? ", set by ORDWISE_ANALYSIS_HELPER" : "";
+        const helperNote = `helper thread ${analysisHelperWanted() ? "on" : "off"}${forced} (1-min load ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`;
         const started = performance.now();
         const res = await runChild([join(dirname(fileURLToPath(import.meta.url)), "analyze.mjs"), path, "--json", "--limits", "iec-61000-3-2-class-a"]);
         const wallMs = performance.now() - started;
@@ -365,12 +366,17 @@ async function main(): Promise<void> {
     console.log(`  wall time    ${wallS.toFixed(3)} s   (${(sizeMB / wallS).toFixed(1)} MB/s of CSV)   target < ${bench.targets.wallS} s`);
     console.log(`  CPU          ${cpuS.toFixed(3)} s   user+sys (${processCpuS !== undefined ? "the child process" : "this process"}; steadier than wall time on a shared machine)`);
     console.log(`  peak RSS     ${rssMB.toFixed(0)} MB   target < ${bench.targets.rssMB} MB (${processRssMB !== undefined ? "the child process's getrusage maxrss" : "sampled every 10 ms"})`);
-    console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
-    if (timings.rereadMs !== undefined) console.log(`  pass 2 rows  ${ms(timings.rereadMs)}   (the kept rows replayed, or the file parsed again; time-axis and clipping checks, ring buffer)`);
-    console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
-    console.log(
-      `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}${timings.rereadMs !== undefined ? " — inside pass 1" : ""}, aggregation ${ms(timings.aggregateMs)})`,
-    );
+    if (Object.keys(timings).length === 0) {
+      // A child process (the CLI case): its stages are not measured from here.
+      console.log(`  stages       not measured (a separate process; its wall time, CPU and RSS are above)`);
+    } else {
+      console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
+      if (timings.rereadMs !== undefined) console.log(`  pass 2 rows  ${ms(timings.rereadMs)}   (the kept rows replayed, or the file parsed again; time-axis and clipping checks, ring buffer)`);
+      if (timings.windowsMs !== undefined) console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
+      console.log(
+        `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}${timings.rereadMs !== undefined ? " — inside pass 1" : ""}, aggregation ${ms(timings.aggregateMs)})`,
+      );
+    }
     console.log(`  process max  ${((process.resourceUsage().maxRSS * 1024) / 1e6).toFixed(0)} MB   (getrusage maxrss since the bench started, includes earlier cases)`);
     if (wallS > bench.targets.wallS || rssMB > bench.targets.rssMB) failed = true;
     if (bench.large && !keep) {

@@ -5,15 +5,21 @@
 import { AnalysisHelper } from "@/lib/analysis/analysis-helper";
 
 /**
- * The helper thread, or null: started when AnalysisHelper.wouldHelp() (a free core), or as
- * ORDWISE_ANALYSIS_HELPER=on|off says (tests and benchmarks take either path on purpose).
+ * Whether the command line starts its helper thread: when AnalysisHelper.wouldHelp() (a free
+ * core), or as ORDWISE_ANALYSIS_HELPER=on|off says (tests and benchmarks take either path on purpose).
+ */
+export function analysisHelperWanted(): boolean {
+  const setting = process.env.ORDWISE_ANALYSIS_HELPER;
+  return setting === "on" || (setting !== "off" && AnalysisHelper.wouldHelp());
+}
+
+/**
+ * The helper thread when {@link analysisHelperWanted}, else null.
  *
  * @example
  * const helper = startAnalysisHelper(); try { … } finally { await helper?.close(); }
  */
 export function startAnalysisHelper(): AnalysisHelper | null {
-  const setting = process.env.ORDWISE_ANALYSIS_HELPER;
-  const wanted = setting === "on" || (setting !== "off" && AnalysisHelper.wouldHelp());
   // Built beside this module by scripts/build-cli.mjs; without it the analysis runs in one thread, with the same result.
-  return wanted ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
+  return analysisHelperWanted() ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
 }
