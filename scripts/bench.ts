@@ -3,12 +3,13 @@
 // wall time, throughput, peak RSS and where the time goes. Add cases to BENCH_CASES.
 // Inputs marked `large` (the 600 MB 10-minute record) are deleted after the run unless --keep is given.
 import { spawn } from "node:child_process";
-import { createWriteStream, existsSync, mkdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { availableParallelism, loadavg } from "node:os";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
 import { analyzeCsvFile } from "../lib/analysis/analyze-csv-file";
 import type { StreamTimings } from "../lib/analysis/analyze-csv-file";
+import { writeLines } from "../fixtures/write-lines";
 import { analysisHelperWanted } from "./start-analysis-helper";
 
 type StageTimings = StreamTimings;
@@ -36,12 +37,10 @@ async function writeCapture(path: string, seconds: number, driftHz = 0): Promise
   const rate = 25_600;
   const f = 50.03;
   const rows = Math.round(seconds * rate);
-  const out = createWriteStream(path);
   const w = 2 * Math.PI * f;
   const b = (-2 * Math.PI) / 3;
   const driftPeriodS = 600;
-  let chunk = "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n";
-  for (let k = 0; k < rows; k++) {
+  await writeLines(path, "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n", rows, (k) => {
     const t = k / rate;
     // The fundamental's phase: ∫ 2π(f + drift·sin(2πt/P)) dt.
     const phase = driftHz === 0 ? w * t : w * t - driftHz * driftPeriodS * (Math.cos((2 * Math.PI * t) / driftPeriodS) - 1);
@@ -49,14 +48,8 @@ async function writeCapture(path: string, seconds: number, driftHz = 0): Promise
     const vb = 325 * Math.cos(phase + b) + 8 * Math.cos(5 * (phase + b) + 0.2);
     const ia = 14 * Math.cos(phase - 0.5) + 4 * Math.cos(3 * phase + 0.4) + 2.5 * Math.cos(5 * phase - 1) + 0.3 * Math.cos(37 * phase);
     const ib = 14 * Math.cos(phase + b - 0.5) + 4 * Math.cos(3 * (phase + b) + 0.4) + 2.5 * Math.cos(5 * (phase + b) - 1);
-    chunk += `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
-      chunk = "";
-    }
-  }
-  out.write(chunk);
-  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+    return `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
+  });
 }
 
 export const BENCH_CASES: BenchCase[] = [
@@ -157,11 +150,10 @@ export const BENCH_CASES: BenchCase[] = [
  */
 async function writeIntervalLog(path: string, rows: number, intervalMs: number): Promise<void> {
   mkdirSync(dirname(path), { recursive: true });
-  const out = createWriteStream(path);
   const channels = ["I1", "I2", "I3"];
-  let chunk = `${["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])].join(",")}\n`;
+  const header = `${["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])].join(",")}\n`;
   const start = Date.UTC(2024, 2, 4);
-  for (let k = 0; k < rows; k++) {
+  await writeLines(path, header, rows, (k) => {
     const cells = [new Date(start + k * intervalMs).toISOString()];
     for (let c = 0; c < channels.length; c++) {
       const i1 = 60 + 30 * Math.sin((2 * Math.PI * k * intervalMs) / 86_400_000) + c;
@@ -169,14 +161,8 @@ async function writeIntervalLog(path: string, rows: number, intervalMs: number):
       const distortion = Math.sqrt(orders.reduce((sum, v) => sum + v * v, 0));
       cells.push(i1.toFixed(3), ...orders.map((v) => v.toFixed(4)), ((distortion / i1) * 100).toFixed(3), Math.hypot(i1, distortion).toFixed(3));
     }
-    chunk += `${cells.join(",")}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
-      chunk = "";
-    }
-  }
-  out.write(chunk);
-  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+    return `${cells.join(",")}\n`;
+  });
 }
 
 /** Interval logs as large as an upload may be: the worker's path, and the chart data it stores. */

@@ -4,10 +4,11 @@
 // measures the segments and the windows from the back while the main thread measures the windows
 // from the front), and with it forced off, must give the very numbers the worker's one-thread
 // pipeline (runCaptureAnalysis + runCaptureEvaluation, called here in-process) gives.
-import { createWriteStream, mkdtempSync, rmSync } from "node:fs";
+import { mkdtempSync, rmSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
+import { writeLines } from "@/fixtures/write-lines";
 import { KEEP_ROWS_BYTES } from "@/lib/analysis/analyze-csv-file";
 import { FREQUENCY_SEGMENT_SAMPLES } from "@/lib/analysis/segment-bounds";
 import { parseAnalyzeArgs } from "@/lib/pipeline/parse-analyze-args";
@@ -32,10 +33,8 @@ let file: string;
  * decide), fixed decimals as recorders print them (with "-0.000" where a value rounds to zero).
  */
 async function writeCapture(target: string): Promise<void> {
-  const out = createWriteStream(target);
   const b = (-2 * Math.PI) / 3;
-  let chunk = "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n";
-  for (let k = 0; k < ROWS; k++) {
+  await writeLines(target, "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n", ROWS, (k) => {
     const t = k / RATE_HZ;
     const phase = 2 * Math.PI * (49.9 * t + (0.2 * t * t) / (2 * SECONDS));
     const h3 = t >= 10 && t < 13 ? 4.0 : 1.5;
@@ -43,14 +42,8 @@ async function writeCapture(target: string): Promise<void> {
     const vb = 325 * Math.cos(phase + b) + 6 * Math.cos(5 * (phase + b) + 0.3);
     const ia = Math.SQRT2 * (8 * Math.cos(phase - 0.2) + h3 * Math.cos(3 * phase + 0.4)) + 0.6 * Math.cos(11 * phase);
     const ib = Math.SQRT2 * (8 * Math.cos(phase + b - 0.2) + 1.5 * Math.cos(3 * (phase + b) + 0.4));
-    chunk += `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
-      chunk = "";
-    }
-  }
-  out.write(chunk);
-  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+    return `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
+  });
 }
 
 beforeAll(async () => {
