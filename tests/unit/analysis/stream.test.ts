@@ -145,6 +145,17 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
     expect(analyzeCsvText(text, { channels }).channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
   });
 
+  test("a record within the look-ahead whose head promised a longer one (its rows packed, then unpacked in place) is analysed exactly like the text path", async () => {
+    // 7,680 rows (< 2 segments of 4,096): the head's short rows promise ~13,000, the later ones are padded.
+    const text = captureText(1.2)
+      .split("\n")
+      .map((line, i) => (i > 6000 && line ? line.split(",").map((c) => c.padStart(40)).join(",") : line))
+      .join("\n");
+    const path = write("drifting-1.2s-long-tail.csv", text);
+    const fromFile = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
+    expect(fromFile).toEqual(analyzeCsvText(text, { ...options, frequencySegmentSamples: SEGMENT }));
+  });
+
   test("a record within the look-ahead is analysed exactly like the text path", async () => {
     const short = write("drifting-1s-b.csv", captureText(1));
     const { waveform, ...fromFile } = await analyzeCsvFile(short, options);
