@@ -127,7 +127,7 @@ export function partialSumText(unavailableOrders: number[], record: "analysis" |
  * How an interval log's THD or TDD values were formed when the log does not hold every order of the
  * aggregate: from its THD column, which covers the logger's own order range.
  *
- * @example loggedThdText([6, 8, 10, 12]) // "distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders 6–12 (4 orders) are not logged one by one)"
+ * @example loggedThdText([6, 8, 10, 12]) // "distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders 6, 8, 10, 12 are not logged one by one)"
  */
 export function loggedThdText(unloggedOrders: number[]): string {
   return `distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders ${describeOrders(unloggedOrders)} are not logged one by one)`;
@@ -138,10 +138,26 @@ export function notEvaluatedText(cause: NotEvaluatedCause): string {
   return `not evaluated: ${causeText(cause)}`;
 }
 
-/** "3, 5, 7" or "21–39 (10 orders)". */
+/**
+ * A list of orders in words: consecutive orders as a range, so "2–7" always means every order
+ * from 2 to 7; a list of more than six entries is cut, with the count.
+ *
+ * @example describeOrders([3, 5, 7]) // "3, 5, 7"
+ * @example describeOrders([2, 3, 4, 5, 9]) // "2–5, 9"
+ * @example describeOrders([21, 23, 25, 27, 29, 31, 33, 35, 37, 39]) // "21, 23, 25, 27, … 39 (10 orders)"
+ */
 export function describeOrders(orders: number[]): string {
-  if (orders.length <= 3) return orders.join(", ");
-  return `${orders[0]}–${orders[orders.length - 1]} (${orders.length} orders)`;
+  const sorted = [...new Set(orders)].sort((a, b) => a - b);
+  const entries: string[] = [];
+  for (let i = 0; i < sorted.length; ) {
+    let j = i;
+    while (j + 1 < sorted.length && sorted[j + 1] === sorted[j]! + 1) j++;
+    if (j - i >= 2) entries.push(`${sorted[i]}–${sorted[j]}`);
+    else for (let k = i; k <= j; k++) entries.push(String(sorted[k]));
+    i = j + 1;
+  }
+  if (entries.length <= 6) return entries.join(", ");
+  return `${entries.slice(0, 4).join(", ")}, … ${entries[entries.length - 1]} (${sorted.length} orders)`;
 }
 
 function ordinal(p: number): string {

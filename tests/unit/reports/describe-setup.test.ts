@@ -40,7 +40,7 @@ describe("describeSetup for an interval log", () => {
   test("summarises the column map per channel, with the full list as details, and names the unused columns", () => {
     const lines = describeSetup(sheetWith({ unmappedColumns: ["I1 H5 max [A]", "Comment"] }));
     const map = lines.find(([label]) => label === "Column map")!;
-    expect(map[1]).toBe("9 columns on 2 channels; time from “Timestamp” — I1 (current, A): fundamental, orders 2–7 (4 orders), THD, r.m.s.; I2 (current, A and %, scale × 100): fundamental, order 3");
+    expect(map[1]).toBe("9 columns on 2 channels; time from “Timestamp” — I1 (current, A): fundamental, orders 2, 3, 5, 7, THD, r.m.s.; I2 (current, A and %, scale × 100): fundamental, order 3");
     expect(map[2]).toHaveLength(9);
     expect(map[2]![0]).toBe("I1 H1 avg [A] → I1 h1 (A)");
     expect(map[2]![7]).toBe("I2 H1 avg [A] → I2 h1 (A, × 100)");

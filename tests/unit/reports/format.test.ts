@@ -6,7 +6,7 @@ import { describe, expect, test } from "vitest";
 import { describeFilterReport } from "@/lib/mitigation/describe-filter-report";
 import { failureReasonText, formatNumber, formatWhen, sentenceStart } from "@/lib/reports/format";
 import { formatContextValue } from "@/lib/reports/band-wording";
-import { formatDurationS } from "@/lib/reports/result-wording";
+import { describeOrders, formatDurationS } from "@/lib/reports/result-wording";
 
 describe("formatNumber", () => {
   test.each([
@@ -73,4 +73,20 @@ test("a filter's report reads the same on the what-if panel and the PDF, with th
     "Filter: parallel resonance with the source near order 4.18; capacitor duty rms V 104 %, peak V 113 %, rms I 131 %, kvar 119 % of rating (IEEE Std 18-2012 limits 110/120/180/135 %).",
   );
   expect(describeFilterReport({ kind: "active-filter", ratingUsedA: 42.04, ratingUsedPercent: 42.04 })).toBe("Active filter: 42.0 A used (42 % of its rating).");
+});
+
+describe("describeOrders", () => {
+  // Product rule: a range "a–b" always means every order from a to b; a count never contradicts the range shown.
+  test.each([
+    [[5], "5"],
+    [[3, 5, 7], "3, 5, 7"],
+    [[2, 3, 5, 7], "2, 3, 5, 7"],
+    [[2, 3, 4, 5, 9], "2–5, 9"],
+    [[9, 2, 4, 3, 5, 5], "2–5, 9"],
+    [[6, 8, 10, 12], "6, 8, 10, 12"],
+    [[21, 23, 25, 27, 29, 31, 33, 35, 37, 39], "21, 23, 25, 27, … 39 (10 orders)"],
+    [Array.from({ length: 45 }, (_, k) => k + 6), "6–50"],
+  ])("%j → %s", (orders, words) => {
+    expect(describeOrders(orders)).toBe(words);
+  });
 });
