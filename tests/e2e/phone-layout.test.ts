@@ -64,7 +64,9 @@ describe("phone width (390 px)", () => {
     expect(await offScreen("[data-testid=capture-table] tbody td")).toEqual([]);
     // The verdict sits under its column name in the card (the header row is for screen readers only here).
     expect(await page.locator("[data-testid=capture-table] thead").evaluate((el) => el.getBoundingClientRect().height)).toBeLessThanOrEqual(1);
-    expect(await page.locator("[data-testid=capture-table] tbody tr").first().locator("td[data-label=Verdict]").textContent()).toMatch(/Pass|Fail|Incomplete/);
+    // Some row carries a verdict (the first may be a capture another test has just uploaded, still queued).
+    const verdicts = await page.locator("[data-testid=capture-table] tbody td[data-label=Verdict]").allTextContents();
+    expect(verdicts.some((text) => /Pass|Fail|Incomplete/.test(text))).toBe(true);
     expect(await sidewaysScroll()).toBeLessThanOrEqual(0);
     await snap(page, "captures-phone");
   });

@@ -3,13 +3,16 @@ import type { ComplianceAggregate } from "@/lib/compliance/result";
 import { formatNumber } from "@/lib/reports/format";
 import { decidedByLabel, formatPercentOfLimit, tableLimitIfDifferent } from "@/lib/reports/time-rules";
 
+/** A remark longer than this gets a card two columns wide on a wide screen (a quarter of the row is too narrow to read it). */
+const WIDE_REMARK_CHARS = 140;
+
 /** THD, TDD, THC… of one channel, each with measured, limit, % of limit and verdict. */
 export function AggregateCards({ aggregates }: { aggregates: ComplianceAggregate[] }) {
   if (aggregates.length === 0) return null;
   return (
     <section aria-label="Aggregates" className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4" data-testid="aggregates">
       {aggregates.map((a) => (
-        <div key={a.name} className={`panel min-w-0 ${a.verdict === "fail" ? "border-fail/50" : ""}`} data-testid={`aggregate-${a.name}`}>
+        <div key={a.name} className={`panel min-w-0 ${a.verdict === "fail" ? "border-fail/50" : ""} ${(a.reason?.length ?? 0) > WIDE_REMARK_CHARS ? "sm:col-span-2" : ""}`} data-testid={`aggregate-${a.name}`}>
           <div className="flex items-start justify-between gap-2">
             <h3 className="text-sm font-semibold">
               {a.name}
