@@ -1,39 +1,19 @@
-// Runs before every page and API route (Next.js "proxy", formerly middleware). Pages get a fresh script
-// nonce and the Content-Security-Policy that names it; API requests for a method the route does not
-// export get a JSON 405 naming the allowed ones. Other response headers are set in next.config.ts.
+// Runs before every page (Next.js "proxy", formerly middleware): a fresh script nonce and the
+// Content-Security-Policy that names it. API requests skip it, except those scripts/serve.mjs flagged with
+// `x-ordwise-allow` (their route file does not export the method): they get a JSON 405 naming the allowed
+// methods. Other response headers are set in next.config.ts.
 import { NextResponse, type NextRequest } from "next/server";
 import { contentSecurityPolicy, securityHeaders } from "@/lib/api/security-headers";
-
-/** `{ "/api/captures/[id]/review": ["POST"], … }`, written into the build by next.config.ts. */
-const apiMethods: Record<string, string[]> = JSON.parse(process.env.ORDWISE_API_METHODS ?? "{}");
-const apiPatterns = Object.entries(apiMethods).map(([route, methods]) => ({
-  // A dynamic segment [x] matches one path segment.
-  regex: new RegExp(`^${route.replace(/\[[^\]/]+\]/g, "[^/]+").replace(/[.]/g, "\\.")}/?$`),
-  dynamicSegments: (route.match(/\[/g) ?? []).length,
-  methods,
-}));
-// A static route (`/api/limit-sets/import`) wins over a dynamic one (`/api/limit-sets/[key]`), as in Next.js.
-apiPatterns.sort((a, b) => a.dynamicSegments - b.dynamicSegments);
-
-function allowedMethods(pathname: string): string[] | null {
-  const hit = apiPatterns.find((p) => p.regex.test(pathname));
-  if (!hit) return null;
-  const allowed = new Set([...hit.methods, "OPTIONS"]);
-  if (allowed.has("GET")) allowed.add("HEAD");
-  return [...allowed].sort();
-}
 
 export function proxy(req: NextRequest): NextResponse {
   const { pathname } = req.nextUrl;
   if (pathname.startsWith("/api/")) {
-    const allowed = allowedMethods(pathname);
-    if (allowed && !allowed.includes(req.method)) {
-      return NextResponse.json(
-        { error: { code: "method_not_allowed", message: `${req.method} is not allowed here. Allowed: ${allowed.join(", ")}.` } },
-        { status: 405, headers: { allow: allowed.join(", "), ...securityHeaders({ api: true }) } },
-      );
-    }
-    return NextResponse.next();
+    const allowed = req.headers.get("x-ordwise-allow");
+    if (allowed === null) return NextResponse.next();
+    return NextResponse.json(
+      { error: { code: "method_not_allowed", message: `${req.method} is not allowed here. Allowed: ${allowed}.` } },
+      { status: 405, headers: { allow: allowed, ...securityHeaders({ api: true }) } },
+    );
   }
   const nonce = Buffer.from(crypto.getRandomValues(new Uint8Array(16))).toString("base64");
   const csp = contentSecurityPolicy({ nonce });
@@ -48,7 +28,9 @@ export function proxy(req: NextRequest): NextResponse {
 
 export const config = {
   matcher: [
-    // Everything except built assets (they carry the headers of next.config.ts).
-    "/((?!_next/static|_next/image|favicon.ico).*)",
+    // Every page; not built assets (they carry the headers of next.config.ts) nor API routes.
+    "/((?!api/|_next/static|_next/image|favicon.ico).*)",
+    // API requests for a method their route does not export (flagged by scripts/serve.mjs).
+    { source: "/api/:path*", has: [{ type: "header", key: "x-ordwise-allow" }] },
   ],
 };

@@ -1,3 +1,5 @@
+import fs from "node:fs";
+import http from "node:http";
 import os from "node:os";
 
 // Load benchmark of the sheet against the stack `npm start` already serves. Starts nothing.
@@ -12,6 +14,11 @@ import os from "node:os";
 // machine may be shared; a number means little without it). `--case` runs only the named cases.
 // Bounded: at most --max-requests per case (default 50 000), each request times out after 10 s,
 // and only a loopback address is accepted.
+// The load is generated on the same machine, so the client is kept cheap: node:http over one keep-alive
+// connection per client (not fetch), the body counted but not decompressed (it asks for gzip like a browser,
+// so the server still compresses). Each case prints the client's own CPU time, which the server did not get,
+// and (on Linux) the CPU time the serving processes used per answered request — steadier than latency when
+// other work shares the machine.
 
 const args = process.argv.slice(2);
 function arg(name: string, fallback: string): string {
@@ -67,10 +74,91 @@ interface CaseResult {
   p99: number;
   targetP95Ms: number;
   bytes: number;
+  clientCpuMs: number;
+  /** CPU time of the serving processes during the case (NaN when they could not be found). */
+  serverCpuMs: number;
   load: string;
 }
 
+/**
+ * Linux: the processes serving `port` — those holding its listening socket, with their descendants (a
+ * cluster's workers). Empty where /proc is not readable; the CPU column is then left out.
+ */
+function servingProcesses(port: number): number[] {
+  try {
+    const hex = port.toString(16).toUpperCase().padStart(4, "0");
+    const inodes = new Set<string>();
+    for (const table of ["/proc/net/tcp", "/proc/net/tcp6"]) {
+      if (!fs.existsSync(table)) continue;
+      for (const line of fs.readFileSync(table, "utf8").split("\n").slice(1)) {
+        const f = line.trim().split(/\s+/);
+        if (f[1]?.endsWith(`:${hex}`) && f[3] === "0A") inodes.add(f[9]!);
+      }
+    }
+    const holders = fs.readdirSync("/proc").filter((d) => /^\d+$/.test(d)).filter((pid) => {
+      try {
+        return fs.readdirSync(`/proc/${pid}/fd`).some((fd) => {
+          const m = /^socket:\[(\d+)\]$/.exec(fs.readlinkSync(`/proc/${pid}/fd/${fd}`));
+          return m !== null && inodes.has(m[1]!);
+        });
+      } catch {
+        return false;
+      }
+    });
+    const all = new Set<number>();
+    const walk = (pid: string) => {
+      if (all.has(Number(pid))) return;
+      all.add(Number(pid));
+      for (const task of fs.readdirSync(`/proc/${pid}/task`)) {
+        for (const child of fs.readFileSync(`/proc/${pid}/task/${task}/children`, "utf8").trim().split(/\s+/).filter(Boolean)) walk(child);
+      }
+    };
+    holders.forEach(walk);
+    return [...all];
+  } catch {
+    return [];
+  }
+}
+
+/** User + system CPU time of the processes, in ms (clock ticks of 1/100 s, Linux's usual USER_HZ). */
+function processCpuMs(pids: number[]): number {
+  let ticks = 0;
+  for (const pid of pids) {
+    try {
+      const stat = fs.readFileSync(`/proc/${pid}/stat`, "utf8");
+      const f = stat.slice(stat.lastIndexOf(")") + 2).split(" ");
+      ticks += Number(f[11]) + Number(f[12]);
+    } catch {
+      // the process has ended
+    }
+  }
+  return ticks * 10;
+}
+
 const loadAverage = () => os.loadavg().map((l) => l.toFixed(2)).join(" ");
+
+const agent = new http.Agent({ keepAlive: true, maxSockets: clients, maxFreeSockets: clients });
+
+/** One GET over the keep-alive agent: resolves with status and bytes on the wire; rejects after `timeoutMs` in all. */
+function get(url: URL, cookie: string, timeoutMs = 10_000): Promise<{ status: number; bytes: number }> {
+  return new Promise((resolve, reject) => {
+    const req = http.request(url, { agent, headers: { cookie, "accept-encoding": "gzip, deflate, br" } }, (res) => {
+      let bytes = 0;
+      res.on("data", (chunk: Buffer) => (bytes += chunk.length));
+      res.on("end", () => {
+        clearTimeout(timer);
+        resolve({ status: res.statusCode ?? 0, bytes });
+      });
+      res.on("error", reject);
+    });
+    const timer = setTimeout(() => req.destroy(new Error(`timed out after ${timeoutMs / 1000} s`)), timeoutMs);
+    req.on("error", (err) => {
+      clearTimeout(timer);
+      reject(err);
+    });
+    req.end();
+  });
+}
 
 async function runCase(name: string, path: string, cookie: string, targetP95Ms: number): Promise<CaseResult> {
   const url = new URL(path, base);
@@ -78,6 +166,9 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
   let errors = 0;
   let started = 0;
   let bytes = 0;
+  const cpu0 = process.cpuUsage();
+  const server = servingProcesses(Number(url.port || 80));
+  const serverCpu0 = processCpuMs(server);
   const deadline = performance.now() + seconds * 1000;
   const t0 = performance.now();
   const loop = async () => {
@@ -85,9 +176,9 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
       started += 1;
       const t = performance.now();
       try {
-        const res = await fetch(url, { headers: { cookie }, signal: AbortSignal.timeout(10_000) });
-        bytes = (await res.arrayBuffer()).byteLength;
-        if (!res.ok) errors += 1;
+        const res = await get(url, cookie);
+        bytes = res.bytes;
+        if (res.status < 200 || res.status > 299) errors += 1;
         else latencies.push(performance.now() - t);
       } catch {
         errors += 1;
@@ -96,6 +187,8 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
   };
   await Promise.all(Array.from({ length: clients }, loop));
   const elapsedS = (performance.now() - t0) / 1000;
+  const cpu = process.cpuUsage(cpu0);
+  const serverCpuMs = server.length > 0 ? processCpuMs(server) - serverCpu0 : Number.NaN;
   latencies.sort((a, b) => a - b);
   return {
     name,
@@ -107,6 +200,8 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
     p99: percentile(latencies, 99),
     targetP95Ms,
     bytes,
+    clientCpuMs: (cpu.user + cpu.system) / 1000,
+    serverCpuMs,
     load: loadAverage(),
   };
 }
@@ -132,17 +227,22 @@ const cases: Array<[string, string, string, number]> = [
 const results: CaseResult[] = [];
 for (const [key, name, path, target] of cases) {
   if (!caseNames.has(key)) continue;
-  // A short warm-up so the first compile/cache fill is not measured.
-  await fetch(new URL(path, base), { headers: { cookie }, signal: AbortSignal.timeout(30_000) }).then((r) => r.arrayBuffer()).catch(() => undefined);
+  // A short warm-up so first loads and caches are not measured: a few rounds of concurrent requests, so
+  // that every serving process (they take connections in turn) has answered some.
+  for (let round = 0; round < 3; round += 1) {
+    await Promise.all(Array.from({ length: Math.min(clients, 8) }, () => get(new URL(path, base), cookie, 30_000).catch(() => undefined)));
+  }
   results.push(await runCase(name, path, cookie, target));
 }
 
+const perRequest = (cpuMs: number, r: CaseResult) => `${(cpuMs / 1000).toFixed(2)} s (${(cpuMs / Math.max(1, r.count + r.errors)).toFixed(2)} ms/req)`;
 const ms = (x: number) => (Number.isFinite(x) ? `${x.toFixed(1)} ms` : "—");
 for (const r of results) {
   // Percentiles are of the answered requests; a run with failed or timed-out ones (10 s) is not within target.
   const verdict = r.count === 0 ? "NO DATA" : r.p95 < r.targetP95Ms && r.errors === 0 ? "within target" : "OVER TARGET";
   console.log(
-    `${r.name.padEnd(34)} n=${String(r.count).padStart(6)}  ${r.perSecond.toFixed(1).padStart(7)}/s  errors ${r.errors}  p50 ${ms(r.p50)}  p95 ${ms(r.p95)}  p99 ${ms(r.p99)}  (p95 target < ${r.targetP95Ms} ms: ${verdict})  ${(r.bytes / 1024).toFixed(1)} kB  load ${r.load}`,
+    `${r.name.padEnd(34)} n=${String(r.count).padStart(6)}  ${r.perSecond.toFixed(1).padStart(7)}/s  errors ${r.errors}  p50 ${ms(r.p50)}  p95 ${ms(r.p95)}  p99 ${ms(r.p99)}  (p95 target < ${r.targetP95Ms} ms: ${verdict})  ${(r.bytes / 1024).toFixed(1)} kB gzip  client CPU ${perRequest(r.clientCpuMs, r)}${Number.isFinite(r.serverCpuMs) ? `  server CPU ${perRequest(r.serverCpuMs, r)}` : ""}  load ${r.load}`,
   );
 }
+agent.destroy();
 process.exit(results.length === 0 || results.some((r) => r.count === 0) ? 1 : 0);

@@ -3,7 +3,8 @@
 // It only uses Node's built-in modules so it can run on a fresh clone before `npm ci`.
 //
 //   start  install what is missing, start PostgreSQL, s3rver and the mail catcher on loopback,
-//          migrate, seed, build and serve the app on http://127.0.0.1:3000 until Ctrl-C.
+//          migrate, seed, build and serve the app on http://127.0.0.1:3000 until Ctrl-C (scripts/serve.mjs:
+//          one Next.js process per core).
 //   test   the same on free ports in a temporary directory, then run the vitest projects
 //          (unit, integration, e2e), stop everything and exit non-zero on any failure.
 //   dev    like start, but `next dev` instead of a production build.
@@ -279,8 +280,9 @@ async function serveApp(env, { dev = false, quiet = false } = {}) {
     run(next(), ["build"], { env: { ...env, NODE_ENV: "production" }, stdio: quiet ? ["ignore", "ignore", "inherit"] : "inherit" });
     if (process.env.NEXT_DIST_DIR) fs.writeFileSync(tsconfigPath, tsconfig);
   }
-  const args = dev ? ["dev", "-H", "127.0.0.1", "-p", env.PORT] : ["start", "-H", "127.0.0.1", "-p", env.PORT];
-  startChild("the web app", next(), args, { ...env, NODE_ENV: dev ? "development" : "production" }, { quiet });
+  // One Next.js process per core (WEB_PROCESSES overrides) sharing the port; one in development.
+  const serve = ["scripts/serve.mjs", ...(dev ? ["--dev"] : [])];
+  startChild("the web app", process.execPath, serve, { ...env, HOST: "127.0.0.1", NODE_ENV: dev ? "development" : "production" }, { quiet });
   startChild("the analysis worker", tsx(), ["--conditions=react-server", "scripts/worker.ts"], { ...env, NODE_ENV: "production" }, { quiet });
   await waitForPort(Number(env.PORT), "the web app", 120_000);
 }

@@ -1,0 +1,125 @@
+#!/usr/bin/env node
+// Serves the production build (`next build`) with one Next.js process per core: a `node:cluster` primary
+// owns the listening socket and hands connections round-robin to WEB_PROCESSES workers (default: the
+// cores Node may use), each running Next.js through its programmatic API — the same request pipeline
+// `next start` runs, proxy.ts included. `npm start` and `npm test` serve through this file.
+//
+//   PORT (3000), HOST (127.0.0.1), WEB_PROCESSES (os.availableParallelism())
+//   --dev: the development server (`npm run dev`), one process.
+//
+// Nothing the app keeps per process may matter across requests: sessions, sign-in throttling and the job
+// queue live in PostgreSQL, so any worker can answer any request.
+//
+// An API request whose method its route file does not export is flagged here (header `x-ordwise-allow`,
+// the allowed methods) so that proxy.ts — which otherwise runs for pages only — answers it with a JSON 405
+// and `Allow`. Running the proxy on every API request cost about a quarter of a small route's CPU time.
+
+import cluster from "node:cluster";
+import fs from "node:fs";
+import http from "node:http";
+import os from "node:os";
+import path from "node:path";
+import { fileURLToPath } from "node:url";
+import next from "next";
+
+const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
+const port = Number(process.env.PORT ?? 3000);
+const hostname = process.env.HOST ?? "127.0.0.1";
+const dev = process.argv.includes("--dev");
+const requested = Number(process.env.WEB_PROCESSES);
+const processes = dev ? 1 : Number.isInteger(requested) && requested > 0 ? requested : os.availableParallelism();
+// A worker that dies within this long of starting is not restarted (it would only die again).
+const minUptimeMs = 10_000;
+
+/** `{ "/api/captures/[id]/review": ["POST"], … }`: the methods each route file under app/api exports. */
+function apiRouteMethods(dir = path.join(root, "app", "api")) {
+  const out = {};
+  const walk = (d) => {
+    if (!fs.existsSync(d)) return;
+    for (const e of fs.readdirSync(d, { withFileTypes: true })) {
+      const p = path.join(d, e.name);
+      if (e.isDirectory()) walk(p);
+      else if (e.name === "route.ts") {
+        const src = fs.readFileSync(p, "utf8");
+        const methods = [...src.matchAll(/export\s+(?:const|async\s+function|function)\s+(GET|HEAD|POST|PUT|PATCH|DELETE|OPTIONS)\b/g)].map((m) => m[1]);
+        out["/" + path.relative(path.join(root, "app"), path.dirname(p)).split(path.sep).join("/")] = methods;
+      }
+    }
+  };
+  walk(dir);
+  return out;
+}
+
+/** The methods the route serving `pathname` allows (HEAD with GET, OPTIONS always), or null if no route file matches. */
+function allowedMethodsFinder() {
+  const patterns = Object.entries(apiRouteMethods()).map(([route, methods]) => {
+    const allowed = new Set([...methods, "OPTIONS"]);
+    if (allowed.has("GET")) allowed.add("HEAD");
+    return {
+      // A dynamic segment [x] matches one path segment.
+      regex: new RegExp(`^${route.replace(/\[[^\]/]+\]/g, "[^/]+").replace(/[.]/g, "\\.")}/?$`),
+      dynamicSegments: (route.match(/\[/g) ?? []).length,
+      allowed: [...allowed].sort(),
+    };
+  });
+  // A static route (`/api/limit-sets/import`) wins over a dynamic one (`/api/limit-sets/[key]`), as in Next.js.
+  patterns.sort((a, b) => a.dynamicSegments - b.dynamicSegments);
+  return (pathname) => patterns.find((p) => p.regex.test(pathname))?.allowed ?? null;
+}
+
+if (cluster.isPrimary && processes > 1) {
+  process.title = "ordwise-web";
+  let stopping = false;
+  const startedAt = new Map();
+  const fork = () => startedAt.set(cluster.fork().id, Date.now());
+  for (let i = 0; i < processes; i += 1) fork();
+  cluster.on("exit", (worker, code, signal) => {
+    if (stopping) {
+      if (Object.keys(cluster.workers ?? {}).length === 0) process.exit(0);
+      return;
+    }
+    const upMs = Date.now() - (startedAt.get(worker.id) ?? 0);
+    process.stderr.write(`[ordwise] web process ${worker.process.pid} stopped (${signal ?? code}) after ${Math.round(upMs / 1000)} s\n`);
+    if (upMs < minUptimeMs) process.exit(1);
+    fork();
+  });
+  const stop = () => {
+    stopping = true;
+    for (const worker of Object.values(cluster.workers ?? {})) worker?.process.kill("SIGTERM");
+    setTimeout(() => process.exit(0), 10_000).unref();
+  };
+  process.on("SIGTERM", stop);
+  process.on("SIGINT", stop);
+  cluster.once("listening", () => {
+    process.stdout.write(`[ordwise] web app: ${processes} Next.js processes on http://${hostname}:${port}\n`);
+  });
+} else {
+  process.title = processes > 1 ? "ordwise-web-worker" : "ordwise-web";
+  const app = next({ dev, dir: root, hostname, port });
+  await app.prepare();
+  const handle = app.getRequestHandler();
+  const allowedMethods = allowedMethodsFinder();
+  const server = http.createServer((req, res) => {
+    // Only this server sets the flag proxy.ts answers with a 405.
+    delete req.headers["x-ordwise-allow"];
+    if (req.url?.startsWith("/api/")) {
+      const allowed = allowedMethods(req.url.split("?")[0]);
+      if (allowed && !allowed.includes(req.method ?? "")) req.headers["x-ordwise-allow"] = allowed.join(", ");
+    }
+    handle(req, res).catch((err) => {
+      console.error(`[ordwise] failed to answer ${req.method} ${req.url}:`, err);
+      if (!res.headersSent) res.statusCode = 500;
+      res.end();
+    });
+  });
+  server.listen(port, hostname);
+  // Finish what is in flight, then leave; idle keep-alive connections do not hold the process.
+  const stop = () => {
+    server.close(() => process.exit(0));
+    server.closeIdleConnections();
+    setTimeout(() => process.exit(0), 5_000).unref();
+  };
+  process.on("SIGTERM", stop);
+  process.on("SIGINT", stop);
+  if (processes === 1) server.once("listening", () => process.stdout.write(`[ordwise] web app on http://${hostname}:${port}\n`));
+}
