@@ -13,6 +13,8 @@ const nextConfig: NextConfig = {
   // a larger one is cut here instead of being buffered whole.
   experimental: { authInterrupts: true, proxyClientMaxBodySize: "1mb" },
   poweredByHeader: false,
+  // scripts/serve.mjs compresses responses (at a lower level than Next.js's own).
+  compress: false,
   // Pages get their Content-Security-Policy (with a per-request nonce) from proxy.ts.
   async headers() {
     return [
