@@ -1,5 +1,5 @@
 import type { NextConfig } from "next";
-import { securityHeaders } from "./lib/api/security-headers";
+import { securityHeaders } from "./lib/api/security-headers.mjs";
 
 const asList = (h: Record<string, string>) => Object.entries(h).map(([key, value]) => ({ key, value }));
 
@@ -9,13 +9,11 @@ const nextConfig: NextConfig = {
   distDir: process.env.NEXT_DIST_DIR ?? ".next",
   // Native and Node-only packages stay outside the server bundle.
   serverExternalPackages: ["@node-rs/argon2", "pdfkit", "pg-boss"],
-  // The proxy sees pages and the API requests scripts/serve.mjs flags; no body the app accepts is near this, and
-  // a larger one is cut here instead of being buffered whole.
-  experimental: { authInterrupts: true, proxyClientMaxBodySize: "1mb" },
+  experimental: { authInterrupts: true },
   poweredByHeader: false,
   // scripts/serve.mjs compresses responses (at a lower level than Next.js's own).
   compress: false,
-  // Pages get their Content-Security-Policy (with a per-request nonce) from proxy.ts.
+  // Pages get their Content-Security-Policy (with a per-request nonce) from scripts/serve.mjs.
   async headers() {
     return [
       { source: "/:path*", headers: asList(securityHeaders({ api: false })) },
