@@ -95,6 +95,50 @@ function compressor() {
   };
 }
 
+/**
+ * Next.js writes an API answer as headers, then each chunk followed by a flush. For an API answer this holds
+ * the headers and the first chunk until the next chunk or the end, so a whole answer goes out in one piece
+ * with its length: one socket write instead of three, and one below 1 kB is not compressed (the compression
+ * middleware can apply its threshold only to a length it knows). Longer answers (exports) stream from their
+ * second chunk on. Compressing an 11-byte answer took ~9 % of a minimal signed-in route's CPU time.
+ * Call after the compression middleware so that it sees the whole first piece.
+ */
+function holdFirstChunk(res) {
+  const { write, end } = res;
+  const flush = res.flush;
+  let held = null;
+  let done = false;
+  const release = () => {
+    if (held === null) return;
+    const chunk = held;
+    held = null;
+    write.call(res, chunk);
+  };
+  res.flushHeaders = () => undefined;
+  res.flush = () => {
+    if (held === null) flush?.call(res);
+  };
+  res.write = (chunk, encoding, callback) => {
+    if (!done && !res.headersSent && held === null && typeof encoding !== "function" && callback === undefined) {
+      done = true;
+      held = typeof chunk === "string" ? Buffer.from(chunk, encoding) : chunk;
+      return true;
+    }
+    release();
+    return write.call(res, chunk, encoding, callback);
+  };
+  res.end = (chunk, encoding, callback) => {
+    if (held === null) return end.call(res, chunk, encoding, callback);
+    if (typeof chunk === "function") [callback, chunk] = [chunk, undefined];
+    else if (typeof encoding === "function") [callback, encoding] = [encoding, undefined];
+    const whole = chunk == null ? held : Buffer.concat([held, typeof chunk === "string" ? Buffer.from(chunk, encoding ?? "utf8") : chunk]);
+    held = null;
+    // The middleware drops the length when it compresses.
+    if (!res.headersSent) res.setHeader("content-length", whole.length);
+    return end.call(res, whole, callback);
+  };
+}
+
 // Built assets carry the headers of next.config.ts and no page policy.
 const builtAsset = /^\/(?:_next\/static\/|_next\/image|favicon\.ico)/;
 
@@ -154,6 +198,7 @@ if (cluster.isPrimary && processes > 1) {
       res.setHeader("content-security-policy", csp);
     }
     compress(req, res);
+    if (pathname.startsWith("/api/")) holdFirstChunk(res);
     handle(req, res).catch((err) => {
       console.error(`[ordwise] failed to answer ${req.method} ${req.url}:`, err);
       if (!res.headersSent) res.statusCode = 500;

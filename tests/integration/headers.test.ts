@@ -123,6 +123,15 @@ describe("compression (scripts/serve.mjs)", () => {
       expect(zipped.body.length).toBeLessThan(plain.body.length / 2);
     }
   });
+
+  it("a small API answer (under 1 kB) goes out whole with its length, not compressed", async () => {
+    const res = await rawGet(`/api/captures/${captureId}`, { cookie: engineer.cookie!, "accept-encoding": "gzip, deflate, br" });
+    expect(res.status).toBe(200);
+    expect(res.headers["content-encoding"]).toBeUndefined();
+    expect(res.body.length).toBeLessThan(1024);
+    expect(Number(res.headers["content-length"])).toBe(res.body.length);
+    expect(((JSON.parse(res.body.toString("utf8")) as { capture: { id: string } }).capture.id)).toBe(captureId);
+  });
 });
 
 /** Resolves to the database's own message for a refused statement (drizzle wraps it as the cause). */
