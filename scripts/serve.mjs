@@ -4,13 +4,12 @@
 // running Next.js through its programmatic API — the same request pipeline `next start` runs. `npm start`,
 // `npm test` and `npm run dev` serve through this file.
 //
-//   PORT (3000), HOST (127.0.0.1), WEB_PROCESSES (default: one per core but one, at most four)
+//   PORT (3000), HOST (127.0.0.1), WEB_PROCESSES (default: one per core, at most four)
 //   --dev: the development server (`npm run dev`), one process.
 //
-// The default leaves a core to PostgreSQL and the analysis worker, which `npm start` runs on the same machine.
-// On the 2-core machine the targets are measured on (shared with other work), two processes answered no more
-// requests than one and each took ~20 % more CPU time per request (DEVELOPERS.md, Serving); a machine with cores
-// to spare gains from more.
+// On the 2-core machine the targets are measured on, two processes answered ~35–50 % more requests than one
+// while the machine was otherwise idle, and none more while other work kept both cores busy (DEVELOPERS.md,
+// Serving). At most four: each process holds up to 10 PostgreSQL connections, and PostgreSQL allows 100.
 //
 // Nothing the app keeps per process may matter across requests: sessions, sign-in throttling and the job
 // queue live in PostgreSQL, so any worker can answer any request.
@@ -38,7 +37,7 @@ const port = Number(process.env.PORT ?? 3000);
 const hostname = process.env.HOST ?? "127.0.0.1";
 const dev = process.argv.includes("--dev");
 const requested = Number(process.env.WEB_PROCESSES);
-const processes = dev ? 1 : Number.isInteger(requested) && requested > 0 ? requested : Math.min(4, Math.max(1, os.availableParallelism() - 1));
+const processes = dev ? 1 : Number.isInteger(requested) && requested > 0 ? requested : Math.min(4, os.availableParallelism());
 // A worker that dies within this long of starting is not restarted (it would only die again).
 const minUptimeMs = 10_000;
 
