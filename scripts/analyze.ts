@@ -3,7 +3,7 @@
 // With --limits KEY the current revision of the limit set is read from PostgreSQL when DATABASE_URL
 // is set (the same query the worker uses), otherwise from the seed files; the output says which.
 import { pathToFileURL } from "node:url";
-import { AnalysisHelper } from "@/lib/analysis/analysis-helper";
+import type { AnalysisHelper } from "@/lib/analysis/analysis-helper";
 import { isAnalysisInputError } from "@/lib/analysis/errors";
 import { formatComplianceTable } from "@/lib/compliance/format-compliance-table";
 import { formatAnalysisText } from "@/lib/pipeline/format-analysis-text";
@@ -16,6 +16,7 @@ import type { AnalysisResult } from "@/lib/analysis/types";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { CliAdditions } from "@/lib/mitigation/build-cli-additions";
 import { MitigationInputError } from "@/lib/mitigation/mitigation-input-error";
+import { startAnalysisHelper } from "./start-analysis-helper";
 
 type LimitSetSource = "database" | "seed-files";
 
@@ -100,17 +101,19 @@ async function mitigationAdditions(
 
 const oneLine = (message: string): string => message.replace(/\s*\n\s*/g, " ");
 
-/** Runs the CLI; returns the exit code (0 all files done, 1 a usage or input problem, 2 an internal error). */
-export async function main(argv: string[]): Promise<number> {
+/**
+ * Runs the CLI; returns the exit code (0 all files done, 1 a usage or input problem, 2 an internal error).
+ *
+ * @param options.helper the analysis helper thread scripts/analyze.mjs started before loading this
+ *   module (closed here); when not given, it is started here (startAnalysisHelper).
+ */
+export async function main(argv: string[], options: { helper?: AnalysisHelper | null } = {}): Promise<number> {
   let request: AnalyzeRequest;
   let limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null = null;
-  let helper: AnalysisHelper | null = null;
+  // A second thread for the analysis when a core is free for it (the same result, sooner).
+  const helper = options.helper !== undefined ? options.helper : startAnalysisHelper();
   try {
     request = parseAnalyzeArgs(argv);
-    // A second thread for the analysis when a core is free for it, from the bundle's helper module
-    // (dist/cli/analysis-helper-thread.mjs, built beside this entry; without it the analysis runs in one
-    // thread, with the same result). Started first, so that its start-up overlaps loading the limit set.
-    helper = AnalysisHelper.wouldHelp() ? AnalysisHelper.start(new URL("./analysis-helper-thread.mjs", import.meta.url)) : null;
     if (request.limitSetKey) limits = await loadLimitSet(request.limitSetKey);
   } catch (error) {
     await helper?.close();

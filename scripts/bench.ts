@@ -3,13 +3,14 @@
 // wall time, throughput, peak RSS and where the time goes. Add cases to BENCH_CASES.
 // Inputs marked `large` (the 600 MB 10-minute record) are deleted after the run unless --keep is given.
 import { spawn } from "node:child_process";
-import { createWriteStream, existsSync, mkdirSync, rmSync, statSync, writeFileSync } from "node:fs";
+import { existsSync, mkdirSync, rmSync, statSync, writeFileSync } from "node:fs";
 import { availableParallelism, loadavg } from "node:os";
 import { dirname, join } from "node:path";
 import { fileURLToPath } from "node:url";
-import { AnalysisHelper } from "../lib/analysis/analysis-helper";
 import { analyzeCsvFile } from "../lib/analysis/analyze-csv-file";
 import type { StreamTimings } from "../lib/analysis/analyze-csv-file";
+import { writeLines } from "../fixtures/write-lines";
+import { analysisHelperWanted } from "./start-analysis-helper";
 
 type StageTimings = StreamTimings;
 
@@ -36,12 +37,10 @@ async function writeCapture(path: string, seconds: number, driftHz = 0): Promise
   const rate = 25_600;
   const f = 50.03;
   const rows = Math.round(seconds * rate);
-  const out = createWriteStream(path);
   const w = 2 * Math.PI * f;
   const b = (-2 * Math.PI) / 3;
   const driftPeriodS = 600;
-  let chunk = "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n";
-  for (let k = 0; k < rows; k++) {
+  await writeLines(path, "Time (s),Va (V),Ia (A),Vb (V),Ib (A)\n", rows, (k) => {
     const t = k / rate;
     // The fundamental's phase: ∫ 2π(f + drift·sin(2πt/P)) dt.
     const phase = driftHz === 0 ? w * t : w * t - driftHz * driftPeriodS * (Math.cos((2 * Math.PI * t) / driftPeriodS) - 1);
@@ -49,25 +48,28 @@ async function writeCapture(path: string, seconds: number, driftHz = 0): Promise
     const vb = 325 * Math.cos(phase + b) + 8 * Math.cos(5 * (phase + b) + 0.2);
     const ia = 14 * Math.cos(phase - 0.5) + 4 * Math.cos(3 * phase + 0.4) + 2.5 * Math.cos(5 * phase - 1) + 0.3 * Math.cos(37 * phase);
     const ib = 14 * Math.cos(phase + b - 0.5) + 4 * Math.cos(3 * (phase + b) + 0.4) + 2.5 * Math.cos(5 * (phase + b) - 1);
-    chunk += `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
-      chunk = "";
-    }
-  }
-  out.write(chunk);
-  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+    return `${t.toFixed(7)},${va.toFixed(2)},${ia.toFixed(3)},${vb.toFixed(2)},${ib.toFixed(3)}\n`;
+  });
 }
+
+/** The input bench/out/NAME, written by `write` when it is not there yet (inputs are cached between runs); resolves to its path. */
+async function cachedInput(name: string, write: (path: string) => Promise<void> | void): Promise<string> {
+  const path = join(outDir, name);
+  if (!existsSync(path)) {
+    mkdirSync(outDir, { recursive: true });
+    await write(path);
+  }
+  return path;
+}
+
+/** The 60 s, 4-channel capture (60 MB) the engine, scanner and CLI cases read. */
+const capture60s = () => cachedInput("capture-60s-4ch-25k6.csv", (path) => writeCapture(path, 60));
 
 export const BENCH_CASES: BenchCase[] = [
   {
     name: "csv-60s-4ch-25k6",
     description: "60 s, 4 channels (Va, Ia, Vb, Ib), 25.6 kS/s, time column: CSV file → result via the streaming path",
-    prepare: async () => {
-      const path = join(outDir, "capture-60s-4ch-25k6.csv");
-      if (!existsSync(path)) await writeCapture(path, 60);
-      return path;
-    },
+    prepare: capture60s,
     run: async (path) => {
       const timings: StageTimings = {};
       const result = await analyzeCsvFile(path, {}, timings);
@@ -83,15 +85,12 @@ export const BENCH_CASES: BenchCase[] = [
     name: "csv-10min-4ch-25k6",
     description:
       "10 min, 4 channels (Va, Ia, Vb, Ib), 25.6 kS/s (15.4 M rows), fundamental drifting ±0.05 Hz: CSV file → result, two streaming passes, memory independent of length",
-    prepare: async () => {
-      const path = join(outDir, "capture-10min-4ch-25k6.csv");
-      if (!existsSync(path)) {
+    prepare: () =>
+      cachedInput("capture-10min-4ch-25k6.csv", async (path) => {
         const started = performance.now();
         await writeCapture(path, 600, 0.05);
         console.log(`  (generated ${path} in ${((performance.now() - started) / 1000).toFixed(1)} s)`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const timings: StageTimings = {};
       const result = await analyzeCsvFile(path, { includeOrderSeries: true, keepWaveformCycles: 3 }, timings);
@@ -109,10 +108,8 @@ export const BENCH_CASES: BenchCase[] = [
   {
     name: "interval-log-week-3ch",
     description: "a week of 10-minute values (1,008 rows), 3 current channels × orders 1–50 + THD + r.m.s.: import + IEEE 519 percentile evaluation",
-    prepare: async () => {
-      const path = join(outDir, "interval-week-3ch-50.csv");
-      if (!existsSync(path)) {
-        mkdirSync(dirname(path), { recursive: true });
+    prepare: () =>
+      cachedInput("interval-week-3ch-50.csv", (path) => {
         const channels = ["I1", "I2", "I3"];
         const headers = ["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])];
         const lines = [headers.join(",")];
@@ -128,9 +125,7 @@ export const BENCH_CASES: BenchCase[] = [
           lines.push(cells.join(","));
         }
         writeFileSync(path, `${lines.join("\n")}\n`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const { readFileSync } = await import("node:fs");
       const { inspectIntervalLog, importIntervalLog, evaluateIntervalLog } = await import("../lib/intervals");
@@ -157,11 +152,10 @@ export const BENCH_CASES: BenchCase[] = [
  */
 async function writeIntervalLog(path: string, rows: number, intervalMs: number): Promise<void> {
   mkdirSync(dirname(path), { recursive: true });
-  const out = createWriteStream(path);
   const channels = ["I1", "I2", "I3"];
-  let chunk = `${["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])].join(",")}\n`;
+  const header = `${["Timestamp", ...channels.flatMap((ch) => [...Array.from({ length: 50 }, (_, i) => `${ch} H${i + 1} avg [A]`), `${ch} THD avg [%]`, `${ch} rms avg [A]`])].join(",")}\n`;
   const start = Date.UTC(2024, 2, 4);
-  for (let k = 0; k < rows; k++) {
+  await writeLines(path, header, rows, (k) => {
     const cells = [new Date(start + k * intervalMs).toISOString()];
     for (let c = 0; c < channels.length; c++) {
       const i1 = 60 + 30 * Math.sin((2 * Math.PI * k * intervalMs) / 86_400_000) + c;
@@ -169,14 +163,8 @@ async function writeIntervalLog(path: string, rows: number, intervalMs: number):
       const distortion = Math.sqrt(orders.reduce((sum, v) => sum + v * v, 0));
       cells.push(i1.toFixed(3), ...orders.map((v) => v.toFixed(4)), ((distortion / i1) * 100).toFixed(3), Math.hypot(i1, distortion).toFixed(3));
     }
-    chunk += `${cells.join(",")}\n`;
-    if (chunk.length > 1 << 20) {
-      if (!out.write(chunk)) await new Promise<void>((resolve) => out.once("drain", () => resolve()));
-      chunk = "";
-    }
-  }
-  out.write(chunk);
-  await new Promise<void>((resolve, reject) => out.end((error?: Error | null) => (error ? reject(error) : resolve())));
+    return `${cells.join(",")}\n`;
+  });
 }
 
 /** Interval logs as large as an upload may be: the worker's path, and the chart data it stores. */
@@ -185,11 +173,7 @@ function intervalCases(): BenchCase[] {
     {
       name: "interval-log-60mb",
       description: "37 days of 1-minute values (53,500 rows × 156 columns, ≈ 60 MB): the worker's judge of a stored log (read, import, IEEE 519 percentiles, trends)",
-      prepare: async () => {
-        const path = join(outDir, "interval-month-1min-3ch.csv");
-        if (!existsSync(path)) await writeIntervalLog(path, 53_500, 60_000);
-        return path;
-      },
+      prepare: () => cachedInput("interval-month-1min-3ch.csv", (path) => writeIntervalLog(path, 53_500, 60_000)),
       run: async (path) => {
         const { judgeBenchIntervalLog } = await import("./bench-interval-log");
         const started = performance.now();
@@ -202,11 +186,7 @@ function intervalCases(): BenchCase[] {
       name: "scanner-vs-papaparse-60mb",
       description:
         "why waveform records keep their own scanner: the 60 s, 4-channel capture (60 MB) read into the same row collector by the fast scanner and by papaparse (the reader quoted files take)",
-      prepare: async () => {
-        const path = join(outDir, "capture-60s-4ch-25k6.csv");
-        if (!existsSync(path)) await writeCapture(path, 60);
-        return path;
-      },
+      prepare: capture60s,
       run: async (path) => {
         const { readCsvHead, readCsvRows } = await import("../lib/analysis/read-csv-rows");
         const { RowCollector } = await import("../lib/analysis/row-collector");
@@ -255,8 +235,7 @@ function cliCases(): BenchCase[] {
       name: "cli-60s-4ch-25k6",
       description: "the whole `npm run analyze -- FILE --json --limits iec-61000-3-2-class-a` process (node scripts/analyze.mjs, bundled) on the 60 s, 4-channel capture",
       prepare: async () => {
-        const path = join(outDir, "capture-60s-4ch-25k6.csv");
-        if (!existsSync(path)) await writeCapture(path, 60);
+        const path = await capture60s();
         // Build the bundle now if stale, so its build time is not counted.
         const built = await runChild([join(dirname(fileURLToPath(import.meta.url)), "build-cli.mjs")]);
         if (built.code !== 0) throw new Error("building the CLI bundle failed");
@@ -264,7 +243,8 @@ function cliCases(): BenchCase[] {
       },
       run: async (path) => {
         // The CLI's own rule for its helper thread, read just before it starts (the load can change in between).
-        const helperNote = `helper thread ${AnalysisHelper.wouldHelp() ? "on" : "off"} (1-min load ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`;
+        const forced = process.env.ORDWISE_ANALYSIS_HELPER === "on" || process.env.ORDWISE_ANALYSIS_HELPER === "off" ? ", set by ORDWISE_ANALYSIS_HELPER" : "";
+        const helperNote = `helper thread ${analysisHelperWanted() ? "on" : "off"}${forced} (1-min load ${loadavg()[0]!.toFixed(1)} on ${availableParallelism()} cores)`;
         const started = performance.now();
         const res = await runChild([join(dirname(fileURLToPath(import.meta.url)), "analyze.mjs"), path, "--json", "--limits", "iec-61000-3-2-class-a"]);
         const wallMs = performance.now() - started;
@@ -291,9 +271,8 @@ function diagnoseCase(): BenchCase {
   return {
     name: "diagnose-6pulse-3ch",
     description: "front-end diagnosis of a 3-phase six-pulse drive capture (orders 2–50, 9 families fitted per channel)",
-    prepare: async () => {
-      const path = join(outDir, "drive-6pulse-2s.csv");
-      if (!existsSync(path)) {
+    prepare: () =>
+      cachedInput("drive-6pulse-2s.csv", async (path) => {
         const { simulateSixPulseCapacitorCycle } = await import("../lib/frontends/simulate-six-pulse-capacitor");
         const { currentA } = simulateSixPulseCapacitorCycle({ acInductancePercent: 1, dcChokePercent: 0, loadPercent: 100 });
         const n = currentA.length;
@@ -310,11 +289,8 @@ function diagnoseCase(): BenchCase {
           const i = [0, -1 / 3, 1 / 3].map((s) => (141 * at(c + s)).toFixed(3));
           lines.push([(k / rate).toFixed(7), ...v, ...i].join(","));
         }
-        mkdirSync(dirname(path), { recursive: true });
         writeFileSync(path, `${lines.join("\n")}\n`);
-      }
-      return path;
-    },
+      }),
     run: async (path) => {
       const { diagnoseChannels } = await import("../lib/frontends/diagnose-channels");
       const started = performance.now();
@@ -365,12 +341,17 @@ async function main(): Promise<void> {
     console.log(`  wall time    ${wallS.toFixed(3)} s   (${(sizeMB / wallS).toFixed(1)} MB/s of CSV)   target < ${bench.targets.wallS} s`);
     console.log(`  CPU          ${cpuS.toFixed(3)} s   user+sys (${processCpuS !== undefined ? "the child process" : "this process"}; steadier than wall time on a shared machine)`);
     console.log(`  peak RSS     ${rssMB.toFixed(0)} MB   target < ${bench.targets.rssMB} MB (${processRssMB !== undefined ? "the child process's getrusage maxrss" : "sampled every 10 ms"})`);
-    console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
-    if (timings.rereadMs !== undefined) console.log(`  pass 2 rows  ${ms(timings.rereadMs)}   (the kept rows replayed, or the file parsed again; time-axis and clipping checks, ring buffer)`);
-    console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
-    console.log(
-      `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}${timings.rereadMs !== undefined ? " — inside pass 1" : ""}, aggregation ${ms(timings.aggregateMs)})`,
-    );
+    if (Object.keys(timings).length === 0) {
+      // A child process (the CLI case): its stages are not measured from here.
+      console.log(`  stages       not measured (a separate process; its wall time, CPU and RSS are above)`);
+    } else {
+      console.log(`  parse/import ${ms(timings.importMs)}${timings.rereadMs !== undefined ? "   (pass 1: parse, checks, fundamental per segment and its phase per block)" : ""}`);
+      if (timings.rereadMs !== undefined) console.log(`  pass 2 rows  ${ms(timings.rereadMs)}   (the kept rows replayed, or the file parsed again; time-axis and clipping checks, ring buffer)`);
+      if (timings.windowsMs !== undefined) console.log(`  resample+FFT ${ms(timings.windowsMs)}   (windows: resampling, transforms, per-order values)`);
+      console.log(
+        `  rest         ${(rest / 1000).toFixed(3)} s   (checks ${ms(timings.checksMs)}, fundamental ${ms(timings.fundamentalMs)}${timings.rereadMs !== undefined ? " — inside pass 1" : ""}, aggregation ${ms(timings.aggregateMs)})`,
+      );
+    }
     console.log(`  process max  ${((process.resourceUsage().maxRSS * 1024) / 1e6).toFixed(0)} MB   (getrusage maxrss since the bench started, includes earlier cases)`);
     if (wallS > bench.targets.wallS || rssMB > bench.targets.rssMB) failed = true;
     if (bench.large && !keep) {

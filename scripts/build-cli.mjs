@@ -1,5 +1,7 @@
 // Bundles the analysis command line once (scripts/analyze.ts → dist/cli/analyze.mjs plus lazily
-// loaded chunks, and the analysis helper thread it starts → dist/cli/analysis-helper-thread.mjs) so `npm run analyze` starts without transpiling TypeScript on every run.
+// loaded chunks, the analysis helper thread it starts → dist/cli/analysis-helper-thread.mjs, and the
+// small module that starts it → dist/cli/start-analysis-helper.mjs) so `npm run analyze` starts
+// without transpiling TypeScript on every run.
 // Run by `npm start`/`npm test` (scripts/stack.mjs) and by scripts/analyze.mjs when the bundle is
 // missing or older than any file it was built from.
 //   node scripts/build-cli.mjs            build when stale
@@ -12,6 +14,8 @@ const root = path.resolve(path.dirname(fileURLToPath(import.meta.url)), "..");
 const outDir = path.join(root, "dist", "cli");
 export const bundlePath = path.join(outDir, "analyze.mjs");
 const helperPath = path.join(outDir, "analysis-helper-thread.mjs");
+/** The small module scripts/analyze.mjs starts the helper thread from (scripts/start-analysis-helper.ts). */
+export const startHelperPath = path.join(outDir, "start-analysis-helper.mjs");
 const inputsPath = path.join(outDir, "inputs.json");
 
 /** True when the bundle is missing or any of its inputs (or the lock file, or this script) changed after it was built. */
@@ -55,7 +59,11 @@ export async function buildCli() {
   const result = await build({
     absWorkingDir: root,
     // The command line, and the analysis helper thread it starts (lib/analysis/analysis-helper.ts) beside it.
-    entryPoints: { analyze: "scripts/analyze.ts", "analysis-helper-thread": "lib/analysis/analysis-helper-thread.ts" },
+    entryPoints: {
+      analyze: "scripts/analyze.ts",
+      "analysis-helper-thread": "lib/analysis/analysis-helper-thread.ts",
+      "start-analysis-helper": "scripts/start-analysis-helper.ts",
+    },
     outdir: outDir,
     outExtension: { ".js": ".mjs" },
     chunkNames: "chunk-[hash]",
@@ -80,14 +88,17 @@ export async function buildCli() {
   fs.mkdirSync(outDir, { recursive: true });
   const entry = result.outputFiles.find((f) => f.path === bundlePath);
   const helper = result.outputFiles.find((f) => f.path === helperPath);
-  for (const file of result.outputFiles) if (file !== entry && file !== helper) fs.writeFileSync(file.path, file.contents);
+  const startHelper = result.outputFiles.find((f) => f.path === startHelperPath);
+  for (const file of result.outputFiles) if (file !== entry && file !== helper && file !== startHelper) fs.writeFileSync(file.path, file.contents);
   const inputs = Object.keys(result.metafile.inputs).filter((f) => !f.startsWith("node_modules/") && !f.includes(":"));
   const tmp = `.${process.pid}.tmp`;
   fs.writeFileSync(inputsPath + tmp, JSON.stringify(inputs));
   fs.writeFileSync(helperPath + tmp, helper.contents);
+  fs.writeFileSync(startHelperPath + tmp, startHelper.contents);
   fs.writeFileSync(bundlePath + tmp, entry.contents);
   fs.renameSync(inputsPath + tmp, inputsPath);
   fs.renameSync(helperPath + tmp, helperPath);
+  fs.renameSync(startHelperPath + tmp, startHelperPath);
   fs.renameSync(bundlePath + tmp, bundlePath);
   // Chunks of earlier builds that nothing references any more (kept a minute for runs still loading them).
   const current = new Set(result.outputFiles.map((f) => path.basename(f.path)));

@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { SubmitButton } from "@/app/_components/submit-button";
 import { sendJson } from "@/lib/swr/fetcher";
 
 export function SignInForm() {
@@ -36,9 +37,9 @@ export function SignInForm() {
         <input id="password" name="password" type="password" autoComplete="current-password" required className="field-input" />
       </div>
       {error && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{error}</p>}
-      <button type="submit" className="btn-primary w-full" disabled={busy}>
-        {busy ? "Signing in…" : "Sign in"}
-      </button>
+      <SubmitButton busy={busy} busyLabel="Signing in…" className="btn-primary w-full">
+        Sign in
+      </SubmitButton>
     </form>
   );
 }

@@ -14,7 +14,7 @@ import {
   type Capture,
 } from "@/db/schema";
 import type { AnalysisResult } from "@/lib/analysis/types";
-import { can, type Reader } from "@/lib/auth/permissions";
+import { can, readsApprovedResultOnly, type Reader } from "@/lib/auth/permissions";
 import type { EvaluationContext, LimitSetRevisionContent } from "@/lib/compliance/model";
 import { LimitSetRevisionContentSchema } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
@@ -24,7 +24,6 @@ import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
 import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
-import type { HeadlineSource } from "@/lib/reports/headline-numbers";
 import { analysisSummary } from "@/lib/reports/analysis-summary";
 import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
@@ -385,7 +384,9 @@ export interface EvaluationSummary {
   createdByName: string | null;
 }
 
-export async function listEvaluations({ captureId }: { captureId: string }): Promise<EvaluationSummary[]> {
+export async function listEvaluations({ captureId, onlyId }: { captureId: string; onlyId?: string | null }): Promise<EvaluationSummary[]> {
+  // A reader restricted to one evaluation that does not exist (nothing approved) gets none.
+  if (onlyId === null) return [];
   return db
     .select({
       id: evaluations.id,
@@ -402,7 +403,7 @@ export async function listEvaluations({ captureId }: { captureId: string }): Pro
     .innerJoin(limitSetRevisions, eq(limitSetRevisions.id, evaluations.limitSetRevisionId))
     .innerJoin(limitSets, eq(limitSets.id, limitSetRevisions.limitSetId))
     .leftJoin(users, eq(users.id, evaluations.createdBy))
-    .where(eq(evaluations.captureId, captureId))
+    .where(and(eq(evaluations.captureId, captureId), onlyId !== undefined ? eq(evaluations.id, onlyId) : undefined))
     .orderBy(desc(evaluations.createdAt));
 }
 
@@ -534,6 +535,8 @@ export async function listCaptures({ query, reader }: { query: CaptureListQuery;
   const approvedVerdict = dsql<string | null>`(select e.verdict from ${evaluations} e where e.id = ${captures.approvedEvaluationId})`;
   const latestVerdict = dsql<string | null>`coalesce(${approvedVerdict}, ${newestVerdict})`;
   const newer = dsql<boolean>`(${captures.approvedEvaluationId} is not null and ${captures.approvedEvaluationId} is distinct from ${latestId})`;
+  // Outside readers learn nothing of results that are not approved: no newest verdict, no "newer result awaits review".
+  const outside = readsApprovedResultOnly(reader);
   const where = and(
     capturesVisibleTo(reader),
     query.site ? eq(captures.siteId, query.site) : undefined,
@@ -555,9 +558,9 @@ export async function listCaptures({ query, reader }: { query: CaptureListQuery;
       reviewState: captures.reviewState,
       verdict: latestVerdict,
       approved: dsql<boolean>`(${captures.approvedEvaluationId} is not null)`,
-      newerAwaitsReview: newer,
+      newerAwaitsReview: outside ? dsql<boolean>`false` : newer,
       approvedVerdict,
-      latestVerdict: newestVerdict,
+      latestVerdict: outside ? approvedVerdict : newestVerdict,
       createdAt: captures.createdAt,
       uploadedByName: users.name,
     })

@@ -7,6 +7,7 @@ import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/resul
 import { AppError } from "@/lib/errors";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
 import { splitResult, type ResultHead } from "@/lib/reports/result-head";
+import { captureViewColumns, type CaptureView } from "./capture-view";
 import { verificationColumns, type VerificationView } from "./limit-verifications";
 import { capturesVisibleTo, sitesVisibleTo } from "./scope";
 
@@ -37,6 +38,7 @@ function summaryOf(r: typeof analyses.result) {
     'fundamentalHz', ${r}->'fundamentalHz',
     'sampleIntervalS', ${r}->'sampleIntervalS',
     'power', ${r}->'power',
+    'intervalLog', ${r}->'intervalLog',
     'sequence', coalesce((select jsonb_agg(s.v - 'orders' order by s.i) from jsonb_array_elements(coalesce(${r}->'sequence', '[]'::jsonb)) with ordinality as s(v, i)), '[]'::jsonb),
     'channels', coalesce((select jsonb_agg(c.v - 'harmonics' - 'series' - 'harmonicSeries' - 'groups' order by c.i) from jsonb_array_elements(${r}->'channels') with ordinality as c(v, i)), '[]'::jsonb)
   )::json)`;
@@ -178,25 +180,9 @@ export async function getVisibleChartsJson({ captureId, reader, evaluationId }: 
 }
 
 /** What `GET /api/captures/:id` answers: the capture's identity, state and progress, not its set-up or storage. */
-export async function getCaptureStatus({ id, reader }: { id: string; reader: Reader }) {
+export async function getCaptureStatus({ id, reader }: { id: string; reader: Reader }): Promise<CaptureView> {
   const [row] = await db
-    .select({
-      id: captures.id,
-      siteId: captures.siteId,
-      title: captures.title,
-      kind: captures.kind,
-      status: captures.status,
-      progressPercent: captures.progressPercent,
-      failureReason: captures.failureReason,
-      reviewState: captures.reviewState,
-      approvedEvaluationId: captures.approvedEvaluationId,
-      limitSetKey: captures.limitSetKey,
-      originalFilename: captures.originalFilename,
-      sizeBytes: captures.sizeBytes,
-      capturedAt: captures.capturedAt,
-      createdAt: captures.createdAt,
-      updatedAt: captures.updatedAt,
-    })
+    .select(captureViewColumns)
     .from(captures)
     .where(and(eq(captures.id, id), capturesVisibleTo(reader)));
   if (!row) throw new AppError("not_found", "No such capture.");

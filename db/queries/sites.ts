@@ -8,6 +8,13 @@ import type { SiteInput } from "@/lib/validations/site";
 import { insertAuditEvent } from "./audit";
 import { sitesVisibleTo } from "./scope";
 
+/** A site as a JSON answer carries it: without the interval-log mapping remembered for it and who created it (internal). */
+export type SiteView = Omit<Site, "intervalMapping" | "createdBy">;
+
+export function toSiteView({ intervalMapping: _mapping, createdBy: _createdBy, ...site }: Site): SiteView {
+  return site;
+}
+
 /** The sites `reader` may see (viewers: their customers' sites only), by name. */
 export function listSites({ reader }: { reader: Reader }): Promise<Site[]> {
   return db.select().from(sites).where(sitesVisibleTo(reader)).orderBy(asc(sites.name));

@@ -39,17 +39,26 @@ export async function getUserByEmail({ email }: { email: string }): Promise<User
   return u;
 }
 
-/** Writes a new invitation for `userId`, cancelling (deleting) every earlier token of that user; returns the token to e-mail. */
-async function issueInvitation(tx: Tx, { userId, actorId }: { userId: string; actorId: string }): Promise<string> {
+/** A token to e-mail and when it stops working, as stored. */
+export interface IssuedInvitation {
+  token: string;
+  expiresAt: Date;
+}
+
+/** Writes a new invitation for `userId`, cancelling (deleting) every earlier token of that user; returns the token to e-mail and its stored expiry. */
+async function issueInvitation(tx: Tx, { userId, actorId }: { userId: string; actorId: string }): Promise<IssuedInvitation> {
   await tx.delete(invitations).where(eq(invitations.userId, userId));
   const token = encodeBase32LowerCaseNoPadding(crypto.getRandomValues(new Uint8Array(20)));
-  await tx.insert(invitations).values({
-    tokenHash: hashToken(token),
-    userId,
-    invitedBy: actorId,
-    expiresAt: new Date(Date.now() + invitationLifetimeMs),
-  });
-  return token;
+  const [stored] = await tx
+    .insert(invitations)
+    .values({
+      tokenHash: hashToken(token),
+      userId,
+      invitedBy: actorId,
+      expiresAt: new Date(Date.now() + invitationLifetimeMs),
+    })
+    .returning({ expiresAt: invitations.expiresAt });
+  return { token, expiresAt: stored!.expiresAt };
 }
 
 /** Creates the invited user (no password yet) and an invitation token; returns the token to e-mail. */
@@ -63,7 +72,7 @@ export async function createInvitation({
   name: string;
   role: Role;
   actorId: string;
-}): Promise<{ user: PublicUser; token: string }> {
+}): Promise<{ user: PublicUser; invitation: IssuedInvitation }> {
   return db.transaction(async (tx) => {
     const [existing] = await tx.select().from(users).where(eq(users.email, email)).for("update");
     if (existing?.passwordHash) throw new AppError("conflict", `${email} already has an account.`);
@@ -73,29 +82,29 @@ export async function createInvitation({
       (await tx.insert(users).values({ id: generateIdFromEntropySize(10), email, name, role }).returning())[0];
     if (!user) throw new AppError("internal", "The user was not saved.");
     if (existing) await tx.update(users).set({ name, role }).where(eq(users.id, existing.id));
-    const token = await issueInvitation(tx, { userId: user.id, actorId });
+    const invitation = await issueInvitation(tx, { userId: user.id, actorId });
     await insertAuditEvent(tx, { actorId, action: "user.invite", entityType: "user", entityId: user.id, details: { email, role } });
-    return { user: toPublic({ ...user, name, role }), token };
+    return { user: toPublic({ ...user, name, role }), invitation };
   });
 }
 
 /** A fresh invitation for an active user who has not set a password yet; earlier links stop working. */
-export async function resendInvitation({ id, actorId }: { id: string; actorId: string }): Promise<{ user: PublicUser; token: string }> {
+export async function resendInvitation({ id, actorId }: { id: string; actorId: string }): Promise<{ user: PublicUser; invitation: IssuedInvitation }> {
   return db.transaction(async (tx) => {
     const [user] = await tx.select().from(users).where(eq(users.id, id)).for("update");
     if (!user) throw new AppError("not_found", "No such user.");
     if (user.passwordHash) throw new AppError("conflict", `${user.email} has already set a password.`);
     if (!user.active) throw new AppError("conflict", `${user.email} is deactivated. Reactivate the account first.`);
-    const token = await issueInvitation(tx, { userId: user.id, actorId });
+    const invitation = await issueInvitation(tx, { userId: user.id, actorId });
     await insertAuditEvent(tx, { actorId, action: "user.resend_invitation", entityType: "user", entityId: user.id });
-    return { user: toPublic(user), token };
+    return { user: toPublic(user), invitation };
   });
 }
 
 /** An invitation that can still be accepted: unused, unexpired, for an active account without a password. */
 export async function findOpenInvitation({ token }: { token: string }) {
   const [row] = await db
-    .select({ invitationId: invitations.id, userId: users.id, email: users.email, name: users.name })
+    .select({ invitationId: invitations.id, userId: users.id, email: users.email, name: users.name, expiresAt: invitations.expiresAt })
     .from(invitations)
     .innerJoin(users, eq(users.id, invitations.userId))
     .where(

@@ -12,7 +12,7 @@ const firstReason = "Seeded from the published table";
 const updateReason = "Seed data updated (published table)";
 
 export async function seedLimitTables(db: PostgresJsDatabase<typeof schema>): Promise<void> {
-  for (const set of seedLimitSets) {
+  for (const set of seedLimitSets()) {
     await db.transaction(async (tx) => {
       const [existing] = await tx.select().from(schema.limitSets).where(eq(schema.limitSets.key, set.key)).for("update");
       if (!existing) {

@@ -3,9 +3,13 @@
 // Built as its own module by scripts/build-cli.mjs; started with `new Worker(...)`.
 import { parentPort } from "node:worker_threads";
 import type { HelperAnswer, HelperRequest, SentInputError } from "./analysis-helper";
+import { CompactColumn, type CompactColumnData } from "./compact-column";
 import { arrayWindowSource } from "./array-window-source";
 import { AnalysisInputError } from "./errors";
+import { getFft } from "./get-fft";
+import { KeptRows } from "./kept-rows";
 import { SegmentEstimator } from "./segment-estimator";
+import { WindowClaims } from "./window-claims";
 import { WindowAnalyzer } from "./window-analyzer";
 
 function send(value: number | AnalysisInputError): number | SentInputError {
@@ -22,6 +26,17 @@ function describe(error: unknown): string {
   return error instanceof Error ? (error.stack ?? error.message) : String(error);
 }
 
+/** Per estimation channel, the segment unpacked (reused from segment to segment). */
+const segmentScratch: Float64Array[] = [];
+
+function unpacked(e: number, data: CompactColumnData, start: number, length: number): Float64Array {
+  let scratch = segmentScratch[e];
+  // Room for the last segment too (up to two segments long); only the pages used are mapped.
+  if (!scratch || scratch.length < length) scratch = segmentScratch[e] = new Float64Array(2 * length);
+  CompactColumn.from(data).decode(start, start + length, scratch);
+  return scratch.subarray(0, length);
+}
+
 function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): HelperAnswer | null {
   const { channels, provisionalRateHz, start, length, first, last } = request;
   if (first || !estimator) {
@@ -31,7 +46,7 @@ function measureSegment(request: Extract<HelperRequest, { type: "segment" }>): H
   if (segmentFailure === null) {
     try {
       estimator.estimate(
-        channels.map((c) => c.subarray(start, start + length)),
+        channels.map((data, e) => unpacked(e, data, start, length)),
         length,
         provisionalRateHz,
       );
@@ -72,20 +87,72 @@ function answer(request: HelperRequest): HelperAnswer | null {
   }
   if (request.type === "segment") return measureSegment(request);
   const started = performance.now();
-  const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, from, to, out } = request;
+  const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, out } = request;
   const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);
-  const source = arrayWindowSource(
-    channels.map((samples) => ({ samples, scale: 1 })),
-    recordSamples,
-  );
+  const source = KeptRows.windowSource(channels, recordSamples);
   const length = analyzer.measurementLength;
-  for (let w = from; w < to; w++) {
-    analyzer.measureWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source, out.subarray((w - from) * length, (w - from + 1) * length));
+  const claims = new WindowClaims(request.claims);
+  let from = windowBounds.length - 1;
+  for (let w = claims.takeBack(); w >= 0; w = claims.takeBack()) {
+    analyzer.measureWindow(windowBounds[w]!, windowBounds[w + 1]! - windowBounds[w]!, source, out.subarray(w * length, (w + 1) * length));
+    from = w;
   }
-  return { type: "windows", ms: performance.now() - started };
+  return { type: "windows", ms: performance.now() - started, from };
 }
 
+// --- Warming up -------------------------------------------------------------------------------------
+// The thread is started before the main thread has rows for it (about half a second on a typical
+// capture). Meanwhile it runs its measuring once on a made-up record, so that its code is compiled
+// and the coarse transform's tables are built when the first segment arrives. Each step runs only
+// while no request is being served, and the steps stop at the first segment or windows. The tables
+// are those every segment of the default length uses (the same numbers either way); the made-up
+// results are dropped.
+
+/** Samples per second and fundamental of the made-up record (a common recorder setting). */
+const WARM_RATE_HZ = 25_600;
+const WARM_HZ = 50;
+/** Samples in a frequency segment by default (FREQUENCY_SEGMENT_SAMPLES). */
+const WARM_SEGMENT = 1 << 18;
+let warming = true;
+
+function madeUpSamples(): Float64Array {
+  const samples = (segmentScratch[0] ??= new Float64Array(2 * WARM_SEGMENT)).subarray(0, WARM_SEGMENT);
+  for (let k = 0; k < WARM_SEGMENT; k++) {
+    const phase = (2 * Math.PI * WARM_HZ * k) / WARM_RATE_HZ;
+    samples[k] = 325 * Math.cos(phase) + 8 * Math.cos(5 * phase);
+  }
+  return samples;
+}
+
+const warmUpSteps: (() => void)[] = [
+  () => void getFft(WARM_SEGMENT / 2),
+  () => new SegmentEstimator(1).estimate([madeUpSamples()], WARM_SEGMENT, WARM_RATE_HZ),
+  () => {
+    const samples = segmentScratch[0]!.subarray(0, WARM_SEGMENT);
+    const windowSamples = (10 * WARM_RATE_HZ) / WARM_HZ;
+    const shape = { cycles: 10, points: 4096, orders: 50, maxOrder: 50, resolvableOrder: 50, thdMaxOrder: 50, halfWidth: 8, padding: 12, span: windowSamples + 2 * 12 + 2 };
+    const channels = ["voltage", "current"].map((quantity) => ({ name: quantity, quantity: quantity as "voltage" | "current", phase: "a" as const, scale: 1 }));
+    const analyzer = new WindowAnalyzer(channels, 0, shape, WARM_SEGMENT, 1);
+    const source = arrayWindowSource([{ samples, scale: 1 }, { samples, scale: 0.05 }], WARM_SEGMENT);
+    const out = new Float64Array(analyzer.measurementLength);
+    for (let w = 1; w <= 4; w++) analyzer.measureWindow(w * windowSamples + 0.3, windowSamples, source, out);
+  },
+];
+
+function warmUp(): void {
+  const step = warmUpSteps.shift();
+  if (!warming || !step) return;
+  try {
+    step();
+  } catch {
+    // Warming up only saves time.
+  }
+  setImmediate(warmUp);
+}
+setImmediate(warmUp);
+
 parentPort?.on("message", (request: HelperRequest) => {
+  if (request.type !== "prefault") warming = false;
   let reply: HelperAnswer | null;
   try {
     reply = answer(request);

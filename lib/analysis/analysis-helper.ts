@@ -7,6 +7,7 @@ import { availableParallelism, loadavg } from "node:os";
 import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { AnalysisInputError, type AnalysisErrorCode } from "./errors";
+import type { CompactColumnData } from "./compact-column";
 import type { PhaseTrack } from "./phase-tracker";
 import type { AnalyzerChannel, WindowShape } from "./window-types";
 
@@ -24,8 +25,8 @@ export type HelperRequest =
     }
   | {
       type: "segment";
-      /** The estimation channels, SharedArrayBuffer-backed, as long as the record will be. */
-      channels: Float64Array[];
+      /** The estimation channels as kept (in shared memory), holding at least the segment's rows. */
+      channels: CompactColumnData[];
       /** f is measured as f / rate; the rate is the provisional one pass 1 fits on its look-ahead. */
       provisionalRateHz: number;
       /** Segment [start, start + length) of the record; segments come in order. */
@@ -38,24 +39,23 @@ export type HelperRequest =
     }
   | {
       type: "windows";
-      /** Every channel, SharedArrayBuffer-backed, `recordSamples` long. */
-      channels: Float64Array[];
+      /** Every channel as kept (in shared memory), `recordSamples` rows. */
+      channels: CompactColumnData[];
       analyzerChannels: AnalyzerChannel[];
       reference: number;
       shape: WindowShape;
       recordSamples: number;
       windowBounds: Float64Array;
-      /** Windows from … to (exclusive) to measure. */
-      from: number;
-      to: number;
-      /** (to − from) × measurementLength numbers, SharedArrayBuffer-backed. */
+      /** The windows' claims (WindowClaims.cell): the helper takes windows from the back until none is left. */
+      claims: BigInt64Array;
+      /** Window w's measurement goes to numbers w × measurementLength … (SharedArrayBuffer-backed). */
       out: Float64Array;
     };
 
 /** The helper thread's answers. */
 export type HelperAnswer =
   | { type: "estimates"; ratios: (number | SentInputError)[][]; tracks: PhaseTrack[]; fundamentalMs: number }
-  | { type: "windows"; ms: number }
+  | { type: "windows"; ms: number; /** The first window it measured (the window count when none). */ from: number }
   | { type: "failed"; message: string };
 
 /** Pass 1's measuring, as the helper thread returns it. */
@@ -154,10 +154,14 @@ export class AnalysisHelper {
     if (!this.failure) this.worker.postMessage({ type: "prefault", arrays } satisfies HelperRequest);
   }
 
-  /** Measures windows `from` … `to` − 1 into `out` (see WindowAnalyzer.measureWindow); resolves when done. */
-  async measureWindows(request: Omit<Extract<HelperRequest, { type: "windows" }>, "type">): Promise<void> {
+  /**
+   * Measures windows from the back into `out` (see WindowAnalyzer.measureWindow), claiming each
+   * from `claims` first, until none is left; resolves to the first window it measured.
+   */
+  async measureWindows(request: Omit<Extract<HelperRequest, { type: "windows" }>, "type">): Promise<number> {
     const answer = await this.ask({ type: "windows", ...request });
     if (answer.type !== "windows") throw new Error(`analysis helper thread answered ${answer.type} to windows`);
+    return answer.from;
   }
 
   /** Stops the thread. */

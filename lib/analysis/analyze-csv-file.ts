@@ -15,13 +15,13 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
-import { replayRows } from "./replay-rows";
 import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
 import { SecondPass, STEP_MESSAGE } from "./stream-second-pass";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer } from "./window-analyzer";
+import { WindowClaims } from "./window-claims";
 
 /** Timings of the streaming path: pass 1 is `importMs`; pass 2's parsing is `rereadMs`. */
 export interface StreamTimings extends StageTimings {
@@ -53,9 +53,6 @@ export interface StreamTuning {
    */
   helper?: AnalysisHelper | null;
 }
-
-/** Share of the windows the main thread measures when a helper thread takes the rest (it also replays the rows). */
-const HELPER_MAIN_SHARE = 0.45;
 
 /**
  * Analyses a CSV file on disk with memory independent of the record's length (the worker's and
@@ -122,7 +119,7 @@ export async function analyzeCsvFile(
 
   if (!first.streaming) {
     // Short record: the look-ahead holds all of it; the in-memory path gives the reference result.
-    const capture = finishImport(collector1, first.memory!, importOptions);
+    const capture = finishImport(collector1, first.lookAhead(), importOptions);
     if (timings) timings.importMs = performance.now() - started;
     const result = analyzeImported(capture, { ...options, frequencySegmentSamples: segmentSamples }, timings);
     if (options.keepWaveformCycles) {
@@ -229,23 +226,24 @@ export async function analyzeCsvFile(
         channelColumns.map((c) => ({ name: c.header, unit: unitOf(c) })),
       )
     : null;
-  // With the rows kept in shared memory, the helper thread measures the later windows while this
-  // thread measures the earlier ones; they are added to the totals in window order.
+  // With the rows kept in shared memory, the helper thread measures windows from the back while this
+  // thread measures them from the front as pass 2 brings their samples in, each claiming a window
+  // before measuring it (WindowClaims): the quicker takes more. They are added to the totals in window order.
   const windowCount = plan.windowBounds.length - 1;
-  const helper = first.kept?.channels[0]?.shared ? (tuning.helper ?? null) : null;
-  const split = helper ? Math.round(HELPER_MAIN_SHARE * windowCount) : windowCount;
+  const helper = first.kept?.shared ? (tuning.helper ?? null) : null;
+  const claims = helper ? WindowClaims.create(windowCount) : null;
   const helped = helper
     ? (() => {
-        const out = new Float64Array(new SharedArrayBuffer(8 * (windowCount - split) * analyzer.measurementLength));
+        // Room for every window (only the pages of those the helper measures are ever touched).
+        const out = new Float64Array(new SharedArrayBuffer(8 * windowCount * analyzer.measurementLength));
         const done = helper.measureWindows({
-          channels: first.kept!.channels.map((c) => c.view()),
+          channels: first.kept!.channels.map((c) => c.data),
           analyzerChannels: channelColumns.map((c) => ({ name: c.header, quantity: c.quantity!, phase: c.phase, scale: 1 })),
           reference,
           shape: plan.shape,
           recordSamples: n,
           windowBounds: plan.windowBounds,
-          from: split,
-          to: windowCount,
+          claims: claims!.cell,
           out,
         });
         // Awaited below; an input error thrown before then must not leave it unhandled.
@@ -254,11 +252,11 @@ export async function analyzeCsvFile(
       })()
     : null;
   let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, split);
+  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, claims);
   if (first.kept) {
     // The rows pass 1 kept, replayed: the same chunks the file would give again.
     collector2 = collector1;
-    await replayRows(first.kept, n, second);
+    await first.kept.replay(n, second);
   } else {
     collector2 = new RowCollector(layout, columns, second);
     await readCsvRows(path, head, collector2);
@@ -270,11 +268,12 @@ export async function analyzeCsvFile(
   if (second.residualError) throw second.residualError;
   if (helped) {
     const waitStarted = performance.now();
-    await helped.done;
+    const from = await helped.done;
     if (timings) timings.helperWaitMs = (timings.helperWaitMs ?? 0) + performance.now() - waitStarted;
+    if (from !== second.window) throw new Error(`windows shared out wrongly: this thread measured ${second.window}, the helper from ${from} on`);
     const started = performance.now();
     const length = analyzer.measurementLength;
-    for (let w = split; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray((w - split) * length, (w - split + 1) * length));
+    for (let w = from; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray(w * length, (w + 1) * length));
     second.windowsMs += performance.now() - started;
   }
   const clipWarnings = channelColumns.map((c, i) => first.scans[i]!.clipWarning(c.header, 1, unitOf(c))).filter((w): w is string => w !== null);

@@ -2,6 +2,7 @@
 import { detectLayout, type PreambleEntry } from "./detect-layout";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { intervalFromPreamble } from "./interval-from-preamble";
+import { LineFit } from "./line-fit";
 import { parseNumber } from "./parse-number";
 import { planColumns } from "./plan-columns";
 import type { ChannelOverride, PhaseLabel, Quantity } from "./types";
@@ -73,17 +74,11 @@ export function inspectCsv(text: string, overrides?: Record<string, ChannelOverr
   if (timeAxisProblem !== null) {
     // No interval from a column that runs backwards: the problem is shown instead of asking for one.
   } else if (time && times.length >= 2) {
-    const n = times.length;
-    const meanIndex = (n - 1) / 2;
-    const meanTime = times.reduce((s, t) => s + t, 0) / n;
-    let sxy = 0;
-    let sxx = 0;
-    times.forEach((t, i) => {
-      sxy += (i - meanIndex) * (t - meanTime);
-      sxx += (i - meanIndex) ** 2;
-    });
-    if (sxy > 0) {
-      sampleIntervalS = sxy / sxx;
+    // The slope of the preview rows' time stamps against their index (the analysis fits the whole column the same way).
+    const fit = new LineFit();
+    times.forEach((t, i) => fit.add(i, t));
+    if (fit.slope() > 0) {
+      sampleIntervalS = fit.slope();
       sampleIntervalSource = "time-column";
     }
   } else {

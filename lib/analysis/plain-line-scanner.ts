@@ -57,6 +57,9 @@ export class PlainLineScanner {
    * Reads lines of `bytes[pos..end)` into the buffers from slot `fill` on, at most `maxRows`.
    * Returns the number of rows read; {@link pos} and the last line say where it stopped.
    *
+   * `bytes[end − 1]` must be a newline: every field then ends at or before it, so no byte is
+   * read past `end` and none needs checking against it (RowCollector.addPlainBytes sees to it).
+   *
    * The results are stored on every row rather than once after the loop: a store the optimised
    * loop has never seen executed would throw its code out at every return.
    */
@@ -66,6 +69,7 @@ export class PlainLineScanner {
     const channels = channelSlots.length;
     let rows = 0;
     this.pos = pos;
+    if (end > pos && bytes[end - 1] !== 10) throw new Error("PlainLineScanner.scan: the bytes must end with a newline");
     while (pos < end && rows < maxRows) {
       let field = 0;
       let i = pos;
@@ -73,10 +77,10 @@ export class PlainLineScanner {
       let ok = true;
       while (field < columnCount) {
         let negative = false;
-        let c = i < end ? bytes[i]! : 10;
+        let c = bytes[i]!;
         if (c === 45 || c === 43) {
           negative = c === 45;
-          c = ++i < end ? bytes[i]! : 10;
+          c = bytes[++i]!;
         }
         let mantissa = 0;
         let digits = 0;
@@ -84,15 +88,15 @@ export class PlainLineScanner {
         while (c >= 48 && c <= 57) {
           mantissa = mantissa * 10 + (c - 48);
           digits++;
-          c = ++i < end ? bytes[i]! : 10;
+          c = bytes[++i]!;
         }
         if (c === decimalCode) {
-          c = ++i < end ? bytes[i]! : 10;
+          c = bytes[++i]!;
           while (c >= 48 && c <= 57) {
             mantissa = mantissa * 10 + (c - 48);
             digits++;
             scale--;
-            c = ++i < end ? bytes[i]! : 10;
+            c = bytes[++i]!;
           }
         }
         if (digits === 0 || digits > 15) {
@@ -100,18 +104,18 @@ export class PlainLineScanner {
           break;
         }
         if (c === 101 || c === 69) {
-          c = ++i < end ? bytes[i]! : 10;
+          c = bytes[++i]!;
           let expNegative = false;
           if (c === 45 || c === 43) {
             expNegative = c === 45;
-            c = ++i < end ? bytes[i]! : 10;
+            c = bytes[++i]!;
           }
           let exponent = 0;
           let expDigits = 0;
           while (c >= 48 && c <= 57 && expDigits < 4) {
             exponent = exponent * 10 + (c - 48);
             expDigits++;
-            c = ++i < end ? bytes[i]! : 10;
+            c = bytes[++i]!;
           }
           if (expDigits === 0) {
             ok = false;
@@ -125,8 +129,8 @@ export class PlainLineScanner {
         }
         const magnitude = scale < 0 ? mantissa / POW10[-scale]! : mantissa * POW10[scale]!;
         fields[field++] = negative ? -magnitude : magnitude;
-        // The line ends here: "\n", "\r\n", or the end of the bytes (a last "\r" included).
-        if (c === 10 || (c === 13 && (i + 1 >= end || bytes[i + 1] === 10))) {
+        // The line ends here: "\n" or "\r\n".
+        if (c === 10 || (c === 13 && bytes[i + 1] === 10)) {
           lineEnd = i;
           break;
         }

@@ -23,27 +23,33 @@ export interface CsvHead {
 }
 
 /**
- * The file as UTF-8 byte chunks of about 1 MB, read into one buffer that is reused for every
- * chunk (a chunk is valid until the next is asked for): fresh 1 MB buffers cost more in page
- * faults than the scanner spends reading them. A UTF-8 file is handed on as read (no decoding
- * to text); UTF-16 and Windows-1252 are decoded by a streaming TextDecoder, which carries a
- * character split between chunks over to the next one, and re-encoded as UTF-8.
+ * The file as UTF-8 byte chunks of about 1 MB, read into two buffers used in turn (a chunk is
+ * valid until the next is asked for): the next chunk is read while this one is being scanned, and
+ * fresh 1 MB buffers would cost more in page faults than the scanner spends reading them. A UTF-8
+ * file is handed on as read (no decoding to text); UTF-16 and Windows-1252 are decoded by a
+ * streaming TextDecoder, which carries a character split between chunks over to the next one,
+ * and re-encoded as UTF-8.
  */
 async function* byteChunks(path: string, encoding: TextEncodingName): AsyncGenerator<Uint8Array> {
   const handle = await open(path, "r");
+  const buffers = [new Uint8Array(1 << 20), new Uint8Array(1 << 20)];
+  let next = handle.read(buffers[0]!, 0, buffers[0]!.length, null);
   try {
-    const buffer = new Uint8Array(1 << 20);
     const decoder = encoding === "utf-8" ? null : new TextDecoder(encoding);
     const encoder = new TextEncoder();
-    for (;;) {
-      const { bytesRead } = await handle.read(buffer, 0, buffer.length, null);
+    for (let turn = 0; ; turn ^= 1) {
+      const { bytesRead } = await next;
       if (bytesRead === 0) break;
-      const chunk = buffer.subarray(0, bytesRead);
+      const chunk = buffers[turn]!.subarray(0, bytesRead);
+      // Reads follow each other (each from where the last ended); this one runs while the chunk is scanned.
+      next = handle.read(buffers[turn ^ 1]!, 0, buffers[turn ^ 1]!.length, null);
       yield decoder ? encoder.encode(decoder.decode(chunk, { stream: true })) : chunk;
     }
     const rest = decoder?.decode() ?? "";
     if (rest.length > 0) yield encoder.encode(rest);
   } finally {
+    // A read still under way (the reader stopped early) ends before the file is closed.
+    await next.catch(() => undefined);
     await handle.close();
   }
 }

@@ -148,6 +148,16 @@ export class RowCollector {
    * returns its start (`end` when every line was read): quoted fields need a CSV parser.
    */
   addPlainBytes(bytes: Uint8Array, start = 0, end = bytes.length): number {
+    if (end > start && bytes[end - 1] !== 10) {
+      // The scanner reads whole lines up to a newline: a last line without one is read from a copy that has it.
+      const cut = Math.max(start, bytes.lastIndexOf(10, end - 1) + 1);
+      const stopped = cut > start ? this.addPlainBytes(bytes, start, cut) : cut;
+      if (stopped < cut) return stopped;
+      const line = new Uint8Array(end - cut + 1);
+      line.set(bytes.subarray(cut, end));
+      line[end - cut] = 10;
+      return this.addPlainBytes(line) < line.length ? cut : end;
+    }
     const scanner = this.scanner;
     let pos = start;
     while (pos < end) {

@@ -4,10 +4,15 @@ import { ChannelScan } from "./channel-scan";
 import type { AnalysisInputError } from "./errors";
 import { backwardsTimeError } from "./fit-sample-interval";
 import { MemorySink } from "./import-csv";
+import { KeptRows } from "./kept-rows";
 import { LineFit } from "./line-fit";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { SegmentEstimator } from "./segment-estimator";
 import type { AnalysisHelper, SegmentResults } from "./analysis-helper";
+
+/** How far ahead of the kept rows the helper thread maps pages: this many chunks, at least this many bytes at a time. */
+const PREFAULT_CHUNKS = 4;
+const PREFAULT_MIN_BYTES = 64 * 1024;
 
 export interface PendingError {
   row: number;
@@ -22,13 +27,14 @@ export interface PendingError {
  * through that segment (the windows' boundaries come from the reference channel's track).
  */
 export class FirstPass implements RowSink {
-  /** The look-ahead, until the record outgrows it. */
-  memory: MemorySink | null;
+  /** Where the rows are kept: the look-ahead, and the rows kept on for pass 2 (packed, see {@link kept}). */
+  private memory: MemorySink | null;
   /**
-   * Every row so far (the look-ahead kept on), while the record stays within `keepRows` rows:
-   * pass 2 then replays them instead of reading the file again. Null once over.
+   * Every row so far, packed into the look-ahead's memory (the look-ahead, then the rows kept on
+   * while the record stays within `keepRows` rows: pass 2 then replays them instead of reading the
+   * file again). Null once over.
    */
-  kept: MemorySink | null = null;
+  kept: KeptRows | null;
   streaming = false;
   /** Least-squares line t = start + interval·row over the whole time column. */
   readonly fit = new LineFit();
@@ -46,6 +52,10 @@ export class FirstPass implements RowSink {
   private segmentFill = 0;
   /** Segments measured (or sent to be) so far. */
   private segments = 0;
+  /** Whether the look-ahead's rows are packed (else kept as doubles until the record outgrows it). */
+  private readonly packLookAhead: boolean;
+  /** Per kept column (time first), the byte up to which the helper thread was asked to map pages. */
+  private readonly prefaulted: number[] = [];
   /** The helper thread measuring the segments from the kept rows, while they are kept. */
   private remote: AnalysisHelper | null = null;
   private remoteResults: Promise<SegmentResults> | null = null;
@@ -63,62 +73,112 @@ export class FirstPass implements RowSink {
     private readonly keepRows = 0,
     /** A helper thread to measure the segments in while rows are kept (their channels are then in shared memory). */
     private readonly helper: AnalysisHelper | null = null,
-    /** Rows the file is expected to hold (judged from its head): how far the helper maps memory ahead. */
+    /**
+     * Rows the file is expected to hold (judged from its head): a record expected to outgrow the
+     * look-ahead has it packed too; one expected to end within it keeps doubles (for the in-memory path).
+     */
     expectedRows = 0,
   ) {
+    this.packLookAhead = expectedRows > 2 * segmentSamples;
     const shared = helper !== null && keepRows > 0;
-    const memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
-    this.memory = memory;
-    // The helper maps the pages of the rows to be kept beyond the look-ahead while this thread parses
-    // (the look-ahead is filled first, before the helper could get ahead of this thread).
-    const from = 2 * segmentSamples + ROW_CHUNK;
-    const to = Math.min(keepRows, Math.ceil(1.02 * expectedRows) + ROW_CHUNK);
-    if (shared && to > from) helper.prefault([...(memory.times ? [memory.times] : []), ...memory.channels].map((b) => b.storage().subarray(from, to)));
+    // Room for 8 bytes per row of the look-ahead and of the rows to be kept (untouched memory costs
+    // nothing); the rows are packed into it as they come (KeptRows), so fewer pages are touched.
+    this.memory = new MemorySink(channelCount, hasTime, Math.max(2 * segmentSamples + ROW_CHUNK, keepRows), shared);
+    this.kept = KeptRows.over(this.memory);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     this.rows = firstRow + count;
-    if (this.memory) {
-      this.memory.accept(timesS, values, count);
+    if (!this.streaming) {
+      this.kept!.accept(timesS, values, count, this.packLookAhead);
+      this.prefaultKept();
       if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
       return;
     }
     if (this.kept) {
-      if (this.rows <= this.keepRows) this.kept.accept(timesS, values, count);
-      else this.dropKept(firstRow);
+      if (this.rows <= this.keepRows) {
+        this.kept.accept(timesS, values, count);
+        this.prefaultKept();
+      } else {
+        this.dropKept(firstRow);
+      }
     }
     this.stream(timesS, values, count, firstRow);
   }
 
+  /**
+   * The look-ahead's rows as doubles, for the in-memory analysis of a record that ended within it
+   * (unpacked in place: no new memory).
+   */
+  lookAhead(): MemorySink {
+    if (this.streaming) throw new Error("FirstPass.lookAhead: the record outgrew the look-ahead");
+    return this.kept!.unpackInPlace(this.memory!);
+  }
+
   private switchToStreaming(): void {
-    const memory = this.memory!;
     this.memory = null;
-    this.kept = this.rows <= this.keepRows ? memory : null;
-    if (this.kept && this.helper) this.remote = this.helper;
-    else this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
+    const kept = this.kept!;
+    const keep = this.rows <= this.keepRows;
     this.streaming = true;
     const rows = this.rows;
-    const times = memory.times?.view() ?? null;
+    // The look-ahead's rows, unpacked chunk by chunk into arrays reused for each.
+    const times = kept.times ? new Float64Array(ROW_CHUNK) : null;
+    const channels = kept.channels.map(() => new Float64Array(ROW_CHUNK));
     // Provisional rate (the segments' band search only): a fit over the look-ahead, else the stated interval.
     if (times) {
       const fit = new LineFit();
-      for (let r = 0; r < rows; r++) fit.add(r, times[r]!);
+      for (let first = 0; first < rows; first += ROW_CHUNK) {
+        const end = Math.min(rows, first + ROW_CHUNK);
+        kept.times!.decode(first, end, times);
+        for (let r = first; r < end; r++) fit.add(r, times[r - first]!);
+      }
       this.provisionalRateHz = 1 / fit.slope();
     } else {
       this.provisionalRateHz = this.statedIntervalS ? 1 / this.statedIntervalS : 0;
     }
     if (!(this.provisionalRateHz > 0 && Number.isFinite(this.provisionalRateHz))) this.provisionalRateHz = 0;
-    this.stream(
-      times,
-      memory.channels.map((c) => c.view()),
-      rows,
-      0,
-    );
+    if (keep && this.helper) {
+      // The helper thread measures the segments from the kept rows.
+      this.remote = this.helper;
+    } else {
+      this.segmentBuffers = this.estimation.map(() => new Float64Array(2 * this.segmentSamples));
+    }
+    for (let first = 0; first < rows; first += ROW_CHUNK) {
+      const end = Math.min(rows, first + ROW_CHUNK);
+      if (times) kept.times!.decode(first, end, times);
+      kept.channels.forEach((column, c) => column.decode(first, end, channels[c]!));
+      this.stream(times, channels, end - first, first);
+    }
+    if (!keep) this.kept = null;
+  }
+
+  /**
+   * Has the helper thread map the pages the kept rows will fill next (a few chunks ahead, at the
+   * bytes per row the last chunk packed into), while this thread parses on.
+   */
+  private prefaultKept(): void {
+    if (!this.kept?.shared || !this.helper) return;
+    const pages: Float64Array[] = [];
+    this.kept.forEachColumn((column, c) => {
+      const from = Math.max(column.usedBytes, this.prefaulted[c] ?? 0);
+      const to = Math.min(column.bytes.byteLength, column.usedBytes + PREFAULT_CHUNKS * column.lastChunkBytes);
+      if (to - from >= PREFAULT_MIN_BYTES) {
+        pages.push(new Float64Array(column.bytes, from, (to - from) / 8));
+        this.prefaulted[c] = to;
+      }
+    });
+    if (pages.length > 0) this.helper.prefault(pages);
   }
 
   private stream(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    this.check(timesS, values, count, firstRow);
+    this.segmentsFrom(values, count);
+  }
+
+  /** Time-axis fit and checks, and each channel's extremes and sum of squares. */
+  private check(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
     if (timesS && this.hasTime) {
       if (firstRow === 0 && count > 0) this.firstTimeS = timesS[0]!;
       for (let r = 0; r < count; r++) this.fit.add(firstRow + r, timesS[r]!);
@@ -140,6 +200,10 @@ export class FirstPass implements RowSink {
       this.previousTimeS = previous;
     }
     for (let c = 0; c < this.channelCount; c++) this.scans[c]!.add(values[c]!, count);
+  }
+
+  /** Fills the look-ahead of the segments and measures (or sends) each segment as it is complete. */
+  private segmentsFrom(values: Float64Array[], count: number): void {
     let offset = 0;
     while (offset < count) {
       const take = Math.min(count - offset, 2 * this.segmentSamples - this.segmentFill);
@@ -163,7 +227,7 @@ export class FirstPass implements RowSink {
     const start = this.segments * this.segmentSamples;
     if (this.remote) {
       const results = this.remote.sendSegment({
-        channels: this.estimation.map((e) => this.kept!.channels[e]!.view()),
+        channels: this.estimation.map((e) => this.kept!.channels[e]!.data),
         provisionalRateHz: this.provisionalRateHz,
         start,
         length,
@@ -192,7 +256,7 @@ export class FirstPass implements RowSink {
     this.kept = null;
     if (!this.remote) return;
     this.remote = null;
-    const channels = this.estimation.map((e) => kept.channels[e]!.view());
+    const channels = this.estimation.map((e) => kept.channelRows(e, 0, firstRow));
     for (let k = 0; k < this.segments; k++) {
       const start = k * this.segmentSamples;
       this.estimator.estimate(

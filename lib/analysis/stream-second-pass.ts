@@ -5,6 +5,7 @@ import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
+import type { WindowClaims } from "./window-claims";
 
 /** Said after every irregular-time-axis message: the tolerance the checks allow. */
 export const STEP_MESSAGE = "(tolerance ±50 % of the interval plus the stamps' printed resolution)";
@@ -17,8 +18,10 @@ export class SecondPass implements RowSink, WindowSource {
   private readonly rings: Float64Array[];
   private readonly mask: number;
   private previousTimeS = Number.NaN;
-  /** The next window to analyse. */
-  private window = 0;
+  /** The next window to analyse (after pass 2: the windows this thread measured). */
+  window = 0;
+  /** Windows below this are measured here: all of them, or (shared with the helper thread) those claimed from the front. */
+  private windowLimit: number;
 
   constructor(
     private readonly collector: () => RowCollector,
@@ -31,9 +34,10 @@ export class SecondPass implements RowSink, WindowSource {
     private readonly span: number,
     private readonly timeCheck: { intervalS: number; startS: number; toleranceS: number; column: number } | null,
     private readonly waveform: WaveformCollector | null,
-    /** Windows below this are analysed here (the rest by the analysis helper thread). */
-    private readonly windowLimit = windowBounds.length - 1,
+    /** Shared with the analysis helper thread, which takes windows from the back: each window here is claimed first. */
+    private readonly claims: WindowClaims | null = null,
   ) {
+    this.windowLimit = windowBounds.length - 1;
     // Holds the pending window, one period folded back, and one incoming chunk.
     let capacity = 1;
     while (capacity < ROW_CHUNK + 3 * span + 16) capacity *= 2;
@@ -63,6 +67,11 @@ export class SecondPass implements RowSink, WindowSource {
     while (this.window < this.windowLimit) {
       const start = windowBounds[this.window]!;
       if (Math.min(Math.floor(start) - this.padding + this.span, this.recordSamples) > available) break;
+      if (this.claims && this.claims.takeFront() !== this.window) {
+        // The helper thread has taken this window and every later one.
+        this.windowLimit = this.window;
+        break;
+      }
       analyzer.addWindow(start, windowBounds[this.window + 1]! - start, this);
       this.window++;
     }

@@ -96,6 +96,46 @@ export interface AnalysisResult {
   sampleIntervalSource?: "time-column" | "preamble" | "option";
   /** First cycles of each channel, when `options.keepWaveformCycles` was given to the file path. */
   waveform?: WaveformExcerpt;
+  /** An interval log's own values summarised over the logged period (interval logs only; no waveform behind them). */
+  intervalLog?: IntervalLogStatistics;
+}
+
+/** What a logger stored per interval for a column (the interval mapping's `statistic`). */
+export type LoggedStatistic = "avg" | "max" | "min" | "p95" | "p99" | "other";
+
+/** One logged quantity over every logged interval, in its unit. */
+export interface IntervalValueStatistics {
+  /** √(mean of squares) of the interval values (the IEC 61000-4-30 aggregation of r.m.s. quantities). */
+  rmsMean: number;
+  /** 95th percentile of the interval values, nearest rank. */
+  p95: number;
+  max: number;
+  /** What each interval value is: the logger's per-interval statistic of the column behind it. */
+  logged: LoggedStatistic;
+}
+
+/** An interval-log channel's headline values; null where the log has no column for the quantity. */
+export interface IntervalChannelStatistics {
+  name: string;
+  quantity: Quantity;
+  unit: "A" | "V";
+  /** The logged r.m.s. column. */
+  rms: IntervalValueStatistics | null;
+  /** The logged order-1 column, else r.m.s. / √(1 + THD²) per interval when both are logged. */
+  fundamental: IntervalValueStatistics | null;
+  /** The logged THD column, % of the fundamental. */
+  thdPercent: IntervalValueStatistics | null;
+  /** THD × fundamental per interval, in A or V (TDD is this over IL); null without a THD column and a fundamental. */
+  distortion: IntervalValueStatistics | null;
+}
+
+/** An interval log summarised: how many values of what length, and each channel's statistics. */
+export interface IntervalLogStatistics {
+  intervalS: number;
+  rowCount: number;
+  startMs: number;
+  endMs: number;
+  channels: IntervalChannelStatistics[];
 }
 
 // ---------------------------------------------------------------------------------------------

@@ -1,15 +1,16 @@
 import "server-only";
 import { appUrl, sendMail } from "@/lib/mail/send";
+import { formatWhen } from "@/lib/reports/format";
 import { roleLabels, type Role } from "./permissions";
 
-/** E-mails an invitation link (`/invite/<token>`) to a user who has no password yet. */
+/** E-mails an invitation link (`/invite/<token>`) to a user who has no password yet, saying when it expires (the stored expiry, UTC). */
 export async function sendInvitationMail({
   user,
-  token,
+  invitation,
   actorName,
 }: {
   user: { email: string; name: string; role: Role };
-  token: string;
+  invitation: { token: string; expiresAt: Date };
   actorName: string;
 }): Promise<void> {
   await sendMail({
@@ -19,8 +20,8 @@ export async function sendInvitationMail({
       `Hello ${user.name},`,
       "",
       `${actorName} has invited you to Ordwise as ${roleLabels[user.role]}.`,
-      `Set your password here (the link works once, expires in 72 hours and replaces any earlier link):`,
-      appUrl(`/invite/${token}`),
+      `Set your password here; the link works once, replaces any earlier link and expires on ${formatWhen(invitation.expiresAt)}:`,
+      appUrl(`/invite/${invitation.token}`),
     ].join("\n"),
   });
 }

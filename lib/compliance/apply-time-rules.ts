@@ -1,10 +1,10 @@
 // Time rules (rules.timeRules): statistics of per-window or per-interval series against table
 // limit × multiplier. capture-mean.ts gives the table limit and the capture-mean comparison;
 // this file adds each rule's judgement and picks the rule that decides the verdict.
-import { causeText, decidedByRuleText, describeOrders, notEvaluatedText, partialSumText, ruleStatisticText, rulesNotAppliedText } from "../reports/result-wording";
+import { causeText, decidedByRuleText, loggedThdText, notEvaluatedText, partialSumText, ruleStatisticText, rulesNotAppliedText } from "../reports/result-wording";
 import { evaluateTimeRule, ruleMeasures, type TimeRuleOutcome } from "./evaluate-time-rule";
 import type { ChannelContext, ChannelTimeSeries, Derived, JudgedWithRules } from "./evaluation-types";
-import { captureMeanAggregate, captureMeanRow, missingHarmonic } from "./capture-mean";
+import { aggregateLimitRemark, captureMeanAggregate, captureMeanRow, missingHarmonic } from "./capture-mean";
 import type { AggregateRow, Band, Basis, OrderRow, TimeRule } from "./model";
 import { pohcAllowance } from "./pohc-allowance";
 import { CAPTURE_MEAN_RULE, type ComplianceAggregate, type ComplianceRow, type NotEvaluatedCause, type RowRuleResult } from "./result";
@@ -107,7 +107,7 @@ function aggregateSeries(aggregate: AggregateRow, ctx: ChannelContext): { values
     // Interval logs often carry THD but not every order: distortion = THD × fundamental.
     const values = new Float64Array(count);
     for (let k = 0; k < count; k++) values[k] = (time.thdPercent[k]! / 100) * time.fundamental[k]!;
-    return { values, unavailable: [], note: `from the logged THD column × fundamental (the logger's order range; orders ${describeOrders(unavailable)} not logged individually)` };
+    return { values, unavailable: [], note: loggedThdText(unavailable) };
   }
   for (let k = 0; k < count; k++) sum[k] = Math.sqrt(sum[k]!);
   return { values: count > 0 ? sum : null, unavailable };
@@ -118,7 +118,8 @@ export function judgeAggregate(aggregate: AggregateRow, band: Band, ctx: Channel
   const captureMean = captureMeanAggregate(aggregate, band, ctx);
   const rules = rulesFor(ctx, "aggregates", aggregate.name);
   if (rules.length === 0) return { captureMean, ruleResults: null };
-  if (!ctx.time?.timing) return { captureMean, ruleResults: ruleOutcomes(rules, captureMean, null, ctx) };
+  const limitRemark = aggregateLimitRemark(aggregate, band, ctx) ?? null;
+  if (!ctx.time?.timing) return { captureMean, ruleResults: ruleOutcomes(rules, captureMean, null, ctx), limitRemark };
   const { values, unavailable, note } = aggregateSeries(aggregate, ctx);
   const ruleResults = ruleOutcomes(rules, captureMean, values, ctx).map((outcome) => {
     if (note && outcome.verdict !== "not-evaluated") return { ...outcome, reason: [outcome.reason, note].filter(Boolean).join("; ") };
@@ -128,7 +129,7 @@ export function judgeAggregate(aggregate: AggregateRow, band: Band, ctx: Channel
     const cause: NotEvaluatedCause = { code: "partial-sum", unavailableOrders: unavailable, record: ctx.record };
     return { ...outcome, verdict: "not-evaluated" as const, reason: notEvaluatedText(cause), cause };
   });
-  return { captureMean, ruleResults };
+  return { captureMean, ruleResults, limitRemark };
 }
 
 /** The POHC allowance on each order's time rules that carry `pohcAllowance`. */
@@ -215,7 +216,9 @@ export function decideByRules<T extends ComplianceRow | ComplianceAggregate>(jud
   }
   const measured = decider.measured as number;
   const limit = decider.limit as number;
-  const reason = [decidedByRuleText(decider), decider.reason, captureMean.verdict !== "not-evaluated" ? captureMean.reason : undefined, skippedText].filter(Boolean).join("; ");
+  // The capture mean's own remarks (e.g. an aggregate summed without some orders) concern a value this verdict did not use.
+  const limitRemark = judged.limitRemark !== undefined ? judged.limitRemark : captureMean.verdict !== "not-evaluated" ? captureMean.reason : undefined;
+  const reason = [decidedByRuleText(decider), decider.reason, limitRemark, skippedText].filter(Boolean).join("; ");
   return {
     ...captureMean,
     measured,

@@ -118,6 +118,21 @@ function measuredOrders(aggregate: AggregateRow, ctx: ChannelContext) {
   return sumOrders(aggregate, (h) => (missingHarmonic(h, ctx) ? null : harmonicRms(h, ctx)));
 }
 
+/** "allowance condition only, …" for an aggregate that is not itself a requirement. */
+function roleNoteOf(aggregate: AggregateRow): string | undefined {
+  return aggregate.role === "allowance-condition" ? "allowance condition only, not itself a requirement" : undefined;
+}
+
+/**
+ * What an aggregate's capture-mean reason says of its limit alone (how the limit was derived, the
+ * aggregate's role), for a verdict a time rule decided: the capture mean's own remarks (e.g. its sum
+ * missing orders) concern a value the verdict did not use. Undefined when there is nothing to say.
+ */
+export function aggregateLimitRemark(aggregate: AggregateRow, band: Band, ctx: ChannelContext): string | undefined {
+  const limit = aggregateLimit(aggregate, band, ctx);
+  return [limit.ok ? limit.derivation : undefined, roleNoteOf(aggregate)].filter(Boolean).join("; ") || undefined;
+}
+
 /** One aggregate's capture-mean value against its limit. */
 export function captureMeanAggregate(aggregate: AggregateRow, band: Band, ctx: ChannelContext): ComplianceAggregate {
   const unit = unitOf(aggregate.basis);
@@ -127,7 +142,7 @@ export function captureMeanAggregate(aggregate: AggregateRow, band: Band, ctx: C
   const { total, unavailable } = measuredOrders(aggregate, ctx);
   const measured = toBasis(total, aggregate.basis, ctx);
   const measuredValue = measured.ok ? measured.value : null;
-  const roleNote = aggregate.role === "allowance-condition" ? "allowance condition only, not itself a requirement" : undefined;
+  const roleNote = roleNoteOf(aggregate);
   const nonFinite = nonFiniteCause(measuredValue, limitValue, [total]);
   if (nonFinite) return notEvaluatedRow({ ...base, ...nonFiniteComparison(nonFinite, measuredValue, limitValue) }, nonFinite, roleNote);
   const shown = { ...base, ...comparison(measuredValue, limitValue) };

@@ -78,6 +78,8 @@ export interface ChannelContext {
 export interface JudgedWithRules<T> {
   captureMean: T;
   ruleResults: TimeRuleOutcome[] | null;
+  /** What the capture mean's reason says of the limit alone, for a verdict a time rule decides (aggregates; null: nothing); absent: its whole reason. */
+  limitRemark?: string | null;
 }
 
 /** How a record is named in reasons. */

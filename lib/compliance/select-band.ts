@@ -1,6 +1,6 @@
 // Choosing the applicability band of a limit set for an evaluation context, with a reason a
 // reviewer can check ("Isc/IL = 50 exactly → 50 ≤ Isc/IL < 100 because …").
-import { bandNotChosenText, CRITERION_NAMES, noBandText, phaseConfigText } from "../reports/result-wording";
+import { bandNotChosenText, CRITERION_NAMES, criterionValueText, formatContextValue, noBandText, phaseConfigText } from "../reports/band-wording";
 import type { Band, EvaluationContext, LimitSetRevisionContent, Range } from "./model";
 import type { BandCriterion } from "./result";
 
@@ -89,29 +89,18 @@ function checkBand(band: Band, context: EvaluationContext, generatorOverride: bo
       continue;
     }
     const { name, unit } = CRITERION_NAMES[criterion];
-    const shown =
-      criterion === "iscOverIl"
-        ? `Isc/IL = ${formatBoundValue(value)} (${context.iscA} A / ${context.ilA} A)`
-        : `${name} = ${formatBoundValue(value)}${unit}`;
+    const shown = criterion === "iscOverIl" ? `${criterionValueText(criterion, value)} (${context.iscA} A / ${context.ilA} A)` : criterionValueText(criterion, value);
     let text = `${shown} is in ${describeRange(range, name, unit)}`;
     const atBound = value === range.min || value === range.max;
     if (atBound) {
       // Plain words from the typed bounds; the limit set's own boundary text (with its provenance)
       // stays in the limit-table screens, and its interpretation is in the limit set's notes.
       const atLower = value === range.min;
-      text += ` — exactly at the bound ${formatBoundValue(value)}, which this band includes as its ${atLower ? "lower" : "upper"} bound, so a value on the bound uses the ${atLower ? "higher" : "lower"} row (this one)`;
+      text += ` — exactly at the bound ${formatContextValue(value)}, which this band includes as its ${atLower ? "lower" : "upper"} bound, so a value on the bound uses the ${atLower ? "higher" : "lower"} row (this one)`;
     }
     checks.push({ result: "match", text });
   }
   return checks;
-}
-
-/**
- * A context value beside a band's bounds, to six significant figures (not the four of formatNumber):
- * a value just below a bound (Isc/IL = 49.9996) must not print as the bound itself.
- */
-function formatBoundValue(value: number): string {
-  return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
 }
 
 /**

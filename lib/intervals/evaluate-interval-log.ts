@@ -2,6 +2,7 @@ import type { AnalysisResult, ChannelResult, HarmonicValue } from "../analysis/t
 import { evaluateCompliance, type EvaluateComplianceInput, type TimeSeriesInput } from "../compliance/evaluate-compliance";
 import type { Basis, EvaluationContext } from "../compliance/model";
 import { CAPTURE_MEAN_RULE, type ComplianceResult, type ComplianceRow } from "../compliance/result";
+import { fundamentalSeries } from "./fundamental-series";
 import { thinIntervalTrends } from "./thin-interval-trends";
 import type { IntervalGap, IntervalLog, IntervalTrend, IntervalTrendSeries } from "./types";
 
@@ -16,16 +17,6 @@ function rmsOf(values: ArrayLike<number>): number {
   let sum = 0;
   for (let k = 0; k < values.length; k++) sum += values[k]! * values[k]!;
   return values.length > 0 ? Math.sqrt(sum / values.length) : 0;
-}
-
-/** Fundamental per row: the logged order 1, else r.m.s. / √(1 + THD²). */
-function fundamentalSeries(channel: IntervalLog["channels"][number]): Float64Array | null {
-  const logged = channel.orders.get(1);
-  if (logged) return logged;
-  if (!channel.rms || !channel.thdPercent) return null;
-  const out = new Float64Array(channel.rms.length);
-  for (let k = 0; k < out.length; k++) out[k] = channel.rms[k]! / Math.sqrt(1 + (channel.thdPercent[k]! / 100) ** 2);
-  return out;
 }
 
 function basisFactor(basis: Basis, context: EvaluationContext, irefA: number | undefined): number | null {

@@ -2,6 +2,7 @@
 // mapped column only — the text is never held whole, so a large log is read as a stream.
 import { parseNumber } from "@/lib/analysis/parse-number";
 import { MAX_SAMPLE_MAGNITUDE } from "@/lib/analysis/row-collector";
+import { formatDurationS } from "@/lib/reports/result-wording";
 import { IntervalLogError, type IntervalLogIssue } from "./errors";
 import { parseTimestamp, TIMESTAMP_FORMATS_TEXT } from "./parse-timestamp";
 import { IntervalMappingSchema, type IntervalGap, type IntervalLog, type IntervalLogChannel, type IntervalMapping, type IntervalMappingInput } from "./types";
@@ -38,12 +39,6 @@ function formatMs(ms: number): string {
   const iso = new Date(ms).toISOString();
   const seconds = iso.slice(16, 23) === ":00.000" ? "" : iso.slice(16, 19);
   return `${iso.slice(0, 10)} ${iso.slice(11, 16)}${seconds} UTC`;
-}
-
-function formatS(seconds: number): string {
-  if (seconds >= 3600) return `${Number((seconds / 3600).toPrecision(3))} h`;
-  if (seconds >= 60) return `${Number((seconds / 60).toPrecision(3))} min`;
-  return `${Number(seconds.toPrecision(3))} s`;
 }
 
 /**
@@ -214,11 +209,11 @@ function buildIntervalLog(mapping: IntervalMapping, times: number[], rowLines: n
       };
       gaps.push(gap);
       warnings.push(
-        `gap of ${formatS(gap.durationS)} (${gap.missingIntervals} interval${gap.missingIntervals === 1 ? "" : "s"} missing) between line ${rowLines[k]} (${formatMs(times[k]!)}) and line ${rowLines[k + 1]} (${formatMs(times[k + 1]!)}); not bridged`,
+        `gap of ${formatDurationS(gap.durationS)} (${gap.missingIntervals} interval${gap.missingIntervals === 1 ? "" : "s"} missing) between line ${rowLines[k]} (${formatMs(times[k]!)}) and line ${rowLines[k + 1]} (${formatMs(times[k + 1]!)}); not bridged`,
       );
     } else if (Math.abs(spacingS - intervalS) > 0.1 * intervalS) irregular += 1;
   });
-  if (irregular > 0) warnings.push(`${irregular} row spacing(s) differ from the ${formatS(intervalS)} interval by more than 10 %`);
+  if (irregular > 0) warnings.push(`${irregular} row spacing(s) differ from the ${formatDurationS(intervalS)} interval by more than 10 %`);
 
   // Channels in mapping order; % orders × fundamental.
   const n = times.length;
@@ -240,14 +235,20 @@ function buildIntervalLog(mapping: IntervalMapping, times: number[], rowLines: n
     const values = raw[j]!; // converted in place below
     if (c.kind === "thd") {
       channel.thdPercent = values;
+      channel.logged = { ...channel.logged, thd: c.statistic };
       return;
     }
     if (c.unit === "%") {
       const fundamental = fundamentals.get(c.channel)!;
       for (let k = 0; k < n; k++) values[k] = (values[k]! / 100) * fundamental[k]!;
     } else for (let k = 0; k < n; k++) values[k] = values[k]! * c.scale;
-    if (c.kind === "rms") channel.rms = values;
-    else channel.orders.set(c.order as number, values);
+    if (c.kind === "rms") {
+      channel.rms = values;
+      channel.logged = { ...channel.logged, rms: c.statistic };
+    } else {
+      channel.orders.set(c.order as number, values);
+      if (c.order === 1) channel.logged = { ...channel.logged, fundamental: c.statistic };
+    }
   });
   for (const channel of channels.values()) {
     if (channel.orders.size === 0 && channel.thdPercent === null) warnings.push(`channel ${channel.name} has no harmonic or THD column`);

@@ -73,6 +73,8 @@ export interface IntervalLogChannel {
   orders: Map<number, Float64Array>;
   rms: Float64Array | null;
   thdPercent: Float64Array | null;
+  /** What the logger stored per interval in the r.m.s., order-1 and THD columns (the mapping's `statistic`); absent: not said. */
+  logged?: { rms?: IntervalColumn["statistic"]; fundamental?: IntervalColumn["statistic"]; thd?: IntervalColumn["statistic"] };
 }
 
 export interface IntervalLog {

@@ -4,6 +4,7 @@ import type { AnalysisResult } from "@/lib/analysis/types";
 import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ComplianceResult } from "@/lib/compliance/result";
 import { evaluateIntervalLog, type IntervalLogEvaluation, type IntervalTrend } from "@/lib/intervals/evaluate-interval-log";
+import { intervalStatistics } from "@/lib/intervals/interval-statistics";
 import type { IntervalLog } from "@/lib/intervals/types";
 import { formatDurationS, formatUtc } from "@/lib/reports/result-wording";
 import type { LimitSetRevision } from "./types";
@@ -11,7 +12,7 @@ import type { LimitSetRevision } from "./types";
 /**
  * Judges an imported interval log (importIntervalLogFile / importIntervalLog). Returns the
  * evaluation, the trends for the charts (at most ~2,000 points per series) and a summary in the
- * analysis shape (no channels, no waveform), so an interval log is stored and listed like any
+ * analysis shape (no channels, no waveform; `intervalLog` holds each channel's logged statistics for the headline numbers), so an interval log is stored and listed like any
  * capture. The worker's first evaluation and every "evaluate again" call this.
  *
  * @example
@@ -43,6 +44,7 @@ export function runIntervalLogEvaluation(
     channels: [],
     power: { phases: [], total: null },
     warnings: [...summary.warnings, ...gapWarnings],
+    intervalLog: intervalStatistics(log),
   };
   return {
     analysis,

@@ -1,8 +1,7 @@
 // The limit sets as shipped in the seed files, in the shape the database gives a current revision.
-import { getSeedLimitSet, seedLimitSets } from "@/lib/compliance/seed";
+import { getSeedLimitSet, seedLimitSetInputs } from "@/lib/compliance/seed";
 import type { LimitSetRevision } from "./types";
 import { UnknownLimitSetError } from "./unknown-limit-set-error";
-
 
 /**
  * The seed files' content of a limit set, as revision "seed:KEY" number 1 (the revision a fresh
@@ -14,6 +13,6 @@ import { UnknownLimitSetError } from "./unknown-limit-set-error";
  */
 export function seedLimitSetRevision(key: string): LimitSetRevision {
   const seed = getSeedLimitSet(key);
-  if (!seed) throw new UnknownLimitSetError(`unknown limit set "${key}"; known keys: ${seedLimitSets.map((s) => s.key).join(", ")}`);
+  if (!seed) throw new UnknownLimitSetError(`unknown limit set "${key}"; known keys: ${seedLimitSetInputs.map((s) => s.content.key).join(", ")}`);
   return { key: seed.key, name: seed.name, revisionId: `seed:${seed.key}`, revisionNumber: 1, content: seed.content };
 }

@@ -16,7 +16,7 @@ export type AnalysisSummary = HeadlineSource & {
 /**
  * An analysis result without its bulky arrays: the fundamental frequency, sample interval, power, each
  * three-phase set's sequence values without the per-order ones, and each channel's scalars (r.m.s., THD,
- * crest factor, K-factor, …) without harmonics, groups and window series. The same projection is built in
+ * crest factor, K-factor, …) without harmonics, groups and window series, and an interval log's statistics. The same projection is built in
  * SQL for analyses stored before the summary was (db/queries/captures.ts, migration 0008). O(channels).
  *
  * @example analysisSummary(result).channels[0].thdPercent // 31.2 — and no `harmonics` key
@@ -28,5 +28,6 @@ export function analysisSummary(result: AnalysisResult): AnalysisSummary {
     power: result.power,
     sequence: (result.sequence ?? []).map(({ orders: _orders, ...set }) => set),
     channels: result.channels.map(({ harmonics: _h, series: _s, harmonicSeries: _hs, groups: _g, ...channel }) => channel),
+    ...(result.intervalLog ? { intervalLog: result.intervalLog } : {}),
   };
 }

@@ -25,7 +25,8 @@ const line = (cells: Cell[]) => Papa.unparse([cells.map(cell)], { escapeFormulae
 /**
  * The pass/fail sheet as CSV: a header block (capture, site, limit set, revision, band, context,
  * verdict, time rules and their basis), the headline numbers (one small table each for currents,
- * voltages, power and unbalance, raw values, units in the column labels), a blank line, then one row per channel and order with
+ * voltages, power and unbalance, raw values, units in the column labels; an interval log's logged
+ * statistics with what they were taken over, and "not logged" for what the log lacks), a blank line, then one row per channel and order with
  * channel, order, measured, limit, unit, percent_of_limit, margin, verdict, decided_by (the deciding
  * rule in words, e.g. "max 1.5 s smoothed ×1.5" — never an internal id), table_limit (before a
  * rule's multiplier), reason; then, after a blank line,
@@ -69,6 +70,7 @@ export function buildSheetCsv(sheet: SheetReport): string {
   for (const table of headline ? headlineTable(headline) : []) {
     lines.push("");
     lines.push(line([`Headline numbers: ${table.title.toLowerCase()}`, ...table.columns.map((c) => c.label)]));
+    if (table.caption) lines.push(line(["Taken over", table.caption]));
     for (const row of table.rows) lines.push(line([row.label, ...row.values]));
   }
   lines.push("");

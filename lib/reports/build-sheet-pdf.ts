@@ -1,8 +1,8 @@
 import "server-only";
 import PDFDocument from "pdfkit";
 import { formatWhen, verdictLabel } from "./format";
-import { addMitigationStudyPages, type StudyForReport } from "./mitigation-study-pages";
 import { addChannel } from "./pdf/add-channel";
+import { addMitigationStudies, type StudyForReport } from "./pdf/add-mitigation-studies";
 import { addPageFooters } from "./pdf/add-page-footers";
 import { addSafetyCaution } from "./pdf/add-safety-caution";
 import { addSignOff } from "./pdf/add-sign-off";
@@ -76,7 +76,7 @@ export function buildSheetPdf(sheet: SheetReport, options: SheetPdfOptions = {})
     }
   }
   addSignOff(w, sheet, { includeComments: options.includeComments !== false });
-  if (options.studies?.length) addMitigationStudyPages(doc, options.studies, { margin: PAGE_MARGIN, safe: pdfSafe, formatWhen });
+  if (options.studies?.length) addMitigationStudies(w, options.studies);
 
   addPageFooters(w, `${sheet.capture.title} · ${evaluation.limitSetName}, revision ${evaluation.revisionNumber} · generated ${formatWhen(generatedAt)}`);
   doc.end();

@@ -3,7 +3,7 @@
 import type { EvaluationContext } from "@/lib/compliance/model";
 import { formatNumber } from "@/lib/compliance/format-number";
 import type { AggregateVerdict, ComplianceRow, OverallVerdict, RowVerdict } from "@/lib/compliance/result";
-import { causeText, thresholdText } from "./result-wording";
+import { causeText, formatUtc, thresholdText } from "./result-wording";
 
 export type AnyVerdict = RowVerdict | AggregateVerdict | OverallVerdict;
 
@@ -27,6 +27,26 @@ export const reviewStateLabels: Record<string, string> = {
   sent_back: "Sent back",
 };
 
+/** A capture's processing status where statuses are listed or filtered. */
+export const captureStatusLabels: Record<string, string> = {
+  uploading: "Uploading",
+  uploaded: "Needs mapping",
+  queued: "Queued",
+  running: "Analysing",
+  done: "Analysed",
+  failed: "Failed",
+};
+
+/** The same status as the capture's own page says it, as a sentence. */
+export const captureStatusSentences: Record<string, string> = {
+  uploading: "Waiting for the file to arrive",
+  uploaded: "Uploaded — the channels need mapping before analysis",
+  queued: "Queued for analysis",
+  running: "Analysing",
+  done: "Analysed",
+  failed: "The analysis failed",
+};
+
 export const reviewActionLabels: Record<string, string> = {
   submitted: "Submitted for review",
   approved: "Approved",
@@ -36,6 +56,22 @@ export const reviewActionLabels: Record<string, string> = {
 
 /** The one number formatter (lib/compliance/format-number.ts), under the name the renderers use. */
 export { formatNumber };
+
+/**
+ * A text that starts a sentence on its own, with its first letter in upper case: the engine's
+ * messages start in lower case (they also follow "error: " on the command line and a colon
+ * on the set-up page). O(length).
+ *
+ * @example sentenceStart("no sample interval: the file has no time column") // "No sample interval: the file has no time column"
+ */
+export function sentenceStart(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/** Why an analysis failed, shown on its own under "Why it failed": the stored reason as a sentence, or that none was recorded. */
+export function failureReasonText(reason: string | null | undefined): string {
+  return reason ? sentenceStart(reason) : "No reason was recorded.";
+}
 
 /** Percent of limit with one decimal, "—" when absent. */
 export function formatPercent(x: number | null | undefined): string {
@@ -50,9 +86,7 @@ export function formatMargin(x: number | null | undefined): string {
 
 /** UTC date and time to the minute, the same on the server, in the browser and in the PDF. */
 export function formatWhen(d: Date | string | null | undefined): string {
-  if (!d) return "—";
-  const date = typeof d === "string" ? new Date(d) : d;
-  return `${date.toISOString().slice(0, 16).replace("T", " ")} UTC`;
+  return d ? formatUtc(new Date(d).getTime()) : "—";
 }
 
 const phaseConfigLabels: Record<string, string> = {

@@ -1,5 +1,5 @@
 // The numbers a reader looks at first, per channel, per V–I pair and for the three-phase total.
-import type { AnalysisResult, ChannelResult, Quantity, SequenceSet } from "@/lib/analysis/types";
+import type { AnalysisResult, ChannelResult, IntervalChannelStatistics, IntervalLogStatistics, IntervalValueStatistics, Quantity, SequenceSet } from "@/lib/analysis/types";
 import type { EvaluationContext } from "@/lib/compliance/model";
 
 export interface HeadlineChannel {
@@ -49,11 +49,30 @@ export interface HeadlineUnbalance {
   unbalancePercent: number;
 }
 
+/** An interval-log channel's logged statistics, with TDD (% of IL) where IL was given. */
+export interface HeadlineIntervalChannel extends IntervalChannelStatistics {
+  /** The distortion's statistics over IL, % (currents with a distortion and an IL only). */
+  tddPercent: IntervalValueStatistics | null;
+}
+
+/** An interval log's headline numbers: what its columns say over the logged period. */
+export interface HeadlineIntervalLog {
+  intervalS: number;
+  rowCount: number;
+  startMs: number;
+  endMs: number;
+  /** The IL TDD is taken against, A; null when none was given. */
+  ilA: number | null;
+  channels: HeadlineIntervalChannel[];
+}
+
 export interface HeadlineNumbers {
   fundamentalHz: number;
   channels: HeadlineChannel[];
   power: HeadlinePower[];
   unbalance: HeadlineUnbalance[];
+  /** Interval logs only: their logged statistics (they have no waveform, so no channels, power or unbalance). */
+  intervalLog?: HeadlineIntervalLog;
 }
 
 /**
@@ -67,6 +86,8 @@ export interface HeadlineSource {
   >;
   power: AnalysisResult["power"];
   sequence?: Array<Pick<SequenceSet, "quantity" | "channels" | "unbalancePercent">>;
+  /** An interval log's logged statistics (interval logs have no channels of their own). */
+  intervalLog?: IntervalLogStatistics | null;
 }
 
 const finite = (x: number | null | undefined): number | null => (typeof x === "number" && Number.isFinite(x) ? x : null);
@@ -87,7 +108,9 @@ function leadLagOf(angleDeg: number | null | undefined): LeadLag | null {
  * displacement factor ΣP1/ΣS1 (P1 = V1·I1·cos θ1, S1 = V1·I1 per phase; IEEE 1459-2010 §3.2 defines
  * the per-phase terms) and distortion factor √ΣI1²/√ΣIrms²; and the fundamental unbalance of each
  * recognised three-phase set. Values the engine could not compute (NaN, stored as null) are null.
- * Null when there is no analysis. O(channels + pairs).
+ * An interval log (no waveform) has instead its logged statistics per channel (`intervalLog`: r.m.s.
+ * mean, 95th percentile and maximum of the logged r.m.s., fundamental, THD and distortion, and TDD
+ * against the context's IL). Null when there is no analysis. O(channels + pairs).
  *
  * @example
  * headlineNumbers(analysis, { ilA: 260 })?.channels[0]?.tddPercent // 7.4
@@ -171,5 +194,24 @@ export function headlineNumbers(analysis: HeadlineSource | null | undefined, con
     .filter((s) => Number.isFinite(s.unbalancePercent))
     .map((s) => ({ quantity: s.quantity, channels: s.channels, unbalancePercent: s.unbalancePercent }));
 
-  return { fundamentalHz: analysis.fundamentalHz, channels, power, unbalance };
+  const log = analysis.intervalLog;
+  const intervalLog: HeadlineIntervalLog | undefined = log
+    ? {
+        intervalS: log.intervalS,
+        rowCount: log.rowCount,
+        startMs: log.startMs,
+        endMs: log.endMs,
+        ilA,
+        channels: log.channels.map((c) => ({
+          ...c,
+          // TDD = distortion / IL with IL constant: each statistic of TDD is that of the distortion over IL.
+          tddPercent:
+            c.quantity === "current" && c.distortion && ilA !== null && ilA > 0
+              ? { ...c.distortion, rmsMean: (c.distortion.rmsMean / ilA) * 100, p95: (c.distortion.p95 / ilA) * 100, max: (c.distortion.max / ilA) * 100 }
+              : null,
+        })),
+      }
+    : undefined;
+
+  return { fundamentalHz: analysis.fundamentalHz, channels, power, unbalance, ...(intervalLog ? { intervalLog } : {}) };
 }

@@ -1,12 +1,12 @@
 // The one place where an evaluation's typed fields become words: not-evaluated causes, what a
-// time rule measures, its short name, accumulation notes and the threshold sentence. The
+// time rule measures, its short name, accumulation notes and the threshold sentence (the band
+// choice's words are beside it in band-wording.ts). The
 // evaluator (for its `reason` texts and the CLI), the sheet, the share page, the PDF and the
 // CSV all call these; nothing parses the words back. Relative imports: the evaluator and the
 // CLI import this file too.
 import { formatNumber } from "../compliance/format-number";
 import {
   CAPTURE_MEAN_RULE,
-  type BandCriterion,
   type ConditionResult,
   type ContextInput,
   type NotEvaluatedCause,
@@ -21,17 +21,27 @@ import {
 
 type IntervalS = NonNullable<RuleStatistic["intervalS"]>;
 
-/** "600 s" → "10 min", 86400 → "24 h", 604800 → "7 days", 2.04 → "2.04 s". */
+/**
+ * A duration for people, the one duration wording of the sheet, the PDF, the CSV and the importers'
+ * messages: from an hour up to the nearest minute ("1 h 31 min"), from a minute up to the nearest
+ * second ("2 min 5 s"), below that three significant figures ("2.04 s"); whole days as hours
+ * ("24 h", "48 h") except a week ("7 days"). O(1).
+ *
+ * @example formatDurationS(600) // "10 min"
+ */
 export function formatDurationS(seconds: number): string {
   if (seconds >= 86_400 && Number.isInteger(seconds / 86_400)) return seconds / 86_400 === 7 ? "7 days" : `${seconds / 3600} h`;
   if (seconds >= 3600) {
-    const h = Math.floor(seconds / 3600);
-    const min = Math.round((seconds - h * 3600) / 60);
+    // Rounded first, so 7199 s reads "2 h", never "1 h 60 min".
+    const minutes = Math.round(seconds / 60);
+    const h = Math.floor(minutes / 60);
+    const min = minutes - h * 60;
     return min === 0 ? `${h} h` : `${h} h ${min} min`;
   }
   if (seconds >= 60) {
-    const min = Math.floor(seconds / 60);
-    const s = Math.round(seconds - min * 60);
+    const whole = Math.round(seconds);
+    const min = Math.floor(whole / 60);
+    const s = whole - min * 60;
     return s === 0 ? `${min} min` : `${min} min ${s} s`;
   }
   return `${Number(seconds.toPrecision(3))} s`;
@@ -113,6 +123,16 @@ export function partialSumText(unavailableOrders: number[], record: "analysis" |
   return `${gap}; the partial value ${alreadyFails ? "already exceeds the limit" : "cannot show compliance"}`;
 }
 
+/**
+ * How an interval log's THD or TDD values were formed when the log does not hold every order of the
+ * aggregate: from its THD column, which covers the logger's own order range.
+ *
+ * @example loggedThdText([6, 8, 10, 12]) // "distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders 6–12 (4 orders) are not logged one by one)"
+ */
+export function loggedThdText(unloggedOrders: number[]): string {
+  return `distortion per interval from the logged THD × the fundamental, over the logger's own order range (orders ${describeOrders(unloggedOrders)} are not logged one by one)`;
+}
+
 /** "not evaluated: " + the cause. */
 export function notEvaluatedText(cause: NotEvaluatedCause): string {
   return `not evaluated: ${causeText(cause)}`;
@@ -140,7 +160,9 @@ function ordinal(p: number): string {
 export function statisticText(measures: RuleStatistic): string {
   if (measures.kind === "capture-mean") return `r.m.s. mean over the capture's ${measures.windowCount ?? 0} window(s)`;
   const what = measures.kind === "mean" ? "average" : measures.kind === "max" ? "maximum" : `${ordinal(measures.percentile ?? 0)} percentile (nearest rank)`;
-  const over = measures.accumulationS === undefined ? " over the observation period" : ` per ${formatDurationS(measures.accumulationS)} period (worst period)`;
+  // "per 7-day period", "per 24 h period".
+  const period = measures.accumulationS === 7 * 86_400 ? "7-day" : measures.accumulationS === undefined ? "" : formatDurationS(measures.accumulationS);
+  const over = measures.accumulationS === undefined ? " over the observation period" : ` per ${period} period (worst period)`;
   return `${what} of ${VALUES_NAME[measures.intervalS ?? 0]}${over}`;
 }
 
@@ -251,64 +273,8 @@ export function formatUtc(ms: number): string {
 }
 
 /** "a, b and c". */
-function joinAnd(items: string[]): string {
+export function joinAnd(items: string[]): string {
   return items.length <= 1 ? (items[0] ?? "") : `${items.slice(0, -1).join(", ")} and ${items[items.length - 1]}`;
-}
-
-/** What the user must give to choose a band by each criterion, in a reader's words. */
-const CRITERION_NEEDS: Record<BandCriterion, string> = {
-  iscOverIl: "Isc and IL (for Isc/IL)",
-  busVoltageV: "the bus voltage",
-  rsce: "Rsce",
-  ratedPowerW: "the rated power P",
-  phaseConfig: "the phase configuration",
-};
-
-/** A criterion's name and unit where its value is quoted ("bus voltage = 11000 V"). */
-export const CRITERION_NAMES: Record<BandCriterion, { name: string; unit: string }> = {
-  iscOverIl: { name: "Isc/IL", unit: "" },
-  busVoltageV: { name: "bus voltage", unit: " V" },
-  rsce: { name: "Rsce", unit: "" },
-  ratedPowerW: { name: "rated power", unit: " W" },
-  phaseConfig: { name: "phase configuration", unit: "" },
-};
-
-const PHASE_CONFIG_WORDS: Record<string, string> = {
-  "single-phase": "single-phase",
-  "balanced-three-phase": "balanced three-phase",
-  other: "other than single-phase or balanced three-phase",
-};
-
-/** A phase configuration of the context in words ("balanced three-phase"). */
-export function phaseConfigText(value: string): string {
-  return PHASE_CONFIG_WORDS[value] ?? value;
-}
-
-/** A context value as a reader writes it: whole numbers from 10,000 up, else 6 significant digits (3469020 W, 31.5385). */
-function contextNumber(value: number): string {
-  return Math.abs(value) >= 1e4 ? String(Math.round(value)) : String(Number(value.toPrecision(6)));
-}
-
-/** "bus voltage = 11000 V", "phase configuration balanced three-phase". */
-export function criterionValueText(criterion: BandCriterion, value: number | string): string {
-  const { name, unit } = CRITERION_NAMES[criterion];
-  if (typeof value === "string") return `${name} ${criterion === "phaseConfig" ? phaseConfigText(value) : value}`;
-  return `${name} = ${contextNumber(value)}${unit}`;
-}
-
-/**
- * Why no band was chosen because inputs are missing.
- *
- * @example bandNotChosenText(["busVoltageV", "iscOverIl"], 13) // "band not chosen: the bus voltage and Isc and IL (for Isc/IL) not given (needed to choose among the 13 bands of this limit set)"
- */
-export function bandNotChosenText(missing: BandCriterion[], bandCount: number): string {
-  return `band not chosen: ${joinAnd(missing.map((criterion) => CRITERION_NEEDS[criterion]))} not given (needed to choose among the ${bandCount} bands of this limit set)`;
-}
-
-/** Why no band applies: the context's values of the criteria the set's bands use, and the bands there are. */
-export function noBandText(values: Array<[BandCriterion, number | string]>, bandLabels: string[]): string {
-  const given = values.length > 0 ? values.map(([criterion, value]) => criterionValueText(criterion, value)).join(", ") : "this context";
-  return `no band of this limit set applies to ${given}; its bands: ${bandLabels.join("; ")}`;
 }
 
 /** A band condition's standing (conditions cannot be checked from harmonic magnitudes; an engineer confirms them). */
@@ -335,13 +301,15 @@ function groupedByCause(results: Array<Pick<RowRuleResult, "label" | "cause">>):
  * The time rules a row or aggregate could not apply: its own reasons rule by rule (grouped by cause);
  * rules the whole record cannot support (too short, no band…) are pointed to the notes, which say why once.
  *
- * @example rulesNotAppliedText(results) // "time rules not applied to this record (see Notes)"
+ * @example rulesNotAppliedText(results) // "1 time rule not applied to this record (see Notes)"
  */
 export function rulesNotAppliedText(results: Array<Pick<RowRuleResult, "label" | "cause">>): string | undefined {
   if (results.length === 0) return undefined;
   const own = results.filter((result) => !result.cause || !RECORD_CAUSES.has(result.cause.code));
-  if (own.length === 0) return "time rules not applied to this record (see Notes)";
-  const others = own.length < results.length ? "; the other time rules not applied to this record (see Notes)" : "";
+  const count = (n: number) => (n === 1 ? "1 time rule" : `${n} time rules`);
+  if (own.length === 0) return `${count(results.length)} not applied to this record (see Notes)`;
+  const rest = results.length - own.length;
+  const others = rest > 0 ? `; ${rest === 1 ? "1 other time rule" : `${rest} other time rules`} not applied to this record (see Notes)` : "";
   return `time rules not applied: ${groupedByCause(own)}${others}`;
 }
 

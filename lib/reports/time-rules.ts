@@ -2,7 +2,7 @@
 // verdict, what each rule measures, and what the rules were evaluated on.
 import type { ComplianceAggregate, ComplianceRow, RowRuleResult, TimeBasis, TimeRuleSummary } from "@/lib/compliance/result";
 import { formatNumber, formatPercent } from "./format";
-import { accumulationText, formatMultiplier, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
+import { accumulationText, formatDurationS, formatMultiplier, formatUtc, intervalText, shortRuleLabel, statisticText, timeRuleSummaryNote } from "./result-wording";
 
 /** A rule of the revision as the time-rules panel lists it. */
 export interface TimeRuleLine extends Omit<TimeRuleSummary, "accumulation" | "reason"> {
@@ -67,16 +67,9 @@ export function tableLimitIfDifferent(row: Pick<ComplianceRow, "limit" | "decide
   return Math.abs(table - row.limit) <= 1e-9 * Math.max(Math.abs(table), Math.abs(row.limit)) ? null : table;
 }
 
-/** The table limit of a row: the deciding rule's, else the applied limit (snapshot rows use the table limit as is). */
+/** The table limit of a row: the deciding rule's, else the applied limit (capture-mean rows use the table limit as is). */
 export function tableLimitOf(row: Pick<ComplianceRow, "limit" | "decidedBy" | "rowRules">): number | null {
   return decidingRule(row)?.tableLimit ?? row.limit;
-}
-
-function formatDuration(seconds: number): string {
-  if (seconds >= 86_400) return `${Number((seconds / 86_400).toPrecision(3))} days`;
-  if (seconds >= 3600) return `${Number((seconds / 3600).toPrecision(3))} h`;
-  if (seconds >= 60) return `${Number((seconds / 60).toPrecision(3))} min`;
-  return `${Number(seconds.toPrecision(3))} s`;
 }
 
 const COVERAGE: Record<TimeBasis["coverage"], string> = {
@@ -91,9 +84,9 @@ const COVERAGE: Record<TimeBasis["coverage"], string> = {
  */
 export function describeTimeBasis(basis: TimeBasis): Array<[string, string]> {
   const source = basis.source === "windows" ? "10/12-cycle analysis windows" : basis.source === "interval-log" ? "interval log" : "no per-value series";
-  const out: Array<[string, string]> = [["Record", `${formatDuration(basis.durationS)} of ${source}`]];
-  out.push(["Values", basis.valueS !== null ? `${basis.valueCount} × ${formatDuration(basis.valueS)}` : String(basis.valueCount)]);
-  if (basis.startMs !== null) out.push(["Starts", `${new Date(basis.startMs).toISOString().slice(0, 16).replace("T", " ")} UTC`]);
+  const out: Array<[string, string]> = [["Record", `${formatDurationS(basis.durationS)} of ${source}`]];
+  out.push(["Values", basis.valueS !== null ? `${basis.valueCount} × ${formatDurationS(basis.valueS)}` : String(basis.valueCount)]);
+  if (basis.startMs !== null) out.push(["Starts", formatUtc(basis.startMs)]);
   const fallback = basis.snapshotFallback
     ? "; where a rule cannot be evaluated the capture r.m.s. mean is compared with 1.0 × the limit"
     : "; a rule that cannot be evaluated leaves its rows not evaluated";
@@ -159,14 +152,14 @@ export function formatPercentOfLimit(
   const table = tableLimitOf(row);
   const pct = percentOfTableLimit(row);
   // `standalone` (a card or a line of text, no "% of limit" column heading above): "87.7 % of the limit".
-  const noun = options.standalone ? " of the limit" : "";
-  if (pct === null || table === null || row.limit === null || row.measured === null) return `${formatPercent(row.percentOfLimit)}${row.percentOfLimit === null ? "" : noun}`;
+  const ofTheLimit = options.standalone ? " of the limit" : "";
+  if (pct === null || table === null || row.limit === null || row.measured === null) return `${formatPercent(row.percentOfLimit)}${row.percentOfLimit === null ? "" : ofTheLimit}`;
   const allowedPct = (row.limit / table) * 100;
   const fails = row.verdict === "fail";
   if (options.compact) return `${pct.toFixed(decimalsToShowExcess(pct, allowedPct, fails))} %`;
   const scaled = Math.abs(allowedPct - 100) > 1e-9;
   const digits = fails ? 1 : decimalsToShowExcess(pct, allowedPct, false);
-  const shown = `${pct.toFixed(digits)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : noun}`;
+  const shown = `${pct.toFixed(digits)} %${scaled ? ` of the table limit — rule allows ${formatNumber(allowedPct)} %` : ofTheLimit}`;
   if (!fails || decimalsToShowExcess(pct, allowedPct, fails) === 1) return shown;
   const over = (row.measured / row.limit - 1) * 100;
   return `${shown} — ${over > 0 ? overByText(over) : "at the limit, which fails (the rule asks for less than the limit)"}`;

@@ -48,7 +48,7 @@ const inYears = (iso: string) => {
 };
 
 /** A calendar date `YYYY-MM-DD` in the years 1970–2100. */
-export const boundedIsoDate = () => z.iso.date().refine(inYears, yearProblem);
+export const boundedIsoDate = () => z.iso.date("Give a date as YYYY-MM-DD, e.g. 2026-03-04").refine(inYears, yearProblem);
 
 /** An ISO date-time with offset in the years 1970–2100. */
 export const boundedIsoDateTime = () =>

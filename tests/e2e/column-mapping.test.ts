@@ -3,7 +3,7 @@
 import { readFileSync } from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, uploadInBrowser } from "../support/browser";
+import { launchBrowser, openSignedIn, snap, uploadInBrowser } from "../support/browser";
 import { finishedCapture } from "../support/captures";
 import { signedIn } from "../support/http";
 
@@ -17,8 +17,7 @@ afterAll(async () => {
 
 describe("the mapping form lists every column", () => {
   it("time,v_load,i_load: three rows, the suggestion pre-selected, a sensor rating read, analysed", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "technician");
+    const page = await openSignedIn(browser, "technician");
     await uploadInBrowser(page, { file: "fixtures/snake-case-names.csv", title: `Snake-case columns ${Date.now()}` });
 
     await page.waitForSelector("[data-testid=channel-table]");
@@ -45,8 +44,7 @@ describe("the mapping form lists every column", () => {
   });
 
   it("an unrecognised column is shown and can be chosen", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "technician");
+    const page = await openSignedIn(browser, "technician");
     // Same samples, header renamed so nothing is recognised: Sample,Col B,Col C.
     const text = readFileSync("fixtures/snake-case-names.csv", "utf8").replace(/^[^\n]*/, "Sample,Col B,Col C");
     await uploadInBrowser(page, { file: { name: "unnamed-columns.csv", mimeType: "text/csv", buffer: Buffer.from(text) }, title: `Unnamed columns ${Date.now()}` });

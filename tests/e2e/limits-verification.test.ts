@@ -2,7 +2,7 @@
 // verifier's line once an admin records a check against the printed edition.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snap } from "../support/browser";
 import { signedIn } from "../support/http";
 import { demoCaptureId, json } from "../support/captures";
 import { pdfText } from "../unit/reports/pdf-text";
@@ -32,9 +32,7 @@ afterAll(async () => {
 describe("limits line", () => {
   it("warns while unverified, then shows who verified it against the printed edition, on the sheet and in the PDF", async () => {
     const engineer = await signedIn("engineer");
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${captureId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${captureId}`, viewport: { width: 1280, height: 900 } });
     const line = page.locator("[data-testid=limits-line]");
     await line.waitFor({ timeout: 15_000 });
     expect(await line.getAttribute("data-verified")).toBe("false");
@@ -46,9 +44,7 @@ describe("limits line", () => {
 
     // An engineer may not record a verification; an admin may, in the limit-table screen.
     expect((await engineer.request("POST", `/api/limit-sets/${limitSetKey}/revisions/${revisionNumber}/verifications`, { edition: "x", checked: "y", verifiedOn: "2026-12-03" })).status).toBe(403);
-    const admin = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(admin, "admin");
-    await admin.goto(url(`/limits/${limitSetKey}/revisions/${revisionNumber}`));
+    const admin = await openSignedIn(browser, "admin", { path: `/limits/${limitSetKey}/revisions/${revisionNumber}`, viewport: { width: 1280, height: 900 } });
     expect(await admin.getAttribute("[data-testid=verification-state]", "data-verified")).toBe("false");
     await admin.fill("#verify-edition", "IEC 61000-3-2:2018");
     await admin.fill("#verify-checked", "Table 3");

@@ -2,7 +2,7 @@
 // sees the diff in the history; an engineer sees the new value but cannot edit.
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snap, url } from "../support/browser";
 
 let browser: Browser;
 // A fresh custom copy per run, so this file never clashes with other tests editing Class A.
@@ -35,9 +35,7 @@ async function overflowPx(page: Page): Promise<number> {
 
 describe("limit tables in the browser", () => {
   it("an admin clones Class A, edits a cell with a reason, and the history shows the change", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "admin");
-    await page.goto(url("/limits"));
+    const page = await openSignedIn(browser, "admin", { path: "/limits" });
     await page.click("[data-testid=limit-set-iec-61000-3-2-class-a] a");
     await page.waitForURL(/\/limits\/iec-61000-3-2-class-a$/);
     await page.fill("#clone-key", key);
@@ -88,9 +86,7 @@ describe("limit tables in the browser", () => {
   });
 
   it("an admin's JSON edit is checked by the same schema, with the error path shown; the form fits a phone", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "admin");
-    await page.goto(url(`/limits/${key}/edit`));
+    const page = await openSignedIn(browser, "admin", { path: `/limits/${key}/edit` });
     await page.click("[data-testid=json-toggle]");
     const json = await page.inputValue("[data-testid=json-editor]");
     expect(json).toContain('"label": "Class A"');
@@ -101,9 +97,7 @@ describe("limit tables in the browser", () => {
     await snap(page, "limits-json-errors");
     await page.close();
 
-    const phone = await browser.newPage({ viewport: { width: 375, height: 740 } });
-    await signInAs(phone, "admin");
-    await phone.goto(url(`/limits/${key}/edit`));
+    const phone = await openSignedIn(browser, "admin", { path: `/limits/${key}/edit`, viewport: { width: 375, height: 740 } });
     await phone.locator("[data-testid=b0-r1-value]").waitFor();
     expect(await overflowPx(phone)).toBeLessThanOrEqual(0);
     await snap(phone, "limits-edit-phone");
@@ -111,9 +105,7 @@ describe("limit tables in the browser", () => {
   });
 
   it("an engineer sees the changed value but no edit button, and the editor is 403", async () => {
-    const page = await browser.newPage({ viewport: { width: 375, height: 740 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/limits/${key}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/limits/${key}`, viewport: { width: 375, height: 740 } });
     expect(await page.textContent("[data-testid=cell-0-1-limit]")).toBe("1.05");
     expect(await page.textContent("[data-testid=current-revision-number]")).toBe("2");
     expect(await page.locator("[data-testid=edit-link]").count()).toBe(0);
@@ -135,9 +127,7 @@ describe("limit tables in the browser", () => {
   });
 
   it("the limit-table screens show the set's interpretation notes: read-only for a viewer, edited by an admin as a new revision", async () => {
-    const viewer = await browser.newPage({ viewport: { width: 375, height: 740 } });
-    await signInAs(viewer, "viewer");
-    await viewer.goto(url("/limits/ieee-519-2014-current"));
+    const viewer = await openSignedIn(browser, "viewer", { path: "/limits/ieee-519-2014-current", viewport: { width: 375, height: 740 } });
     // One of the seeded IEEE 519 notes (the Isc/IL boundary choice), in plain words.
     expect(await viewer.textContent("[data-testid=limit-set-notes]")).toContain("Isc/IL exactly on a row boundary");
     expect(await viewer.locator("[data-testid=notes-editor]").count()).toBe(0);
@@ -146,9 +136,7 @@ describe("limit tables in the browser", () => {
     await snap(viewer, "limits-notes-viewer-phone");
     await viewer.close();
 
-    const page = await browser.newPage();
-    await signInAs(page, "admin");
-    await page.goto(url(`/limits/${key}/edit`));
+    const page = await openSignedIn(browser, "admin", { path: `/limits/${key}/edit` });
     const notes = page.locator("[data-testid=notes-editor]");
     await notes.waitFor();
     const before = await notes.inputValue();

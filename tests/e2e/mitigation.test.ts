@@ -2,7 +2,7 @@
 // sheet, reads the likely source, tries a reactor and a filter, saves the study and finds it in the PDF.
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snap, url } from "../support/browser";
 import { demoCaptureId } from "../support/captures";
 import { signedIn } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
@@ -21,9 +21,7 @@ afterAll(async () => {
 
 describe("mitigation study on the sheet", () => {
   it("reads the likely source, predicts a reactor (still failing) and a filter (passing), saves it and sees it in the PDF", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${captureId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${captureId}`, viewport: { width: 1280, height: 900 } });
     expect(await page.textContent("[data-testid=sheet-verdict]")).toContain("Fail");
 
     const summary = page.locator("[data-testid=likely-source-summary]");
@@ -80,9 +78,7 @@ describe("mitigation study on the sheet", () => {
   }, 180_000);
 
   it("a technician reads the saved studies but is offered no save", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "technician");
-    await page.goto(url(`/captures/${captureId}`));
+    const page = await openSignedIn(browser, "technician", { path: `/captures/${captureId}`, viewport: { width: 1280, height: 900 } });
     await page.locator("[data-testid=saved-study]").first().waitFor({ timeout: 30_000 });
     expect(await page.textContent("[data-testid=saved-studies]")).toContain("4.7th filter, 3 Mvar at the 11 kV PCC");
     await page.check("[data-testid=fix-active]");
@@ -98,9 +94,7 @@ describe("mitigation study on the sheet", () => {
     const title = `Approved-sheet study ${Date.now()}`;
     const saved = await engineer.request("POST", `/api/captures/${approvedId}/studies`, { title, includeInReport: false, inputs: { mitigations: [{ kind: "reactor", percent: 3 }] } });
     expect(saved.status).toBe(201);
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "viewer");
-    await page.goto(url(`/captures/${approvedId}`));
+    const page = await openSignedIn(browser, "viewer", { path: `/captures/${approvedId}`, viewport: { width: 1280, height: 900 } });
     const study = page.locator("[data-testid=saved-study]", { hasText: title });
     await study.waitFor({ timeout: 30_000 });
     expect(await study.locator("[data-testid=study-started-from]").textContent()).toMatch(/^Starts from this sheet's approved evaluation \(\d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC\)$/);

@@ -5,7 +5,7 @@
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { demoCaptures } from "@/db/seed/demo-captures";
-import { launchBrowser, signInAs, url } from "../support/browser";
+import { launchBrowser, openSignedIn } from "../support/browser";
 import { demoCaptureId, json } from "../support/captures";
 import { signedIn, type Client } from "../support/http";
 import { internalNames } from "../support/internal-names";
@@ -34,9 +34,7 @@ describe("the demo sheets name no internal identifier", () => {
   for (const demo of demoCaptures) {
     it(`${demo.title}: the sheet and its share page`, async () => {
       const id = await demoCaptureId(engineer, demo.title);
-      const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-      await signInAs(page, "engineer");
-      await page.goto(url(`/captures/${id}`));
+      const page = await openSignedIn(browser, "engineer", { path: `/captures/${id}`, viewport: { width: 1280, height: 900 } });
       const sheet = await visibleWords(page, "[data-testid=sheet-notes]");
       expect(sheet.length).toBeGreaterThan(2000);
       expect(internalNames(sheet)).toEqual([]);

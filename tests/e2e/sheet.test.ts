@@ -3,7 +3,7 @@
 import fs from "node:fs";
 import type { Browser, Page } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { artifactPath, launchBrowser, signInAs, snap, snapAt, url } from "../support/browser";
+import { artifactPath, launchBrowser, openSignedIn, snap, snapAt, url } from "../support/browser";
 import { signedIn, waitForMail } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 import { analysedCapture, currentCsv, demoCaptureId, json, uploadCapture } from "../support/captures";
@@ -38,9 +38,7 @@ afterAll(async () => {
 
 describe("the pass/fail sheet", () => {
   it("shows failing orders with words and icons, sorts and filters, and draws the charts", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}`, viewport: { width: 1280, height: 900 } });
     expect(await page.textContent("[data-testid=sheet-verdict]")).toContain("Fail");
     expect(await page.textContent("[data-testid=sheet-revision]")).toMatch(/revision \d+/);
     expect(await page.textContent("[data-testid=sheet-limit-set]")).toContain("Class A");
@@ -84,9 +82,7 @@ describe("the pass/fail sheet", () => {
   });
 
   it("an engineer re-judges in another context and sees the new evaluation next to the old one", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}`, viewport: { width: 1280, height: 900 } });
     await page.selectOption("#ctx-phaseConfig", "single-phase");
     await page.fill("#ctx-ratedPowerW", "not a number");
     await page.click("[data-testid=reevaluate]");
@@ -103,17 +99,13 @@ describe("the pass/fail sheet", () => {
   });
 
   it("a technician submits, the engineer sends back with a reason, the technician resubmits and an admin approves; the uploader gets the e-mail", async () => {
-    const tech = await browser.newPage();
-    await signInAs(tech, "technician");
-    await tech.goto(url(`/captures/${failingId}`));
+    const tech = await openSignedIn(browser, "technician", { path: `/captures/${failingId}` });
     expect(await tech.locator("[data-testid=review-approve]").count()).toBe(0);
     await tech.click("[data-testid=review-submit]");
     await tech.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "In review");
     await tech.close();
 
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}` });
     await page.click("[data-testid=review-send-back]");
     expect(await page.textContent("[data-testid=review-error]")).toContain("Say why");
     await page.fill("[data-testid=review-comment]", "h3 is over; check the clamp ratio first");
@@ -127,9 +119,7 @@ describe("the pass/fail sheet", () => {
     expect((await techApi.request("POST", `/api/captures/${failingId}/review`, { action: "submitted", comment: "ratio checked" })).status).toBe(200);
 
     // The engineer re-judged this capture earlier, so by the four-eyes rule another reviewer approves.
-    const adminPage = await browser.newPage();
-    await signInAs(adminPage, "admin");
-    await adminPage.goto(url(`/captures/${failingId}`));
+    const adminPage = await openSignedIn(browser, "admin", { path: `/captures/${failingId}` });
     await adminPage.fill("[data-testid=review-comment]", "Ratio confirmed, excess is real");
     await adminPage.click("[data-testid=review-approve]");
     await adminPage.waitForFunction(() => document.querySelector("[data-testid=review-state]")?.textContent === "Approved");
@@ -173,9 +163,7 @@ describe("the pass/fail sheet", () => {
   });
 
   it("a share link opens the read-only sheet signed out, and stops working once revoked", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}` });
     await page.fill("[data-testid=share-label]", "Utility reviewer");
     await page.fill("[data-testid=share-days]", "7");
     await page.click("[data-testid=share-create]");
@@ -188,6 +176,11 @@ describe("the pass/fail sheet", () => {
     const res = await shared.goto(shareUrl);
     expect(res?.status()).toBe(200);
     expect(await shared.textContent("[data-testid=sheet-title]")).toBe(failingTitle);
+    // The page says when the link expires: 7 days from now, as YYYY-MM-DD HH:MM UTC.
+    const expiry = (await shared.textContent("[data-testid=share-expiry]")) ?? "";
+    const until = /works until (\d{4}-\d{2}-\d{2}) (\d{2}:\d{2}) UTC/.exec(expiry);
+    expect(until).not.toBeNull();
+    expect(Math.abs(Date.parse(`${until![1]}T${until![2]}:00Z`) - (Date.now() + 7 * 86_400_000))).toBeLessThan(10 * 60_000);
     expect(await shared.locator("[data-testid=order-row-3]").getAttribute("data-verdict")).toBe("fail");
     await shared.waitForSelector("[data-testid=safety-note]", { timeout: 10_000 });
     // Read-only: no actions and no way into the app.
@@ -214,9 +207,7 @@ describe("the pass/fail sheet", () => {
   });
 
   it("compares two captures of the site order by order", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}` });
     await page.selectOption("[data-testid=compare-select]", passingId);
     await page.click("[data-testid=compare-go]");
     await page.waitForURL(/\/captures\/compare\?/);
@@ -231,9 +222,7 @@ describe("the pass/fail sheet", () => {
   });
 
   it("fits a phone: the table scrolls inside its panel, the page does not", async () => {
-    const page = await browser.newPage({ viewport: { width: 375, height: 800 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${failingId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${failingId}`, viewport: { width: 375, height: 800 } });
     await page.waitForSelector("[data-testid=chart-spectrum] canvas");
     const overflow = await page.evaluate(() => document.documentElement.scrollWidth - document.documentElement.clientWidth);
     expect(overflow).toBeLessThanOrEqual(0);
@@ -255,26 +244,22 @@ describe("the pass/fail sheet", () => {
     await json(await tech.request("POST", `/api/captures/${id}/analyze`));
 
     // Opened while queued or running, the page polls and shows the failure once it settles.
-    const page = await browser.newPage();
-    await signInAs(page, "technician");
-    await page.goto(url(`/captures/${id}`));
+    const page = await openSignedIn(browser, "technician", { path: `/captures/${id}` });
     await page.waitForSelector("[data-testid=failure-reason]", { timeout: 30_000 });
-    // 3 rows at 1 ms: 3 ms of record, where a window needs 10 cycles at 50 Hz (0.2 s).
-    expect(await page.textContent("[data-testid=failure-reason]")).toContain("record is shorter than one analysis window: 0.00300 s of data");
+    // 3 rows at 1 ms: 3 ms of record, where a window needs 10 cycles at 50 Hz (0.2 s). The reason stands
+    // as a sentence of its own, so it starts with a capital (the engine's message starts in lower case).
+    expect(await page.textContent("[data-testid=failure-reason]")).toContain("Why it failedRecord is shorter than one analysis window: 0.00300 s of data");
     expect(await page.getAttribute("[data-testid=fix-mapping]", "href")).toBe(`/captures/${id}/setup`);
     await snapAt(page, "sheet-failed", "body");
     await page.close();
 
-    const viewerPage = await browser.newPage();
-    await signInAs(viewerPage, "engineer");
-    await viewerPage.goto(url(`/captures/${id}`));
+    const viewerPage = await openSignedIn(browser, "engineer", { path: `/captures/${id}` });
     await viewerPage.waitForSelector("[data-testid=failure-reason]", { timeout: 10_000 });
     await viewerPage.close();
   });
 
   it("the interval log's trend has a keyboard-reachable table of the chosen value and its limits", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
+    const page = await openSignedIn(browser, "engineer");
     // Found page by page: earlier tests add captures in front of the demo ones.
     const id = await demoCaptureId(await signedIn("engineer"), "Drive 2 feeder, one week of 10-minute values");
     await page.goto(url(`/captures/${id}`));
@@ -299,9 +284,7 @@ describe("the pass/fail sheet", () => {
     const { capture } = await json<{ capture: { id: string } }>(
       await tech.request("POST", "/api/captures", { siteId: sites[0]!.id, title: `Sheet test pending ${stamp}`, filename: "x.csv", sizeBytes: 10 }),
     );
-    const page = await browser.newPage();
-    await signInAs(page, "technician");
-    await page.goto(url(`/captures/${capture.id}`));
+    const page = await openSignedIn(browser, "technician", { path: `/captures/${capture.id}` });
     expect(await page.getAttribute("[data-testid=capture-progress]", "data-status")).toBe("uploading");
     expect(await page.locator("[data-testid=order-table]").count()).toBe(0);
     // Before analysis the kind can be switched; the uploader can withdraw it.

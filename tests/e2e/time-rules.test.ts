@@ -4,7 +4,7 @@
 import fs from "node:fs";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { artifactPath, launchBrowser, signInAs, snap, snapAt, url } from "../support/browser";
+import { artifactPath, launchBrowser, openSignedIn, snap, snapAt } from "../support/browser";
 import { signedIn } from "../support/http";
 import { pdfText } from "../unit/reports/pdf-text";
 import { analysedCapture, json } from "../support/captures";
@@ -50,9 +50,7 @@ afterAll(async () => {
 describe("time rules on the sheet", () => {
   it("a 0.4 s demo capture lists the smoothed rules as not evaluated with the minimum record, and the capture mean deciding", async () => {
     expect(demoId).not.toBe("");
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${demoId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${demoId}`, viewport: { width: 1280, height: 900 } });
     const panel = page.locator("[data-testid=time-rules]");
     await panel.waitFor();
     for (const rule of ["smoothed-average", "smoothed-max"]) {
@@ -85,9 +83,7 @@ describe("time rules on the sheet", () => {
   });
 
   it("a 2 s capture applies the smoothed rules; rows name their deciding rule and the table limit beside 150 %", async () => {
-    const page = await browser.newPage({ viewport: { width: 1280, height: 900 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${timedId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${timedId}`, viewport: { width: 1280, height: 900 } });
     await page.locator("[data-testid=time-rules]").waitFor();
     for (const rule of ["smoothed-average", "smoothed-max"]) {
       expect(await page.getAttribute(`[data-testid=time-rule-${rule}]`, "data-status")).toBe("applied");
@@ -118,9 +114,7 @@ describe("time rules on the sheet", () => {
   });
 
   it("fits a phone: the panel wraps, the orders are cards that open to every rule's result", async () => {
-    const page = await browser.newPage({ viewport: { width: 375, height: 800 } });
-    await signInAs(page, "engineer");
-    await page.goto(url(`/captures/${timedId}`));
+    const page = await openSignedIn(browser, "engineer", { path: `/captures/${timedId}`, viewport: { width: 375, height: 800 } });
     await page.waitForSelector("[data-testid=chart-order-trend] canvas");
     expect(await page.locator("[data-testid=order-table]").isVisible()).toBe(false);
     await page.click("[data-testid=order-card-7] summary");

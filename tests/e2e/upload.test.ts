@@ -1,7 +1,7 @@
 import path from "node:path";
 import type { Browser } from "playwright-core";
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { launchBrowser, signInAs, snap, url } from "../support/browser";
+import { launchBrowser, openSignedIn, snap, url } from "../support/browser";
 import { demoCaptureId, finishedCapture } from "../support/captures";
 import { signedIn } from "../support/http";
 
@@ -15,9 +15,7 @@ afterAll(async () => {
 
 describe("a technician uploads a capture in the browser", () => {
   it("picks a CSV, watches the upload, maps the channels and gets an analysed capture", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "technician");
-    await page.goto(url("/captures"));
+    const page = await openSignedIn(browser, "technician", { path: "/captures" });
     await page.click("[data-testid=new-capture]");
     await page.waitForURL(/\/captures\/new$/);
     const site = await page.locator("#cap-site option", { hasText: "Bench B" }).getAttribute("value");
@@ -54,9 +52,7 @@ describe("a technician uploads a capture in the browser", () => {
   });
 
   it("the captures list filters by verdict on the server", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
-    await page.goto(url("/captures?verdict=fail"));
+    const page = await openSignedIn(browser, "engineer", { path: "/captures?verdict=fail" });
     const rows = page.locator("[data-testid=capture-table] tbody tr");
     expect(await rows.count()).toBeGreaterThan(0);
     for (const text of await rows.allTextContents()) expect(text).toContain("Fail");
@@ -67,8 +63,7 @@ describe("a technician uploads a capture in the browser", () => {
 
 describe("an interval log's sheet", () => {
   it("draws the logged period of the worst value with its table and rule limits", async () => {
-    const page = await browser.newPage();
-    await signInAs(page, "engineer");
+    const page = await openSignedIn(browser, "engineer");
     // Found page by page: earlier tests add captures in front of the demo ones.
     const id = await demoCaptureId(await signedIn("engineer"), "Drive 2 feeder, one week of 10-minute values");
     await page.goto(url(`/captures/${id}`));

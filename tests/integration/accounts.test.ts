@@ -2,7 +2,7 @@
 import { eq } from "drizzle-orm";
 import { describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { sessions, users } from "@/db/schema";
+import { invitations, sessions, users } from "@/db/schema";
 import { caughtMail, Client, signedIn } from "../support/http";
 import { pollFor } from "../support/poll";
 
@@ -33,6 +33,35 @@ async function userRow(email: string) {
   const [row] = await db.select().from(users).where(eq(users.email, email));
   return row!;
 }
+
+describe("the invitation e-mail says when its link expires", () => {
+  it("gives the stored expiry as YYYY-MM-DD HH:MM UTC, in the mail and on the link's page; a resent link's mail its own", async () => {
+    const a = await admin();
+    const email = unique("expiry-invitee");
+    const id = await invite(a, email);
+    const [token] = await inviteTokens(email, 1);
+    const [stored] = await db.select({ expiresAt: invitations.expiresAt }).from(invitations).where(eq(invitations.userId, id));
+    // The stored expiry written out here (not through the product's formatter): ISO date and minutes, UTC.
+    const when = `${stored!.expiresAt.toISOString().slice(0, 10)} ${stored!.expiresAt.toISOString().slice(11, 16)} UTC`;
+    const [mail] = await caughtMail(email);
+    expect(mail!.text).toContain(`expires on ${when}:`);
+    // 72 hours from now, give or take the time the request took (common practice, no source: a three-day link).
+    expect(Math.abs(stored!.expiresAt.getTime() - Date.now() - 72 * 3600_000)).toBeLessThan(5 * 60_000);
+    const page = await (await new Client().request("GET", `/invite/${token}`)).text();
+    expect(page).toContain(`This link expires on ${when}.`);
+
+    // The dev mailbox lists the mail with its arrival time in the same form.
+    const mailbox = (await (await a.request("GET", "/dev/mailbox")).text()).replaceAll("<!-- -->", "");
+    expect(mailbox).toMatch(new RegExp(`to ${email.replace(/[.+]/g, "\\$&")} · \\d{4}-\\d{2}-\\d{2} \\d{2}:\\d{2} UTC`));
+
+    // A resent link's mail says its own stored expiry.
+    expect((await a.request("POST", `/api/users/${id}/invitation`)).status).toBe(200);
+    await inviteTokens(email, 2);
+    const [renewed] = await db.select({ expiresAt: invitations.expiresAt }).from(invitations).where(eq(invitations.userId, id));
+    const renewedWhen = `${renewed!.expiresAt.toISOString().slice(0, 10)} ${renewed!.expiresAt.toISOString().slice(11, 16)} UTC`;
+    expect((await caughtMail(email))[0]!.text).toContain(`expires on ${renewedWhen}:`);
+  });
+});
 
 describe("invitations cannot be replayed or revive an account", () => {
   it("deactivating an invited user cancels their link; it can neither set a password nor re-activate the account", async () => {

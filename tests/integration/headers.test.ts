@@ -66,6 +66,15 @@ describe("pages carry a nonce-based Content-Security-Policy", () => {
     expect(a).not.toBe(b);
   });
 
+  it("every page names the favicon from public/, and it is served as an SVG", async () => {
+    const html = await (await new Client().request("GET", "/sign-in")).text();
+    expect(html).toContain('<link rel="icon" href="/favicon.svg" type="image/svg+xml"/>');
+    const res = await fetch(new URL("/favicon.svg", appUrl()));
+    expect(res.status).toBe(200);
+    expect(res.headers.get("content-type")).toContain("image/svg+xml");
+    expect(await res.text()).toContain("<svg");
+  });
+
   it("built scripts and styles are served with nosniff", async () => {
     const html = await (await new Client().request("GET", "/sign-in")).text();
     const asset = /(\/_next\/static\/[^"]+\.js)/.exec(html)![1]!;

@@ -5,6 +5,7 @@ import { db } from "@/db/client";
 import { analyses, captures, evaluations, sites } from "@/db/schema";
 import { finishedCapture, uploadCapture, type FinishedCapture } from "../support/captures";
 import { Client, signedIn } from "../support/http";
+import { pdfPageTexts } from "../unit/reports/pdf-text";
 
 let tech: Client;
 let siteId: string;
@@ -25,6 +26,17 @@ async function evaluate(id: string): Promise<FinishedCapture> {
   expect((await tech.request("POST", `/api/captures/${id}/analyze`)).status).toBe(202);
   return finishedCapture(tech, id, 60_000);
 }
+
+/** A column of the week fixture as numbers, read here from the file (not through the product's import). */
+function fixtureColumn(header: string): number[] {
+  const lines = readFileSync("fixtures/intervals/week-10min-3ch.csv", "utf8").split(/\r?\n/);
+  const at = lines.findIndex((l) => l.startsWith("Timestamp,"));
+  const index = lines[at]!.split(",").indexOf(header);
+  return lines.slice(at + 1).filter((l) => l.trim() !== "").map((l) => Number(l.split(",")[index]));
+}
+
+/** Nearest-rank percentile (IEEE Std 519-2014 clause 3: the value exceeded for (100 − p) % of the period), by sorting. */
+const nearestRank = (values: number[], p: number) => [...values].sort((a, b) => a - b)[Math.ceil((p / 100) * values.length) - 1]!;
 
 describe("interval logs through the queue", () => {
   it("suggests a mapping, remembers it for the site, and judges a week with the IEEE Std 519-2014 §5.2 percentile rules", async () => {
@@ -60,6 +72,48 @@ describe("interval logs through the queue", () => {
     expect(row?.capturedAt?.toISOString()).toBe("2024-03-04T00:00:00.000Z");
     const [analysis] = await db.select().from(analyses).where(eq(analyses.captureId, id));
     expect(analysis?.trends?.[0]?.timestampsMs.length).toBe(1008);
+  });
+
+  it("shows the log's headline numbers on the sheet, the share page, the CSV and PDF page 1, with 'not logged' for what it lacks", async () => {
+    const id = await uploadLog("fixtures/intervals/week-10min-3ch.csv");
+    const preview = (await (await tech.request("GET", `/api/captures/${id}/interval-preview`)).json()) as { preview: { suggestion: { mapping: unknown } } };
+    const setup = { intervalMapping: preview.preview.suggestion.mapping, limitSetKey: "ieee-519-2014-current", context: { iscA: 2400, ilA: 60, busVoltageV: 480 } };
+    expect((await tech.request("PUT", `/api/captures/${id}/interval-setup`, setup)).status).toBe(200);
+    expect(await evaluate(id)).toMatchObject({ status: "done" });
+
+    // Worked from the file here: I3's THD and TDD = THD × H1 / IL (IEEE Std 519-2014 clause 3) per 10-minute row, 95th percentile by nearest rank.
+    const thd = fixtureColumn("I3 THD avg [%]");
+    const h1 = fixtureColumn("I3 H1 avg [A]");
+    expect(thd).toHaveLength(1008);
+    const thdP95 = nearestRank(thd, 95);
+    const tddP95 = nearestRank(thd.map((t, k) => (t / 100) * h1[k]! / 60 * 100), 95);
+    const rmsMax = Math.max(...fixtureColumn("I3 rms avg [A]"));
+
+    const engineer = await signedIn("engineer");
+    const sheet = await (await engineer.request("GET", `/captures/${id}`)).text();
+    const { url } = (await (await engineer.request("POST", `/api/captures/${id}/shares`, { label: "utility", expiresInDays: 7 })).json()) as { url: string };
+    const shared = await (await fetch(url)).text();
+    for (const html of [sheet, shared]) {
+      expect(html).toContain("Currents over the logged period");
+      expect(html).toContain("TDD (% of IL = 60 A), 95th percentile");
+      expect(html).toContain(`>${tddP95.toFixed(2)}<`);
+      expect(html).toContain(`>${thdP95.toFixed(2)}<`);
+      expect(html).toMatch(/Power \(P, S, displacement, distortion and true power factor\)<\/span>: <span[^>]*>not logged</);
+    }
+
+    const csv = (await (await engineer.request("GET", `/api/captures/${id}/sheet-csv`)).text()).split("\r\n");
+    const i3 = csv.find((line) => line.startsWith("I3,") && line.split(",").length === 8)!.split(",").map(Number);
+    // RMS mean, RMS max, fundamental mean, THD p95, THD max, TDD p95, TDD max.
+    expect(i3[2]).toBeCloseTo(rmsMax, 6);
+    expect(i3[4]).toBeCloseTo(thdP95, 6);
+    expect(i3[6]).toBeCloseTo(tddP95, 5);
+    expect(csv).toContain('"Voltages (r.m.s., THD)",not logged');
+
+    const pdf = await engineer.request("GET", `/api/captures/${id}/report`);
+    const first = pdfPageTexts(Buffer.from(await pdf.arrayBuffer()))[0]!;
+    expect(first).toMatch(/Headline numbers . currents over the logged period/);
+    expect(first).toContain(tddP95.toFixed(2));
+    expect(first).toMatch(/Voltages \(r\.m\.s\., THD\)\s*not logged/);
   });
 
   it("evaluates again from the logged series: the same context gives the first evaluation's verdict, another context judges the rows anew", async () => {

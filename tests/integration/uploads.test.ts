@@ -24,11 +24,13 @@ beforeAll(async () => {
   siteId = (sites.find((s) => s.name.startsWith("Bench B")) ?? sites[0]!).id;
 });
 
+/** Registers a capture; the original's storage key is read from the database (no answer carries it). */
 async function register(sizeBytes: number, title = "Upload attack"): Promise<{ id: string; s3Key: string; upload: PresignedUpload }> {
-  const { capture, upload } = await json<{ capture: { id: string; s3Key: string }; upload: PresignedUpload }>(
+  const { capture, upload } = await json<{ capture: { id: string }; upload: PresignedUpload }>(
     await tech.request("POST", "/api/captures", { siteId, title: `${title} ${Date.now()}`, filename: "record.csv", sizeBytes }),
   );
-  return { id: capture.id, s3Key: capture.s3Key, upload };
+  const [row] = await db.select({ s3Key: captures.s3Key }).from(captures).where(eq(captures.id, capture.id));
+  return { id: capture.id, s3Key: row!.s3Key, upload };
 }
 
 async function confirm(id: string): Promise<{ status: number; message: string }> {

@@ -5,9 +5,9 @@
 import { seedLimitSets } from "@/lib/compliance/seed";
 
 const internalIds = [
-  ...seedLimitSets.map((s) => s.key),
-  ...seedLimitSets.flatMap((s) => (s.content.rules.timeRules ?? []).map((t) => t.id)),
-  ...seedLimitSets.flatMap((s) => s.content.bands.flatMap((b) => b.conditions.map((c) => c.id))),
+  ...seedLimitSets().map((s) => s.key),
+  ...seedLimitSets().flatMap((s) => (s.content.rules.timeRules ?? []).map((t) => t.id)),
+  ...seedLimitSets().flatMap((s) => s.content.bands.flatMap((b) => b.conditions.map((c) => c.id))),
 ];
 const internalWords = ["snapshot", "rowRules", "decidedBy", "context.", "undefined", "NaN", "[object", "null"];
 const provenanceMarkers = ["from memory", "(confirmed)", "Ordwise choice", "common practice"];

@@ -3,7 +3,7 @@
 import { useMemo, useState } from "react";
 import type uPlot from "uplot";
 import type { IntervalTrend, IntervalTrendSeries } from "@/lib/intervals/evaluate-interval-log";
-import { axisStyle, UPlotChart } from "./uplot-chart";
+import { axisStyle, UPlotChart, utcTimeAxis, utcTimeLegend, utcTimeOptions } from "./uplot-chart";
 
 /**
  * An interval log's values over its whole period for one order or aggregate (TDD, THD), with the
@@ -28,7 +28,7 @@ export function IntervalTrendChart({ trend, table }: { trend: IntervalTrend; tab
     if (!series) return null;
     const times = trend.timestampsMs.map((ms) => ms / 1000);
     const lines: uPlot.Series[] = [
-      {},
+      { label: "Time", value: utcTimeLegend },
       { label: series.name, stroke: "#1d2a3a", width: 1.4, value: (_u, v) => (v == null ? "—" : `${v.toFixed(3)} ${series.unit}`) },
     ];
     const data: (number | null)[][] = [times, series.values];
@@ -42,9 +42,10 @@ export function IntervalTrendChart({ trend, table }: { trend: IntervalTrend; tab
       data.push(times.map(() => r.limit));
     }
     const options: Omit<uPlot.Options, "width" | "height"> = {
+      ...utcTimeOptions,
       scales: { x: { time: true }, y: { range: (_u, _min, max) => [0, max > 0 ? max * 1.1 : 1] } },
       series: lines,
-      axes: [{ ...axisStyle }, { ...axisStyle, label: series.unit, size: 52 }],
+      axes: [{ ...axisStyle, ...utcTimeAxis, size: 44 }, { ...axisStyle, label: series.unit, size: 52 }],
       cursor: { drag: { x: true, y: false } },
     };
     return { options, aligned: data as uPlot.AlignedData };

@@ -54,3 +54,29 @@ export const axisStyle = {
   font: "11px system-ui, sans-serif",
   labelFont: "11px system-ui, sans-serif",
 } satisfies Partial<uPlot.Axis>;
+
+const isoOf = (s: number) => new Date(s * 1000).toISOString();
+
+/**
+ * A time axis in the product's date format, in UTC whatever the browser's zone and locale: days as
+ * YYYY-MM-DD, shorter steps as HH:MM with the date under the first tick of each day. Use with
+ * `utcTimeOptions` (which aligns the ticks to UTC midnight and words the legend's time).
+ */
+export const utcTimeAxis = {
+  space: 84,
+  values: (_u: uPlot, splits: number[], _axisIdx: number, _space: number, incr: number) =>
+    splits.map((s, k) => {
+      const at = isoOf(s);
+      if (incr >= 86_400) return at.slice(0, 10);
+      const newDay = k === 0 || isoOf(splits[k - 1]!).slice(0, 10) !== at.slice(0, 10);
+      return newDay ? `${at.slice(11, 16)}\n${at.slice(0, 10)}` : at.slice(11, 16);
+    }),
+} satisfies Partial<uPlot.Axis>;
+
+/** Chart options for an x scale of Unix seconds read in UTC: day ticks at UTC midnight. */
+export const utcTimeOptions = {
+  tzDate: (ts: number) => uPlot.tzDate(new Date(ts * 1000), "Etc/UTC"),
+} satisfies Partial<uPlot.Options>;
+
+/** The legend's time of a point: "YYYY-MM-DD HH:MM UTC". */
+export const utcTimeLegend = (_u: uPlot, v: number | null) => (v == null ? "—" : `${isoOf(v).slice(0, 16).replace("T", " ")} UTC`);

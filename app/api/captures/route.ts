@@ -1,4 +1,5 @@
 import { NextResponse } from "next/server";
+import { toCaptureView } from "@/db/queries/capture-view";
 import { listCaptures, registerCapture } from "@/db/queries/captures";
 import { readJson, withAuth } from "@/lib/api/with-auth";
 import { incomingKey, uploadContentType } from "@/lib/captures/confirm-upload";
@@ -21,7 +22,7 @@ export const POST = withAuth(
     const input = registerCaptureSchema.parse(await readJson(req));
     const capture = await registerCapture({ input, actorId: user.id });
     const upload = await presignUpload(incomingKey(capture.id), { contentType: uploadContentType, maxBytes: input.sizeBytes });
-    return NextResponse.json({ capture, upload, contentType: uploadContentType }, { status: 201 });
+    return NextResponse.json({ capture: toCaptureView(capture), upload, contentType: uploadContentType }, { status: 201 });
   },
   { permission: "captures:upload" },
 );

@@ -11,8 +11,8 @@ export const GET = withAuth(async () => NextResponse.json({ users: await listUse
 export const POST = withAuth(
   async ({ req, user: actor }) => {
     const input = inviteUserSchema.parse(await readJson(req, { maxBytes: 8 * 1024 }));
-    const { user, token } = await createInvitation({ ...input, actorId: actor.id });
-    await sendInvitationMail({ user, token, actorName: actor.name });
+    const { user, invitation } = await createInvitation({ ...input, actorId: actor.id });
+    await sendInvitationMail({ user, invitation, actorName: actor.name });
     return NextResponse.json({ user }, { status: 201 });
   },
   { permission: "users:manage" },

@@ -1,4 +1,5 @@
 import { findOpenInvitation } from "@/db/queries/users";
+import { formatWhen } from "@/lib/reports/format";
 import { AcceptForm } from "./accept-form";
 
 export const metadata = { title: "Set your password" };
@@ -14,6 +15,7 @@ export default async function InvitePage({ params }: { params: Promise<{ token: 
           <p className="text-sm text-ink-soft">
             {invitation.name} ({invitation.email}) — choose a password of at least 12 characters.
           </p>
+          <p className="text-sm text-ink-soft" data-testid="invite-expires">{`This link expires on ${formatWhen(invitation.expiresAt)}.`}</p>
           <AcceptForm token={token} />
         </>
       ) : (

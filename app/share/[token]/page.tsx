@@ -48,7 +48,7 @@ export default async function SharedSheetPage({
           <SafetyNote />
         </div>
         <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-        {evaluation.shownChannel && <SheetBody data={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/shared/${token}/charts`} />}
+        {evaluation.shownChannel && <SheetBody payload={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/shared/${token}/charts`} />}
         <SheetNotes notes={evaluation.result.notes} />
         <section className="panel text-sm" data-testid="shared-signoff">
           <h2 className="mb-2">Sign-off</h2>

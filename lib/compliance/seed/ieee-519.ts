@@ -2,7 +2,7 @@
 // even-harmonic rule) and voltage distortion limits (IEEE Std 519-2014 Table 1, unchanged in 2022),
 // with the statistical evaluation of IEEE Std 519-2014 §5.2. Markers on each source as in
 // iec-61000-3-2.ts ("confirmed", "from memory", "Ordwise choice" / "Ordwise reading").
-import type { AggregateRowInput, BandInput, LimitSetRevisionContentInput, OrderRowInput, RangeInput, TimeRuleInput } from "../model";
+import type { BandInput, LimitSetRevisionContentInput, OrderRowInput, RangeInput, TimeRuleInput } from "../model";
 
 // The printed tables head the rows "< 20", "20 < 50", "50 < 100", … without assigning a value
 // exactly at a bound. Ordwise's choice, stated in the data and quoted by the evaluator:

@@ -18,11 +18,31 @@ export const seedLimitSetInputs: Array<{ name: string; content: LimitSetRevision
   ...ieee519LimitSets,
 ];
 
-// Parsed once at load so a malformed seed fails loudly and callers get defaults applied.
-export const seedLimitSets: SeedLimitSet[] = seedLimitSetInputs.map(({ name, content }) => {
-  const parsed = LimitSetRevisionContentSchema.parse(content);
-  return { key: parsed.key, name, content: parsed };
-});
+/** Each seed limit set parsed (schema defaults applied), by key, on first use. */
+const parsed = new Map<string, SeedLimitSet>();
+
+function parseSeed({ name, content }: { name: string; content: LimitSetRevisionContentInput }): SeedLimitSet {
+  const key = content.key;
+  let set = parsed.get(key);
+  if (!set) {
+    const valid = LimitSetRevisionContentSchema.parse(content);
+    set = { key: valid.key, name, content: valid };
+    parsed.set(key, set);
+  }
+  return set;
+}
+
+/**
+ * Every seed limit set, parsed (a malformed seed fails loudly) and with defaults applied. Parsed
+ * on first use rather than at load: the command line judges against one set and need not parse
+ * them all.
+ *
+ * @example
+ * seedLimitSets().map((s) => s.key) // ["iec-61000-3-2-class-a", …]
+ */
+export function seedLimitSets(): SeedLimitSet[] {
+  return seedLimitSetInputs.map(parseSeed);
+}
 
 /**
  * Look up a seed limit set by key, e.g. `iec-61000-3-2-class-a`; undefined when unknown.
@@ -31,5 +51,6 @@ export const seedLimitSets: SeedLimitSet[] = seedLimitSetInputs.map(({ name, con
  * getSeedLimitSet("ieee-519-2014-current")?.content.edition // "IEEE Std 519-2014"
  */
 export function getSeedLimitSet(key: string): SeedLimitSet | undefined {
-  return seedLimitSets.find((set) => set.key === key);
+  const input = seedLimitSetInputs.find((set) => set.content.key === key);
+  return input ? parseSeed(input) : undefined;
 }

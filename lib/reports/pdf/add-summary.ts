@@ -67,7 +67,9 @@ export function addSummary(w: PdfWriter, sheet: SheetReport): void {
   if (headline) {
     for (const table of headlineTable(headline)) {
       w.heading(`Headline numbers — ${table.title.toLowerCase()}`);
-      w.keyValues(table.rows.map((r): [string, string] => [r.label, table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
+      if (table.caption) w.text(table.caption, { continued: false });
+      // A list (what an interval log lacks) needs no column label beside each statement.
+      w.keyValues(table.rows.map((r): [string, string] => [r.label, table.list ? r.cells[0]! : table.columns.map((c, i) => `${c.label} ${r.cells[i]}`).join(" · ")]));
     }
   }
 

@@ -110,6 +110,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
 
   test("every window is cut to its own fundamental: a 0.2 Hz ramp keeps every window whole", async () => {
     const streamed = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
+    // Analytic: the record's frequency ramps 49.9 → 50.1 Hz (driftingCaptureText), 50 Hz on average.
     expect(streamed.fundamentalHz).toBeCloseTo(50, 2);
     // Leakage from a window off by 0.1 Hz would make the fundamental swing; per-segment windows keep it steady.
     const series = streamed.channels[0]!.series!.fundamentalRms;
@@ -127,6 +128,7 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
       expect(waveform.timeS.at(-1)!).toBeLessThan(3 / 49.8);
       expect(waveform.channels.map((c) => c.unit)).toEqual(["V", "A", "V", "A"]);
       expect(waveform.channels[0]!.values).toHaveLength(waveform.timeS.length);
+      // Analytic: Va at t = 0 is 325·cos 0 + 6·cos(0.3), as driftingCaptureText writes it.
       expect(waveform.channels[0]!.values[0]).toBeCloseTo(325 + 6 * Math.cos(0.3), 1);
     }
     // The kept points are samples 0, step, 2·step … of the file, as read.
@@ -141,6 +143,17 @@ describe("streaming analysis of a file agrees with the in-memory path", { timeou
     expect(streamed.channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
     expect(streamed.warnings.some((w) => /Vb/.test(w))).toBe(false);
     expect(analyzeCsvText(text, { channels }).channels.map((c) => c.name)).toEqual(["Va (V)", "Ia (A)", "Ib (A)"]);
+  });
+
+  test("a record within the look-ahead whose head promised a longer one (its rows packed, then unpacked in place) is analysed exactly like the text path", async () => {
+    // 7,680 rows (< 2 segments of 4,096): the head's short rows promise ~13,000, the later ones are padded.
+    const text = captureText(1.2)
+      .split("\n")
+      .map((line, i) => (i > 6000 && line ? line.split(",").map((c) => c.padStart(40)).join(",") : line))
+      .join("\n");
+    const path = write("drifting-1.2s-long-tail.csv", text);
+    const fromFile = await analyzeCsvFile(path, options, undefined, { segmentSamples: SEGMENT });
+    expect(fromFile).toEqual(analyzeCsvText(text, { ...options, frequencySegmentSamples: SEGMENT }));
   });
 
   test("a record within the look-ahead is analysed exactly like the text path", async () => {

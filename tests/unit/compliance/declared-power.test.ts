@@ -1,6 +1,6 @@
 // Declared (rated) power against measured active power for IEC 61000-3-2 Class C and D:
 // the declared value is used only within ±10 % of the measured one (IEC 61000-3-2:2018+A1:2020
-// clause 6.2 — from memory; the issue states the same rule).
+// clause 6.2 — from memory).
 import { describe, expect, test } from "vitest";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";

@@ -222,7 +222,13 @@ describe("evaluateIntervalLog on the fixtures", () => {
     const result = evaluateIntervalLog(log, limitSet("ieee-519-2014-current"), CONTEXT);
     expect(result.channels).toHaveLength(3);
     const tdd = result.aggregates.find((aggregate) => aggregate.name === "TDD")!;
-    expect(tdd.rowRules?.find((candidate) => candidate.rule === "weekly-p95-short")?.reason).toContain("from the logged THD column");
+    expect(tdd.rowRules?.find((candidate) => candidate.rule === "weekly-p95-short")?.reason).toContain("from the logged THD × the fundamental");
+    // The card's remark: the deciding rule over the logged THD, and no word of the r.m.s. mean of the logged orders
+    // (a partial sum the verdict did not use), nor of "the partial value".
+    expect(tdd.decidedBy).toBe("weekly-p95-short");
+    expect(tdd.reason).toContain("over the logger's own order range (orders 6–50 (39 orders) are not logged one by one)");
+    expect(tdd.reason).not.toMatch(/partial|unavailable|above Nyquist/);
+    expect(tdd.reason).toContain("1 time rule not applied to this record (see Notes)");
     expect(result.trends[0]!.aggregates.find((series) => series.name === "TDD")?.values).toHaveLength(1008);
   });
 

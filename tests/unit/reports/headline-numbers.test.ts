@@ -149,6 +149,10 @@ describe("headlineNumbers", () => {
     expect(power.columns[0]!.label).toBe("P (kW)");
     expect(power.rows.at(-1)!.label).toBe("Three-phase total");
     expect(power.rows[0]!.cells[2]).toBe("0.866 lagging");
+    // One value per row, but a table with its labelled column, not a list of statements.
+    const unbalance = tables.find((t) => t.key === "unbalance")!;
+    expect(unbalance.list).toBeUndefined();
+    expect(unbalance.columns[0]!.label).toBe("Fundamental unbalance (negative / positive sequence, %)");
   });
 
   test("no analysis, no headline numbers", () => {
@@ -180,6 +184,7 @@ describe("headline numbers in the PDF (page 1) and the CSV", () => {
     expect(at).toBeLessThan(text.indexOf("Evaluation context"));
     expect(text).toContain("Three-phase total");
     expect(text).toContain("0.866 lagging");
+    expect(text).toContain("Fundamental unbalance (negative / positive sequence, %)");
   });
 
   test("all of them fit on page 1 beside a full set-up (six mapped channels and the file hash), which follows them", async () => {

@@ -73,7 +73,7 @@ beforeAll(async () => {
       continue;
     }
     const { analysis } = await runCaptureAnalysis(file, demo.mapping ?? { channels: {} }, demo.context);
-    for (const set of seedLimitSets) {
+    for (const set of seedLimitSets()) {
       for (const context of [demo.context, ...(contexts[set.key] ?? [{}])]) {
         const result = runCaptureEvaluation(analysis, seedLimitSetRevision(set.key), EvaluationContextSchema.parse(context));
         judged.push({ label: `${demo.title} / ${set.key} / ${JSON.stringify(context)}`, result, analysis, setup: { mapping: demo.mapping ?? { channels: {} } } });

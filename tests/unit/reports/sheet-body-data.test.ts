@@ -3,6 +3,8 @@
 import { describe, expect, test } from "vitest";
 import { splitResult } from "@/lib/reports/result-head";
 import { sheetBodyData } from "@/lib/reports/sheet-body-data";
+import { unpackSheetBody } from "@/lib/reports/unpack-sheet-body";
+import type { ComplianceAggregate, ComplianceRow } from "@/lib/compliance/result";
 import { judgeWithSeed } from "@/tests/support/judge-with-seed";
 import { makeAnalysis } from "../compliance/make-analysis";
 
@@ -48,7 +50,7 @@ describe("sheetBodyData", () => {
     // The stored channel carries the sources of its limits and rules.
     expect(JSON.stringify(ib)).toContain('"limitSource"');
     expect(ib.rows.some((r) => r.rowRules?.some((rule) => rule.source))).toBe(true);
-    const data = sheetBodyData(head, ib);
+    const data = unpackSheetBody(sheetBodyData(head, ib));
     expect(data.channels).toEqual(head.channels);
     expect(data.channel.channel).toBe("Ib");
     expect(JSON.stringify(data)).not.toContain('"limitSource"');
@@ -60,5 +62,26 @@ describe("sheetBodyData", () => {
     expect(h3.measured).toBe(1.0);
     expect(h3.verdict).toBe("pass");
     expect(data.context).toEqual(result.context);
+  });
+
+  test("sends each rule's shared words once per channel, and the rows unpack to the stored ones without sources", () => {
+    const { head, channels } = splitResult(result);
+    const ia = channels[0]!;
+    const payload = sheetBodyData(head, ia);
+    const ruleResults = ia.rows.reduce((n, r) => n + (r.rowRules?.length ?? 0), 0) + ia.aggregates.reduce((n, a) => n + (a.rowRules?.length ?? 0), 0);
+    expect(ruleResults).toBeGreaterThan(40);
+    // Each rule's label is in the shared parts once however many orders it judged, and in no row.
+    const label = ia.rows.find((r) => r.rowRules?.length)!.rowRules![0]!.label;
+    expect(JSON.stringify(payload.ruleParts).split(JSON.stringify(label)).length - 1).toBe(1);
+    expect(JSON.stringify(payload.channel.rows)).not.toContain(label);
+    expect(payload.ruleParts.length).toBeLessThan(ruleResults / 4);
+    // Unpacked, every row and aggregate is the stored one less its sources (and stored words a typed statistic replaces).
+    const withoutSources = <T extends ComplianceRow | ComplianceAggregate>({ limitSource: _l, ...row }: T) => ({
+      ...row,
+      ...(row.rowRules ? { rowRules: row.rowRules.map(({ source: _s, statistic, ...rule }) => (rule.measures || statistic === undefined ? rule : { ...rule, statistic })) } : {}),
+    });
+    const unpacked = unpackSheetBody(payload).channel;
+    expect(unpacked.rows).toEqual(ia.rows.map(withoutSources));
+    expect(unpacked.aggregates).toEqual(ia.aggregates.map(withoutSources));
   });
 });

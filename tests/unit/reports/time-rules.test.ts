@@ -12,7 +12,7 @@ describe("time-rule wording", () => {
     [{ kind: "mean", intervalS: 1.5 }, 1, "mean 1.5 s smoothed", "average of 1.5 s smoothed values over the observation period"],
     [{ kind: "max", intervalS: 1.5 }, 1.5, "max 1.5 s smoothed ×1.5", "maximum of 1.5 s smoothed values over the observation period"],
     [{ kind: "percentile", percentile: 99, intervalS: 3, accumulationS: 86_400 }, 2, "p99 3 s / 24 h ×2", "99th percentile (nearest rank) of 3 s values per 24 h period (worst period)"],
-    [{ kind: "percentile", percentile: 95, intervalS: 600, accumulationS: 604_800 }, 1, "p95 10 min / 7 days", "95th percentile (nearest rank) of 10 min values per 7 days period (worst period)"],
+    [{ kind: "percentile", percentile: 95, intervalS: 600, accumulationS: 604_800 }, 1, "p95 10 min / 7 days", "95th percentile (nearest rank) of 10 min values per 7-day period (worst period)"],
     [{ kind: "mean", intervalS: 0 }, 1, "mean window", "average of 10/12-cycle window values over the observation period"],
   ])("%o ×%d → %s", (measures, multiplier, short, long) => {
     expect(shortRuleLabel({ rule: "r", measures, multiplier, label: "Rule" })).toBe(short);

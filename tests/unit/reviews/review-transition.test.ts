@@ -1,7 +1,7 @@
 import { describe, expect, it } from "vitest";
 import { reviewTransition } from "@/lib/reviews/review-transition";
 
-// The workflow is the one written out in issue 10 §1 of this repository's tracker:
+// The product's review workflow (a product rule, common practice, no source), as DEVELOPERS.md states it:
 // draft → in review → approved | sent back; sent back → in review; approved → (new result) in review.
 describe("reviewTransition", () => {
   it.each([

@@ -157,7 +157,7 @@ export default async function CaptureSheetPage({
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
           <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-          {evaluation.shownChannel && <SheetBody data={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />}
+          {evaluation.shownChannel && <SheetBody payload={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />}
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 

@@ -3,8 +3,10 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { mutate } from "swr";
+import { SubmitButton } from "@/app/_components/submit-button";
+import { useRequest } from "@/app/_components/use-request";
 import { fieldErrorsOf } from "@/lib/errors";
-import { FetchError, sendJson } from "@/lib/swr/fetcher";
+import { sendJson } from "@/lib/swr/fetcher";
 import { limitSetsKey } from "@/lib/swr/use-limit-sets";
 import { cloneLimitSetSchema } from "@/lib/validations/limit-set";
 
@@ -12,27 +14,18 @@ import { cloneLimitSetSchema } from "@/lib/validations/limit-set";
 export function CloneForm({ sourceKey, sourceName }: { sourceKey: string; sourceName: string }) {
   const router = useRouter();
   const [values, setValues] = useState({ key: `${sourceKey}-custom`, name: `${sourceName} (custom)` });
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error: formError, setError: setFormError, fieldErrors: errors, setFieldErrors: setErrors, run } = useRequest();
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     setFormError(null);
     const parsed = cloneLimitSetSchema.safeParse(values);
     if (!parsed.success) return setErrors(fieldErrorsOf(parsed.error));
-    setErrors({});
-    setBusy(true);
-    try {
+    await run(async () => {
       await sendJson(`/api/limit-sets/${sourceKey}/clone`, "POST", parsed.data);
       await mutate(limitSetsKey);
       router.push(`/limits/${parsed.data.key}`);
-    } catch (err) {
-      if (err instanceof FetchError && err.fieldErrors) setErrors(err.fieldErrors);
-      setFormError(err instanceof Error ? err.message : "Could not clone the set.");
-    } finally {
-      setBusy(false);
-    }
+    }, "Could not clone the set.");
   }
 
   return (
@@ -51,9 +44,9 @@ export function CloneForm({ sourceKey, sourceName }: { sourceKey: string; source
         </div>
       </div>
       {formError && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{formError}</p>}
-      <button type="submit" className="btn-quiet" disabled={busy} data-testid="clone-submit">
-        {busy ? "Cloning…" : "Clone"}
-      </button>
+      <SubmitButton busy={busy} busyLabel="Cloning…" className="btn-quiet" testId="clone-submit">
+        Clone
+      </SubmitButton>
     </form>
   );
 }

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useState } from "react";
 import { mutate } from "swr";
+import { SubmitButton } from "@/app/_components/submit-button";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 import { limitSetKey, limitSetRevisionsKey, limitSetsKey } from "@/lib/swr/use-limit-sets";
 import { allMessages, importLimitSetSchema, labelledFieldErrors } from "@/lib/validations/limit-set";
@@ -66,9 +67,9 @@ export function ImportForm() {
         <input id="import-reason" className="field-input" value={reason} onChange={(e) => setReason(e.target.value)} />
       </div>
       <ErrorList messages={errors} testId="import-errors" />
-      <button type="submit" className="btn-primary" disabled={busy || text.trim() === ""}>
-        {busy ? "Importing…" : "Import"}
-      </button>
+      <SubmitButton busy={busy} busyLabel="Importing…" disabled={text.trim() === ""}>
+        Import
+      </SubmitButton>
     </form>
   );
 }

@@ -3,6 +3,7 @@
 import { useRouter } from "next/navigation";
 import { useMemo, useState } from "react";
 import { mutate } from "swr";
+import { SubmitButton } from "@/app/_components/submit-button";
 import {
   AggregateNameSchema,
   BasisSchema,
@@ -369,9 +370,9 @@ export function LimitSetEditor({ setKey, content, revisionNumber }: { setKey: st
         <ErrorList messages={summary} testId="editor-errors" />
         {formError && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{formError}</p>}
         <div className="flex flex-wrap gap-2">
-          <button type="submit" className="btn-primary" disabled={busy} data-testid="save-revision">
-            {busy ? "Saving…" : `Save as revision ${revisionNumber + 1}`}
-          </button>
+          <SubmitButton busy={busy} busyLabel="Saving…" testId="save-revision">
+            {`Save as revision ${revisionNumber + 1}`}
+          </SubmitButton>
           <button type="button" className="btn-quiet" onClick={() => router.push(`/limits/${setKey}`)}>Cancel</button>
         </div>
       </div>

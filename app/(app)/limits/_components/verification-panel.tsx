@@ -2,6 +2,7 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { IsoDateInput } from "@/app/_components/iso-date-input";
 import { FetchError, sendJson } from "@/lib/swr/fetcher";
 
 export interface VerificationItem {
@@ -87,11 +88,7 @@ export function VerificationPanel({
             <input id="verify-checked" name="checked" className="field-input" placeholder="Table 1" />
             {errors.checked?.map((m) => <p key={m} className="field-error">{m}</p>)}
           </div>
-          <div>
-            <label htmlFor="verify-date" className="field-label">Date checked</label>
-            <input id="verify-date" name="verifiedOn" type="date" defaultValue={today} className="field-input" />
-            {errors.verifiedOn?.map((m) => <p key={m} className="field-error">{m}</p>)}
-          </div>
+          <IsoDateInput id="verify-date" name="verifiedOn" label="Date checked" defaultValue={today} error={errors.verifiedOn?.join(" ")} />
           <div className="sm:col-span-3">
             <label htmlFor="verify-note" className="field-label">Note (optional)</label>
             <input id="verify-note" name="note" className="field-input" />

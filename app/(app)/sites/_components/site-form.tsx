@@ -2,8 +2,10 @@
 
 import { useRouter } from "next/navigation";
 import { useState } from "react";
+import { SubmitButton } from "@/app/_components/submit-button";
+import { useRequest } from "@/app/_components/use-request";
 import { fieldErrorsOf } from "@/lib/errors";
-import { FetchError, sendJson } from "@/lib/swr/fetcher";
+import { sendJson } from "@/lib/swr/fetcher";
 import { siteInputSchema } from "@/lib/validations/site";
 import type { Site } from "@/db/schema";
 
@@ -24,9 +26,7 @@ function initial(site?: Site): Values {
 export function SiteForm({ site }: { site?: Site }) {
   const router = useRouter();
   const [values, setValues] = useState<Values>(initial(site));
-  const [errors, setErrors] = useState<Record<string, string[]>>({});
-  const [formError, setFormError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error: formError, setError: setFormError, fieldErrors: errors, setFieldErrors: setErrors, run } = useRequest();
 
   const set = (k: keyof Values) => (e: React.ChangeEvent<HTMLInputElement | HTMLTextAreaElement | HTMLSelectElement>) =>
     setValues((v) => ({ ...v, [k]: e.target.value }));
@@ -39,20 +39,13 @@ export function SiteForm({ site }: { site?: Site }) {
       setErrors(fieldErrorsOf(parsed.error));
       return;
     }
-    setErrors({});
-    setBusy(true);
-    try {
+    await run(async () => {
       const res = site
         ? await sendJson<{ site: Site }>(`/api/sites/${site.id}`, "PUT", parsed.data)
         : await sendJson<{ site: Site }>("/api/sites", "POST", parsed.data);
       router.push(`/sites/${res.site.id}`);
       router.refresh();
-    } catch (err) {
-      if (err instanceof FetchError && err.fieldErrors) setErrors(err.fieldErrors);
-      setFormError(err instanceof Error ? err.message : "Could not save the site.");
-    } finally {
-      setBusy(false);
-    }
+    }, "Could not save the site.");
   }
 
   const field = (k: keyof Values, label: string, props: React.InputHTMLAttributes<HTMLInputElement> = {}) => (
@@ -86,9 +79,9 @@ export function SiteForm({ site }: { site?: Site }) {
         {errors.notes?.map((m) => <p key={m} className="field-error">{m}</p>)}
       </div>
       {formError && <p className="rounded bg-fail-light px-3 py-2 text-sm text-fail" role="alert">{formError}</p>}
-      <button type="submit" className="btn-primary" disabled={busy}>
-        {busy ? "Saving…" : site ? "Save changes" : "Create site"}
-      </button>
+      <SubmitButton busy={busy} busyLabel="Saving…">
+        {site ? "Save changes" : "Create site"}
+      </SubmitButton>
     </form>
   );
 }

@@ -1,4 +1,5 @@
 import { NextResponse } from "next/server";
+import { toCaptureView } from "@/db/queries/capture-view";
 import { switchCaptureKind, withdrawCapture } from "@/db/queries/captures";
 import { getCaptureStatus } from "@/db/queries/sheet";
 import { captureParamsSchema } from "@/lib/api/params";
@@ -19,7 +20,7 @@ export const PATCH = withAuth<{ id: string }>(
   async ({ req, params, user }) => {
     const { id } = captureParamsSchema.parse(params);
     const { kind } = switchKindSchema.parse(await readJson(req));
-    return NextResponse.json({ capture: await switchCaptureKind({ id, kind, actorId: user.id, reader: user }) });
+    return NextResponse.json({ capture: toCaptureView(await switchCaptureKind({ id, kind, actorId: user.id, reader: user })) });
   },
   { permission: "captures:upload" },
 );

@@ -1,7 +1,7 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { useRequest } from "@/app/_components/use-request";
 import { sendJson } from "@/lib/swr/fetcher";
 
 const kindLabels = { waveform: "waveform record", "interval-log": "interval log" } as const;
@@ -19,21 +19,8 @@ export function CaptureActions({
   canWithdraw: boolean;
 }) {
   const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
+  const { busy, error, run } = useRequest();
   const other = kind === "waveform" ? "interval-log" : "waveform";
-
-  async function run(fn: () => Promise<void>) {
-    setBusy(true);
-    setError(null);
-    try {
-      await fn();
-    } catch (err) {
-      setError(err instanceof Error ? err.message : "That did not work.");
-    } finally {
-      setBusy(false);
-    }
-  }
 
   if (!canSwitchKind && !canWithdraw) return null;
   return (
@@ -50,7 +37,7 @@ export function CaptureActions({
             onClick={() => run(async () => {
               await sendJson(`/api/captures/${captureId}`, "PATCH", { kind: other });
               router.push(`/captures/${captureId}/setup`);
-            })}
+            }, "That did not work.")}
           >
             It is an {kindLabels[other]}
           </button>
@@ -65,7 +52,7 @@ export function CaptureActions({
               if (!window.confirm("Withdraw this capture? It disappears from the lists; the audit log keeps it.")) return;
               await sendJson(`/api/captures/${captureId}`, "DELETE");
               router.push("/captures");
-            })}
+            }, "That did not work.")}
           >
             Withdraw
           </button>

@@ -3,16 +3,8 @@
 import Link from "next/link";
 import { useRouter } from "next/navigation";
 import { useEffect, useRef } from "react";
+import { captureStatusSentences, failureReasonText } from "@/lib/reports/format";
 import { useCapture, type CaptureStatusDto } from "@/lib/swr/use-capture";
-
-const labels: Record<string, string> = {
-  uploading: "Waiting for the file to arrive",
-  uploaded: "Uploaded — the channels need mapping before analysis",
-  queued: "Queued for analysis",
-  running: "Analysing",
-  done: "Analysed",
-  failed: "The analysis failed",
-};
 
 /** Status of a capture that is not analysed yet; polls while queued/running and reloads the page when it settles. */
 export function CaptureProgress({ initial, canFix }: { initial: CaptureStatusDto; canFix: boolean }) {
@@ -29,11 +21,11 @@ export function CaptureProgress({ initial, canFix }: { initial: CaptureStatusDto
   const busy = capture.status === "queued" || capture.status === "running";
   return (
     <section className="panel space-y-3" data-testid="capture-progress" data-status={capture.status}>
-      <p className="font-medium" data-testid="capture-status">{labels[capture.status] ?? capture.status}</p>
+      <p className="font-medium" data-testid="capture-status">{captureStatusSentences[capture.status] ?? capture.status}</p>
       {capture.status === "failed" ? (
         <div className="rounded-md border border-fail/40 bg-fail-light px-4 py-3 text-fail" role="alert" data-testid="failure-reason">
           <p className="font-semibold">Why it failed</p>
-          <p className="mt-1 text-ink">{capture.failureReason ?? "No reason was recorded."}</p>
+          <p className="mt-1 text-ink">{failureReasonText(capture.failureReason)}</p>
         </div>
       ) : (
         <div>

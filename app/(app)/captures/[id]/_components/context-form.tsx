@@ -1,9 +1,10 @@
 "use client";
 
 import { useRouter } from "next/navigation";
-import { useState } from "react";
+import { SubmitButton } from "@/app/_components/submit-button";
+import { useRequest } from "@/app/_components/use-request";
 import type { EvaluationContext } from "@/lib/compliance/model";
-import { FetchError, sendJson } from "@/lib/swr/fetcher";
+import { sendJson } from "@/lib/swr/fetcher";
 import { reevaluateSchema } from "@/lib/validations/capture";
 import { contextNumberFields } from "@/lib/validations/context-fields";
 import { PhaseConfigSelect } from "./phase-config-select";
@@ -28,9 +29,7 @@ export function ContextForm({
   conditions: { id: string; text: string }[];
 }) {
   const router = useRouter();
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [fieldErrors, setFieldErrors] = useState<Record<string, string[]>>({});
+  const { busy, error, setError, fieldErrors, setFieldErrors, run } = useRequest();
 
   async function onSubmit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
@@ -49,24 +48,16 @@ export function ContextForm({
     const parsed = reevaluateSchema.safeParse({ limitSetKey: form.get("limitSetKey"), context });
     if (!parsed.success) {
       const errs: Record<string, string[]> = {};
-      for (const issue of parsed.error.issues) (errs[issue.path.join(".")] ??= []).push(issue.message.includes("expected number") ? "Enter a number" : issue.message);
+      for (const issue of parsed.error.issues) (errs[issue.path.join(".")] ??= []).push(issue.code === "invalid_type" && issue.expected === "number" ? "Enter a number" : issue.message);
       setFieldErrors(errs);
       setError("Some values need attention.");
       return;
     }
-    setBusy(true);
-    setError(null);
-    setFieldErrors({});
-    try {
+    await run(async () => {
       const res = await sendJson<{ evaluationId: string }>(`/api/captures/${captureId}/evaluations`, "POST", parsed.data);
       router.push(`/captures/${captureId}?evaluation=${res.evaluationId}`);
       router.refresh();
-    } catch (err) {
-      setError(err instanceof Error ? err.message : "The evaluation failed.");
-      if (err instanceof FetchError && err.fieldErrors) setFieldErrors(err.fieldErrors);
-    } finally {
-      setBusy(false);
-    }
+    }, "The evaluation failed.");
   }
 
   return (
@@ -123,9 +114,9 @@ export function ContextForm({
         </fieldset>
       )}
       {error && <p className="field-error" role="alert">{error}</p>}
-      <button type="submit" className="btn-primary w-full" disabled={busy} data-testid="reevaluate">
-        {busy ? "Evaluating…" : "Evaluate again"}
-      </button>
+      <SubmitButton busy={busy} busyLabel="Evaluating…" className="btn-primary w-full" testId="reevaluate">
+        Evaluate again
+      </SubmitButton>
       <p className="text-xs text-ink-muted">A new evaluation is added; earlier ones stay in the history.</p>
     </form>
   );

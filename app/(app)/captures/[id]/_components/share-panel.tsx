@@ -2,6 +2,8 @@
 
 import { useState } from "react";
 import { mutate } from "swr";
+import { SubmitButton } from "@/app/_components/submit-button";
+import { useRequest } from "@/app/_components/use-request";
 import { formatWhen } from "@/lib/reports/format";
 import { sendJson } from "@/lib/swr/fetcher";
 import { captureSharesKey, useCaptureShares } from "@/lib/swr/use-capture-shares";
@@ -13,34 +15,24 @@ export function SharePanel({ captureId }: { captureId: string }) {
   const [days, setDays] = useState("14");
   const [created, setCreated] = useState<string | null>(null);
   const [copied, setCopied] = useState(false);
-  const [error, setError] = useState<string | null>(null);
-  const [busy, setBusy] = useState(false);
+  const { busy, error, setError, run } = useRequest();
 
   async function create(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
-    setError(null);
     setCopied(false);
-    try {
+    await run(async () => {
       const res = await sendJson<{ url: string }>(`/api/captures/${captureId}/shares`, "POST", { label, expiresInDays: Number(days) });
       setCreated(res.url);
       setLabel("");
       await mutate(captureSharesKey(captureId));
-    } catch (err) {
-      setError(err instanceof Error ? err.message : "The link was not created.");
-    } finally {
-      setBusy(false);
-    }
+    }, "The link was not created.");
   }
 
   async function revoke(id: string) {
-    setError(null);
-    try {
+    await run(async () => {
       await sendJson(`/api/captures/${captureId}/shares/${id}`, "DELETE");
       await mutate(captureSharesKey(captureId));
-    } catch (err) {
-      setError(err instanceof Error ? err.message : "The link was not revoked.");
-    }
+    }, "The link was not revoked.");
   }
 
   async function copy() {
@@ -67,9 +59,9 @@ export function SharePanel({ captureId }: { captureId: string }) {
           <label htmlFor="share-days" className="field-label">Days</label>
           <input id="share-days" value={days} onChange={(e) => setDays(e.target.value)} inputMode="numeric" className="field-input" data-testid="share-days" />
         </div>
-        <button type="submit" className="btn-quiet col-span-2" disabled={busy} data-testid="share-create">
-          {busy ? "Creating…" : "Create read-only link"}
-        </button>
+        <SubmitButton busy={busy} busyLabel="Creating…" className="btn-quiet col-span-2" testId="share-create">
+          Create read-only link
+        </SubmitButton>
       </form>
       {created && (
         <div className="space-y-2 rounded-md border border-copper/40 bg-copper-light/60 p-3 text-sm" data-testid="share-created">

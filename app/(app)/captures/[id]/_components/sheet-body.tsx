@@ -13,7 +13,8 @@ import type { EvaluationContext } from "@/lib/compliance/model";
 import type { ChannelCompliance } from "@/lib/compliance/result";
 import { formatOrders, groupReasons, verdictLabel } from "@/lib/reports/format";
 import { conditionReasonText, powerChoiceRows } from "@/lib/reports/result-wording";
-import type { SheetBodyData } from "@/lib/reports/sheet-body-data";
+import type { SheetBodyPayload } from "@/lib/reports/sheet-body-data";
+import { unpackSheetBody } from "@/lib/reports/unpack-sheet-body";
 import { decidedByLabel, timeRuleLines } from "@/lib/reports/time-rules";
 import { useCaptureCharts } from "@/lib/swr/use-capture-charts";
 import { AggregateCards } from "./aggregate-cards";
@@ -26,10 +27,11 @@ import { TimeRulesPanel } from "./time-rules-panel";
 /**
  * The interactive part of a sheet: channel/phase selector, aggregates, charts and the per-order
  * table of the chosen channel. Used by the signed-in sheet and the read-only share page. It gets the
- * shown channel only (lib/reports/sheet-body-data.ts); choosing another one is a link (`?channel=`),
+ * shown channel only, each rule's words once (lib/reports/sheet-body-data.ts); choosing another one is a link (`?channel=`),
  * which the server answers with that channel's data.
  */
-export function SheetBody({ data, chartsUrl }: { data: SheetBodyData; chartsUrl: string }) {
+export function SheetBody({ payload, chartsUrl }: { payload: SheetBodyPayload; chartsUrl: string }) {
+  const data = useMemo(() => unpackSheetBody(payload), [payload]);
   const { channels, channel } = data;
   const pathname = usePathname();
   const searchParams = useSearchParams();

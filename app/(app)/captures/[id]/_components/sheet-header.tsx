@@ -32,78 +32,75 @@ export function SheetHeader({ sheet }: { sheet: Sheet | SheetPage }) {
         </div>
       </div>
       <dl className="grid gap-x-6 gap-y-3 text-sm sm:grid-cols-2 lg:grid-cols-3">
-        <div>
-          <dt className="text-xs uppercase tracking-wide text-ink-muted">Limit set</dt>
-          <dd data-testid="sheet-limit-set">
-            <span className="font-medium">{evaluation.limitSetName}</span>
-            <span className="block text-ink-soft">
-              {result.limitSet.standard}, {result.limitSet.edition} · <span data-testid="sheet-revision">revision {evaluation.revisionNumber}</span>
+        <Fact label="Limit set" testId="sheet-limit-set">
+          <span className="font-medium">{evaluation.limitSetName}</span>
+          <span className="block text-ink-soft">
+            {result.limitSet.standard}, {result.limitSet.edition} · <span data-testid="sheet-revision">revision {evaluation.revisionNumber}</span>
+          </span>
+        </Fact>
+        <Fact label="Band" testId="sheet-band">
+          <span className="font-medium">{result.band.label ?? "none chosen"}</span>
+          <span className="block text-ink-soft">{result.band.reason}</span>
+          {result.band.options && result.band.options.length > 0 && (
+            <span className="mt-1 flex flex-wrap gap-1">
+              {result.band.options.map((o) => (
+                <span key={o.label} className="inline-flex items-center gap-1 text-xs">
+                  {o.label} <VerdictBadge verdict={o.verdict} />
+                </span>
+              ))}
             </span>
-          </dd>
-        </div>
-        <div>
-          <dt className="text-xs uppercase tracking-wide text-ink-muted">Band</dt>
-          <dd data-testid="sheet-band">
-            <span className="font-medium">{result.band.label ?? "none chosen"}</span>
-            <span className="block text-ink-soft">{result.band.reason}</span>
-            {result.band.options && result.band.options.length > 0 && (
-              <span className="mt-1 flex flex-wrap gap-1">
-                {result.band.options.map((o) => (
-                  <span key={o.label} className="inline-flex items-center gap-1 text-xs">
-                    {o.label} <VerdictBadge verdict={o.verdict} />
-                  </span>
-                ))}
-              </span>
-            )}
-          </dd>
-        </div>
-        <div>
-          <dt className="text-xs uppercase tracking-wide text-ink-muted">Context</dt>
-          <dd data-testid="sheet-context">
-            {context.length === 0 ? (
-              <span className="text-ink-soft">No context values given.</span>
-            ) : (
-              <ul>
-                {context.map(([k, v]) => (
-                  <li key={k}>
-                    <span className="text-ink-soft">{k}</span> {v}
-                  </li>
-                ))}
-              </ul>
-            )}
-          </dd>
-        </div>
-        <div className="sm:col-span-2 lg:col-span-3">
-          <dt className="text-xs uppercase tracking-wide text-ink-muted">Evaluated</dt>
-          <dd className="text-ink-soft">
-            {formatWhen(evaluation.createdAt)} {evaluation.createdByName ? `by ${evaluation.createdByName}` : "automatically after the analysis"}
-            {result.channel ? ` · worst channel ${result.channel}` : ""}
-          </dd>
-        </div>
+          )}
+        </Fact>
+        <Fact label="Context" testId="sheet-context">
+          {context.length === 0 ? (
+            <span className="text-ink-soft">No context values given.</span>
+          ) : (
+            <ul>
+              {context.map(([k, v]) => (
+                <li key={k}>
+                  <span className="text-ink-soft">{k}</span> {v}
+                </li>
+              ))}
+            </ul>
+          )}
+        </Fact>
+        <Fact label="Evaluated" wide className="text-ink-soft">
+          {formatWhen(evaluation.createdAt)} {evaluation.createdByName ? `by ${evaluation.createdByName}` : "automatically after the analysis"}
+          {result.channel ? ` · worst channel ${result.channel}` : ""}
+        </Fact>
         {setup.length > 0 && (
-          <div className="sm:col-span-2 lg:col-span-3">
-            <dt className="text-xs uppercase tracking-wide text-ink-muted">Set-up behind this result</dt>
-            <dd data-testid="sheet-setup">
-              <ul>
-                {setup.map(([k, v, details]) => (
-                  <li key={k} className="[overflow-wrap:anywhere]">
-                    <span className="text-ink-soft">{k}</span> {v}
-                    {details && details.length > 0 && (
-                      <details className="mt-1" data-testid="setup-details">
-                        <summary className="cursor-pointer text-copper-dark">Show all {details.length}</summary>
-                        <ul className="mt-1 columns-1 text-xs text-ink-soft sm:columns-2 lg:columns-3">
-                          {details.map((d) => <li key={d} className="[overflow-wrap:anywhere]">{d}</li>)}
-                        </ul>
-                      </details>
-                    )}
-                  </li>
-                ))}
-              </ul>
-            </dd>
-          </div>
+          <Fact label="Set-up behind this result" wide testId="sheet-setup">
+            <ul>
+              {setup.map(([k, v, details]) => (
+                <li key={k} className="[overflow-wrap:anywhere]">
+                  <span className="text-ink-soft">{k}</span> {v}
+                  {details && details.length > 0 && (
+                    <details className="mt-1" data-testid="setup-details">
+                      <summary className="cursor-pointer text-copper-dark">Show all {details.length}</summary>
+                      <ul className="mt-1 columns-1 text-xs text-ink-soft sm:columns-2 lg:columns-3">
+                        {details.map((d) => <li key={d} className="[overflow-wrap:anywhere]">{d}</li>)}
+                      </ul>
+                    </details>
+                  )}
+                </li>
+              ))}
+            </ul>
+          </Fact>
         )}
       </dl>
     </section>
+  );
+}
+
+/** One term of the header's description list: its label above what it says (`wide`: the whole row). */
+function Fact({ label, wide = false, testId, className, children }: { label: string; wide?: boolean; testId?: string; className?: string; children: React.ReactNode }) {
+  return (
+    <div className={wide ? "sm:col-span-2 lg:col-span-3" : undefined}>
+      <dt className="text-xs uppercase tracking-wide text-ink-muted">{label}</dt>
+      <dd data-testid={testId} className={className}>
+        {children}
+      </dd>
+    </div>
   );
 }
 

@@ -1,5 +1,6 @@
 import { VerdictBadge } from "@/app/_components/verdict-badge";
 import type { TimeBasis } from "@/lib/compliance/result";
+import { sentenceStart } from "@/lib/reports/format";
 import { describeTimeBasis, formatMultiplier, type TimeRuleLine } from "@/lib/reports/time-rules";
 
 /**
@@ -40,7 +41,7 @@ export function TimeRulesPanel({ rules, basis, channelName }: { rules: TimeRuleL
             </div>
             <p className="text-ink-soft">
               {/* A result stored before rules said what they measure has only the rule's label (above); its id is never shown. */}
-              {rule.statistic ? `${rule.statistic.charAt(0).toUpperCase()}${rule.statistic.slice(1)} · ` : ""}
+              {rule.statistic ? `${sentenceStart(rule.statistic)} · ` : ""}
               limit {formatMultiplier(rule.multiplier)}
               {rule.interval && <> · values: {rule.interval}</>}
               {rule.period && <> · accumulated over: {rule.period}</>}

@@ -2,6 +2,7 @@ import { NextResponse } from "next/server";
 import { getCaptureById, getCurrentRevision, insertEvaluation, latestAnalysis, listEvaluations } from "@/db/queries/captures";
 import { captureParamsSchema } from "@/lib/api/params";
 import { readJson, withAuth } from "@/lib/api/with-auth";
+import { readsApprovedResultOnly } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { evaluateStoredIntervalLog } from "@/lib/captures/evaluate-stored-interval-log";
 import { IntervalLogError } from "@/lib/intervals/errors";
@@ -16,12 +17,14 @@ function rethrowAsConflict(err: unknown): never {
   throw err;
 }
 
-// GET /api/captures/:id/evaluations — every evaluation of the capture, newest first
+// GET /api/captures/:id/evaluations — every evaluation of the capture, newest first; readers outside the team get
+// only the approved one
 export const GET = withAuth<{ id: string }>(
   async ({ params, user }) => {
     const { id } = captureParamsSchema.parse(params);
-    await getCaptureById({ id, reader: user });
-    return NextResponse.json({ evaluations: await listEvaluations({ captureId: id }) });
+    const capture = await getCaptureById({ id, reader: user });
+    const only = readsApprovedResultOnly(user) ? { onlyId: capture.approvedEvaluationId } : {};
+    return NextResponse.json({ evaluations: await listEvaluations({ captureId: id, ...only }) });
   },
   { permission: "captures:read" },
 );

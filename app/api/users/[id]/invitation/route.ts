@@ -8,8 +8,8 @@ import { userParamsSchema } from "@/lib/validations/auth";
 export const POST = withAuth<{ id: string }>(
   async ({ params, user: actor }) => {
     const { id } = userParamsSchema.parse(params);
-    const { user, token } = await resendInvitation({ id, actorId: actor.id });
-    await sendInvitationMail({ user, token, actorName: actor.name });
+    const { user, invitation } = await resendInvitation({ id, actorId: actor.id });
+    await sendInvitationMail({ user, invitation, actorName: actor.name });
     return NextResponse.json({ user });
   },
   { permission: "users:manage" },
