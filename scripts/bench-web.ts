@@ -7,7 +7,9 @@ import os from "node:os";
 //      [--case charts,sheet,json] [--path /any/page]
 // Signs in as the demo engineer, picks an analysed capture (or --capture), and for each of
 //   GET /api/captures/:id/charts?evaluation=…  (what the sheet's charts fetch)
-//   GET /captures/:id                            (the sheet page, server-rendered)
+//   GET /captures/:id                            (the sheet page, server-rendered, then the per-order part
+//                                                 it loads: GET /api/captures/:id/sheet-body?evaluation=…,
+//                                                 timed together, one after the other, as a browser waits)
 //   GET /api/captures/:id                        (the capture JSON the progress poller reads)
 // runs `clients` concurrent loops for `seconds`, then prints count, requests/s, errors and p50/p95/p99
 // against the targets of the issue, with the response size as sent and the machine's load average (the
@@ -33,6 +35,8 @@ const maxRequests = Math.min(200_000, Math.max(1, Number(arg("max-requests", "50
 const email = arg("email", "engineer@ordwise.test");
 const password = arg("password", "ordwise-demo-2026");
 // `--path /some/page` measures that GET as well (case "path", no target) — e.g. to find the floor of a bare route.
+// Its answers count as answered for any status below 500: a floor may be a refusal (e.g. a 422 decided after
+// the session is checked and before any query).
 const extraPath = arg("path", "");
 const caseNames = new Set(arg("case", extraPath ? "path" : "charts,sheet,json").split(",").map((c) => c.trim()));
 
@@ -162,8 +166,9 @@ function get(url: URL, cookie: string, timeoutMs = 10_000): Promise<{ status: nu
   });
 }
 
-async function runCase(name: string, path: string, cookie: string, targetP95Ms: number): Promise<CaseResult> {
+async function runCase(name: string, path: string, cookie: string, targetP95Ms: number, follow?: string, okBelow = 300): Promise<CaseResult> {
   const url = new URL(path, base);
+  const then = follow ? new URL(follow, base) : null;
   const latencies: number[] = [];
   let errors = 0;
   let started = 0;
@@ -179,8 +184,9 @@ async function runCase(name: string, path: string, cookie: string, targetP95Ms: 
       const t = performance.now();
       try {
         const res = await get(url, cookie);
-        bytes = res.bytes;
-        if (res.status < 200 || res.status > 299) errors += 1;
+        const next = then && res.status >= 200 && res.status <= 299 ? await get(then, cookie) : null;
+        bytes = res.bytes + (next?.bytes ?? 0);
+        if (res.status < 200 || res.status >= okBelow || (next && (next.status < 200 || next.status > 299))) errors += 1;
         else latencies.push(performance.now() - t);
       } catch {
         errors += 1;
@@ -221,21 +227,31 @@ const evaluationId = evaluations[0]?.id;
 console.log(`load average before: ${loadAverage()}`);
 console.log(`bench:web ${base.origin} · capture ${captureId} · ${clients} clients × ${seconds} s per case (at most ${maxRequests} requests)`);
 
-const cases: Array<[string, string, string, number]> = [
+// The per-order part of the sheet that the page has the browser load (its address names the shown evaluation).
+const sheetHtml = await (await fetch(new URL(`/captures/${captureId}`, base), { headers: { cookie }, signal: AbortSignal.timeout(10_000) })).text();
+const sheetBody = new RegExp(`/api/captures/${captureId}/sheet-body\\?evaluation=[0-9a-f-]{36}`).exec(sheetHtml)?.[0];
+
+const cases: Array<[string, string, string, number, string?]> = [
   ["charts", "GET /api/captures/:id/charts", `/api/captures/${captureId}/charts${evaluationId ? `?evaluation=${evaluationId}` : ""}`, 150],
-  ["sheet", "GET /captures/:id (sheet page)", `/captures/${captureId}`, 400],
+  ["sheet", sheetBody ? "GET /captures/:id + its sheet-body" : "GET /captures/:id (sheet page)", `/captures/${captureId}`, 400, sheetBody],
   ["json", "GET /api/captures/:id", `/api/captures/${captureId}`, 100],
   ...(extraPath ? [["path", `GET ${extraPath}`, extraPath, Number.NaN] as [string, string, string, number]] : []),
 ];
 const results: CaseResult[] = [];
-for (const [key, name, path, target] of cases) {
+for (const [key, name, path, target, follow] of cases) {
   if (!caseNames.has(key)) continue;
   // A short warm-up so first loads and caches are not measured: a few rounds of concurrent requests, so
   // that every serving process (they take connections in turn) has answered some.
   for (let round = 0; round < 3; round += 1) {
-    await Promise.all(Array.from({ length: Math.min(clients, 8) }, () => get(new URL(path, base), cookie, 30_000).catch(() => undefined)));
+    await Promise.all(
+      Array.from({ length: Math.min(clients, 8) }, () =>
+        get(new URL(path, base), cookie, 30_000)
+          .then(() => (follow ? get(new URL(follow, base), cookie, 30_000) : undefined))
+          .catch(() => undefined),
+      ),
+    );
   }
-  results.push(await runCase(name, path, cookie, target));
+  results.push(await runCase(name, path, cookie, target, follow, key === "path" ? 500 : 300));
 }
 
 const perRequest = (cpuMs: number, r: CaseResult) => `${(cpuMs / 1000).toFixed(2)} s (${(cpuMs / Math.max(1, r.count + r.errors)).toFixed(2)} ms/req)`;

@@ -143,6 +143,24 @@ function holdFirstChunk(res) {
   };
 }
 
+/**
+ * Next.js drops Content-Encoding from a route handler's answer (it cannot tell whether a fetched body it
+ * forwards was decoded on the way). A route that answers with bytes already encoded — the charts route
+ * sends chart data gzipped as stored — names the encoding in this header instead, and this server sends it
+ * as Content-Encoding; the compression middleware then leaves the body alone.
+ */
+const encodedHeader = "x-content-encoding";
+function passEncoding(res) {
+  const { appendHeader, setHeader } = res;
+  const pass = (original) =>
+    function (name, value) {
+      if (typeof name === "string" && name.toLowerCase() === encodedHeader) return setHeader.call(res, "content-encoding", value);
+      return original.call(res, name, value);
+    };
+  res.appendHeader = pass(appendHeader);
+  res.setHeader = pass(setHeader);
+}
+
 // Built assets carry the headers of next.config.ts and no page policy.
 const builtAsset = /^\/(?:_next\/static\/|_next\/image|favicon\.ico)/;
 
@@ -201,6 +219,7 @@ if (cluster.isPrimary && processes > 1) {
       req.headers["content-security-policy"] = csp;
       res.setHeader("content-security-policy", csp);
     }
+    if (pathname.startsWith("/api/")) passEncoding(res);
     compress(req, res);
     if (pathname.startsWith("/api/")) holdFirstChunk(res);
     handle(req, res).catch((err) => {

@@ -145,18 +145,24 @@ export async function getSheetView({ captureId, evaluationId, channel }: { captu
 }
 
 /**
- * The chart data of a capture's evaluation as the JSON text stored with it (never parsed here), in one
- * query that also applies `reader`'s visibility of the capture: the named evaluation, else the approved
- * one while there is one, else the newest. `null`: the capture is not visible (or does not exist);
- * `evaluation: null`: it has no such evaluation; `chartsJson: null`: an older evaluation stored before
- * chart data was.
+ * The chart data of a capture's evaluation as stored with it, gzipped (`chartsGzip`; else, for an older
+ * evaluation stored before that, the JSON text, never parsed here), in one query that also applies
+ * `reader`'s visibility of the capture: the named evaluation, else the approved one while there is one,
+ * else the newest. `null`: the capture is not visible (or does not exist); `evaluation: null`: it has no
+ * such evaluation; both forms null: an older evaluation stored before chart data was.
  */
 export async function getVisibleChartsJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{
   approvedEvaluationId: string | null;
-  evaluation: { id: string; analysisId: string; chartsJson: string | null } | null;
+  evaluation: { id: string; analysisId: string; chartsGzip: Buffer | null; chartsJson: string | null } | null;
 } | null> {
   const chosen = db
-    .select({ id: evaluations.id, analysisId: evaluations.analysisId, chartsJson: dsql<string | null>`${evaluations.charts}::text`.as("charts_json") })
+    .select({
+      id: evaluations.id,
+      analysisId: evaluations.analysisId,
+      chartsGzip: evaluations.chartsGzip,
+      // The text only where the gzipped form is missing: reading both would fetch the document twice.
+      chartsJson: dsql<string | null>`case when ${evaluations.chartsGzip} is null then ${evaluations.charts}::text end`.as("charts_json"),
+    })
     .from(evaluations)
     .where(
       and(
@@ -168,15 +174,38 @@ export async function getVisibleChartsJson({ captureId, reader, evaluationId }: 
     .limit(1)
     .as("chosen");
   const [row] = await db
-    .select({ approvedEvaluationId: captures.approvedEvaluationId, id: chosen.id, analysisId: chosen.analysisId, chartsJson: chosen.chartsJson })
+    .select({ approvedEvaluationId: captures.approvedEvaluationId, id: chosen.id, analysisId: chosen.analysisId, chartsGzip: chosen.chartsGzip, chartsJson: chosen.chartsJson })
     .from(captures)
     .leftJoinLateral(chosen, dsql`true`)
     .where(and(eq(captures.id, captureId), capturesVisibleTo(reader)));
   if (!row) return null;
   return {
     approvedEvaluationId: row.approvedEvaluationId,
-    evaluation: row.id && row.analysisId ? { id: row.id, analysisId: row.analysisId, chartsJson: row.chartsJson } : null,
+    evaluation: row.id && row.analysisId ? { id: row.id, analysisId: row.analysisId, chartsGzip: row.chartsGzip, chartsJson: row.chartsJson } : null,
   };
+}
+
+/**
+ * The sheet body's parts of one evaluation of a capture `reader` may see, in one query: its head and the
+ * channel named `channel` (the first, i.e. worst, one for any other name), with the capture's approved
+ * evaluation. `null`: the capture is not visible (or does not exist) or has no such evaluation; `head:
+ * null`: an evaluation stored before its parts were (getSheetView builds them).
+ */
+export async function getVisibleSheetParts({ captureId, evaluationId, channel, reader }: { captureId: string; evaluationId: string; channel: string; reader: Reader }): Promise<{
+  approvedEvaluationId: string | null;
+  head: ResultHead | null;
+  shown: ChannelCompliance | null;
+} | null> {
+  const [row] = await db
+    .select({
+      approvedEvaluationId: captures.approvedEvaluationId,
+      head: dsql<ResultHead | null>`(select p.data from ${evaluationSheetParts} p where p.evaluation_id = ${evaluations.id} and p.part = 0)`,
+      shown: dsql<ChannelCompliance | null>`(select p.data from ${evaluationSheetParts} p where p.evaluation_id = ${evaluations.id} and p.part > 0 order by (p.channel = ${channel}) desc, p.part limit 1)`,
+    })
+    .from(captures)
+    .innerJoin(evaluations, and(eq(evaluations.captureId, captures.id), eq(evaluations.id, evaluationId)))
+    .where(and(eq(captures.id, captureId), capturesVisibleTo(reader)));
+  return row ?? null;
 }
 
 /** What `GET /api/captures/:id` answers: the capture's identity, state and progress, not its set-up or storage. */

@@ -1,4 +1,4 @@
-import { index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { customType, index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
@@ -10,6 +10,9 @@ import { captures } from "./captures";
 import { reviewActionEnum } from "./enums";
 import { limitSetRevisions } from "./limits";
 import { createdAtColumn, idColumn, requiredRef } from "./columns";
+
+/** PostgreSQL `bytea`, read and written as a Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 // One row per analysis run of a capture; the newest is the one the sheet shows.
 export const analyses = pgTable(
@@ -51,6 +54,10 @@ export const evaluations = pgTable(
     verdict: text("verdict").notNull(),
     // The charts' data (lib/reports/chart-data.ts), built when the evaluation is stored; null for older rows.
     charts: json("charts").$type<ChartData>(),
+    // The same JSON text gzipped (lib/reports/charts-gzip.ts): what the charts route sends, as it is, to a client
+    // that accepts gzip (every browser) — no serialising or compressing per request. Null for older rows until
+    // their first read.
+    chartsGzip: bytea("charts_gzip"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAtColumn(),
   },

@@ -1,4 +1,5 @@
 import "server-only";
+import { gunzipSync } from "node:zlib";
 import type { NextRequest } from "next/server";
 
 /** Whether an If-None-Match header lists `etag` (or is `*`); weak and strong forms compare equal, as for GET. */
@@ -10,13 +11,33 @@ function matches(ifNoneMatch: string | null, etag: string): boolean {
   });
 }
 
+/** Whether an Accept-Encoding header accepts gzip (named, or `*`, with a non-zero weight). */
+function acceptsGzip(acceptEncoding: string | null): boolean {
+  const q = new Map<string, number>();
+  for (const part of (acceptEncoding ?? "").toLowerCase().split(",")) {
+    const [coding, ...params] = part.split(";").map((p) => p.trim());
+    if (!coding) continue;
+    const weight = params.find((p) => p.startsWith("q="));
+    q.set(coding, weight ? Number(weight.slice(2)) : 1);
+  }
+  const gzip = q.get("gzip") ?? q.get("x-gzip") ?? q.get("*");
+  return gzip !== undefined && gzip > 0;
+}
+
 /**
- * A chart-data answer: the JSON text as loaded (not parsed and serialised again), with the evaluation's id
- * as its ETag — the data of one evaluation never changes — and 304 when the client already holds it.
+ * A chart-data answer: the gzipped JSON as stored, sent as it is (`Content-Encoding: gzip`) to a client
+ * that accepts gzip — every browser — and unzipped for one that does not. Its strong ETag is the
+ * evaluation's id (the data of one evaluation never change), with `-gzip` for the gzipped form (two
+ * encodings are two representations); a client that already holds it gets 304. Called only once the
+ * reader has been allowed the capture: the tag is no key.
  */
-export function chartsResponse(req: NextRequest, charts: { evaluationId: string | null; json: string }, cacheControl: string): Response {
-  const headers: Record<string, string> = { "cache-control": cacheControl, vary: "cookie" };
-  if (charts.evaluationId) headers.etag = `"${charts.evaluationId}"`;
+export function chartsResponse(req: NextRequest, charts: { evaluationId: string | null; gzip: Buffer }, cacheControl: string): Response {
+  const gzip = acceptsGzip(req.headers.get("accept-encoding"));
+  const headers: Record<string, string> = { "cache-control": cacheControl, vary: "cookie, accept-encoding" };
+  if (charts.evaluationId) headers.etag = `"${charts.evaluationId}${gzip ? "-gzip" : ""}"`;
   if (headers.etag && matches(req.headers.get("if-none-match"), headers.etag)) return new Response(null, { status: 304, headers });
-  return new Response(charts.json, { status: 200, headers: { ...headers, "content-type": "application/json" } });
+  headers["content-type"] = "application/json";
+  if (!gzip) return new Response(new Uint8Array(gunzipSync(charts.gzip)), { status: 200, headers });
+  // Next.js would drop a Content-Encoding header; scripts/serve.mjs sends this one as it.
+  return new Response(new Uint8Array(charts.gzip), { status: 200, headers: { ...headers, "x-content-encoding": "gzip" } });
 }
