@@ -24,7 +24,7 @@ import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
 import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
-import { chartsGzip } from "@/lib/reports/charts-gzip";
+import { storedGzip } from "@/lib/reports/stored-gzip";
 import { analysisSummary } from "@/lib/reports/analysis-summary";
 import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
@@ -410,7 +410,7 @@ export async function listEvaluations({ captureId, onlyId }: { captureId: string
 
 /** An evaluation's chart columns: the data, and the same JSON gzipped as the charts route sends it. */
 function chartColumns(charts: ChartData | null): { charts: ChartData | null; chartsGzip: Buffer | null } {
-  return { charts, chartsGzip: charts ? chartsGzip(charts) : null };
+  return { charts, chartsGzip: charts ? storedGzip(charts) : null };
 }
 
 /**
@@ -419,7 +419,7 @@ function chartColumns(charts: ChartData | null): { charts: ChartData | null; cha
  */
 export async function saveEvaluationCharts({ evaluationId, charts }: { evaluationId: string; charts: ChartData | { text: string } }): Promise<Buffer> {
   if ("text" in charts) {
-    const gzip = chartsGzip(charts.text);
+    const gzip = storedGzip(charts.text);
     await db.update(evaluations).set({ chartsGzip: gzip }).where(eq(evaluations.id, evaluationId));
     return gzip;
   }

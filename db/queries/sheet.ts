@@ -1,12 +1,14 @@
 import "server-only";
 import { and, desc, eq, sql as dsql } from "drizzle-orm";
 import { db, type Db, type Tx } from "@/db/client";
-import { analyses, captures, evaluationSheetParts, evaluations, limitSetVerifications, sites, users, type Capture, type Site } from "@/db/schema";
+import { analyses, captures, evaluationSheetBodies, evaluationSheetParts, evaluations, limitSetVerifications, sites, users, type Capture, type Site } from "@/db/schema";
 import type { Reader } from "@/lib/auth/permissions";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
 import { splitResult, type ResultHead } from "@/lib/reports/result-head";
+import { sheetBodyData } from "@/lib/reports/sheet-body-data";
+import { storedGzip } from "@/lib/reports/stored-gzip";
 import { captureViewColumns, type CaptureView } from "./capture-view";
 import { verificationColumns, type VerificationView } from "./limit-verifications";
 import { capturesVisibleTo, sitesVisibleTo } from "./scope";
@@ -116,13 +118,32 @@ export async function getSheetEvaluation({ captureId, evaluationId }: { captureI
   return row ? { id: row.id, result: row.result as ComplianceResult, analysis: row.analysis, verification: row.verification } : null;
 }
 
-/** Stores a result's sheet parts (lib/reports/result-head.ts) for an evaluation; nothing when they exist. */
+/**
+ * Stores a result's sheet parts (lib/reports/result-head.ts) for an evaluation, and each channel part's
+ * sheet body as the signed-in sheet's client loads it, gzipped; nothing where they exist.
+ */
 export async function insertSheetParts({ evaluationId, result }: { evaluationId: string; result: ComplianceResult }, tx: Tx | Db = db): Promise<void> {
   const { head, channels } = splitResult(result);
   await tx
     .insert(evaluationSheetParts)
     .values([{ evaluationId, part: 0, channel: null, data: head }, ...channels.map((c, i) => ({ evaluationId, part: i + 1, channel: c.channel, data: c }))])
     .onConflictDoNothing();
+  if (channels.length > 0) {
+    await tx
+      .insert(evaluationSheetBodies)
+      .values(channels.map((c, i) => ({ evaluationId, part: i + 1, gzip: sheetBodyGzip(head, c) })))
+      .onConflictDoNothing();
+  }
+}
+
+/** The sheet body of one channel as stored: `{ body }` (lib/reports/sheet-body-data.ts) as JSON, gzipped. */
+export function sheetBodyGzip(head: ResultHead, channel: ChannelCompliance): Buffer {
+  return storedGzip({ body: sheetBodyData(head, channel) });
+}
+
+/** Stores the sheet body of an evaluation stored before bodies were (once; it never changes). */
+export async function insertSheetBody({ evaluationId, part, gzip }: { evaluationId: string; part: number; gzip: Buffer }): Promise<void> {
+  await db.insert(evaluationSheetBodies).values({ evaluationId, part, gzip }).onConflictDoNothing();
 }
 
 /**
@@ -186,24 +207,29 @@ export async function getVisibleChartsJson({ captureId, reader, evaluationId }: 
 }
 
 /**
- * The sheet body's parts of one evaluation of a capture `reader` may see, in one query: its head and the
- * channel named `channel` (the first, i.e. worst, one for any other name), with the capture's approved
- * evaluation. `null`: the capture is not visible (or does not exist) or has no such evaluation; `head:
- * null`: an evaluation stored before its parts were (getSheetView builds them).
+ * The stored sheet body of one evaluation of a capture `reader` may see, in one query: the channel part
+ * named `channel` (the first, i.e. worst, one for any other name), its gzipped body, and the capture's
+ * approved evaluation. `null`: the capture is not visible (or does not exist) or has no such evaluation;
+ * `part: null`: no channel part (none stored yet, or no channel); `gzip: null`: no body stored for it yet.
  */
-export async function getVisibleSheetParts({ captureId, evaluationId, channel, reader }: { captureId: string; evaluationId: string; channel: string; reader: Reader }): Promise<{
+export async function getVisibleSheetBody({ captureId, evaluationId, channel, reader }: { captureId: string; evaluationId: string; channel: string; reader: Reader }): Promise<{
   approvedEvaluationId: string | null;
-  head: ResultHead | null;
-  shown: ChannelCompliance | null;
+  part: number | null;
+  gzip: Buffer | null;
 } | null> {
+  const shown = db
+    .select({ part: evaluationSheetParts.part })
+    .from(evaluationSheetParts)
+    .where(and(eq(evaluationSheetParts.evaluationId, evaluations.id), dsql`${evaluationSheetParts.part} > 0`))
+    .orderBy(dsql`(${evaluationSheetParts.channel} = ${channel}) desc`, evaluationSheetParts.part)
+    .limit(1)
+    .as("shown");
   const [row] = await db
-    .select({
-      approvedEvaluationId: captures.approvedEvaluationId,
-      head: dsql<ResultHead | null>`(select p.data from ${evaluationSheetParts} p where p.evaluation_id = ${evaluations.id} and p.part = 0)`,
-      shown: dsql<ChannelCompliance | null>`(select p.data from ${evaluationSheetParts} p where p.evaluation_id = ${evaluations.id} and p.part > 0 order by (p.channel = ${channel}) desc, p.part limit 1)`,
-    })
+    .select({ approvedEvaluationId: captures.approvedEvaluationId, part: shown.part, gzip: evaluationSheetBodies.gzip })
     .from(captures)
     .innerJoin(evaluations, and(eq(evaluations.captureId, captures.id), eq(evaluations.id, evaluationId)))
+    .leftJoinLateral(shown, dsql`true`)
+    .leftJoin(evaluationSheetBodies, and(eq(evaluationSheetBodies.evaluationId, evaluations.id), eq(evaluationSheetBodies.part, shown.part)))
     .where(and(eq(captures.id, captureId), capturesVisibleTo(reader)));
   return row ?? null;
 }

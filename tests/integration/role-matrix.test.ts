@@ -240,8 +240,10 @@ describe("role matrix — object level", () => {
     }
     // Its sheet body, keyed by the same evaluation id, likewise.
     const body = `/api/captures/${otherCaptureId}/sheet-body?evaluation=${list[0]!.id}`;
-    expect((await engineer.request("GET", body)).status).toBe(200);
-    expect((await clients.get("viewer")!.request("GET", body)).status).toBe(404);
+    const bodyTag = (await engineer.request("GET", body, undefined, { "accept-encoding": "gzip" })).headers.get("etag")!;
+    expect(bodyTag).toMatch(/^"[0-9a-f-]{36}\.1-gzip"$/);
+    expect((await engineer.request("GET", body, undefined, { "accept-encoding": "gzip", "if-none-match": bodyTag })).status).toBe(304);
+    expect((await clients.get("viewer")!.request("GET", body, undefined, { "accept-encoding": "gzip", "if-none-match": bodyTag })).status).toBe(404);
   });
 
   it("a viewer of another customer gets 404 for the sheet and site pages, and the compare page shows nothing of it", async () => {

@@ -6,7 +6,7 @@ import { gunzipSync } from "node:zlib";
 import { desc, eq } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
-import { analyses, evaluationSheetParts, evaluations } from "@/db/schema";
+import { analyses, evaluationSheetBodies, evaluationSheetParts, evaluations } from "@/db/schema";
 import { demoCaptureId, listedCapture } from "../support/captures";
 import { appUrl } from "../support/env";
 import { Client, signedIn } from "../support/http";
@@ -202,6 +202,36 @@ describe("the sheet page and its body", () => {
     expect(second.channel).toBe(names[1]);
     expect(second.rows.map((r) => r.order)).toEqual(stored!.result.channels[1]!.rows.map((r) => r.order));
     expect((await shown("&channel=nothing-like-it")).channel).toBe(names[0]);
+  });
+
+  it("the body goes out as stored with the evaluation, gzipped, with the evaluation and channel part as its ETag", async () => {
+    const stored = await db.select().from(evaluationSheetBodies).where(eq(evaluationSheetBodies.evaluationId, evaluationId)).orderBy(evaluationSheetBodies.part);
+    const [head] = await db.select({ data: evaluationSheetParts.data }).from(evaluationSheetParts).where(eq(evaluationSheetParts.evaluationId, evaluationId)).orderBy(evaluationSheetParts.part).limit(1);
+    const names = (head!.data as { channels: { channel: string }[] }).channels.map((c) => c.channel);
+    expect(stored.map((b) => b.part)).toEqual(names.map((_, i) => i + 1));
+    const second = await rawGet(engineer, bodyUrl(`&channel=${encodeURIComponent(names[1]!)}`), { "accept-encoding": "gzip" });
+    expect(second.headers["content-encoding"]).toBe("gzip");
+    expect(second.body.equals(stored[1]!.gzip)).toBe(true);
+    expect(second.headers.etag).toBe(`"${evaluationId}.2-gzip"`);
+    expect((JSON.parse(gunzipSync(second.body).toString("utf8")) as Body).body!.channel.channel).toBe(names[1]);
+    expect((await rawGet(engineer, bodyUrl(`&channel=${encodeURIComponent(names[1]!)}`), { "accept-encoding": "gzip", "if-none-match": `"${evaluationId}.2-gzip"` })).status).toBe(304);
+    // Another channel's tag is another body.
+    expect((await rawGet(engineer, bodyUrl(), { "accept-encoding": "gzip", "if-none-match": `"${evaluationId}.2-gzip"` })).status).toBe(200);
+    await expect(db.update(evaluationSheetBodies).set({ gzip: Buffer.from("other") }).where(eq(evaluationSheetBodies.evaluationId, evaluationId))).rejects.toThrow();
+  });
+
+  it("an evaluation stored before bodies were gets the shown one built and stored on its first read, the same as a new one's", async () => {
+    const [stored] = await db.select().from(evaluations).where(eq(evaluations.id, evaluationId));
+    const { id: _id, createdAt: _createdAt, ...rest } = stored!;
+    const [copy] = await db.insert(evaluations).values(rest).returning({ id: evaluations.id });
+    const res = await engineer.request("GET", `/api/captures/${captureId}/sheet-body?evaluation=${copy!.id}`);
+    expect(res.status).toBe(200);
+    const [own] = await db.select().from(evaluationSheetBodies).where(eq(evaluationSheetBodies.evaluationId, evaluationId)).orderBy(evaluationSheetBodies.part).limit(1);
+    const built = await db.select().from(evaluationSheetBodies).where(eq(evaluationSheetBodies.evaluationId, copy!.id));
+    expect(built.map((b) => b.part)).toContain(1);
+    const first = built.find((b) => b.part === 1)!;
+    expect(JSON.parse(gunzipSync(first.gzip).toString("utf8"))).toEqual(JSON.parse(gunzipSync(own!.gzip).toString("utf8")));
+    expect(await res.json()).toEqual(JSON.parse(gunzipSync(own!.gzip).toString("utf8")));
   });
 
   it("the body wants an evaluation of this capture: none, a malformed one or another capture's is refused", async () => {

@@ -25,19 +25,19 @@ function acceptsGzip(acceptEncoding: string | null): boolean {
 }
 
 /**
- * A chart-data answer: the gzipped JSON as stored, sent as it is (`Content-Encoding: gzip`) to a client
- * that accepts gzip — every browser — and unzipped for one that does not. Its strong ETag is the
- * evaluation's id (the data of one evaluation never change), with `-gzip` for the gzipped form (two
- * encodings are two representations); a client that already holds it gets 304. Called only once the
- * reader has been allowed the capture: the tag is no key.
+ * A JSON answer stored gzipped (chart data, sheet bodies) sent as it is (`Content-Encoding: gzip`) to a
+ * client that accepts gzip — every browser — and unzipped for one that does not. Its strong ETag is `tag`
+ * (what the stored bytes are of: an evaluation's id, which never changes), with `-gzip` for the gzipped
+ * form (two encodings are two representations); a client that already holds it gets 304. Called only
+ * once the reader has been allowed the capture: the tag is no key.
  */
-export function chartsResponse(req: NextRequest, charts: { evaluationId: string | null; gzip: Buffer }, cacheControl: string): Response {
+export function gzipResponse(req: NextRequest, stored: { tag: string | null; gzip: Buffer }, cacheControl: string): Response {
   const gzip = acceptsGzip(req.headers.get("accept-encoding"));
   const headers: Record<string, string> = { "cache-control": cacheControl, vary: "cookie, accept-encoding" };
-  if (charts.evaluationId) headers.etag = `"${charts.evaluationId}${gzip ? "-gzip" : ""}"`;
+  if (stored.tag) headers.etag = `"${stored.tag}${gzip ? "-gzip" : ""}"`;
   if (headers.etag && matches(req.headers.get("if-none-match"), headers.etag)) return new Response(null, { status: 304, headers });
   headers["content-type"] = "application/json";
-  if (!gzip) return new Response(new Uint8Array(gunzipSync(charts.gzip)), { status: 200, headers });
+  if (!gzip) return new Response(new Uint8Array(gunzipSync(stored.gzip)), { status: 200, headers });
   // Next.js would drop a Content-Encoding header; scripts/serve.mjs sends this one as it.
-  return new Response(new Uint8Array(charts.gzip), { status: 200, headers: { ...headers, "x-content-encoding": "gzip" } });
+  return new Response(new Uint8Array(stored.gzip), { status: 200, headers: { ...headers, "x-content-encoding": "gzip" } });
 }
