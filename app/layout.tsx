@@ -24,7 +24,7 @@ export const metadata: Metadata = {
 export const viewport: Viewport = { width: "device-width", initialScale: 1 };
 
 export default async function RootLayout({ children }: { children: React.ReactNode }) {
-  // Every page is rendered per request, so Next.js can put this request's CSP nonce (proxy.ts) on its scripts.
+  // Every page is rendered per request, so Next.js can put this request's CSP nonce (scripts/serve.mjs) on its scripts.
   await connection();
   return (
     <html lang="en" className={sans.variable}>

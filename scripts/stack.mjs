@@ -3,10 +3,10 @@
 // It only uses Node's built-in modules so it can run on a fresh clone before `npm ci`.
 //
 //   start  install what is missing, start PostgreSQL, s3rver and the mail catcher on loopback,
-//          migrate, seed, build and serve the app on http://127.0.0.1:3000 until Ctrl-C.
+//          migrate, seed, build and serve the app on http://127.0.0.1:3000 until Ctrl-C (scripts/serve.mjs).
 //   test   the same on free ports in a temporary directory, then run the vitest projects
 //          (unit, integration, e2e), stop everything and exit non-zero on any failure.
-//   dev    like start, but `next dev` instead of a production build.
+//   dev    like start, but the development server (scripts/serve.mjs --dev) instead of a production build.
 
 import { spawn, spawnSync, execFileSync } from "node:child_process";
 import fs from "node:fs";
@@ -269,7 +269,7 @@ async function bringUp({ dataDir, ports, fast }) {
   return { env, appUrl };
 }
 
-async function serveApp(env, { dev = false, quiet = false } = {}) {
+async function serveApp(env, { dev = false, quiet = false, processes } = {}) {
   if (!dev) {
     log("building the app (next build)…");
     // next build adds its dist dir's type folders to tsconfig.json; a test build's temporary
@@ -279,8 +279,9 @@ async function serveApp(env, { dev = false, quiet = false } = {}) {
     run(next(), ["build"], { env: { ...env, NODE_ENV: "production" }, stdio: quiet ? ["ignore", "ignore", "inherit"] : "inherit" });
     if (process.env.NEXT_DIST_DIR) fs.writeFileSync(tsconfigPath, tsconfig);
   }
-  const args = dev ? ["dev", "-H", "127.0.0.1", "-p", env.PORT] : ["start", "-H", "127.0.0.1", "-p", env.PORT];
-  startChild("the web app", next(), args, { ...env, NODE_ENV: dev ? "development" : "production" }, { quiet });
+  // Next.js processes sharing the port (scripts/serve.mjs; WEB_PROCESSES chooses); one in development.
+  const serve = ["scripts/serve.mjs", ...(dev ? ["--dev"] : [])];
+  startChild("the web app", process.execPath, serve, { ...env, HOST: "127.0.0.1", NODE_ENV: dev ? "development" : "production", ...(processes ? { WEB_PROCESSES: processes } : {}) }, { quiet });
   startChild("the analysis worker", tsx(), ["--conditions=react-server", "scripts/worker.ts"], { ...env, NODE_ENV: "production" }, { quiet });
   await waitForPort(Number(env.PORT), "the web app", 120_000);
 }
@@ -342,7 +343,8 @@ async function test() {
     }
     const chromium = ensureChromium();
     const { env } = await bringUp({ dataDir, ports, fast: true });
-    await serveApp(env, { quiet: true });
+    // Two web processes whatever the machine, so that anything one process kept to itself would show.
+    await serveApp(env, { quiet: true, processes: process.env.WEB_PROCESSES ?? "2" });
     const testEnv = { ...env, CHROMIUM_PATH: chromium, TEST_DATA_DIR: dataDir };
     // Developers may narrow a run while iterating: `TEST_PROJECTS=integration npm test -- tests/integration/x.test.ts`.
     // CI sets neither, so it always runs every project and every file.

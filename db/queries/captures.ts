@@ -24,6 +24,7 @@ import { reviewActionLabels, reviewStateLabels } from "@/lib/reports/format";
 import { fourEyesConflict } from "@/lib/reviews/four-eyes-conflict";
 import { reviewTransition, type ReviewEvent } from "@/lib/reviews/review-transition";
 import { buildChartData, type ChartData } from "@/lib/reports/chart-data";
+import { storedGzip } from "@/lib/reports/stored-gzip";
 import { analysisSummary } from "@/lib/reports/analysis-summary";
 import type { Waveform } from "@/lib/pipeline/types";
 import type { CaptureListQuery, CaptureSetup, IntervalSetup, RegisterCaptureInput } from "@/lib/validations/capture";
@@ -323,7 +324,7 @@ export async function storeAnalysisResult({
         context: evaluation.context,
         result: evaluation.result,
         verdict: evaluation.result.verdict,
-        charts: buildChartData({ analysis, waveform, trends: trends ?? null, evaluation: evaluation.result }),
+        ...chartColumns(buildChartData({ analysis, waveform, trends: trends ?? null, evaluation: evaluation.result })),
         createdBy: actorId,
       })
       .returning({ id: evaluations.id });
@@ -363,7 +364,7 @@ export async function insertEvaluation({
     const charts = a ? buildChartData({ analysis: a.result, waveform: a.waveform ?? null, trends: a.trends ?? null, evaluation: result }) : null;
     const [e] = await tx
       .insert(evaluations)
-      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, charts, createdBy: actorId })
+      .values({ captureId, analysisId, limitSetRevisionId: revisionId, context, result, verdict: result.verdict, ...chartColumns(charts), createdBy: actorId })
       .returning({ id: evaluations.id });
     await insertSheetParts({ evaluationId: e!.id, result }, tx);
     await onNewResult(tx, captureId);
@@ -407,9 +408,24 @@ export async function listEvaluations({ captureId, onlyId }: { captureId: string
     .orderBy(desc(evaluations.createdAt));
 }
 
-/** Stores chart data computed late for an older evaluation, so the next request reads it. */
-export async function saveEvaluationCharts({ evaluationId, charts }: { evaluationId: string; charts: ChartData }): Promise<void> {
-  await db.update(evaluations).set({ charts }).where(eq(evaluations.id, evaluationId));
+/** An evaluation's chart columns: the data, and the same JSON gzipped as the charts route sends it. */
+function chartColumns(charts: ChartData | null): { charts: ChartData | null; chartsGzip: Buffer | null } {
+  return { charts, chartsGzip: charts ? storedGzip(charts) : null };
+}
+
+/**
+ * Stores chart data computed late for an older evaluation (or only its gzipped form, `text` being the
+ * stored JSON), so the next request reads it. Returns the gzipped bytes.
+ */
+export async function saveEvaluationCharts({ evaluationId, charts }: { evaluationId: string; charts: ChartData | { text: string } }): Promise<Buffer> {
+  if ("text" in charts) {
+    const gzip = storedGzip(charts.text);
+    await db.update(evaluations).set({ chartsGzip: gzip }).where(eq(evaluations.id, evaluationId));
+    return gzip;
+  }
+  const columns = chartColumns(charts);
+  await db.update(evaluations).set(columns).where(eq(evaluations.id, evaluationId));
+  return columns.chartsGzip!;
 }
 
 export async function getEvaluation({ captureId, evaluationId }: { captureId: string; evaluationId?: string }) {

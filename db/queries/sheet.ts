@@ -1,12 +1,14 @@
 import "server-only";
 import { and, desc, eq, sql as dsql } from "drizzle-orm";
 import { db, type Db, type Tx } from "@/db/client";
-import { analyses, captures, evaluationSheetParts, evaluations, limitSetVerifications, sites, users, type Capture, type Site } from "@/db/schema";
+import { analyses, captures, evaluationSheetBodies, evaluationSheetParts, evaluations, limitSetVerifications, sites, users, type Capture, type Site } from "@/db/schema";
 import type { Reader } from "@/lib/auth/permissions";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import { AppError } from "@/lib/errors";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
 import { splitResult, type ResultHead } from "@/lib/reports/result-head";
+import { sheetBodyData } from "@/lib/reports/sheet-body-data";
+import { storedGzip } from "@/lib/reports/stored-gzip";
 import { captureViewColumns, type CaptureView } from "./capture-view";
 import { verificationColumns, type VerificationView } from "./limit-verifications";
 import { capturesVisibleTo, sitesVisibleTo } from "./scope";
@@ -116,13 +118,32 @@ export async function getSheetEvaluation({ captureId, evaluationId }: { captureI
   return row ? { id: row.id, result: row.result as ComplianceResult, analysis: row.analysis, verification: row.verification } : null;
 }
 
-/** Stores a result's sheet parts (lib/reports/result-head.ts) for an evaluation; nothing when they exist. */
+/**
+ * Stores a result's sheet parts (lib/reports/result-head.ts) for an evaluation, and each channel part's
+ * sheet body as the signed-in sheet's client loads it, gzipped; nothing where they exist.
+ */
 export async function insertSheetParts({ evaluationId, result }: { evaluationId: string; result: ComplianceResult }, tx: Tx | Db = db): Promise<void> {
   const { head, channels } = splitResult(result);
   await tx
     .insert(evaluationSheetParts)
     .values([{ evaluationId, part: 0, channel: null, data: head }, ...channels.map((c, i) => ({ evaluationId, part: i + 1, channel: c.channel, data: c }))])
     .onConflictDoNothing();
+  if (channels.length > 0) {
+    await tx
+      .insert(evaluationSheetBodies)
+      .values(channels.map((c, i) => ({ evaluationId, part: i + 1, gzip: sheetBodyGzip(head, c) })))
+      .onConflictDoNothing();
+  }
+}
+
+/** The sheet body of one channel as stored: `{ body }` (lib/reports/sheet-body-data.ts) as JSON, gzipped. */
+export function sheetBodyGzip(head: ResultHead, channel: ChannelCompliance): Buffer {
+  return storedGzip({ body: sheetBodyData(head, channel) });
+}
+
+/** Stores the sheet body of an evaluation stored before bodies were (once; it never changes). */
+export async function insertSheetBody({ evaluationId, part, gzip }: { evaluationId: string; part: number; gzip: Buffer }): Promise<void> {
+  await db.insert(evaluationSheetBodies).values({ evaluationId, part, gzip }).onConflictDoNothing();
 }
 
 /**
@@ -145,18 +166,24 @@ export async function getSheetView({ captureId, evaluationId, channel }: { captu
 }
 
 /**
- * The chart data of a capture's evaluation as the JSON text stored with it (never parsed here), in one
- * query that also applies `reader`'s visibility of the capture: the named evaluation, else the approved
- * one while there is one, else the newest. `null`: the capture is not visible (or does not exist);
- * `evaluation: null`: it has no such evaluation; `chartsJson: null`: an older evaluation stored before
- * chart data was.
+ * The chart data of a capture's evaluation as stored with it, gzipped (`chartsGzip`; else, for an older
+ * evaluation stored before that, the JSON text, never parsed here), in one query that also applies
+ * `reader`'s visibility of the capture: the named evaluation, else the approved one while there is one,
+ * else the newest. `null`: the capture is not visible (or does not exist); `evaluation: null`: it has no
+ * such evaluation; both forms null: an older evaluation stored before chart data was.
  */
 export async function getVisibleChartsJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{
   approvedEvaluationId: string | null;
-  evaluation: { id: string; analysisId: string; chartsJson: string | null } | null;
+  evaluation: { id: string; analysisId: string; chartsGzip: Buffer | null; chartsJson: string | null } | null;
 } | null> {
   const chosen = db
-    .select({ id: evaluations.id, analysisId: evaluations.analysisId, chartsJson: dsql<string | null>`${evaluations.charts}::text`.as("charts_json") })
+    .select({
+      id: evaluations.id,
+      analysisId: evaluations.analysisId,
+      chartsGzip: evaluations.chartsGzip,
+      // The text only where the gzipped form is missing: reading both would fetch the document twice.
+      chartsJson: dsql<string | null>`case when ${evaluations.chartsGzip} is null then ${evaluations.charts}::text end`.as("charts_json"),
+    })
     .from(evaluations)
     .where(
       and(
@@ -168,15 +195,43 @@ export async function getVisibleChartsJson({ captureId, reader, evaluationId }: 
     .limit(1)
     .as("chosen");
   const [row] = await db
-    .select({ approvedEvaluationId: captures.approvedEvaluationId, id: chosen.id, analysisId: chosen.analysisId, chartsJson: chosen.chartsJson })
+    .select({ approvedEvaluationId: captures.approvedEvaluationId, id: chosen.id, analysisId: chosen.analysisId, chartsGzip: chosen.chartsGzip, chartsJson: chosen.chartsJson })
     .from(captures)
     .leftJoinLateral(chosen, dsql`true`)
     .where(and(eq(captures.id, captureId), capturesVisibleTo(reader)));
   if (!row) return null;
   return {
     approvedEvaluationId: row.approvedEvaluationId,
-    evaluation: row.id && row.analysisId ? { id: row.id, analysisId: row.analysisId, chartsJson: row.chartsJson } : null,
+    evaluation: row.id && row.analysisId ? { id: row.id, analysisId: row.analysisId, chartsGzip: row.chartsGzip, chartsJson: row.chartsJson } : null,
   };
+}
+
+/**
+ * The stored sheet body of one evaluation of a capture `reader` may see, in one query: the channel part
+ * named `channel` (the first, i.e. worst, one for any other name), its gzipped body, and the capture's
+ * approved evaluation. `null`: the capture is not visible (or does not exist) or has no such evaluation;
+ * `part: null`: no channel part (none stored yet, or no channel); `gzip: null`: no body stored for it yet.
+ */
+export async function getVisibleSheetBody({ captureId, evaluationId, channel, reader }: { captureId: string; evaluationId: string; channel: string; reader: Reader }): Promise<{
+  approvedEvaluationId: string | null;
+  part: number | null;
+  gzip: Buffer | null;
+} | null> {
+  const shown = db
+    .select({ part: evaluationSheetParts.part })
+    .from(evaluationSheetParts)
+    .where(and(eq(evaluationSheetParts.evaluationId, evaluations.id), dsql`${evaluationSheetParts.part} > 0`))
+    .orderBy(dsql`(${evaluationSheetParts.channel} = ${channel}) desc`, evaluationSheetParts.part)
+    .limit(1)
+    .as("shown");
+  const [row] = await db
+    .select({ approvedEvaluationId: captures.approvedEvaluationId, part: shown.part, gzip: evaluationSheetBodies.gzip })
+    .from(captures)
+    .innerJoin(evaluations, and(eq(evaluations.captureId, captures.id), eq(evaluations.id, evaluationId)))
+    .leftJoinLateral(shown, dsql`true`)
+    .leftJoin(evaluationSheetBodies, and(eq(evaluationSheetBodies.evaluationId, evaluations.id), eq(evaluationSheetBodies.part, shown.part)))
+    .where(and(eq(captures.id, captureId), capturesVisibleTo(reader)));
+  return row ?? null;
 }
 
 /** What `GET /api/captures/:id` answers: the capture's identity, state and progress, not its set-up or storage. */

@@ -1,4 +1,4 @@
-import { index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
+import { customType, index, integer, json, jsonb, pgTable, primaryKey, text, timestamp, uuid } from "drizzle-orm/pg-core";
 import type { AnalysisResult } from "@/lib/analysis/types";
 import type { ChannelCompliance, ComplianceResult } from "@/lib/compliance/result";
 import type { AnalysisSummary } from "@/lib/reports/analysis-summary";
@@ -10,6 +10,9 @@ import { captures } from "./captures";
 import { reviewActionEnum } from "./enums";
 import { limitSetRevisions } from "./limits";
 import { createdAtColumn, idColumn, requiredRef } from "./columns";
+
+/** PostgreSQL `bytea`, read and written as a Buffer. */
+const bytea = customType<{ data: Buffer; driverData: Buffer }>({ dataType: () => "bytea" });
 
 // One row per analysis run of a capture; the newest is the one the sheet shows.
 export const analyses = pgTable(
@@ -51,6 +54,10 @@ export const evaluations = pgTable(
     verdict: text("verdict").notNull(),
     // The charts' data (lib/reports/chart-data.ts), built when the evaluation is stored; null for older rows.
     charts: json("charts").$type<ChartData>(),
+    // The same JSON text gzipped (lib/reports/stored-gzip.ts): what the charts route sends, as it is, to a client
+    // that accepts gzip (every browser) — no serialising or compressing per request. Null for older rows until
+    // their first read.
+    chartsGzip: bytea("charts_gzip"),
     createdBy: text("created_by").references(() => users.id),
     createdAt: createdAtColumn(),
   },
@@ -70,6 +77,22 @@ export const evaluationSheetParts = pgTable(
     // The channel of a channel part; null for the head.
     channel: text("channel"),
     data: json("data").$type<ResultHead | ChannelCompliance>().notNull(),
+  },
+  (t) => [primaryKey({ columns: [t.evaluationId, t.part] })],
+);
+
+// The sheet body of a channel part (lib/reports/sheet-body-data.ts) as the JSON the signed-in sheet's client
+// loads, gzipped: written with each new evaluation and, for the ones stored before, on their first read; sent
+// as stored. Derived data: never updated (migration 0010 refuses it).
+export const evaluationSheetBodies = pgTable(
+  "evaluation_sheet_bodies",
+  {
+    evaluationId: uuid("evaluation_id")
+      .notNull()
+      .references(() => evaluations.id, { onDelete: "cascade" }),
+    // The channel part (evaluation_sheet_parts.part, 1…) the body shows.
+    part: integer("part").notNull(),
+    gzip: bytea("gzip").notNull(),
   },
   (t) => [primaryKey({ columns: [t.evaluationId, t.part] })],
 );

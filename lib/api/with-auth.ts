@@ -41,8 +41,8 @@ export function assertSameOrigin(req: NextRequest): void {
 }
 
 /**
- * The client's address as the nearest proxy reports it (the last X-Forwarded-For entry; `next start`
- * fills the header with the socket's address when no proxy sent one), for per-client throttling.
+ * The client's address as the nearest proxy reports it (the last X-Forwarded-For entry; Next.js fills the
+ * header with the socket's address when no proxy sent one), for per-client throttling.
  */
 export function clientAddress(req: NextRequest): string {
   const forwarded = req.headers.get("x-forwarded-for");

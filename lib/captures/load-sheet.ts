@@ -9,10 +9,11 @@ import {
   saveEvaluationCharts,
 } from "@/db/queries/captures";
 import type { VerificationView } from "@/db/queries/limit-verifications";
-import { getSheetCapture, getSheetEvaluation, getSheetView, getVisibleChartsJson } from "@/db/queries/sheet";
-import { canSeeReviewComments, type Reader } from "@/lib/auth/permissions";
+import { getSheetCapture, getSheetEvaluation, getSheetView, getVisibleChartsJson, getVisibleSheetBody, insertSheetBody, sheetBodyGzip } from "@/db/queries/sheet";
+import { canSeeReviewComments, readsApprovedResultOnly, type Reader } from "@/lib/auth/permissions";
 import { AppError } from "@/lib/errors";
 import { buildChartData } from "@/lib/reports/chart-data";
+import { storedGzip } from "@/lib/reports/stored-gzip";
 
 interface SheetArgs {
   captureId: string;
@@ -86,9 +87,10 @@ export function loadSheet(args: SheetArgs) {
 /**
  * The sheet as its page (and the share page) shows it: the shown evaluation's result without its rows
  * (`result`, lib/reports/result-head.ts) and one channel whole (`shownChannel`: the one named `channel`,
- * else the first, i.e. worst) — what the page renders and sends, not the whole result.
+ * else the first, i.e. worst; none for `channel: null`, when the page's client loads it) — what the page
+ * renders and sends, not the whole result.
  */
-export function loadSheetPage({ channel, ...args }: SheetArgs & { channel?: string }) {
+export function loadSheetPage({ channel, ...args }: SheetArgs & { channel?: string | null }) {
   return loadSheetWith(args, async (a) => {
     const view = await getSheetView({ ...a, channel });
     return view && { id: view.id, analysis: view.analysis, verification: view.verification, result: view.head, shownChannel: view.channel };
@@ -98,34 +100,51 @@ export function loadSheetPage({ channel, ...args }: SheetArgs & { channel?: stri
 export type Sheet = Awaited<ReturnType<typeof loadSheet>>;
 export type SheetPage = Awaited<ReturnType<typeof loadSheetPage>>;
 
-/** The stored chart JSON of an evaluation with its id as the first member, without parsing it. */
-function withEvaluationId(evaluationId: string, chartsJson: string): string {
-  const body = chartsJson.trim().slice(1);
-  return `{"evaluationId":${JSON.stringify(evaluationId)}${body.trimStart().startsWith("}") ? "" : ","}${body}`;
-}
-
 /**
- * The waveform, spectrum and trend data for the charts (loaded by the client through SWR), as JSON text:
- * the data precomputed when the evaluation was stored, sent as stored (never parsed and serialised
- * again), read in one query with the capture's visibility. The charts follow the shown evaluation: a
- * named one for the team, else the approved one while one exists, else the newest; viewers always get
- * the approved one. Evaluations stored before precomputation get theirs built once here and saved.
- * `evaluationId` is the evaluation the data belongs to (the response's validator).
+ * The waveform, spectrum and trend data for the charts (loaded by the client through SWR) as the gzipped
+ * JSON stored with the evaluation when it was stored — sent as it is, never parsed, serialised or
+ * compressed again — read in one query with the capture's visibility. The charts follow the shown
+ * evaluation: a named one for the team, else the approved one while one exists, else the newest; viewers
+ * always get the approved one. Evaluations stored before precomputation get theirs built (or gzipped)
+ * once here and saved. `tag` is the id of the evaluation the data belong to (the response's validator;
+ * null only when a capture has an analysis but no evaluation yet).
  */
-export async function loadChartJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{ evaluationId: string | null; json: string }> {
+export async function loadChartJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{ tag: string | null; gzip: Buffer }> {
   const viewer = reader.role === "viewer";
   const found = await getVisibleChartsJson({ captureId, reader, evaluationId: viewer ? undefined : evaluationId });
   if (!found) throw new AppError("not_found", "No such capture.");
   if (viewer && evaluationId && evaluationId !== found.approvedEvaluationId) throw new AppError("not_found", "No such evaluation of this capture.");
   const stored = found.evaluation;
   if (evaluationId && !stored) throw new AppError("not_found", "No such evaluation of this capture.");
-  if (stored?.chartsJson) return { evaluationId: stored.id, json: withEvaluationId(stored.id, stored.chartsJson) };
+  if (stored?.chartsGzip) return { tag: stored.id, gzip: stored.chartsGzip };
+  if (stored?.chartsJson) return { tag: stored.id, gzip: await saveEvaluationCharts({ evaluationId: stored.id, charts: { text: stored.chartsJson } }) };
   const [analysis, evaluation] = await Promise.all([
     stored ? getAnalysisById({ id: stored.analysisId }) : latestAnalysis({ captureId }),
     stored ? getEvaluation({ captureId, evaluationId: stored.id }) : null,
   ]);
   if (!analysis) throw new AppError("not_found", "The capture has not been analysed yet.");
   const charts = buildChartData({ analysis: analysis.result, waveform: analysis.waveform ?? null, trends: analysis.trends ?? null, evaluation: evaluation?.result ?? null });
-  if (stored && stored.analysisId === analysis.id) await saveEvaluationCharts({ evaluationId: stored.id, charts });
-  return { evaluationId: stored?.id ?? null, json: JSON.stringify({ evaluationId: stored?.id ?? null, ...charts }) };
+  if (stored && stored.analysisId === analysis.id) return { tag: stored.id, gzip: await saveEvaluationCharts({ evaluationId: stored.id, charts }) };
+  return { tag: stored?.id ?? null, gzip: storedGzip(charts) };
+}
+
+/**
+ * The sheet body of one evaluation (lib/reports/sheet-body-data.ts: the channel list and the channel named
+ * `channel`, else the first, i.e. worst, one) as the signed-in sheet page's client loads it — `{ body }`
+ * as JSON, gzipped as stored with the evaluation, sent as it is; `body` is null when the evaluation has no
+ * channel. The same visibility as the sheet: the capture as `reader` may see it, and for viewers only its
+ * approved evaluation. An evaluation's body never changes: `tag` names it (evaluation and channel part).
+ * One stored before bodies were gets its body built once here and stored.
+ */
+export async function loadSheetBody({ captureId, evaluationId, channel, reader }: { captureId: string; evaluationId: string; channel?: string; reader: Reader }): Promise<{ tag: string; gzip: Buffer }> {
+  const found = await getVisibleSheetBody({ captureId, evaluationId, channel: channel ?? "", reader });
+  if (!found || (readsApprovedResultOnly(reader) && evaluationId !== found.approvedEvaluationId)) throw new AppError("not_found", "No such evaluation of this capture.");
+  if (found.part !== null && found.gzip) return { tag: `${evaluationId}.${found.part}`, gzip: found.gzip };
+  // Stored before its body (or its parts) were: getSheetView reads (or splits and stores) the parts.
+  const view = await getSheetView({ captureId, evaluationId, channel });
+  if (!view?.channel) return { tag: `${evaluationId}.0`, gzip: storedGzip({ body: null }) };
+  const part = view.head.channels.findIndex((c) => c.channel === view.channel!.channel) + 1;
+  const gzip = sheetBodyGzip(view.head, view.channel);
+  if (part > 0) await insertSheetBody({ evaluationId, part, gzip });
+  return { tag: `${evaluationId}.${part}`, gzip };
 }

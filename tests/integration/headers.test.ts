@@ -1,5 +1,7 @@
 // Response headers on pages and routes, immutability of judged records, and the CSV export's formula
 // neutralisation (issue 10 §5), against the running app and its PostgreSQL.
+import http from "node:http";
+import { gunzipSync } from "node:zlib";
 import { eq, sql } from "drizzle-orm";
 import { beforeAll, describe, expect, it } from "vitest";
 import { db } from "@/db/client";
@@ -47,7 +49,7 @@ describe("pages carry a nonce-based Content-Security-Policy", () => {
       expect(scriptSrc).not.toContain("'unsafe-eval'");
       expect(scriptSrc.some((s) => s.startsWith("http") || s === "*")).toBe(false);
       const nonce = /'nonce-([^']+)'/.exec(scriptSrc.join(" "))?.[1];
-      // 16 random bytes in base64 (proxy.ts): 24 characters.
+      // 16 random bytes in base64 (scripts/serve.mjs): 24 characters.
       expect(nonce).toMatch(/^[A-Za-z0-9+/]{22}==$/);
       expect(csp.get("object-src")).toEqual(["'none'"]);
       // Every script element of the page carries the nonce (else the browser would refuse it).
@@ -98,6 +100,47 @@ describe("API responses carry the headers too", () => {
       expect(res.headers.get("content-security-policy")).toContain("default-src 'none'");
     });
   }
+});
+
+/** A GET through node:http, which (unlike fetch) hands back the body as sent. */
+function rawGet(path: string, headers: Record<string, string>): Promise<{ status: number; headers: http.IncomingHttpHeaders; body: Buffer }> {
+  return new Promise((resolve, reject) => {
+    http
+      .get(new URL(path, appUrl()), { headers }, (res) => {
+        const chunks: Buffer[] = [];
+        res.on("data", (c: Buffer) => chunks.push(c));
+        res.on("end", () => resolve({ status: res.statusCode ?? 0, headers: res.headers, body: Buffer.concat(chunks) }));
+        res.on("error", reject);
+      })
+      .on("error", reject);
+  });
+}
+
+describe("compression (scripts/serve.mjs)", () => {
+  it("pages and API answers are gzip-compressed for a client that accepts it, and sent as they are to one that does not", async () => {
+    for (const path of [`/captures/${captureId}`, `/api/captures/${captureId}/charts`]) {
+      const zipped = await rawGet(path, { cookie: engineer.cookie!, "accept-encoding": "gzip, deflate, br" });
+      expect(zipped.status, path).toBe(200);
+      expect(zipped.headers["content-encoding"], path).toBe("gzip");
+      expect(zipped.headers.vary ?? "", path).toMatch(/accept-encoding/i);
+      const plain = await rawGet(path, { cookie: engineer.cookie! });
+      expect(plain.headers["content-encoding"], path).toBeUndefined();
+      const text = gunzipSync(zipped.body).toString("utf8");
+      // The same answer either way (a page differs only by its script nonce).
+      if (path.startsWith("/api/")) expect(JSON.parse(text)).toEqual(JSON.parse(plain.body.toString("utf8")));
+      else for (const html of [text, plain.body.toString("utf8")]) expect(html).toContain('data-testid="sheet-title"');
+      expect(zipped.body.length).toBeLessThan(plain.body.length / 2);
+    }
+  });
+
+  it("a small API answer (under 1 kB) goes out whole with its length, not compressed", async () => {
+    const res = await rawGet(`/api/captures/${captureId}`, { cookie: engineer.cookie!, "accept-encoding": "gzip, deflate, br" });
+    expect(res.status).toBe(200);
+    expect(res.headers["content-encoding"]).toBeUndefined();
+    expect(res.body.length).toBeLessThan(1024);
+    expect(Number(res.headers["content-length"])).toBe(res.body.length);
+    expect(((JSON.parse(res.body.toString("utf8")) as { capture: { id: string } }).capture.id)).toBe(captureId);
+  });
 });
 
 /** Resolves to the database's own message for a refused statement (drizzle wraps it as the cause). */

@@ -147,6 +147,7 @@ describe("an approval covers exactly one result", () => {
     const list = await json<{ items: { id: string; verdict: string; newerAwaitsReview: boolean }[] }>(await viewer.request("GET", `/api/captures?site=${siteId}`));
     expect(list.items.find((c) => c.id === id)?.verdict).toBe("fail");
     expect((await viewer.request("GET", `/api/captures/${id}/report?evaluation=${newer}`)).status).toBe(404);
+    expect((await viewer.request("GET", `/api/captures/${id}/sheet-body?evaluation=${newer}`)).status).toBe(404);
     // The team sees that a newer result waits.
     const teamList = await json<{ items: { id: string; verdict: string; newerAwaitsReview: boolean }[] }>(await engineer.request("GET", `/api/captures?site=${siteId}`));
     expect(teamList.items.find((c) => c.id === id)).toMatchObject({ verdict: "fail", newerAwaitsReview: true });

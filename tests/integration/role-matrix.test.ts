@@ -60,6 +60,8 @@ const routes: RouteCase[] = [
   // An allowed caller would start a real run, so this one goes to a capture that does not exist (404).
   { method: "POST", path: "/api/captures/:missing/analyze", allowed: UPLOAD, status: 404 },
   { method: "GET", path: "/api/captures/:capture/charts", allowed: ALL, status: 200 },
+  // Without its required ?evaluation= an allowed caller is told so (422).
+  { method: "GET", path: "/api/captures/:capture/sheet-body", allowed: ALL, status: 422 },
   { method: "GET", path: "/api/captures/:capture/evaluations", allowed: ALL, status: 200 },
   { method: "POST", path: "/api/captures/:capture/evaluations", allowed: REVIEW, body: {}, status: 422 },
   { method: "POST", path: "/api/captures/:capture/review", allowed: UPLOAD, body: {}, status: 422 },
@@ -225,6 +227,24 @@ describe("role matrix — object level", () => {
       expect((await clients.get("engineer")!.request("GET", real)).status).toBe(200);
     });
   }
+
+  it("a viewer holding a copied ETag of another customer's chart data still gets 404, never 304", async () => {
+    const engineer = clients.get("engineer")!;
+    const { evaluations: list } = (await (await engineer.request("GET", `/api/captures/${otherCaptureId}/evaluations`)).json()) as { evaluations: { id: string }[] };
+    for (const query of ["", `?evaluation=${list[0]!.id}`]) {
+      const url = `/api/captures/${otherCaptureId}/charts${query}`;
+      const tag = (await engineer.request("GET", url, undefined, { "accept-encoding": "gzip" })).headers.get("etag")!;
+      expect(tag).toMatch(/^"[0-9a-f-]{36}-gzip"$/);
+      expect((await engineer.request("GET", url, undefined, { "accept-encoding": "gzip", "if-none-match": tag })).status).toBe(304);
+      expect((await clients.get("viewer")!.request("GET", url, undefined, { "accept-encoding": "gzip", "if-none-match": tag })).status).toBe(404);
+    }
+    // Its sheet body, keyed by the same evaluation id, likewise.
+    const body = `/api/captures/${otherCaptureId}/sheet-body?evaluation=${list[0]!.id}`;
+    const bodyTag = (await engineer.request("GET", body, undefined, { "accept-encoding": "gzip" })).headers.get("etag")!;
+    expect(bodyTag).toMatch(/^"[0-9a-f-]{36}\.1-gzip"$/);
+    expect((await engineer.request("GET", body, undefined, { "accept-encoding": "gzip", "if-none-match": bodyTag })).status).toBe(304);
+    expect((await clients.get("viewer")!.request("GET", body, undefined, { "accept-encoding": "gzip", "if-none-match": bodyTag })).status).toBe(404);
+  });
 
   it("a viewer of another customer gets 404 for the sheet and site pages, and the compare page shows nothing of it", async () => {
     const viewer = clients.get("viewer")!;

@@ -10,7 +10,6 @@ import { loadSheetPage } from "@/lib/captures/load-sheet";
 import { EvaluationContextSchema } from "@/lib/compliance/model";
 import { formatWhen, reviewStateLabels, summariseContext } from "@/lib/reports/format";
 import { headlineNumbers } from "@/lib/reports/headline-numbers";
-import { sheetBodyData } from "@/lib/reports/sheet-body-data";
 import { CaptureActions } from "./_components/capture-actions";
 import { CaptureProgress } from "./_components/capture-progress";
 import { ContextForm } from "./_components/context-form";
@@ -19,7 +18,7 @@ import { HeadlineSummary } from "./_components/headline-summary";
 import { LimitsLine } from "./_components/limits-line";
 import { ReviewPanel } from "./_components/review-panel";
 import { SharePanel } from "./_components/share-panel";
-import { SheetBody } from "./_components/sheet-body";
+import { SheetBodyLoader } from "./_components/sheet-body-loader";
 import { SheetHeader, SheetNotes } from "./_components/sheet-header";
 
 export const metadata = { title: "Sheet" };
@@ -37,7 +36,8 @@ export default async function CaptureSheetPage({
   uuidOr404(id);
   const requested = typeof query.evaluation === "string" && z.uuid().safeParse(query.evaluation).success ? query.evaluation : undefined;
   const channel = typeof query.channel === "string" ? query.channel : undefined;
-  const sheet = await orNotFound(loadSheetPage({ captureId: id, evaluationId: requested, reader: user, channel }));
+  // The per-order part (the shown channel's rows) is not rendered here: the browser loads it (SheetBodyLoader).
+  const sheet = await orNotFound(loadSheetPage({ captureId: id, evaluationId: requested, reader: user, channel: null }));
   const { capture, evaluation } = sheet;
 
   // An approved result stays on show while a newer analysis is queued, running or failed.
@@ -157,7 +157,12 @@ export default async function CaptureSheetPage({
       <div className="grid gap-4 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <div className="min-w-0 space-y-4">
           <HeadlineSummary headline={headlineNumbers(sheet.analysis?.result, evaluation.result.context)} />
-          {evaluation.shownChannel && <SheetBody payload={sheetBodyData(evaluation.result, evaluation.shownChannel)} chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`} />}
+          {evaluation.result.channels.length > 0 && (
+            <SheetBodyLoader
+              bodyUrl={`/api/captures/${capture.id}/sheet-body?evaluation=${evaluation.id}${channel !== undefined ? `&channel=${encodeURIComponent(channel)}` : ""}`}
+              chartsUrl={`/api/captures/${capture.id}/charts?evaluation=${evaluation.id}`}
+            />
+          )}
           <SheetNotes notes={evaluation.result.notes} />
         </div>
 

@@ -1,6 +1,6 @@
 import { z } from "zod";
 import { captureParamsSchema } from "@/lib/api/params";
-import { chartsResponse } from "@/lib/api/charts-response";
+import { gzipResponse } from "@/lib/api/gzip-response";
 import { withAuth } from "@/lib/api/with-auth";
 import { loadChartJson } from "@/lib/captures/load-sheet";
 
@@ -15,7 +15,7 @@ export const GET = withAuth<{ id: string }>(
     const { id } = captureParamsSchema.parse(params);
     const { evaluation } = querySchema.parse({ evaluation: req.nextUrl.searchParams.get("evaluation") ?? undefined });
     const charts = await loadChartJson({ captureId: id, reader: user, evaluationId: evaluation });
-    return chartsResponse(req, charts, evaluation ? "private, max-age=31536000, immutable" : "private, no-cache");
+    return gzipResponse(req, charts, evaluation ? "private, max-age=31536000, immutable" : "private, no-cache");
   },
   { permission: "captures:read" },
 );
