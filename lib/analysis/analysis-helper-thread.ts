@@ -1,5 +1,6 @@
-// The analysis helper thread (see analysis-helper.ts): measures frequency segments (SegmentEstimator)
-// and windows (WindowAnalyzer.measureWindow) of a record held in shared memory, for the main thread.
+// The analysis helper thread (see analysis-helper.ts): parses the later part of a file (parsePart),
+// measures frequency segments (SegmentEstimator) and windows (WindowAnalyzer.measureWindow) of a
+// record held in shared memory, for the main thread.
 // Built as its own module by scripts/build-cli.mjs; started with `new Worker(...)`.
 import { parentPort } from "node:worker_threads";
 import type { HelperAnswer, HelperRequest, SentInputError } from "./analysis-helper";
@@ -8,6 +9,7 @@ import { arrayWindowSource } from "./array-window-source";
 import { AnalysisInputError } from "./errors";
 import { getFft } from "./get-fft";
 import { KeptRows } from "./kept-rows";
+import { parsePart } from "./parse-part";
 import { SegmentEstimator } from "./segment-estimator";
 import { WindowClaims } from "./window-claims";
 import { WindowAnalyzer } from "./window-analyzer";
@@ -86,6 +88,7 @@ function answer(request: HelperRequest): HelperAnswer | null {
     return null;
   }
   if (request.type === "segment") return measureSegment(request);
+  if (request.type === "part") return { type: "part", ...parsePart(request) };
   const started = performance.now();
   const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, out } = request;
   const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);

@@ -15,6 +15,7 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
+import { readInTwoParts } from "./read-in-two-parts";
 import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
@@ -91,7 +92,8 @@ export async function analyzeCsvFile(
     ...(options.channels ? { channels: options.channels } : {}),
   };
   checkOverrides(importOptions);
-  const { head, layout, estimatedRows } = await readCsvHead(path);
+  const csvHead = await readCsvHead(path);
+  const { head, layout, estimatedRows } = csvHead;
   const columns = planColumns(layout, options.channels);
   const channelColumns = columns.filter((c) => c.role === "channel");
   const timeColumn = columns.find((c) => c.role === "time");
@@ -115,7 +117,9 @@ export async function analyzeCsvFile(
     estimatedRows,
   );
   collector1 = new RowCollector(layout, columns, first);
-  await readCsvRows(path, head, collector1);
+  // With the helper thread and rows kept in shared memory, it parses the later part of the file meanwhile.
+  if (tuning.helper && first.kept?.shared) await readInTwoParts(path, csvHead, collector1, first, tuning.helper, estimatedRows > 2 * segmentSamples);
+  else await readCsvRows(path, head, collector1);
 
   if (!first.streaming) {
     // Short record: the look-ahead holds all of it; the in-memory path gives the reference result.

@@ -119,6 +119,28 @@ export class CompactColumn {
     this.rows += count;
   }
 
+  /**
+   * Another thread's view of a column ({@link CompactColumn.from}) set to append from chunk `chunk`
+   * on, at byte 8 × chunk × ROW_CHUNK: every earlier chunk (at most 8 bytes per row) fits below it,
+   * whatever its width. The column's owner takes the chunks over with {@link adopt}.
+   */
+  resumeAt(chunk: number): void {
+    this.rows = chunk * ROW_CHUNK;
+    this.offset = 8 * this.rows;
+  }
+
+  /**
+   * Takes over the next chunk (`count` rows) as another thread appended it into this column's
+   * memory (see {@link resumeAt}): its place and width are in the shared table.
+   */
+  adopt(count: number): void {
+    const chunk = this.rows / ROW_CHUNK;
+    if (!Number.isInteger(chunk)) throw new Error("CompactColumn: only the last chunk may be shorter than ROW_CHUNK rows");
+    this.offset = this.table[ENTRY * chunk]! + Math.ceil((this.table[ENTRY * chunk + 1]! * count) / 8) * 8;
+    this.views[chunk] = undefined;
+    this.rows += count;
+  }
+
   /** Bytes used so far (the packed chunks). */
   get usedBytes(): number {
     return this.offset;

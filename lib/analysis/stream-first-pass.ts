@@ -109,6 +109,29 @@ export class FirstPass implements RowSink {
   }
 
   /**
+   * A chunk of rows packed into the kept columns by the helper thread (RowCollector.addKeptChunk):
+   * taken over, then handled as {@link accept} handles rows. Only while rows are kept in shared memory.
+   */
+  acceptKept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    this.rows = firstRow + count;
+    if (!this.kept?.shared || this.rows > this.keepRows) throw new Error("FirstPass.acceptKept: rows are not being kept");
+    this.kept.adopt(count);
+    if (!this.streaming) {
+      if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
+      return;
+    }
+    this.stream(timesS, values, count, firstRow);
+  }
+
+  /** Rows kept for pass 2 at most (0: none). */
+  get keptRowsLimit(): number {
+    return this.keepRows;
+  }
+
+  /** The helper thread is busy with other work (parsing): it is not asked to map pages ahead. */
+  prefaultOff = false;
+
+  /**
    * The look-ahead's rows as doubles, for the in-memory analysis of a record that ended within it
    * (unpacked in place: no new memory).
    */
@@ -159,7 +182,7 @@ export class FirstPass implements RowSink {
    * bytes per row the last chunk packed into), while this thread parses on.
    */
   private prefaultKept(): void {
-    if (!this.kept?.shared || !this.helper) return;
+    if (!this.kept?.shared || !this.helper || this.prefaultOff) return;
     const pages: Float64Array[] = [];
     this.kept.forEachColumn((column, c) => {
       const from = Math.max(column.usedBytes, this.prefaulted[c] ?? 0);
