@@ -18,4 +18,8 @@ if (cliBundleIsStale()) await buildCli();
 const { startAnalysisHelper } = await import(pathToFileURL(startHelperPath).href);
 const helper = startAnalysisHelper();
 const { main } = await import(pathToFileURL(bundlePath).href);
-process.exitCode = await main(process.argv.slice(2), { helper });
+const code = await main(process.argv.slice(2), { helper });
+// Everything is written (stdout and stderr write synchronously to files and pipes on Linux): exit at
+// once rather than wait for the runtime to free the heap. With a write still pending, end as usual.
+if (process.stdout.writableLength === 0 && process.stderr.writableLength === 0) process.exit(code);
+process.exitCode = code;
