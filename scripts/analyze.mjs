@@ -16,7 +16,7 @@ if (cliBundleIsStale()) await buildCli();
 // The analysis helper thread (when a core is free for it) is started first, from a small module, so
 // that its start-up and warming up overlap loading the command line.
 const { startAnalysisHelper } = await import(pathToFileURL(startHelperPath).href);
-const helper = startAnalysisHelper();
+const helper = startAnalysisHelper(process.argv.slice(2));
 const { main } = await import(pathToFileURL(bundlePath).href);
 const code = await main(process.argv.slice(2), { helper });
 // Everything is written (stdout and stderr write synchronously to files and pipes on Linux): exit at

@@ -9,6 +9,9 @@ import { arrayWindowSource } from "./array-window-source";
 import { AnalysisInputError } from "./errors";
 import { getFft } from "./get-fft";
 import { KeptRows } from "./kept-rows";
+import { PlainLineScanner } from "./plain-line-scanner";
+import { ROW_CHUNK } from "./row-collector";
+import { countLinesBefore } from "./count-lines-before";
 import { parsePart } from "./parse-part";
 import { SegmentEstimator } from "./segment-estimator";
 import { WindowClaims } from "./window-claims";
@@ -89,6 +92,14 @@ function answer(request: HelperRequest): HelperAnswer | null {
   }
   if (request.type === "segment") return measureSegment(request);
   if (request.type === "part") return { type: "part", ...parsePart(request) };
+  if (request.type === "count") {
+    try {
+      countLinesBefore(request.path);
+    } catch {
+      // Counting ahead only saves time; the part counts again if need be.
+    }
+    return null;
+  }
   const started = performance.now();
   const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, out } = request;
   const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);
@@ -127,7 +138,32 @@ function madeUpSamples(): Float64Array {
   return samples;
 }
 
+/** Made-up lines as a recorder prints them (time, two voltages, two currents), as UTF-8 bytes. */
+function madeUpLines(count: number): Uint8Array {
+  let text = "";
+  for (let k = 0; k < count; k++) {
+    const phase = (2 * Math.PI * WARM_HZ * k) / WARM_RATE_HZ;
+    text += `${(k / WARM_RATE_HZ).toFixed(7)},${(325 * Math.cos(phase)).toFixed(2)},${(8 * Math.cos(phase)).toFixed(3)},${(325 * Math.sin(phase)).toFixed(2)},${(-8 * Math.sin(phase)).toFixed(3)}\n`;
+  }
+  return new TextEncoder().encode(text);
+}
+
 const warmUpSteps: (() => void)[] = [
+  // Parsing a part (parsePart): the scanner and the packing of kept columns.
+  () => {
+    const bytes = madeUpLines(4096);
+    const channels = [0, 1, 2, 3].map(() => new Float64Array(ROW_CHUNK));
+    const times = new Float64Array(ROW_CHUNK);
+    const scanner = new PlainLineScanner({ columnCount: 5, delimiterCode: 44, decimalCode: 46, channelSlots: Int32Array.from([1, 2, 3, 4]), timeSlot: 0, timeToBase: 1 }, channels, times);
+    const column = new CompactColumn(new ArrayBuffer(8 * ROW_CHUNK), ROW_CHUNK);
+    for (let round = 0; round < 8; round++) {
+      scanner.scan(bytes, 0, bytes.length, 0, ROW_CHUNK);
+      column.append(times, 4096);
+      column.resumeAt(0);
+      column.append(channels[0]!, 4096);
+      column.resumeAt(0);
+    }
+  },
   () => void getFft(WARM_SEGMENT / 2),
   () => new SegmentEstimator(1).estimate([madeUpSamples()], WARM_SEGMENT, WARM_RATE_HZ),
   () => {
@@ -155,7 +191,7 @@ function warmUp(): void {
 setImmediate(warmUp);
 
 parentPort?.on("message", (request: HelperRequest) => {
-  if (request.type !== "prefault") warming = false;
+  if (request.type !== "prefault" && request.type !== "count") warming = false;
   let reply: HelperAnswer | null;
   try {
     reply = answer(request);

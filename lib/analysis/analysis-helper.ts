@@ -21,6 +21,11 @@ export interface SentInputError {
 export type HelperRequest =
   | ({ type: "part" } & PartRequest)
   | {
+      type: "count";
+      /** A file about to be analysed: its lines before the helper's part are counted ahead (countLinesBefore). Not answered. */
+      path: string;
+    }
+  | {
       type: "prefault";
       /** SharedArrayBuffer-backed arrays the main thread is about to fill (see {@link AnalysisHelper.prefault}). Not answered. */
       arrays: Float64Array[];
@@ -155,6 +160,14 @@ export class AnalysisHelper {
     const answer = await this.ask({ type: "part", ...request });
     if (answer.type !== "part") throw new Error(`analysis helper thread answered ${answer.type} to a part`);
     return answer;
+  }
+
+  /**
+   * Has the helper count the lines of `path` before the part it would parse (countLinesBefore)
+   * while it has nothing else to do, so that parsing it later starts at once.
+   */
+  countAhead(path: string): void {
+    if (!this.failure) this.worker.postMessage({ type: "count", path } satisfies HelperRequest);
   }
 
   /**

@@ -3,6 +3,7 @@
 // the kept columns, so the main thread only runs the per-row accumulations over them, in order.
 import { closeSync, openSync, readSync } from "node:fs";
 import { CompactColumn, type CompactColumnData } from "./compact-column";
+import { countLinesBefore } from "./count-lines-before";
 import { PlainLineScanner, type ScanLayout } from "./plain-line-scanner";
 import { ROW_CHUNK } from "./row-collector";
 
@@ -52,12 +53,12 @@ export interface PartResult {
 /**
  * Parses a plain file from `from` to its end with {@link PlainLineScanner}, stopping at the first line
  * it cannot read (the main thread reads on from there with its full reader, so every error and
- * message is its own). Counts the lines before `from` to place its rows: whole chunks of
+ * message is its own). Counts the lines before `from` (countLinesBefore, perhaps counted ahead) to place its rows: whole chunks of
  * ROW_CHUNK rows are scaled as RowCollector.flush scales them and packed into the kept columns
  * (CompactColumn.resumeAt); the rows before the first whole chunk and after the last go to `edges`
  * as read.
  *
- * Complexity O(file size): counting the bytes before `from`, scanning those after.
+ * Complexity O(file size): counting the newlines before `from` (unless counted ahead), scanning the bytes after.
  *
  * @example
  * const result = parsePart(request); // in the helper thread
@@ -69,13 +70,7 @@ export function parsePart(request: PartRequest): PartResult {
   const fd = openSync(path, "r");
   try {
     const buffer = new Uint8Array(2 * READ_BYTES);
-    let linesBefore = 0;
-    for (let position = 0; position < from; ) {
-      const read = readSync(fd, buffer, 0, Math.min(READ_BYTES, from - position), position);
-      if (read === 0) break;
-      for (let i = 0; i < read; i++) if (buffer[i] === 10) linesBefore++;
-      position += read;
-    }
+    const linesBefore = countLinesBefore(path, from) ?? 0;
     const firstRow = linesBefore - (request.dataStartLine - 1);
     const result: PartResult = { linesBefore, firstRow, headRows: 0, chunks: 0, tailRows: 0, stop: from, lastTimeText: "", ms: 0 };
     if (firstRow <= 0) return result;

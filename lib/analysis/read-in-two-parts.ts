@@ -3,7 +3,7 @@
 // helper's rows in, in file order, and runs every per-row check and sum over them itself, so every
 // number and every message is the one-thread reading's.
 import type { AnalysisHelper } from "./analysis-helper";
-import { HELPER_PART_FROM, helperPartStart } from "./helper-part-start";
+import { helperPartStart } from "./helper-part-start";
 import type { PartResult } from "./parse-part";
 import { readCsvPart, readCsvRows, readsPlainBytes, type CsvHead } from "./read-csv-rows";
 import { ROW_CHUNK, type RowCollector } from "./row-collector";
@@ -29,7 +29,7 @@ import type { FirstPass } from "./stream-first-pass";
  */
 export async function readInTwoParts(path: string, csvHead: CsvHead, collector: RowCollector, first: FirstPass, helper: AnalysisHelper, longRecord: boolean): Promise<number> {
   const kept = first.kept;
-  const split = kept?.shared && longRecord && readsPlainBytes(csvHead.layout, csvHead.head) ? await helperPartStart(path, csvHead.sizeBytes, HELPER_PART_FROM) : null;
+  const split = kept?.shared && longRecord && readsPlainBytes(csvHead.layout, csvHead.head) ? helperPartStart(path, csvHead.sizeBytes) : null;
   if (split === null || !kept) {
     await readCsvRows(path, csvHead.head, collector);
     return 0;
