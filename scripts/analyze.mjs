@@ -11,6 +11,10 @@ import v8 from "node:v8";
 // (`npm run bench -- cli-60s-4ch-25k6`). Neither changes any result.
 v8.setFlagsFromString("--no-concurrent-osr");
 v8.setFlagsFromString("--semi-space-growth-factor=1");
+// Type feedback from a function's first call on (not only once it has been called a few times): the
+// checks' loops run their stores once on no rows before the first chunk (e.g. ChannelScan), so the
+// loop compiled while the first chunk runs knows them and is not thrown out after every chunk.
+v8.setFlagsFromString("--no-lazy-feedback-allocation");
 
 if (cliBundleIsStale()) await buildCli();
 // The analysis helper thread (when a core is free for it) is started first, from a small module, so

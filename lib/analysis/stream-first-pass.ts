@@ -10,6 +10,8 @@ import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { SegmentEstimator } from "./segment-estimator";
 import type { AnalysisHelper, SegmentResults } from "./analysis-helper";
 
+const NO_ROWS = new Float64Array(0);
+
 /** How far ahead of the kept rows the helper thread maps pages: this many chunks, at least this many bytes at a time. */
 const PREFAULT_CHUNKS = 4;
 const PREFAULT_MIN_BYTES = 64 * 1024;
@@ -87,6 +89,8 @@ export class FirstPass implements RowSink {
     this.kept = KeptRows.over(this.memory);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
+    // The checks' stores after their loops, run once on no rows (see ChannelScan's constructor).
+    this.check(hasTime ? NO_ROWS : null, this.scans.map(() => NO_ROWS), 0, 0);
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {

@@ -8,6 +8,8 @@ import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 import type { WindowClaims } from "./window-claims";
 
+const NO_ROWS = new Float64Array(0);
+
 /** Said after every irregular-time-axis message: the tolerance the checks allow. */
 export const STEP_MESSAGE = "(tolerance ±50 % of the interval plus the stamps' printed resolution)";
 
@@ -125,7 +127,10 @@ export class SecondPassChecks {
     private readonly collector: () => RowCollector,
     private readonly scans: ChannelScan[],
     private readonly timeCheck: TimeCheck | null,
-  ) {}
+  ) {
+    // The stores after the loops, run once on no rows (see ChannelScan's constructor).
+    this.check(NO_ROWS, scans.map(() => NO_ROWS), 0, 0);
+  }
 
   /** Checks the next `count` rows (row `firstRow` on). @throws AnalysisInputError at the first irregular step. */
   check(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
