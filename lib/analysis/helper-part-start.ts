@@ -4,10 +4,11 @@ import { closeSync, openSync, readSync } from "node:fs";
 import { CHUNK_BYTES } from "./read-csv-rows";
 
 /**
- * The helper's part starts about this far into the file. The main thread does the per-row work
- * (time fit, extremes, sums of squares) for every row, so the helper parses the larger part.
+ * The helper's part starts about half-way into the file. The main thread also does the per-row
+ * work (time fit, extremes, sums of squares) for the helper's rows, but the helper then measures the
+ * frequency segments: measured on the 60 s capture, 0.5 beat 0.3, 0.4 and 0.6 (by a few per cent).
  */
-export const HELPER_PART_FROM = 0.4;
+export const HELPER_PART_FROM = 0.5;
 
 /** Bytes searched back from a chunk's end for its last newline. */
 const TAIL_BYTES = 64 * 1024;

@@ -1,5 +1,5 @@
 // The analysis helper thread's share of pass 1 (see read-in-two-parts.ts): the later part of a plain
-// file parsed by the same scanner the main thread uses, its chunks scaled and packed straight into
+// file parsed by the same scanner the main thread uses, its chunks scaled and written straight into
 // the kept columns, so the main thread only runs the per-row accumulations over them, in order.
 import { closeSync, openSync, readSync } from "node:fs";
 import { CompactColumn, type CompactColumnData } from "./compact-column";
@@ -39,9 +39,9 @@ export interface PartResult {
   firstRow: number;
   /** Rows in `edges` [0, headRows): they complete the main thread's last chunk. */
   headRows: number;
-  /** Whole chunks packed into the columns, from chunk ceil(firstRow / ROW_CHUNK) on. */
+  /** Whole chunks written into the columns (as doubles), from chunk ceil(firstRow / ROW_CHUNK) on. */
   chunks: number;
-  /** Rows in `edges` [ROW_CHUNK, ROW_CHUNK + tailRows): read after the packed chunks, not packed. */
+  /** Rows in `edges` [ROW_CHUNK, ROW_CHUNK + tailRows): read after the whole chunks, not written to the columns. */
   tailRows: number;
   /** The byte it stopped at: the file's end, or the start of a line the scanner cannot read (or not ended by a newline). */
   stop: number;
@@ -54,8 +54,8 @@ export interface PartResult {
  * Parses a plain file from `from` to its end with {@link PlainLineScanner}, stopping at the first line
  * it cannot read (the main thread reads on from there with its full reader, so every error and
  * message is its own). Counts the lines before `from` (countLinesBefore, perhaps counted ahead) to place its rows: whole chunks of
- * ROW_CHUNK rows are scaled as RowCollector.flush scales them and packed into the kept columns
- * (CompactColumn.resumeAt); the rows before the first whole chunk and after the last go to `edges`
+ * ROW_CHUNK rows are scaled as RowCollector.flush scales them and written into the kept columns as
+ * doubles (CompactColumn.resumeAt); the rows before the first whole chunk and after the last go to `edges`
  * as read.
  *
  * Complexity O(file size): counting the newlines before `from` (unless counted ahead), scanning the bytes after.
@@ -90,7 +90,7 @@ export function parsePart(request: PartRequest): PartResult {
       if (times) edges[0]!.set(times.subarray(0, fill), at);
       channels.forEach((values, c) => edges[c + (times ? 1 : 0)]!.set(values.subarray(0, fill), at));
     };
-    /** A full chunk (or the head): packed, or when the kept rows end there, left as the tail. Returns false to stop. */
+    /** A full chunk (or the head): written, or when the kept rows end there, left as the tail. Returns false to stop. */
     const complete = (): boolean => {
       if (head) {
         toEdges(0);
@@ -103,8 +103,10 @@ export function parsePart(request: PartRequest): PartResult {
           const factor = factors[c]!;
           if (factor !== 1) for (let i = 0; i < ROW_CHUNK; i++) values[i]! *= factor;
         });
-        if (times) columns[0]!.append(times, ROW_CHUNK);
-        channels.forEach((values, c) => columns[c + (times ? 1 : 0)]!.append(values, ROW_CHUNK));
+        // Kept as doubles, not packed: more pages to map here, but no packing here and a plain copy
+        // (no division per value) each time the main thread reads them back (measured: less CPU on it).
+        if (times) columns[0]!.append(times, ROW_CHUNK, false);
+        channels.forEach((values, c) => columns[c + (times ? 1 : 0)]!.append(values, ROW_CHUNK, false));
         result.chunks++;
         chunk++;
       }
@@ -145,7 +147,7 @@ export function parsePart(request: PartRequest): PartResult {
       buffer.copyWithin(0, cut, length);
       held = length - cut;
     }
-    // A last chunk filled exactly at the end is packed too (it could equally go to the main thread as the tail).
+    // A last chunk filled exactly at the end is written too (it could equally go to the main thread as the tail).
     if (!head && fill === ROW_CHUNK && result.stop === position) complete();
     // The rows read since the last whole chunk.
     if (head) {

@@ -14,8 +14,8 @@ import type { FirstPass } from "./stream-first-pass";
  * memory) as {@link readCsvRows} does — the same rows, chunks, errors and line numbers — with the
  * later part parsed by `helper` meanwhile when the file is plain UTF-8 ({@link readsPlainBytes})
  * and expected to outgrow the look-ahead. This thread reads up to the helper's start, then takes
- * the helper's rows in: the rows completing its last chunk, the chunks the helper packed into the
- * kept columns (decoded for the checks, not packed again), the rows after them; and reads on
+ * the helper's rows in: the rows completing its last chunk, the whole chunks the helper wrote into
+ * the kept columns (read back for the checks, not kept again), the rows after them; and reads on
  * itself from where the helper stopped (a line its scanner cannot read, or the end). When the
  * helper's count of rows before its part differs from this thread's (blank lines, quoted fields),
  * its work is set aside and this thread reads on from the part's start.

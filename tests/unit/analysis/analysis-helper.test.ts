@@ -11,6 +11,7 @@ import { AnalysisHelper } from "@/lib/analysis/analysis-helper";
 import { analyzeCsvFile, type StreamTimings } from "@/lib/analysis/analyze-csv-file";
 import { AnalysisInputError } from "@/lib/analysis/errors";
 import { helperPartStart } from "@/lib/analysis/helper-part-start";
+import { ROW_CHUNK } from "@/lib/analysis/row-collector";
 import type { AnalysisOptions } from "@/lib/analysis/types";
 import { driftingCaptureText } from "./signals";
 
@@ -95,14 +96,18 @@ describe("with the helper thread the result is the one-thread result, number for
 });
 
 describe("pass 1 read in two parts (the helper parses the later part): the one-thread rows, numbers, errors and lines", { timeout: 120_000 }, () => {
-  // 25 s at 6.4 kS/s: 160,000 rows, ~6.7 MB. The helper's part starts in the third 1 MB chunk (about
-  // row 72,000): it completes the main thread's last chunk of 32,768 rows (to row 98,304), packs one
-  // whole chunk (to 131,072) and hands the rest back unpacked.
-  const text = captureText(25);
+  // 30 s at 6.4 kS/s: 192,000 rows, ~8 MB. The helper's part starts about half-way: it completes the
+  // main thread's last chunk of 32,768 rows, writes whole chunks into the kept columns and hands the
+  // rows after the last whole chunk back (the lines below are placed from where it starts).
+  const ROWS = 192_000;
+  const text = captureText(30);
   const withWaveform: AnalysisOptions = { includeOrderSeries: true, thdMaxOrder: 50, ilA: 12, keepWaveformCycles: 3 };
   // Without a waveform excerpt pass 2's row checks run over the kept columns before the windows.
   const plain: AnalysisOptions = { includeOrderSeries: true, thdMaxOrder: 50, ilA: 12 };
   let splitLine = 0;
+  /** A line inside the helper's first whole chunk, and one after its last whole chunk. */
+  let wholeChunkLine = 0;
+  let tailLine = 0;
 
   /** Writes `content`, runs it alone and with the helper; returns both (results or errors) and the helper's rows. */
   async function both(name: string, content: string, options: AnalysisOptions, tuning: { keepRowsBytes?: number } = {}) {
@@ -131,14 +136,19 @@ describe("pass 1 read in two parts (the helper parses the later part): the one-t
     const from = helperPartStart(path, Buffer.byteLength(text));
     expect(from).not.toBeNull();
     splitLine = text.slice(0, from!).split("\n").length; // the helper's first line
-    expect(splitLine - 2).toBeGreaterThan(65_536); // its first row is in the third chunk
+    const firstWhole = Math.ceil((splitLine - 2) / ROW_CHUNK) * ROW_CHUNK; // the first row of its first whole chunk
+    wholeChunkLine = firstWhole + 1_000 + 2;
+    tailLine = Math.floor(ROWS / ROW_CHUNK) * ROW_CHUNK + 1_000 + 2;
+    expect(firstWhole - (splitLine - 2)).toBeGreaterThan(1_000); // rows completing the main thread's chunk
+    expect(tailLine - wholeChunkLine).toBeGreaterThanOrEqual(ROW_CHUNK); // at least one whole chunk
+    expect(tailLine).toBeLessThan(ROWS); // rows after the last whole chunk
   });
 
   test("whole file: identical results with and without the waveform excerpt; the helper parsed the later part", async () => {
     for (const options of [withWaveform, plain]) {
       const { alone, helped, helperRows } = await both("split-clean.csv", text, options);
       expect(helped).toEqual(alone);
-      expect(helperRows).toBe(160_000 - (splitLine - 2));
+      expect(helperRows).toBe(ROWS - (splitLine - 2));
     }
   });
 
@@ -153,8 +163,8 @@ describe("pass 1 read in two parts (the helper parses the later part): the one-t
     }
   });
 
-  test("a bad cell on the helper's first line, the main thread's last, in the packed chunk or after it: the same error at the same line and column", async () => {
-    for (const line of [() => splitLine, () => splitLine - 1, () => 110_002, () => 150_002]) {
+  test("a bad cell on the helper's first line, the main thread's last, in a whole chunk or after the last: the same error at the same line and column", async () => {
+    for (const line of [() => splitLine, () => splitLine - 1, () => wholeChunkLine, () => tailLine]) {
       const { alone, helped } = await both("split-bad-cell.csv", edited(line(), badVa), plain);
       expect(alone).toBeInstanceOf(AnalysisInputError);
       expect(helped).toEqual(alone);
@@ -163,8 +173,8 @@ describe("pass 1 read in two parts (the helper parses the later part): the one-t
     }
   });
 
-  test("a value out of range after its scale inside the chunk the helper packed: the same error at the same line and column", async () => {
-    const line = 110_002;
+  test("a value out of range after its scale inside a whole chunk the helper wrote: the same error at the same line and column", async () => {
+    const line = wholeChunkLine;
     const huge = (l: string): string => {
       const cells = l.split(",");
       cells[2] = `1.${"0".repeat(cells[2]!.length - 5)}e22`; // Ia: 1e22 A × 1e90 is beyond 1e100
@@ -181,14 +191,14 @@ describe("pass 1 read in two parts (the helper parses the later part): the one-t
     const before = await both("split-blank-before.csv", edited(20_000, blank), plain);
     expect(before.helped).toEqual(before.alone);
     expect(before.helperRows).toBe(0);
-    const after = await both("split-blank-after.csv", edited(120_000, blank), plain);
+    const after = await both("split-blank-after.csv", edited(wholeChunkLine, blank), plain);
     expect(after.helped).toEqual(after.alone);
     expect(after.helperRows).toBeGreaterThan(0);
   });
 
   test("a record longer than its head promised: the helper stops where the kept rows end, the rest is read twice", async () => {
-    // The first 5,000 rows padded to ~200 bytes: the head promises ~36,000 rows, 120,000 may be kept.
-    const { alone, helped, helperRows } = await both("split-padded-head.csv", captureText(25, 5_000), plain, { keepRowsBytes: 8 * 5 * 120_000 });
+    // The first 5,000 rows padded to ~200 bytes: the head promises ~43,000 rows, 150,000 may be kept.
+    const { alone, helped, helperRows } = await both("split-padded-head.csv", captureText(30, 5_000), plain, { keepRowsBytes: 8 * 5 * 150_000 });
     expect(helped).toEqual(alone);
     expect(helperRows).toBeGreaterThan(0);
   });
