@@ -3,7 +3,6 @@
 import { buildCli, bundlePath, cliBundleIsStale, startHelperPath } from "./build-cli.mjs";
 import { pathToFileURL } from "node:url";
 import v8 from "node:v8";
-process.env.T0 = String(performance.timeOrigin);
 
 // A short run that reads a large file once: its arithmetic runs cold (interpreted) until V8 has
 // compiled it. Compiling a hot loop on this thread at once (rather than in the background while
