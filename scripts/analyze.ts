@@ -111,7 +111,7 @@ export async function main(argv: string[], options: { helper?: AnalysisHelper | 
   let request: AnalyzeRequest;
   let limits: { limitSet: LimitSetRevision; source: LimitSetSource } | null = null;
   // A second thread for the analysis when a core is free for it (the same result, sooner).
-  const helper = options.helper !== undefined ? options.helper : startAnalysisHelper();
+  const helper = options.helper !== undefined ? options.helper : startAnalysisHelper(argv);
   try {
     request = parseAnalyzeArgs(argv);
     if (request.limitSetKey) limits = await loadLimitSet(request.limitSetKey);

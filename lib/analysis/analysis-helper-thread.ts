@@ -1,5 +1,6 @@
-// The analysis helper thread (see analysis-helper.ts): measures frequency segments (SegmentEstimator)
-// and windows (WindowAnalyzer.measureWindow) of a record held in shared memory, for the main thread.
+// The analysis helper thread (see analysis-helper.ts): parses the later part of a file (parsePart),
+// measures frequency segments (SegmentEstimator) and windows (WindowAnalyzer.measureWindow) of a
+// record held in shared memory, for the main thread.
 // Built as its own module by scripts/build-cli.mjs; started with `new Worker(...)`.
 import { parentPort } from "node:worker_threads";
 import type { HelperAnswer, HelperRequest, SentInputError } from "./analysis-helper";
@@ -8,6 +9,10 @@ import { arrayWindowSource } from "./array-window-source";
 import { AnalysisInputError } from "./errors";
 import { getFft } from "./get-fft";
 import { KeptRows } from "./kept-rows";
+import { PlainLineScanner } from "./plain-line-scanner";
+import { ROW_CHUNK } from "./row-collector";
+import { countLinesBefore } from "./count-lines-before";
+import { parsePart } from "./parse-part";
 import { SegmentEstimator } from "./segment-estimator";
 import { WindowClaims } from "./window-claims";
 import { WindowAnalyzer } from "./window-analyzer";
@@ -86,6 +91,16 @@ function answer(request: HelperRequest): HelperAnswer | null {
     return null;
   }
   if (request.type === "segment") return measureSegment(request);
+  if (request.type === "part") return { type: "part", ...parsePart(request) };
+  if (request.type === "count") {
+    countedAhead = true;
+    try {
+      countLinesBefore(request.path);
+    } catch {
+      // Counting ahead only saves time; the part counts again if need be.
+    }
+    return null;
+  }
   const started = performance.now();
   const { channels, analyzerChannels, reference, shape, recordSamples, windowBounds, out } = request;
   const analyzer = new WindowAnalyzer(analyzerChannels, reference, shape, recordSamples, 1);
@@ -114,28 +129,58 @@ const WARM_HZ = 50;
 /** Samples in a frequency segment by default (FREQUENCY_SEGMENT_SAMPLES). */
 const WARM_SEGMENT = 1 << 18;
 let warming = true;
+/** A file's lines were counted ahead (AnalysisHelper.countAhead): its part is to come. */
+let countedAhead = false;
 
-function madeUpSamples(): Float64Array {
-  const samples = (segmentScratch[0] ??= new Float64Array(2 * WARM_SEGMENT)).subarray(0, WARM_SEGMENT);
-  for (let k = 0; k < WARM_SEGMENT; k++) {
+function madeUpSamples(length = WARM_SEGMENT): Float64Array {
+  const samples = (segmentScratch[0] ??= new Float64Array(2 * WARM_SEGMENT)).subarray(0, length);
+  for (let k = 0; k < length; k++) {
     const phase = (2 * Math.PI * WARM_HZ * k) / WARM_RATE_HZ;
     samples[k] = 325 * Math.cos(phase) + 8 * Math.cos(5 * phase);
   }
   return samples;
 }
 
+/** Made-up lines as a recorder prints them (time, two voltages, two currents), as UTF-8 bytes. */
+function madeUpLines(count: number): Uint8Array {
+  let text = "";
+  for (let k = 0; k < count; k++) {
+    const phase = (2 * Math.PI * WARM_HZ * k) / WARM_RATE_HZ;
+    text += `${(k / WARM_RATE_HZ).toFixed(7)},${(325 * Math.cos(phase)).toFixed(2)},${(8 * Math.cos(phase)).toFixed(3)},${(325 * Math.sin(phase)).toFixed(2)},${(-8 * Math.sin(phase)).toFixed(3)}\n`;
+  }
+  return new TextEncoder().encode(text);
+}
+
 const warmUpSteps: (() => void)[] = [
-  () => void getFft(WARM_SEGMENT / 2),
-  () => new SegmentEstimator(1).estimate([madeUpSamples()], WARM_SEGMENT, WARM_RATE_HZ),
+  // Parsing a part (parsePart): the scanner and writing whole chunks (kept small: a part asked for
+  // waits until a step is done).
   () => {
-    const samples = segmentScratch[0]!.subarray(0, WARM_SEGMENT);
+    const bytes = madeUpLines(512);
+    const channels = [0, 1, 2, 3].map(() => new Float64Array(ROW_CHUNK));
+    const times = new Float64Array(ROW_CHUNK);
+    const scanner = new PlainLineScanner({ columnCount: 5, delimiterCode: 44, decimalCode: 46, channelSlots: Int32Array.from([1, 2, 3, 4]), timeSlot: 0, timeToBase: 1 }, channels, times);
+    const column = new CompactColumn(new ArrayBuffer(8 * ROW_CHUNK), ROW_CHUNK);
+    for (let round = 0; round < 4; round++) {
+      scanner.scan(bytes, 0, bytes.length, 0, ROW_CHUNK);
+      column.append(times, 512, false);
+      column.resumeAt(0);
+    }
+  },
+  () => void getFft(WARM_SEGMENT / 2),
+  () => {
     const windowSamples = (10 * WARM_RATE_HZ) / WARM_HZ;
+    const samples = madeUpSamples(6 * windowSamples);
     const shape = { cycles: 10, points: 4096, orders: 50, maxOrder: 50, resolvableOrder: 50, thdMaxOrder: 50, halfWidth: 8, padding: 12, span: windowSamples + 2 * 12 + 2 };
     const channels = ["voltage", "current"].map((quantity) => ({ name: quantity, quantity: quantity as "voltage" | "current", phase: "a" as const, scale: 1 }));
-    const analyzer = new WindowAnalyzer(channels, 0, shape, WARM_SEGMENT, 1);
-    const source = arrayWindowSource([{ samples, scale: 1 }, { samples, scale: 0.05 }], WARM_SEGMENT);
+    const analyzer = new WindowAnalyzer(channels, 0, shape, samples.length, 1);
+    const source = arrayWindowSource([{ samples, scale: 1 }, { samples, scale: 0.05 }], samples.length);
     const out = new Float64Array(analyzer.measurementLength);
     for (let w = 1; w <= 4; w++) analyzer.measureWindow(w * windowSamples + 0.3, windowSamples, source, out);
+  },
+  // The longest step (~0.2 s): not when a file's lines are being counted ahead, as its part is then
+  // asked for soon and would wait for it.
+  () => {
+    if (!countedAhead) new SegmentEstimator(1).estimate([madeUpSamples()], WARM_SEGMENT, WARM_RATE_HZ);
   },
 ];
 
@@ -152,7 +197,7 @@ function warmUp(): void {
 setImmediate(warmUp);
 
 parentPort?.on("message", (request: HelperRequest) => {
-  if (request.type !== "prefault") warming = false;
+  if (request.type !== "prefault" && request.type !== "count") warming = false;
   let reply: HelperAnswer | null;
   try {
     reply = answer(request);

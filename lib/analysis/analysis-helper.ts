@@ -8,6 +8,7 @@ import { fileURLToPath } from "node:url";
 import { Worker } from "node:worker_threads";
 import { AnalysisInputError, type AnalysisErrorCode } from "./errors";
 import type { CompactColumnData } from "./compact-column";
+import type { PartRequest, PartResult } from "./parse-part";
 import type { PhaseTrack } from "./phase-tracker";
 import type { AnalyzerChannel, WindowShape } from "./window-types";
 
@@ -18,6 +19,12 @@ export interface SentInputError {
 
 /** What the main thread asks of the helper thread (in order; answered in order, where answered). */
 export type HelperRequest =
+  | ({ type: "part" } & PartRequest)
+  | {
+      type: "count";
+      /** A file about to be analysed: its lines before the helper's part are counted ahead (countLinesBefore). Not answered. */
+      path: string;
+    }
   | {
       type: "prefault";
       /** SharedArrayBuffer-backed arrays the main thread is about to fill (see {@link AnalysisHelper.prefault}). Not answered. */
@@ -54,6 +61,7 @@ export type HelperRequest =
 
 /** The helper thread's answers. */
 export type HelperAnswer =
+  | ({ type: "part" } & PartResult)
   | { type: "estimates"; ratios: (number | SentInputError)[][]; tracks: PhaseTrack[]; fundamentalMs: number }
   | { type: "windows"; ms: number; /** The first window it measured (the window count when none). */ from: number }
   | { type: "failed"; message: string };
@@ -142,6 +150,24 @@ export class AnalysisHelper {
       if (a.type !== "estimates") throw new Error(`analysis helper thread answered ${a.type} to a segment`);
       return { ratios: a.ratios.map((list) => list.map(receiveRatio)), tracks: a.tracks, fundamentalMs: a.fundamentalMs };
     });
+  }
+
+  /**
+   * Has the helper parse the later part of a file into the kept columns (see parsePart) while this
+   * thread parses the earlier part.
+   */
+  async parsePart(request: PartRequest): Promise<PartResult> {
+    const answer = await this.ask({ type: "part", ...request });
+    if (answer.type !== "part") throw new Error(`analysis helper thread answered ${answer.type} to a part`);
+    return answer;
+  }
+
+  /**
+   * Has the helper count the lines of `path` before the part it would parse (countLinesBefore)
+   * while it has nothing else to do, so that parsing it later starts at once.
+   */
+  countAhead(path: string): void {
+    if (!this.failure) this.worker.postMessage({ type: "count", path } satisfies HelperRequest);
   }
 
   /**

@@ -15,10 +15,12 @@ import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
 import { planWindows } from "./plan-windows";
 import { readCsvHead, readCsvRows } from "./read-csv-rows";
+import { readInTwoParts } from "./read-in-two-parts";
 import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
-import { SecondPass, STEP_MESSAGE } from "./stream-second-pass";
+import { KeptRows } from "./kept-rows";
+import { SecondPass, SecondPassChecks, STEP_MESSAGE, type TimeCheck } from "./stream-second-pass";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer } from "./window-analyzer";
 import { WindowClaims } from "./window-claims";
@@ -29,6 +31,8 @@ export interface StreamTimings extends StageTimings {
   rereadMs?: number;
   /** Time this thread waited for the analysis helper thread (its segment estimates, then its windows). */
   helperWaitMs?: number;
+  /** Rows of pass 1 the analysis helper thread parsed (the later part of the file; 0 when it parsed none). */
+  helperParsedRows?: number;
 }
 
 /**
@@ -91,7 +95,8 @@ export async function analyzeCsvFile(
     ...(options.channels ? { channels: options.channels } : {}),
   };
   checkOverrides(importOptions);
-  const { head, layout, estimatedRows } = await readCsvHead(path);
+  const csvHead = await readCsvHead(path);
+  const { head, layout, estimatedRows } = csvHead;
   const columns = planColumns(layout, options.channels);
   const channelColumns = columns.filter((c) => c.role === "channel");
   const timeColumn = columns.find((c) => c.role === "time");
@@ -115,7 +120,13 @@ export async function analyzeCsvFile(
     estimatedRows,
   );
   collector1 = new RowCollector(layout, columns, first);
-  await readCsvRows(path, head, collector1);
+  // With the helper thread and rows kept in shared memory, it parses the later part of the file meanwhile.
+  if (tuning.helper && first.kept?.shared) {
+    const helperRows = await readInTwoParts(path, csvHead, collector1, first, tuning.helper, estimatedRows > 2 * segmentSamples);
+    if (timings) timings.helperParsedRows = helperRows;
+  } else {
+    await readCsvRows(path, head, collector1);
+  }
 
   if (!first.streaming) {
     // Short record: the look-ahead holds all of it; the in-memory path gives the reference result.
@@ -138,7 +149,7 @@ export async function analyzeCsvFile(
   const warnings = collector1.end();
   const n = collector1.rows;
   // The sample interval: the same decision as the in-memory import's (chooseSampleInterval).
-  let timeCheck: ConstructorParameters<typeof SecondPass>[7] = null;
+  let timeCheck: TimeCheck | null = null;
   // A given interval replaces the time column's spacing, but a column running backwards is still an error.
   if (options.sampleIntervalS !== undefined && first.monotonicError) throw first.monotonicError.error;
   const { sampleIntervalS, sampleIntervalSource } = chooseSampleInterval(
@@ -193,6 +204,14 @@ export async function analyzeCsvFile(
   let reference = firstVoltage;
   if (reference < 0) reference = rmsOf.indexOf(Math.max(...rmsOf));
   if (timings) timings.checksMs = performance.now() - clock;
+  // With the helper thread and the rows kept in shared memory (and no waveform excerpt asked for),
+  // pass 2's row checks run now, over the kept columns, while the helper measures the last segments;
+  // pass 2 is then the windows alone. An irregular step is thrown where pass 2 would throw it.
+  const helper = first.kept?.shared ? (tuning.helper ?? null) : null;
+  clock = performance.now();
+  const checksFirst = helper && !options.keepWaveformCycles ? new SecondPassChecks(() => collector1, first.scans, timeCheck) : null;
+  const stepError = checksFirst?.checkKept(first.kept!, n) ?? null;
+  const checksFirstMs = performance.now() - clock;
   clock = performance.now();
   const measured = await first.segmentResults();
   const segmentsWaitMs = first.segmentsMeasuredElsewhere ? performance.now() - clock : 0;
@@ -230,7 +249,6 @@ export async function analyzeCsvFile(
   // thread measures them from the front as pass 2 brings their samples in, each claiming a window
   // before measuring it (WindowClaims): the quicker takes more. They are added to the totals in window order.
   const windowCount = plan.windowBounds.length - 1;
-  const helper = first.kept?.shared ? (tuning.helper ?? null) : null;
   const claims = helper ? WindowClaims.create(windowCount) : null;
   const helped = helper
     ? (() => {
@@ -251,36 +269,58 @@ export async function analyzeCsvFile(
         return { out, done };
       })()
     : null;
-  let collector2: RowCollector | undefined;
-  const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, claims);
-  if (first.kept) {
-    // The rows pass 1 kept, replayed: the same chunks the file would give again.
-    collector2 = collector1;
-    await first.kept.replay(n, second);
-  } else {
-    collector2 = new RowCollector(layout, columns, second);
-    await readCsvRows(path, head, collector2);
-    if (collector2.rows !== n) {
-      throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+  /** Windows measured on this thread (0 … measuredHere − 1); the helper measured the rest. */
+  let measuredHere: number;
+  let windowsMs: number;
+  if (checksFirst) {
+    if (stepError) throw stepError;
+    // The windows from the front, straight from the kept columns (as the helper reads them from the back).
+    const source = KeptRows.windowSource(
+      first.kept!.channels.map((c) => c.data),
+      n,
+    );
+    const started = performance.now();
+    measuredHere = 0;
+    for (let w = claims!.takeFront(); w >= 0; w = claims!.takeFront()) {
+      analyzer.addWindow(plan.windowBounds[w]!, plan.windowBounds[w + 1]! - plan.windowBounds[w]!, source);
+      measuredHere = w + 1;
     }
+    windowsMs = performance.now() - started;
+    if (checksFirst.residualError) throw checksFirst.residualError;
+  } else {
+    let collector2: RowCollector | undefined;
+    const second = new SecondPass(() => collector2!, first.scans, analyzer, plan.windowBounds, n, plan.shape.padding, plan.shape.span, timeCheck, waveform, claims);
+    if (first.kept) {
+      // The rows pass 1 kept, replayed: the same chunks the file would give again.
+      collector2 = collector1;
+      await first.kept.replay(n, second);
+    } else {
+      collector2 = new RowCollector(layout, columns, second);
+      await readCsvRows(path, head, collector2);
+      if (collector2.rows !== n) {
+        throw new AnalysisInputError("unreadable-file", `cannot read file ${path}: it changed while being read (${n} rows, then ${collector2.rows})`);
+      }
+    }
+    second.drain();
+    if (second.residualError) throw second.residualError;
+    measuredHere = second.window;
+    windowsMs = second.windowsMs;
   }
-  second.drain();
-  if (second.residualError) throw second.residualError;
   if (helped) {
     const waitStarted = performance.now();
     const from = await helped.done;
     if (timings) timings.helperWaitMs = (timings.helperWaitMs ?? 0) + performance.now() - waitStarted;
-    if (from !== second.window) throw new Error(`windows shared out wrongly: this thread measured ${second.window}, the helper from ${from} on`);
+    if (from !== measuredHere) throw new Error(`windows shared out wrongly: this thread measured ${measuredHere}, the helper from ${from} on`);
     const started = performance.now();
     const length = analyzer.measurementLength;
     for (let w = from; w < windowCount; w++) analyzer.accumulateWindow(helped.out.subarray(w * length, (w + 1) * length));
-    second.windowsMs += performance.now() - started;
+    windowsMs += performance.now() - started;
   }
   const clipWarnings = channelColumns.map((c, i) => first.scans[i]!.clipWarning(c.header, 1, unitOf(c))).filter((w): w is string => w !== null);
   warnings.splice(clipWarningsAt, 0, ...clipWarnings);
   if (timings) {
-    timings.windowsMs = second.windowsMs;
-    timings.rereadMs = performance.now() - secondStarted - second.windowsMs;
+    timings.windowsMs = windowsMs;
+    timings.rereadMs = checksFirstMs + performance.now() - secondStarted - windowsMs;
   }
 
   clock = performance.now();

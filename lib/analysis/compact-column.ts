@@ -74,48 +74,63 @@ export class CompactColumn {
     const chunk = this.rows / ROW_CHUNK;
     if (!Number.isInteger(chunk)) throw new Error("CompactColumn: only the last chunk may be shorter than ROW_CHUNK rows");
     if (count === 0) return;
-    // First look: the decimals and the largest magnitude (hence the width).
+    // The integers m = round(v · 10^k) for the fewest decimals k at which every value comes back as
+    // m / 10^k, into the scratch (one look per value; a value that needs more decimals restarts the
+    // chunk with them), and the largest |m| (hence the width).
     let decimals = 0;
-    let largest = 0;
-    let exact = pack;
-    for (let i = 0; exact && i < count; i++) {
-      const v = values[i]!;
-      let p = POW10[decimals]!;
-      if (Math.round(v * p) / p !== v) {
-        // A value exact at k decimals is exact at every k' > k too (the same rational, rounded once).
-        do decimals++;
-        while (decimals <= MAX_DECIMALS && Math.round(v * POW10[decimals]!) / POW10[decimals]! !== v);
-        if (decimals > MAX_DECIMALS) {
-          exact = false;
-          break;
-        }
-        p = POW10[decimals]!;
+    let width = 8;
+    while (pack) {
+      const measured = toIntegers(values, count, POW10[decimals]!);
+      if (measured >= 0) {
+        width = measured < -MINUS_ZERO_16 ? 2 : measured < -MINUS_ZERO_32 ? 4 : 8;
+        break;
       }
-      const magnitude = Math.abs(v);
-      if (magnitude > largest) largest = magnitude;
+      const v = values[-measured - 1]!;
+      do decimals++;
+      while (decimals <= MAX_DECIMALS && Math.round(v * POW10[decimals]!) / POW10[decimals]! !== v);
+      if (decimals > MAX_DECIMALS) break;
     }
-    const divisor = POW10[decimals]!;
-    const largestInteger = exact ? Math.round(largest * divisor) : Infinity;
-    const width = largestInteger < -MINUS_ZERO_16 ? 2 : largestInteger < -MINUS_ZERO_32 ? 4 : 8;
     const offset = this.offset;
     if (offset + width * count > this.bytes.byteLength) throw new Error("CompactColumn: more rows than its memory holds");
-    const view = width === 2 ? new Int16Array(this.bytes, offset, count) : width === 4 ? new Int32Array(this.bytes, offset, count) : new Float64Array(this.bytes, offset, count);
+    let view: ChunkView;
     if (width === 8) {
-      (view as Float64Array).set(values.subarray(0, count));
+      view = new Float64Array(this.bytes, offset, count);
+      view.set(values.subarray(0, count));
+    } else if (width === 4) {
+      view = new Int32Array(this.bytes, offset, count);
+      view.set(scratch.subarray(0, count));
     } else {
-      const minusZero = width === 2 ? MINUS_ZERO_16 : MINUS_ZERO_32;
-      for (let i = 0; i < count; i++) {
-        const v = values[i]!;
-        const m = Math.round(v * divisor);
-        view[i] = m === 0 && 1 / v < 0 ? minusZero : m;
-      }
+      view = new Int16Array(this.bytes, offset, count);
+      narrow(view, count);
     }
     this.table[ENTRY * chunk] = offset;
     this.table[ENTRY * chunk + 1] = width;
-    this.table[ENTRY * chunk + 2] = width === 8 ? 0 : divisor;
+    this.table[ENTRY * chunk + 2] = width === 8 ? 0 : POW10[decimals]!;
     this.views[chunk] = view;
     // Chunks start on 8-byte boundaries (a chunk of doubles must).
     this.offset = offset + Math.ceil((width * count) / 8) * 8;
+    this.rows += count;
+  }
+
+  /**
+   * Another thread's view of a column ({@link CompactColumn.from}) set to append from chunk `chunk`
+   * on, at byte 8 × chunk × ROW_CHUNK: every earlier chunk (at most 8 bytes per row) fits below it,
+   * whatever its width. The column's owner takes the chunks over with {@link adopt}.
+   */
+  resumeAt(chunk: number): void {
+    this.rows = chunk * ROW_CHUNK;
+    this.offset = 8 * this.rows;
+  }
+
+  /**
+   * Takes over the next chunk (`count` rows) as another thread appended it into this column's
+   * memory (see {@link resumeAt}): its place and width are in the shared table.
+   */
+  adopt(count: number): void {
+    const chunk = this.rows / ROW_CHUNK;
+    if (!Number.isInteger(chunk)) throw new Error("CompactColumn: only the last chunk may be shorter than ROW_CHUNK rows");
+    this.offset = this.table[ENTRY * chunk]! + Math.ceil((this.table[ENTRY * chunk + 1]! * count) / 8) * 8;
+    this.views[chunk] = undefined;
     this.rows += count;
   }
 
@@ -178,15 +193,10 @@ export class CompactColumn {
       const view = this.view(chunk);
       const divisor = this.table[ENTRY * chunk + 2]!;
       const out = at + row - from - start;
-      if (divisor === 0) {
-        for (let i = start; i < end; i++) target[out + i] = view[i]!;
-      } else {
-        const minusZero = view instanceof Int16Array ? MINUS_ZERO_16 : MINUS_ZERO_32;
-        for (let i = start; i < end; i++) {
-          const m = view[i]!;
-          target[out + i] = m === minusZero ? -0 : m / divisor;
-        }
-      }
+      // One loop per width, so each reads one kind of array (a loop seeing all three is slower).
+      if (divisor === 0) target.set((view as Float64Array).subarray(start, end), out + start);
+      else if (view instanceof Int16Array) decode16(view, divisor, start, end, target, out);
+      else decode32(view as Int32Array, divisor, start, end, target, out);
       row += end - start;
     }
   }
@@ -199,6 +209,49 @@ export class CompactColumn {
     const divisor = this.table[ENTRY * chunk + 2]!;
     if (divisor === 0) return m;
     return m === (view instanceof Int16Array ? MINUS_ZERO_16 : MINUS_ZERO_32) ? -0 : m / divisor;
+  }
+}
+
+/** The integers of the chunk being appended (one thread appends at a time per module instance). */
+const scratch = new Int32Array(ROW_CHUNK);
+
+/**
+ * Writes m = round(v × scale) of the first `count` values into the scratch (−0 as MINUS_ZERO_32) and
+ * returns the largest |m| (at least 2^31 when they do not fit 32 bits), or −(i + 1) for the first
+ * value i that m / scale does not give back exactly (NaN included).
+ */
+function toIntegers(values: Float64Array, count: number, scale: number): number {
+  let largest = 0;
+  for (let i = 0; i < count; i++) {
+    const v = values[i]!;
+    const m = Math.round(v * scale);
+    if (m / scale !== v) return -(i + 1);
+    const magnitude = m < 0 ? -m : m;
+    if (magnitude > largest) largest = magnitude;
+    scratch[i] = m === 0 && 1 / v < 0 ? MINUS_ZERO_32 : m;
+  }
+  return largest;
+}
+
+/** The scratch's integers (all within 16 bits) into `view`, −0 re-marked. */
+function narrow(view: Int16Array, count: number): void {
+  for (let i = 0; i < count; i++) {
+    const m = scratch[i]!;
+    view[i] = m === MINUS_ZERO_32 ? MINUS_ZERO_16 : m;
+  }
+}
+
+function decode16(view: Int16Array, divisor: number, start: number, end: number, target: Float64Array, out: number): void {
+  for (let i = start; i < end; i++) {
+    const m = view[i]!;
+    target[out + i] = m === MINUS_ZERO_16 ? -0 : m / divisor;
+  }
+}
+
+function decode32(view: Int32Array, divisor: number, start: number, end: number, target: Float64Array, out: number): void {
+  for (let i = start; i < end; i++) {
+    const m = view[i]!;
+    target[out + i] = m === MINUS_ZERO_32 ? -0 : m / divisor;
   }
 }
 

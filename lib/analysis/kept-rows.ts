@@ -68,6 +68,12 @@ export class KeptRows {
     for (let c = 0; c < values.length; c++) this.channels[c]!.append(values[c]!, count, pack);
   }
 
+  /** Takes over the next chunk of `count` rows, packed into the columns by another thread (CompactColumn.adopt). */
+  adopt(count: number): void {
+    this.times?.adopt(count);
+    for (const column of this.channels) column.adopt(count);
+  }
+
   /**
    * Hands the `rows` kept rows to `sink` in the chunks a RowCollector reading the file would give
    * ({@link ROW_CHUNK} rows, the last one shorter; same row indices), unpacked into arrays reused

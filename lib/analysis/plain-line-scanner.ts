@@ -45,7 +45,7 @@ export class PlainLineScanner {
   private readonly fields: Float64Array;
 
   constructor(
-    private readonly layout: ScanLayout,
+    readonly layout: ScanLayout,
     /** Channel buffers, written at the row slots `fill …`. */
     private readonly buffers: Float64Array[],
     private readonly times: Float64Array | null,

@@ -10,6 +10,14 @@ import { AnalysisInputError } from "./errors";
 import type { RowCollector } from "./row-collector";
 
 const HEAD_BYTES = 256 * 1024;
+/** Bytes per chunk of a plain file (see byteChunks). */
+export const CHUNK_BYTES = 1 << 20;
+
+/** Part of a file, in bytes: [from, to) (from 0, to the end by default). */
+export interface ByteRange {
+  from?: number;
+  to?: number;
+}
 
 /** The first bytes of a file, its size and the layout detected on them. */
 export interface CsvHead {
@@ -30,19 +38,28 @@ export interface CsvHead {
  * streaming TextDecoder, which carries a character split between chunks over to the next one,
  * and re-encoded as UTF-8.
  */
-async function* byteChunks(path: string, encoding: TextEncodingName): AsyncGenerator<Uint8Array> {
+async function* byteChunks(path: string, encoding: TextEncodingName, range: ByteRange = {}): AsyncGenerator<Uint8Array> {
   const handle = await open(path, "r");
-  const buffers = [new Uint8Array(1 << 20), new Uint8Array(1 << 20)];
-  let next = handle.read(buffers[0]!, 0, buffers[0]!.length, null);
+  const buffers = [new Uint8Array(CHUNK_BYTES), new Uint8Array(CHUNK_BYTES)];
+  const to = range.to ?? Infinity;
+  // Chunks end on multiples of CHUNK_BYTES wherever reading starts, so a part read on its own is cut
+  // where reading the whole file would cut it.
+  let position = range.from ?? 0;
+  const read = (buffer: Uint8Array) => {
+    const length = Math.min(CHUNK_BYTES - (position % CHUNK_BYTES), to - position);
+    return length > 0 ? handle.read(buffer, 0, length, position) : Promise.resolve({ bytesRead: 0 });
+  };
+  let next = read(buffers[0]!);
   try {
     const decoder = encoding === "utf-8" ? null : new TextDecoder(encoding);
     const encoder = new TextEncoder();
     for (let turn = 0; ; turn ^= 1) {
       const { bytesRead } = await next;
       if (bytesRead === 0) break;
+      position += bytesRead;
       const chunk = buffers[turn]!.subarray(0, bytesRead);
       // Reads follow each other (each from where the last ended); this one runs while the chunk is scanned.
-      next = handle.read(buffers[turn ^ 1]!, 0, buffers[turn ^ 1]!.length, null);
+      next = read(buffers[turn ^ 1]!);
       yield decoder ? encoder.encode(decoder.decode(chunk, { stream: true })) : chunk;
     }
     const rest = decoder?.decode() ?? "";
@@ -114,11 +131,11 @@ export async function readCsvHead(path: string): Promise<CsvHead> {
  * go through the fast scanner; from a line with a quote on, the rest of the chunk is decoded and
  * goes through papaparse, which handles quoting.
  */
-async function readPlain(path: string, collector: RowCollector): Promise<void> {
+async function readPlain(path: string, collector: RowCollector, range: ByteRange = {}): Promise<void> {
   const utf8 = new TextDecoder("utf-8", { ignoreBOM: true });
   /** The start of a line cut by the end of the previous chunk. */
   let partial: Uint8Array = new Uint8Array(0);
-  let first = true;
+  let first = (range.from ?? 0) === 0;
   const consume = (block: Uint8Array, start: number, end: number): void => {
     // The scanner reads up to the first line with a quote; papaparse takes the rest of the block.
     const quoted = collector.addPlainBytes(block, start, end);
@@ -130,7 +147,7 @@ async function readPlain(path: string, collector: RowCollector): Promise<void> {
     collector.addRows(rows.map((r) => r.map((f) => f.replace(/\r$/, ""))));
   };
   try {
-    for await (const chunk of byteChunks(path, collector.layout.encoding ?? "utf-8")) {
+    for await (const chunk of byteChunks(path, collector.layout.encoding ?? "utf-8", range)) {
       let start = 0;
       // A UTF-8 byte-order mark (decoded encodings have lost theirs).
       if (first && chunk[0] === 0xef && chunk[1] === 0xbb && chunk[2] === 0xbf) start = 3;
@@ -214,4 +231,26 @@ export async function readCsvRows(path: string, head: string, collector: RowColl
   if (collector.layout.newline !== "\r" && !head.includes('"')) await readPlain(path, collector);
   else await readQuoted(path, collector);
   collector.flush();
+}
+
+/**
+ * Whether {@link readCsvRows} reads the file's bytes as they are (UTF-8, no quotes in its head, "\n"
+ * line ends), so parts of it can be read on their own ({@link readCsvPart}).
+ */
+export function readsPlainBytes(layout: CsvLayout, head: string): boolean {
+  return layout.newline !== "\r" && !head.includes('"') && (layout.encoding ?? "utf-8") === "utf-8";
+}
+
+/**
+ * Reads bytes [from, to) of a plain file ({@link readsPlain}) into `collector` as {@link readCsvRows}
+ * reads them within the whole file (the same chunks, hence the same lines through the same
+ * parser), without flushing the last rows: `from` must be 0 or the start of a line at which reading
+ * the whole file would start a block (see splitPoint), `to` the end of the file or such a start.
+ *
+ * @throws AnalysisInputError as readCsvRows.
+ * @example
+ * await readCsvPart("capture.csv", collector, { to: split });
+ */
+export async function readCsvPart(path: string, collector: RowCollector, range: ByteRange): Promise<void> {
+  await readPlain(path, collector, range);
 }

@@ -4,7 +4,7 @@
 import type { CsvLayout } from "./detect-layout";
 import { AnalysisInputError } from "./errors";
 import { parseNumber } from "./parse-number";
-import { PlainLineScanner } from "./plain-line-scanner";
+import { PlainLineScanner, type ScanLayout } from "./plain-line-scanner";
 import type { ColumnPlan } from "./plan-columns";
 
 /** Rows per chunk handed to a {@link RowSink}. */
@@ -22,6 +22,8 @@ export const MAX_SAMPLE_MAGNITUDE = 1e100;
 export interface RowSink {
   /** `timesS` (null without a time column) and `values[channel]` hold `count` valid entries; the arrays are reused after the call. */
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void;
+  /** As accept, for rows that are kept already (see RowCollector.addKeptChunk); only sinks that keep rows have it. */
+  acceptKept?(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void;
 }
 
 /**
@@ -200,11 +202,20 @@ export class RowCollector {
   flush(): void {
     const count = this.fill;
     if (count === 0) return;
-    const first = this.rows - count;
     for (let c = 0; c < this.buffers.length; c++) {
       const factor = this.factors[c]!;
       const values = this.buffers[c]!;
       if (factor !== 1) for (let i = 0; i < count; i++) values[i]! *= factor;
+    }
+    this.checkRange(this.rows - count, count);
+    this.fill = 0;
+    this.sink.accept(this.times, this.buffers, count, this.rows - count);
+  }
+
+  /** Throws for the first value out of range among the `count` rows in the buffers (row `first` on): channels in order, then time. */
+  private checkRange(first: number, count: number): void {
+    for (let c = 0; c < this.buffers.length; c++) {
+      const values = this.buffers[c]!;
       const bad = outOfRange(values, count);
       if (bad >= 0) throw this.tooLarge(first + bad, this.channelColumns[c]!, values[bad]!);
     }
@@ -212,8 +223,54 @@ export class RowCollector {
       const bad = outOfRange(this.times, count);
       if (bad >= 0) throw this.tooLarge(first + bad, this.timeColumn, this.times[bad]!);
     }
-    this.fill = 0;
-    this.sink.accept(this.times, this.buffers, count, this.rows - count);
+  }
+
+  /** How the scanner reads this file's lines, and each channel's factor: for another thread reading part of the file the same way (parsePart). */
+  scanSettings(): { scan: ScanLayout; factors: Float64Array } {
+    return { scan: this.scanner.layout, factors: this.factors.slice() };
+  }
+
+  /**
+   * Rows another thread read, as the scanner reads them, from the lines that follow those read so
+   * far (no blank line among them): taken in as if read here, `times` (when there is a time
+   * column) and `values` per channel holding `count` rows; `lastTimeText` is the time column's text
+   * on the last of them.
+   */
+  addScannedRows(times: Float64Array | null, values: Float64Array[], count: number, lastTimeText: string): void {
+    let at = 0;
+    while (at < count) {
+      const take = Math.min(count - at, ROW_CHUNK - this.fill);
+      if (this.times && times) this.times.set(times.subarray(at, at + take), this.fill);
+      for (let c = 0; c < this.buffers.length; c++) this.buffers[c]!.set(values[c]!.subarray(at, at + take), this.fill);
+      this.lineNo += take;
+      this.rows += take;
+      this.fill += take;
+      at += take;
+      if (this.fill === ROW_CHUNK) this.flush();
+    }
+    if (count > 0 && this.times) this.lastTimeText = lastTimeText;
+  }
+
+  /**
+   * A whole chunk of rows another thread read from the lines that follow (no blank line among
+   * them), scaled and kept already: `decode` writes its numbers into the arrays it is given (time,
+   * then channels); they are checked as {@link flush} checks them and handed to the sink's
+   * `acceptKept`. The rows collected so far must fill whole chunks.
+   */
+  addKeptChunk(decode: (times: Float64Array | null, values: Float64Array[]) => void, lastTimeText: string): void {
+    if (this.fill !== 0 || !this.sink.acceptKept) throw new Error("RowCollector.addKeptChunk: not at a chunk boundary, or the sink keeps no rows");
+    decode(this.times, this.buffers);
+    const first = this.rows;
+    this.lineNo += ROW_CHUNK;
+    this.rows += ROW_CHUNK;
+    this.checkRange(first, ROW_CHUNK);
+    if (this.times) this.lastTimeText = lastTimeText;
+    this.sink.acceptKept(this.times, this.buffers, ROW_CHUNK, first);
+  }
+
+  /** Lines read so far, the header's and blank ones included. */
+  get linesRead(): number {
+    return this.lineNo;
   }
 
   /** A sample beyond {@link MAX_SAMPLE_MAGNITUDE} (or infinite after its unit and scale): a hard input error at its line and column. */

@@ -10,6 +10,8 @@ import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { SegmentEstimator } from "./segment-estimator";
 import type { AnalysisHelper, SegmentResults } from "./analysis-helper";
 
+const NO_ROWS = new Float64Array(0);
+
 /** How far ahead of the kept rows the helper thread maps pages: this many chunks, at least this many bytes at a time. */
 const PREFAULT_CHUNKS = 4;
 const PREFAULT_MIN_BYTES = 64 * 1024;
@@ -87,6 +89,8 @@ export class FirstPass implements RowSink {
     this.kept = KeptRows.over(this.memory);
     this.scans = Array.from({ length: channelCount }, () => new ChannelScan());
     this.estimator = new SegmentEstimator(estimation.length);
+    // The checks' stores after their loops, run once on no rows (see ChannelScan's constructor).
+    this.check(hasTime ? NO_ROWS : null, this.scans.map(() => NO_ROWS), 0, 0);
   }
 
   accept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
@@ -107,6 +111,29 @@ export class FirstPass implements RowSink {
     }
     this.stream(timesS, values, count, firstRow);
   }
+
+  /**
+   * A chunk of rows packed into the kept columns by the helper thread (RowCollector.addKeptChunk):
+   * taken over, then handled as {@link accept} handles rows. Only while rows are kept in shared memory.
+   */
+  acceptKept(timesS: Float64Array | null, values: Float64Array[], count: number, firstRow: number): void {
+    this.rows = firstRow + count;
+    if (!this.kept?.shared || this.rows > this.keepRows) throw new Error("FirstPass.acceptKept: rows are not being kept");
+    this.kept.adopt(count);
+    if (!this.streaming) {
+      if (this.rows > 2 * this.segmentSamples && this.channelCount > 0) this.switchToStreaming();
+      return;
+    }
+    this.stream(timesS, values, count, firstRow);
+  }
+
+  /** Rows kept for pass 2 at most (0: none). */
+  get keptRowsLimit(): number {
+    return this.keepRows;
+  }
+
+  /** The helper thread is busy with other work (parsing): it is not asked to map pages ahead. */
+  prefaultOff = false;
 
   /**
    * The look-ahead's rows as doubles, for the in-memory analysis of a record that ended within it
@@ -159,7 +186,7 @@ export class FirstPass implements RowSink {
    * bytes per row the last chunk packed into), while this thread parses on.
    */
   private prefaultKept(): void {
-    if (!this.kept?.shared || !this.helper) return;
+    if (!this.kept?.shared || !this.helper || this.prefaultOff) return;
     const pages: Float64Array[] = [];
     this.kept.forEachColumn((column, c) => {
       const from = Math.max(column.usedBytes, this.prefaulted[c] ?? 0);

@@ -1,15 +1,17 @@
 // The command line's fast path against the worker's own functions: a capture long enough for the
 // streaming analysis (more than two frequency segments) whose rows are kept in shared memory, run
 // through the real `npm run analyze -- … --json` with its analysis helper thread forced on (it then
-// measures the segments and the windows from the back while the main thread measures the windows
-// from the front), and with it forced off, must give the very numbers the worker's one-thread
-// pipeline (runCaptureAnalysis + runCaptureEvaluation, called here in-process) gives.
-import { mkdtempSync, rmSync } from "node:fs";
+// parses the later part of the file, measures the segments and the windows from the back while the
+// main thread measures the windows from the front), and with it forced off, must give the very
+// numbers the worker's one-thread pipeline (runCaptureAnalysis + runCaptureEvaluation, called here
+// in-process) gives; and a bad cell where the helper's part starts, the very error.
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from "node:fs";
 import os from "node:os";
 import path from "node:path";
 import { afterAll, beforeAll, describe, expect, test } from "vitest";
 import { writeLines } from "@/fixtures/write-lines";
 import { KEEP_ROWS_BYTES } from "@/lib/analysis/analyze-csv-file";
+import { helperPartStart } from "@/lib/analysis/helper-part-start";
 import { FREQUENCY_SEGMENT_SAMPLES } from "@/lib/analysis/segment-bounds";
 import { parseAnalyzeArgs } from "@/lib/pipeline/parse-analyze-args";
 import { runCaptureAnalysis } from "@/lib/pipeline/run-capture-analysis";
@@ -74,6 +76,23 @@ describe("the CLI's streaming path with its helper thread gives the worker's num
       expect(cli.stderr).toBe("");
       expect(cli.status).toBe(0);
       expect(JSON.parse(cli.stdout), `helper ${setting}`).toEqual(worker);
+    }
+  }, SLOW);
+
+  test("a bad cell on the first line of the helper's part: the same error at the same line and column, helper on and off", () => {
+    const text = readFileSync(file, "latin1"); // ASCII: one character per byte
+    const from = helperPartStart(file, text.length);
+    expect(from).not.toBeNull();
+    const end = text.indexOf("\n", from!);
+    const line = text.slice(0, from!).split("\n").length;
+    const changed = text.slice(from!, end).replace(/,(-?)\d/, ",$1x");
+    const badFile = path.join(dir, "bad-cell-at-split.csv");
+    writeFileSync(badFile, text.slice(0, from!) + changed + text.slice(end), "latin1");
+    const cell = changed.split(",")[1]!;
+    for (const setting of ["on", "off"]) {
+      const cli = runAnalyzeCli([badFile, "--json"], { env: { ...withoutDatabase(), ORDWISE_ANALYSIS_HELPER: setting }, timeoutMs: 120_000 });
+      expect(cli.status, `helper ${setting}`).toBe(1);
+      expect(cli.stderr, `helper ${setting}`).toBe(`error: ${badFile}: non-numeric cell at line ${line}, column 2 (Va (V)): "${cell}", not a number\n`);
     }
   }, SLOW);
 });
