@@ -197,12 +197,23 @@ describe("role matrix — object level", () => {
   beforeAll(async () => {
     const admin = clients.get("admin")!;
     const viewer = clients.get("viewer")!;
-    const all = (await (await admin.request("GET", "/api/captures")).json()) as { items: { id: string; siteId: string; title: string; reviewState: string }[] };
-    const visible = (await (await viewer.request("GET", "/api/captures")).json()) as { items: { id: string }[] };
-    const visibleIds = new Set(visible.items.map((c) => c.id));
     // The demo scenario approves a capture at a site of another customer (Bench B); the viewer must not see it.
-    const other = all.items.find((c) => c.reviewState === "approved" && !visibleIds.has(c.id))!;
+    // The list is paged and other tests add captures, so every page of analysed captures is searched.
+    type Listed = { id: string; siteId: string; title: string; reviewState: string };
+    let other: Listed | undefined;
+    for (let page = 1; page <= 50 && !other; page++) {
+      const { items } = (await (await admin.request("GET", `/api/captures?status=done&page=${page}`)).json()) as { items: Listed[] };
+      if (items.length === 0) break;
+      for (const c of items) {
+        if (c.reviewState !== "approved") continue;
+        if ((await viewer.request("GET", `/api/captures/${c.id}`)).status === 404) {
+          other = c;
+          break;
+        }
+      }
+    }
     expect(other).toBeDefined();
+    if (!other) return;
     otherCaptureId = other.id;
     otherSiteId = other.siteId;
     otherTitle = other.title;
