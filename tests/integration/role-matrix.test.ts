@@ -198,14 +198,16 @@ describe("role matrix — object level", () => {
     const admin = clients.get("admin")!;
     const viewer = clients.get("viewer")!;
     // The demo scenario approves a capture at a site of another customer (Bench B); the viewer must not see it.
-    // The list is paged and other tests add captures, so every page of analysed captures is searched.
-    type Listed = { id: string; siteId: string; title: string; reviewState: string };
+    // The list is paged and other tests add captures, so every page of analysed captures is searched; a capture
+    // counts as approved by its approved verdict (a test judging it again moves its review state on, and the
+    // approved sheet stays what its customer reads).
+    type Listed = { id: string; siteId: string; title: string; approvedVerdict: string | null };
     let other: Listed | undefined;
     for (let page = 1; page <= 50 && !other; page++) {
       const { items } = (await (await admin.request("GET", `/api/captures?status=done&page=${page}`)).json()) as { items: Listed[] };
       if (items.length === 0) break;
       for (const c of items) {
-        if (c.reviewState !== "approved") continue;
+        if (c.approvedVerdict === null) continue;
         if ((await viewer.request("GET", `/api/captures/${c.id}`)).status === 404) {
           other = c;
           break;
