@@ -10,6 +10,7 @@ import { checkOptions } from "./check-options";
 import { chooseSampleInterval } from "./choose-sample-interval";
 import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
+import { irregularStepError } from "./fit-sample-interval";
 import { checkOverrides, finishImport, type ImportOptions } from "./import-csv";
 import { intervalFromPreamble } from "./interval-from-preamble";
 import { planColumns, type ColumnPlan } from "./plan-columns";
@@ -20,7 +21,7 @@ import { RowCollector } from "./row-collector";
 import { FREQUENCY_SEGMENT_SAMPLES, segmentBounds } from "./segment-bounds";
 import { FirstPass } from "./stream-first-pass";
 import { KeptRows } from "./kept-rows";
-import { SecondPass, SecondPassChecks, STEP_MESSAGE, type TimeCheck } from "./stream-second-pass";
+import { SecondPass, SecondPassChecks, type TimeCheck } from "./stream-second-pass";
 import type { AnalysisOptions, AnalysisResult } from "./types";
 import { WindowAnalyzer } from "./window-analyzer";
 import { WindowClaims } from "./window-claims";
@@ -168,14 +169,7 @@ export async function analyzeCsvFile(
           }
           const toleranceS = 0.5 * intervalS + collector1.timeResolutionS();
           const step = first.stepError;
-          if (step && Math.abs(step.stepS - intervalS) > toleranceS) {
-            const line = collector1.lineOfRow(step.row);
-            throw new AnalysisInputError(
-              "irregular-time",
-              `irregular time axis at line ${line}: step of ${step.stepS.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
-              { line, column },
-            );
-          }
+          if (step && Math.abs(step.stepS - intervalS) > toleranceS) throw irregularStepError(collector1.lineOfRow(step.row), column, step.stepS, intervalS);
           timeCheck = { intervalS, startS: first.fit.intercept(), toleranceS, column };
           return intervalS;
         }

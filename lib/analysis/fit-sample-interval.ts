@@ -24,6 +24,27 @@ export function backwardsTimeError(line: number, column: number, timeS: number, 
   });
 }
 
+/** How far a stamp may stray, said in every irregular-time message. */
+const TOLERANCE_WORDS = "(tolerance ±50 % of the interval plus the stamps' printed resolution)";
+
+/** A step between two stamps too far from the interval (a dropped or repeated sample): the first one stops the analysis. */
+export function irregularStepError(line: number, column: number, stepS: number, intervalS: number): AnalysisInputError {
+  return new AnalysisInputError(
+    "irregular-time",
+    `irregular time axis at line ${line}: step of ${stepS.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${TOLERANCE_WORDS}`,
+    { line, column },
+  );
+}
+
+/** A stamp too far from the whole record's regular grid. */
+export function offGridError(line: number, column: number, timeS: number, residualS: number, intervalS: number): AnalysisInputError {
+  return new AnalysisInputError(
+    "irregular-time",
+    `irregular time axis at line ${line}: time stamp ${timeS} s is ${residualS.toPrecision(3)} s off the regular grid of ${intervalS.toPrecision(4)} s ${TOLERANCE_WORDS}`,
+    { line, column },
+  );
+}
+
 /**
  * Least-squares fit of t_i = a + b·i over the whole time column. Printed time stamps are rounded,
  * so neighbouring differences are noisy; the slope of the fit is the interval.
@@ -65,27 +86,14 @@ export function fitSampleInterval(
   }
   const startS = fit.intercept();
   const tolerance = 0.5 * intervalS + resolutionS;
-  const describe = `(tolerance ±50 % of the interval plus the stamps' printed resolution)`;
   for (let i = 1; i < n; i++) {
     const step = timesS[i]! - timesS[i - 1]!;
-    if (Math.abs(step - intervalS) > tolerance) {
-      throw new AnalysisInputError(
-        "irregular-time",
-        `irregular time axis at line ${lineOfRow(i)}: step of ${step.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${describe}`,
-        { line: lineOfRow(i), column },
-      );
-    }
+    if (Math.abs(step - intervalS) > tolerance) throw irregularStepError(lineOfRow(i), column, step, intervalS);
   }
   let maxResidualS = 0;
   for (let i = 0; i < n; i++) {
     const residual = Math.abs(timesS[i]! - (startS + intervalS * i));
-    if (residual > tolerance) {
-      throw new AnalysisInputError(
-        "irregular-time",
-        `irregular time axis at line ${lineOfRow(i)}: time stamp ${timesS[i]} s is ${residual.toPrecision(3)} s off the regular grid of ${intervalS.toPrecision(4)} s ${describe}`,
-        { line: lineOfRow(i), column },
-      );
-    }
+    if (residual > tolerance) throw offGridError(lineOfRow(i), column, timesS[i]!, residual, intervalS);
     if (residual > maxResidualS) maxResidualS = residual;
   }
   return { intervalS, startS, maxResidualS };

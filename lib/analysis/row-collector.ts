@@ -27,6 +27,18 @@ export interface RowSink {
 }
 
 /**
+ * Each channel's first `count` values times its factor (unit prefix × user scale), in place: the one
+ * scaling every reader of a file applies, so rows parsed on another thread (parsePart) are the same doubles.
+ */
+export function applyFactors(channels: Float64Array[], factors: Float64Array, count: number): void {
+  for (let c = 0; c < channels.length; c++) {
+    const factor = factors[c]!;
+    const values = channels[c]!;
+    if (factor !== 1) for (let i = 0; i < count; i++) values[i]! *= factor;
+  }
+}
+
+/**
  * Parses data rows (papaparse rows or plain lines) into chunks for a {@link RowSink}, with line-accurate
  * errors for ragged rows and non-numeric cells. Shared by the text import, the file import and the
  * streaming analysis.
@@ -202,11 +214,7 @@ export class RowCollector {
   flush(): void {
     const count = this.fill;
     if (count === 0) return;
-    for (let c = 0; c < this.buffers.length; c++) {
-      const factor = this.factors[c]!;
-      const values = this.buffers[c]!;
-      if (factor !== 1) for (let i = 0; i < count; i++) values[i]! *= factor;
-    }
+    applyFactors(this.buffers, this.factors, count);
     this.checkRange(this.rows - count, count);
     this.fill = 0;
     this.sink.accept(this.times, this.buffers, count, this.rows - count);

@@ -3,15 +3,13 @@
 import { ChannelScan } from "./channel-scan";
 import { WaveformCollector } from "./collect-waveform";
 import { AnalysisInputError } from "./errors";
+import { irregularStepError, offGridError } from "./fit-sample-interval";
 import type { KeptRows } from "./kept-rows";
 import { ROW_CHUNK, RowCollector, type RowSink } from "./row-collector";
 import { WindowAnalyzer, type WindowSource } from "./window-analyzer";
 import type { WindowClaims } from "./window-claims";
 
 const NO_ROWS = new Float64Array(0);
-
-/** Said after every irregular-time-axis message: the tolerance the checks allow. */
-export const STEP_MESSAGE = "(tolerance ±50 % of the interval plus the stamps' printed resolution)";
 
 /** Pass 2 sink: exact time-axis checks, clipping runs, the waveform excerpt, and windows from a ring buffer. */
 export class SecondPass implements RowSink, WindowSource {
@@ -170,22 +168,12 @@ export class SecondPassChecks {
       if (i > 0) {
         const step = t - previous;
         if (Math.abs(step - intervalS) > toleranceS) {
-          const line = this.collector().lineOfRow(i);
-          throw new AnalysisInputError(
-            "irregular-time",
-            `irregular time axis at line ${line}: step of ${step.toPrecision(4)} s where the interval is ${intervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
-            { line, column },
-          );
+          throw irregularStepError(this.collector().lineOfRow(i), column, step, intervalS);
         }
       }
       const residual = Math.abs(t - (startS + intervalS * i));
       if (residual > toleranceS && !this.residualError) {
-        const line = this.collector().lineOfRow(i);
-        this.residualError = new AnalysisInputError(
-          "irregular-time",
-          `irregular time axis at line ${line}: time stamp ${t} s is ${residual.toPrecision(3)} s off the regular grid of ${intervalS.toPrecision(4)} s ${STEP_MESSAGE}`,
-          { line, column },
-        );
+        this.residualError = offGridError(this.collector().lineOfRow(i), column, t, residual, intervalS);
       }
       previous = t;
     }
