@@ -33,7 +33,7 @@ type ReadEvaluation<P> = (args: { captureId: string; evaluationId?: string }) =>
  * (`approvedOnly`) see only the approved evaluation of an approved capture — never a newer, unreviewed one.
  * `reader` limits what is visible (viewers: approved sheets of their customers' sites, no internal review comments).
  */
-async function loadSheetWith<P extends object>({ captureId, evaluationId, reader, approvedOnly = reader.role === "viewer" }: SheetArgs, read: ReadEvaluation<P>) {
+async function loadSheetWith<P extends object>({ captureId, evaluationId, reader, approvedOnly = readsApprovedResultOnly(reader) }: SheetArgs, read: ReadEvaluation<P>) {
   // Two round trips: the capture (with its site and uploader) decides what may be read; then the rest at once.
   const { capture, site, uploaderName } = await getSheetCapture({ id: captureId, reader });
   if (approvedOnly && capture.approvedEvaluationId && evaluationId && evaluationId !== capture.approvedEvaluationId) {
@@ -110,7 +110,7 @@ export type SheetPage = Awaited<ReturnType<typeof loadSheetPage>>;
  * null only when a capture has an analysis but no evaluation yet).
  */
 export async function loadChartJson({ captureId, reader, evaluationId }: { captureId: string; reader: Reader; evaluationId?: string }): Promise<{ tag: string | null; gzip: Buffer }> {
-  const viewer = reader.role === "viewer";
+  const viewer = readsApprovedResultOnly(reader);
   const found = await getVisibleChartsJson({ captureId, reader, evaluationId: viewer ? undefined : evaluationId });
   if (!found) throw new AppError("not_found", "No such capture.");
   if (viewer && evaluationId && evaluationId !== found.approvedEvaluationId) throw new AppError("not_found", "No such evaluation of this capture.");

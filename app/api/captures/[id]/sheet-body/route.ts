@@ -2,16 +2,12 @@ import { z } from "zod";
 import { gzipResponse } from "@/lib/api/gzip-response";
 import { captureParamsSchema } from "@/lib/api/params";
 import { withAuth } from "@/lib/api/with-auth";
+import { singleLineText } from "@/lib/validations/text";
 import { loadSheetBody } from "@/lib/captures/load-sheet";
 
 const querySchema = z.object({
   evaluation: z.uuid("Not an evaluation id"),
-  channel: z
-    .string()
-    .max(200, "At most 200 characters")
-    // eslint-disable-next-line no-control-regex
-    .regex(/^[^\u0000-\u001f\u007f]*$/, "Contains a control character")
-    .optional(),
+  channel: singleLineText().max(200, "At most 200 characters").optional(),
 });
 
 // GET /api/captures/:id/sheet-body?evaluation=ID[&channel=NAME] — the per-order part of the sheet (channel list,
